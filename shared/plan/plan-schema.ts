@@ -1,0 +1,91 @@
+import { z } from 'zod';
+
+/** The only plan format this version reads and writes. */
+export const PLAN_FORMAT = 'quiltline-plan/1' as const;
+
+/** A point in plan space: [x, y] in millimetres, y pointing down as on a screen. */
+export const pointSchema = z.tuple([z.number().finite(), z.number().finite()]);
+export type PointMm = z.infer<typeof pointSchema>;
+
+export const EXCLUSION_KINDS = ['hatch', 'tank', 'chimney', 'flue', 'boarded', 'downlight', 'other'] as const;
+export const exclusionKindSchema = z.enum(EXCLUSION_KINDS);
+export type ExclusionKind = z.infer<typeof exclusionKindSchema>;
+
+/** An area not to be covered: a polygon, or a point (`at`) for things like downlights. */
+export const exclusionSchema = z
+  .object({
+    kind: exclusionKindSchema,
+    label: z.string().max(120).optional(),
+    polygon: z.array(pointSchema).min(3).optional(),
+    at: pointSchema.optional(),
+    /** Extra clearance around this exclusion, mm; when absent the kind's default applies. */
+    clearanceMm: z.number().min(0).max(2000).optional(),
+  })
+  .refine((e) => (e.polygon ? !e.at : !!e.at), {
+    message: 'an exclusion has either a polygon or a point (at), not both or neither',
+  });
+export type Exclusion = z.infer<typeof exclusionSchema>;
+
+export const joistsSchema = z.object({
+  /** Direction the joists run, degrees from the plan's x axis. */
+  angleDeg: z.number().finite(),
+  centresMm: z.number().positive().max(2000),
+  widthMm: z.number().positive().max(500),
+  depthMm: z.number().positive().max(1000),
+  /** Perpendicular offset of the first joist centre from the plan origin, mm. */
+  offsetMm: z.number().finite().default(0),
+});
+export type Joists = z.infer<typeof joistsSchema>;
+
+export const CONDITIONS = ['good', 'compressed', 'damp', 'patchy', 'none'] as const;
+export const existingSchema = z.object({
+  depthMm: z.number().min(0).max(1000),
+  condition: z.enum(CONDITIONS).default('good'),
+  /** Thermal conductivity of the existing insulation, W/mK; a default applies when absent. */
+  lambda: z.number().positive().max(1).optional(),
+});
+export type Existing = z.infer<typeof existingSchema>;
+
+export const targetSchema = z.union([
+  z.object({ depthMm: z.number().positive().max(1000) }).strict(),
+  z.object({ uValue: z.number().positive().max(5) }).strict(),
+]);
+export type Target = z.infer<typeof targetSchema>;
+
+/** Optional background underlay: an uploaded image placed in plan space. */
+export const backgroundSchema = z.object({
+  url: z.string().max(2000),
+  /** Millimetres per image pixel, from a two-point calibration. */
+  mmPerPx: z.number().positive(),
+  originMm: pointSchema.default([0, 0]),
+  opacity: z.number().min(0).max(1).default(0.5),
+  locked: z.boolean().default(false),
+});
+
+/** Product choices per layer role; ids refer to the company catalogue. */
+export const productChoiceSchema = z.object({
+  baseProductId: z.string().max(80).optional(),
+  crossProductIds: z.array(z.string().max(80)).max(4).optional(),
+});
+
+export const planSchema = z.object({
+  format: z.literal(PLAN_FORMAT, {
+    error: (issue) =>
+      `unknown plan format ${JSON.stringify(issue.input)}: this version reads "${PLAN_FORMAT}"`,
+  }),
+  name: z.string().min(1).max(120),
+  outline: z.array(pointSchema),
+  eavesEdges: z.array(z.number().int().min(0)).default([]),
+  eavesGapMm: z.number().min(0).max(500).default(50),
+  joists: joistsSchema,
+  exclusions: z.array(exclusionSchema).default([]),
+  existing: existingSchema.default({ depthMm: 0, condition: 'none' }),
+  target: targetSchema.default({ depthMm: 270 }),
+  background: backgroundSchema.optional(),
+  products: productChoiceSchema.optional(),
+  notes: z.string().max(5000).optional(),
+});
+/** A plan after parsing (defaults filled in). */
+export type Plan = z.infer<typeof planSchema>;
+/** A plan as written in a file (defaults may be missing). */
+export type PlanInput = z.input<typeof planSchema>;
