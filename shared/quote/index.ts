@@ -1,0 +1,5 @@
+export * from './money';
+export * from './tax';
+export * from './totals';
+export * from './build-lines';
+export * from './cautions';
