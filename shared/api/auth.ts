@@ -21,3 +21,6 @@ export type SetPasswordBody = z.infer<typeof setPasswordBodySchema>;
 
 export const requestResetBodySchema = z.object({ email: emailSchema });
 export type RequestResetBody = z.infer<typeof requestResetBodySchema>;
+
+/** Client paths that e-mailed links open, with `?token=...` (the server builds the links). */
+export const AUTH_LINK_PATHS = { invite: '/set-password', reset: '/reset-password' } as const;

@@ -6,23 +6,39 @@ export const JOB_STAGES = ['enquiry', 'surveyed', 'quoted', 'accepted', 'schedul
 export const jobStageSchema = z.enum(JOB_STAGES);
 export type JobStage = z.infer<typeof jobStageSchema>;
 
-export const jobBodySchema = z.object({
+/** Job fields without defaults; the create and patch schemas derive from it. */
+const jobFieldsSchema = z.object({
   customerId: z.uuid({ error: 'choose a customer' }),
   propertyAddress: addressSchema,
+  stage: jobStageSchema,
+  assignedInstallerId: z.uuid({ error: 'choose an installer' }).nullable(),
+  installDate: z.iso.date({ error: 'use a date like 2027-01-31' }).nullable(),
+  accessNotes: z.string().max(2000),
+  notes: z.string().max(5000),
+});
+
+export const jobBodySchema = jobFieldsSchema.extend({
   stage: jobStageSchema.default('enquiry'),
-  assignedInstallerId: z.uuid().nullable().optional(),
-  installDate: z.iso.date({ error: 'use a date like 2027-01-31' }).nullable().optional(),
-  accessNotes: z.string().max(2000).optional().default(''),
-  notes: z.string().max(5000).optional().default(''),
+  assignedInstallerId: jobFieldsSchema.shape.assignedInstallerId.optional(),
+  installDate: jobFieldsSchema.shape.installDate.optional(),
+  accessNotes: jobFieldsSchema.shape.accessNotes.optional().default(''),
+  notes: jobFieldsSchema.shape.notes.optional().default(''),
 });
 export type JobBody = z.input<typeof jobBodySchema>;
-export const jobPatchSchema = jobBodySchema.partial();
+/**
+ * PATCH body: only the fields sent are changed. Built from the default-free fields on purpose —
+ * `jobBodySchema.partial()` would fill `stage: 'enquiry'` into every patch (zod 4 applies defaults
+ * inside optional).
+ */
+export const jobPatchSchema = jobFieldsSchema.partial();
 export type JobPatch = z.input<typeof jobPatchSchema>;
 
 export const JOB_SORTS = ['updated', 'created', 'stage', 'customer', 'installDate'] as const;
 export const jobListQuerySchema = z.object({
   q: z.string().max(200).optional(),
   stage: jobStageSchema.optional(),
+  /** Only jobs assigned to this installer (office/estimator filter). */
+  installerId: z.uuid().optional(),
   sort: z.enum(JOB_SORTS).default('updated'),
   dir: z.enum(['asc', 'desc']).default('desc'),
 });
@@ -51,3 +67,17 @@ export const jobSchema = z.object({
   updatedAt: z.string(),
 });
 export type Job = z.infer<typeof jobSchema>;
+
+/** One entry of a job's timeline (GET /api/jobs/:id/events), oldest first. */
+export const jobEventSchema = z.object({
+  id: z.string(),
+  kind: z.string(),
+  data: z.record(z.string(), z.unknown()),
+  user: z.object({ id: z.string(), name: z.string() }).nullable(),
+  createdAt: z.string(),
+});
+export type JobEvent = z.infer<typeof jobEventSchema>;
+
+/** The installers an office user may assign (GET /api/jobs/installers). */
+export const installerOptionSchema = z.object({ id: z.string(), name: z.string() });
+export type InstallerOption = z.infer<typeof installerOptionSchema>;
