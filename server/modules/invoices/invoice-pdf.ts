@@ -1,0 +1,162 @@
+/**
+ * The invoice and credit note PDF: Quiltline's own layout on A4, Inter from
+ * @expo-google-fonts/inter (full TTFs: pdfkit cannot embed WOFF2, and the @fontsource files are
+ * subset per script). Figures use Inter's tabular numerals ('tnum'); JetBrains Mono is not used
+ * here because fontkit fails on its ligature glyphs ("//", "->", "==") in URLs and notes. Every amount printed is the integer minor units of the invoice formatted
+ * once, so the PDF, the API and the payment service agree to the penny.
+ */
+import PDFDocument from 'pdfkit';
+import { createRequire } from 'node:module';
+import type { Invoice } from '../../../shared/api/invoices';
+
+const require = createRequire(import.meta.url);
+const FONT_REGULAR = require.resolve('@expo-google-fonts/inter/400Regular/Inter_400Regular.ttf');
+const FONT_SEMIBOLD = require.resolve('@expo-google-fonts/inter/600SemiBold/Inter_600SemiBold.ttf');
+
+const GRAPHITE = '#33363b';
+const GRAPHITE_LIGHT = '#5b6068';
+const TIMBER = '#8a5a2b';
+const PAPER_LINE = '#e7e0cf';
+const BRICK = '#b0462f';
+
+export interface CompanyDetails {
+  name: string;
+  addressLines: string[];
+  email: string;
+  phone?: string;
+  taxNumber?: string;
+}
+
+/** Format integer minor units as money, e.g. 12345 GBP → "£123.45". */
+export function formatMinor(amountMinor: number, currency: string): string {
+  const fmt = new Intl.NumberFormat('en-GB', { style: 'currency', currency });
+  const digits = fmt.resolvedOptions().maximumFractionDigits ?? 2;
+  return fmt.format(amountMinor / 10 ** digits);
+}
+
+/** 1500 → "1.5"; 2000 → "2". */
+export function formatQuantity(quantityMilli: number): string {
+  return (quantityMilli / 1000).toLocaleString('en-GB', { maximumFractionDigits: 3 });
+}
+
+/** 2000 → "20%", 500 → "5%", 0 → "0%". */
+export function formatRate(rateBp: number): string {
+  return `${(rateBp / 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })}%`;
+}
+
+const formatDate = (iso: string) => new Date(`${iso.slice(0, 10)}T00:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+
+/** Render the invoice (or credit note) to a PDF buffer. */
+export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {
+  const doc = new PDFDocument({ size: 'A4', margin: 50, info: { Title: `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`, Author: company.name } });
+  doc.registerFont('regular', FONT_REGULAR);
+  doc.registerFont('semibold', FONT_SEMIBOLD);
+  // 'mono' = Inter with tabular figures, so columns of amounts line up.
+  doc.registerFont('mono', FONT_REGULAR);
+  const TNUM = { features: ['tnum' as const] };
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  const money = (m: number) => formatMinor(m, invoice.currency);
+  const left = 50;
+  const right = doc.page.width - 50;
+  const width = right - left;
+  const isCredit = invoice.kind === 'credit_note';
+
+  // Header: company on the left, document title and number on the right.
+  doc.font('semibold').fontSize(16).fillColor(GRAPHITE).text(company.name, left, 50, { width: width / 2 });
+  doc.font('regular').fontSize(9).fillColor(GRAPHITE_LIGHT);
+  for (const l of [...company.addressLines, company.email, company.phone, company.taxNumber ? `VAT no. ${company.taxNumber}` : undefined]) {
+    if (l) doc.text(l, { width: width / 2 });
+  }
+  doc.font('semibold').fontSize(20).fillColor(isCredit ? BRICK : TIMBER).text(isCredit ? 'Credit note' : 'Invoice', left + width / 2, 50, { width: width / 2, align: 'right', ...TNUM });
+  doc.font('mono').fontSize(11).fillColor(GRAPHITE).text(invoice.number, { width: width / 2, align: 'right', ...TNUM });
+  doc.font('regular').fontSize(9).fillColor(GRAPHITE_LIGHT);
+  doc.text(`Issued ${formatDate(invoice.issueDate)}`, { width: width / 2, align: 'right', ...TNUM });
+  if (!isCredit && invoice.dueDate) doc.text(`Due ${formatDate(invoice.dueDate)}`, { width: width / 2, align: 'right', ...TNUM });
+  doc.text(`Job ${invoice.jobReference}`, { width: width / 2, align: 'right', ...TNUM });
+  if (invoice.quoteReference) doc.text(`Quote ${invoice.quoteReference}`, { width: width / 2, align: 'right', ...TNUM });
+  if (invoice.creditedInvoiceNumber) doc.text(`Credits invoice ${invoice.creditedInvoiceNumber}`, { width: width / 2, align: 'right', ...TNUM });
+
+  // Bill to
+  let y = Math.max(doc.y, 150) + 16;
+  doc.font('semibold').fontSize(9).fillColor(GRAPHITE_LIGHT).text('BILL TO', left, y);
+  doc.font('regular').fontSize(10).fillColor(GRAPHITE).text(invoice.customerName, left, doc.y + 2);
+  for (const l of invoice.billingAddress) doc.text(l);
+  if (isCredit && invoice.reason) {
+    doc.moveDown(0.6).font('semibold').fontSize(9).fillColor(GRAPHITE_LIGHT).text('REASON');
+    doc.font('regular').fontSize(10).fillColor(GRAPHITE).text(invoice.reason, { width });
+  }
+
+  // Lines table
+  // Right-aligned numeric columns from the right edge: total 75, net 70, VAT 40, unit 65, qty 40.
+  const cols = { desc: left, qty: right - 305, unit: right - 260, rate: right - 190, net: right - 145, total: right - 75 };
+  const descWidth = cols.qty - left - 8;
+  y = doc.y + 20;
+  const header = () => {
+    doc.font('semibold').fontSize(8).fillColor(GRAPHITE_LIGHT);
+    doc.text('DESCRIPTION', cols.desc, y);
+    doc.text('QTY', cols.qty, y, { width: 40, align: 'right', ...TNUM });
+    doc.text('UNIT', cols.unit, y, { width: 65, align: 'right', ...TNUM });
+    doc.text('VAT', cols.rate, y, { width: 40, align: 'right', ...TNUM });
+    doc.text('NET', cols.net, y, { width: 65, align: 'right', ...TNUM });
+    doc.text('TOTAL', cols.total, y, { width: 75, align: 'right', ...TNUM });
+    y += 14;
+    doc.moveTo(left, y).lineTo(right, y).lineWidth(0.8).strokeColor(GRAPHITE).stroke();
+    y += 6;
+  };
+  header();
+  for (const line of invoice.lines) {
+    doc.font('regular').fontSize(9.5);
+    const descHeight = doc.heightOfString(line.description, { width: descWidth });
+    if (y + descHeight > doc.page.height - 160) {
+      doc.addPage();
+      y = 50;
+      header();
+    }
+    doc.fillColor(GRAPHITE).text(line.description, cols.desc, y, { width: descWidth });
+    doc.font('mono').fontSize(9);
+    doc.text(formatQuantity(line.quantityMilli), cols.qty, y, { width: 40, align: 'right', ...TNUM });
+    doc.text(money(line.unitPriceMinor), cols.unit, y, { width: 65, align: 'right', ...TNUM });
+    doc.text(formatRate(line.taxRateBp), cols.rate, y, { width: 40, align: 'right', ...TNUM });
+    doc.text(money(line.netMinor), cols.net, y, { width: 65, align: 'right', ...TNUM });
+    doc.text(money(line.grossMinor), cols.total, y, { width: 75, align: 'right', ...TNUM });
+    y += Math.max(descHeight, 12) + 6;
+    doc.moveTo(left, y - 3).lineTo(right, y - 3).lineWidth(0.4).strokeColor(PAPER_LINE).stroke();
+  }
+
+  // Totals
+  y += 8;
+  const row = (label: string, value: string, bold = false) => {
+    doc.font(bold ? 'semibold' : 'regular').fontSize(bold ? 11 : 9.5).fillColor(GRAPHITE).text(label, right - 260, y, { width: 170, align: 'right', ...TNUM });
+    doc.font(bold ? 'semibold' : 'mono').fontSize(bold ? 11 : 9.5).text(value, right - 85, y, { width: 85, align: 'right', ...TNUM });
+    y += bold ? 18 : 14;
+  };
+  row('Net', money(invoice.netMinor));
+  for (const t of invoice.taxBreakdown) row(`VAT at ${formatRate(t.rateBp)} on ${money(t.netMinor)}`, money(t.taxMinor));
+  row(isCredit ? 'Total credited' : 'Total', money(invoice.totalMinor), true);
+  if (!isCredit) {
+    if (invoice.depositMinor) row('Less deposit paid', `−${money(invoice.depositMinor)}`);
+    if (invoice.creditedMinor) row('Less credit notes', `−${money(invoice.creditedMinor)}`);
+    row(invoice.status === 'paid' ? 'Paid' : 'Balance due', money(invoice.status === 'paid' ? 0 : invoice.balanceMinor), true);
+  }
+
+  // How to pay
+  if (!isCredit && invoice.status !== 'paid' && invoice.balanceMinor > 0 && invoice.payUrl) {
+    y += 12;
+    doc.font('semibold').fontSize(10).fillColor(TIMBER).text('Pay online', left, y);
+    doc.font('regular').fontSize(9).fillColor(GRAPHITE).text('Pay the balance by card at this private link:', left, doc.y + 2, { width });
+    doc.font('regular').fontSize(8.5).fillColor(GRAPHITE).text(invoice.payUrl, { width, link: invoice.payUrl, underline: false });
+  } else if (!isCredit && invoice.status === 'paid' && invoice.paidAt) {
+    y += 12;
+    doc.font('semibold').fontSize(10).fillColor(TIMBER).text(`Paid in full on ${formatDate(invoice.paidAt)}. Thank you.`, left, y);
+  }
+  if (invoice.notes) {
+    doc.moveDown(1).font('regular').fontSize(9).fillColor(GRAPHITE_LIGHT).text(invoice.notes, left, doc.y, { width });
+  }
+  doc.end();
+  return done;
+}

@@ -1,0 +1,78 @@
+import { z } from 'zod';
+
+/** How a company asks for a deposit when a customer accepts a quote. */
+export const DEPOSIT_MODES = ['none', 'percent', 'fixed'] as const;
+export const depositModeSchema = z.enum(DEPOSIT_MODES);
+export type DepositMode = z.infer<typeof depositModeSchema>;
+
+/**
+ * Office settings for payments. `depositPercentBp` is basis points (2500 = 25 %);
+ * `depositFixedMinor` is integer minor units (pence). Keys are never here: they come from the
+ * server's environment.
+ */
+export const paymentSettingsSchema = z
+  .object({
+    depositMode: depositModeSchema,
+    depositPercentBp: z.number().int().min(1, { error: 'enter a percentage above 0' }).max(10000, { error: 'at most 100 %' }).nullable(),
+    depositFixedMinor: z.number().int().min(1, { error: 'enter an amount above 0' }).max(100_000_000).nullable(),
+    paymentTermsDays: z.number().int().min(0).max(365, { error: 'at most 365 days' }),
+    currency: z.string().regex(/^[A-Z]{3}$/, { error: 'use a three-letter currency code such as GBP' }),
+  })
+  .check((ctx) => {
+    const v = ctx.value;
+    if (v.depositMode === 'percent' && v.depositPercentBp == null) {
+      ctx.issues.push({ code: 'custom', input: v, path: ['depositPercentBp'], message: 'enter the deposit percentage' });
+    }
+    if (v.depositMode === 'fixed' && v.depositFixedMinor == null) {
+      ctx.issues.push({ code: 'custom', input: v, path: ['depositFixedMinor'], message: 'enter the deposit amount' });
+    }
+  });
+export type PaymentSettings = z.infer<typeof paymentSettingsSchema>;
+
+/** What the settings page shows besides the editable values. */
+export const paymentSettingsViewSchema = z.object({
+  settings: paymentSettingsSchema,
+  /** 'service' when real keys are set in the environment; 'local' when the local stand-in is used */
+  provider: z.enum(['service', 'local']),
+});
+export type PaymentSettingsView = z.infer<typeof paymentSettingsViewSchema>;
+
+export const PAYMENT_STATUSES = ['open', 'paid', 'expired'] as const;
+export const PAYMENT_PURPOSES = ['deposit', 'balance'] as const;
+
+/** One attempt to collect money through the hosted checkout. */
+export const paymentSchema = z.object({
+  id: z.string(),
+  purpose: z.enum(PAYMENT_PURPOSES),
+  status: z.enum(PAYMENT_STATUSES),
+  amountMinor: z.number().int(),
+  currency: z.string(),
+  jobId: z.string().nullable(),
+  quoteId: z.string().nullable(),
+  invoiceId: z.string().nullable(),
+  paidAt: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type Payment = z.infer<typeof paymentSchema>;
+
+/** Deposit state of one quote, for the quote and job pages. */
+export const depositStatusSchema = z.object({
+  quoteId: z.string(),
+  /** none: no deposit is asked; due: asked and not paid yet; paid */
+  state: z.enum(['none', 'due', 'paid']),
+  amountMinor: z.number().int(),
+  currency: z.string(),
+  paidAt: z.string().nullable(),
+  attempts: z.number().int(),
+});
+export type DepositStatus = z.infer<typeof depositStatusSchema>;
+
+/** One entry of a job's money timeline. */
+export const paymentTimelineEntrySchema = z.object({
+  at: z.string(),
+  kind: z.enum(['deposit-paid', 'invoice-issued', 'invoice-paid', 'credit-note-issued', 'refund']),
+  text: z.string(),
+  amountMinor: z.number().int(),
+  currency: z.string(),
+});
+export type PaymentTimelineEntry = z.infer<typeof paymentTimelineEntrySchema>;
