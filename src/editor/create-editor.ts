@@ -1,0 +1,127 @@
+import type { Plan } from '../../shared/plan/plan-schema';
+import { fitCamera, screen, screenToWorld, zoomAt, type ScreenPt } from './geometry/coords';
+import { createEditorStore } from './store/editor-store';
+import { STEPS, type Session, type StepId } from './store/session';
+import { createCalibrateTool } from './tools/calibrate-tool';
+import { createEavesTool } from './tools/eaves-tool';
+import { createExclusionsTool } from './tools/exclusions-tool';
+import { createJoistsTool } from './tools/joists-tool';
+import { createOutlineTool } from './tools/outline-tool';
+import type { Tool, ToolContext, ToolKey } from './tools/tool';
+import { createViewTool } from './tools/view-tool';
+
+export type PointerInput = { x: number; y: number; shift?: boolean; alt?: boolean; ctrl?: boolean; button?: number };
+export type KeyInput = { key: string; shift?: boolean; ctrl?: boolean; alt?: boolean };
+
+export type Editor = ReturnType<typeof createEditor>;
+
+/**
+ * The editor without any view: a store plus the tools, driven by pointer and key events in
+ * screen pixels. The canvas forwards its events here; the tests drive it directly.
+ */
+export function createEditor(plan: Plan, session: Partial<Session> = {}) {
+  const store = createEditorStore(plan, session);
+  const tools: Record<StepId | 'calibrate', Tool> = {
+    outline: createOutlineTool(),
+    joists: createJoistsTool(),
+    exclusions: createExclusionsTool(),
+    eaves: createEavesTool(),
+    layers: createViewTool(),
+    review: createViewTool(),
+    calibrate: createCalibrateTool(),
+  };
+  let calibrating = false;
+  const ctx: ToolContext = { store, camera: () => store.getState().session.camera };
+  const tool = () => (calibrating ? tools.calibrate : tools[store.getState().session.step]);
+
+  const toPointer = (p: PointerInput) => {
+    const s = screen(p.x, p.y);
+    return {
+      screen: s,
+      world: screenToWorld(ctx.camera(), s),
+      shift: !!p.shift,
+      alt: !!p.alt,
+      ctrl: !!p.ctrl,
+      button: p.button ?? 0,
+    };
+  };
+
+  function setStep(step: StepId) {
+    tool().cancel(ctx);
+    calibrating = false;
+    store.setSession({ step, selection: null, draft: null, calibration: null });
+  }
+
+  function fit() {
+    const { plan: p, session: s } = store.getState();
+    store.setSession({ camera: fitCamera(p.outline, s.viewport.width, s.viewport.height) });
+  }
+
+  function zoomBy(factor: number, anchor?: ScreenPt) {
+    const s = store.getState().session;
+    const a = anchor ?? screen(s.viewport.width / 2, s.viewport.height / 2);
+    store.setSession({ camera: zoomAt(s.camera, a, factor) });
+  }
+
+  /** Global shortcuts first (undo, redo, steps, zoom), then the active tool's. */
+  function keyDown(k: KeyInput): boolean {
+    const key: ToolKey = { key: k.key, shift: !!k.shift, ctrl: !!k.ctrl, alt: !!k.alt };
+    const lower = k.key.toLowerCase();
+    if (key.ctrl && lower === 'z') {
+      if (key.shift) store.redo();
+      else store.undo();
+      return true;
+    }
+    if (key.ctrl && lower === 'y') {
+      store.redo();
+      return true;
+    }
+    if (key.ctrl) return false;
+    if (tool().keyDown(ctx, key)) return true;
+    if (/^[1-6]$/.test(k.key)) {
+      setStep(STEPS[Number(k.key) - 1]);
+      return true;
+    }
+    if (lower === 'f') { fit(); return true; }
+    if (k.key === '+' || k.key === '=') { zoomBy(1.25); return true; }
+    if (k.key === '-') { zoomBy(0.8); return true; }
+    if (k.key === '?') {
+      store.setSession((s) => ({ helpOpen: !s.helpOpen }));
+      return true;
+    }
+    if (k.key === 'Escape' && store.getState().session.helpOpen) {
+      store.setSession({ helpOpen: false });
+      return true;
+    }
+    return false;
+  }
+
+  return {
+    store,
+    pointerDown: (p: PointerInput) => tool().pointerDown(ctx, toPointer(p)),
+    pointerMove: (p: PointerInput) => tool().pointerMove(ctx, toPointer(p)),
+    pointerUp: (p: PointerInput) => tool().pointerUp(ctx, toPointer(p)),
+    /** Ends whatever the active tool was doing (pointer lost, window blurred). */
+    pointerCancel: () => tool().cancel(ctx),
+    keyDown,
+    setStep,
+    setCalibrating(on: boolean) {
+      tool().cancel(ctx);
+      calibrating = on;
+      store.setSession({ draft: null, calibration: null });
+    },
+    isCalibrating: () => calibrating,
+    toolState: () => tool().state(),
+    /** Wheel: zoom about the pointer (trackpad pinch arrives as wheel + ctrl in browsers). */
+    wheel(p: { x: number; y: number; deltaY: number }) {
+      zoomBy(Math.exp(-p.deltaY * 0.0015), screen(p.x, p.y));
+    },
+    zoomBy,
+    fit,
+    setViewport(width: number, height: number) {
+      store.setSession({ viewport: { width, height } });
+    },
+    undo: store.undo,
+    redo: store.redo,
+  };
+}
