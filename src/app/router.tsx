@@ -1,0 +1,74 @@
+import { lazy, Suspense, type ComponentType, type LazyExoticComponent } from 'react';
+import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { LoadingState } from '../components/ui';
+import { RouteErrorPage } from './error-boundary';
+import { RequireAuth } from './require-auth';
+import SignInPage from './routes/sign-in';
+
+/** Wraps a lazily loaded page so its chunk loads behind a spinner. */
+function page(Component: LazyExoticComponent<ComponentType>) {
+  return (
+    <Suspense fallback={<LoadingState />}>
+      <Component />
+    </Suspense>
+  );
+}
+
+// Every page but sign-in is its own chunk: the entry stays small and the editor's konva loads only on its route.
+const SetPasswordPage = lazy(() => import('./routes/set-password'));
+const ResetPasswordPage = lazy(() => import('./routes/reset-password'));
+const HomeRedirect = lazy(() => import('./routes/home-redirect'));
+const JobsListPage = lazy(() => import('./routes/jobs-list'));
+const JobNewPage = lazy(() => import('./routes/job-new'));
+const JobDetailPage = lazy(() => import('./routes/job-detail'));
+const JobEditPage = lazy(() => import('./routes/job-edit'));
+const CustomersPage = lazy(() => import('./routes/customers'));
+const UsersPage = lazy(() => import('./routes/users'));
+const OutboxPage = lazy(() => import('./routes/outbox'));
+const NotFoundPage = lazy(() => import('./routes/not-found'));
+
+// Placeholders for pages other engineers build: replace the import with the real page.
+const MyJobsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.MyJobsPlaceholder })));
+const JobSheetPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.JobSheetPlaceholder })));
+const SettingsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SettingsPlaceholder })));
+const SpaceEditorPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SpaceEditorPlaceholder })));
+
+/** Pages reachable only when signed in; they render inside the app frame (RequireAuth). */
+const signedInRoutes: RouteObject[] = [
+  { index: true, element: page(HomeRedirect) },
+  { path: 'jobs', element: page(JobsListPage) },
+  { path: 'jobs/new', element: page(JobNewPage) },
+  { path: 'jobs/:id', element: page(JobDetailPage) },
+  { path: 'jobs/:id/edit', element: page(JobEditPage) },
+  { path: 'customers', element: page(CustomersPage) },
+  { path: 'users', element: page(UsersPage) },
+  { path: 'outbox', element: page(OutboxPage) },
+
+  // --- routes owned by other engineers (append below; lazy-load heavy pages) ---
+  { path: 'my-jobs', element: page(MyJobsPage) }, // installer engineer
+  { path: 'jobs/:id/sheet', element: page(JobSheetPage) }, // installer engineer
+  { path: 'settings', element: page(SettingsPage) }, // quotes engineer
+  { path: 'spaces/:id/edit', element: page(SpaceEditorPage) }, // editor engineer
+];
+
+/** Pages anyone may open (signing in and the links in e-mails). */
+const publicRoutes: RouteObject[] = [
+  { path: '/sign-in', element: <SignInPage /> },
+  { path: '/set-password', element: page(SetPasswordPage) },
+  { path: '/reset-password', element: page(ResetPasswordPage) },
+];
+
+export const routes: RouteObject[] = [
+  {
+    errorElement: <RouteErrorPage />,
+    children: [
+      ...publicRoutes,
+      { path: '/', element: <RequireAuth />, children: signedInRoutes },
+      { path: '*', element: page(NotFoundPage) },
+    ],
+  },
+];
+
+export function createAppRouter() {
+  return createBrowserRouter(routes);
+}

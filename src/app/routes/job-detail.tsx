@@ -1,0 +1,56 @@
+import { useParams } from 'react-router-dom';
+import { can } from '../../../shared/auth/policies';
+import { ButtonLink, ErrorState, LoadingState, PageHeader, StageBadge, formatDateTime } from '../../components/ui';
+import { useCurrentUser } from '../../features/auth/use-current-user';
+import { useJob } from '../../features/jobs/api/get-job';
+import { JobDetails } from '../../features/jobs/components/job-details';
+import { JobSpaces } from '../../features/jobs/components/job-spaces';
+import { StageControl } from '../../features/jobs/components/stage-control';
+import { isApiError } from '../../lib/api-client';
+import NotFoundPage from './not-found';
+
+/** One job: who, where, which stage, who installs it and when, and its loft spaces. */
+export default function JobDetailPage() {
+  const { id = '' } = useParams();
+  const user = useCurrentUser();
+  const job = useJob(id);
+  if (job.isPending) return <LoadingState label="Loading the job…" />;
+  if (job.isError) {
+    if (isApiError(job.error) && job.error.status === 404) return <NotFoundPage />;
+    return <ErrorState error={job.error} onRetry={() => job.refetch()} title="The job could not be loaded" />;
+  }
+  const j = job.data;
+  const canEdit = can(user, 'jobs:write');
+  return (
+    <div className="flex flex-col gap-4">
+      <PageHeader
+        eyebrow={j.reference}
+        title={
+          <span className="flex flex-wrap items-center gap-x-3 gap-y-1">
+            {j.customer.name} <StageBadge stage={j.stage} />
+          </span>
+        }
+        subtitle={`Last changed ${formatDateTime(j.updatedAt)}`}
+        actions={
+          <>
+            <ButtonLink to={`/jobs/${j.id}/sheet`} variant="secondary">
+              Job sheet
+            </ButtonLink>
+            {canEdit && (
+              <ButtonLink to={`/jobs/${j.id}/edit`} variant="primary">
+                Edit job
+              </ButtonLink>
+            )}
+          </>
+        }
+      />
+      {canEdit && (
+        <div className="rounded-lg border border-paper-line bg-white/60 px-4 py-3">
+          <StageControl job={j} />
+        </div>
+      )}
+      <JobDetails job={j} />
+      <JobSpaces job={j} canEdit={can(user, 'plans:write')} />
+    </div>
+  );
+}

@@ -1,0 +1,55 @@
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { can } from '../../../shared/auth/policies';
+import { Alert, Button, EmptyState, ErrorState, LoadingState, PageHeader } from '../../components/ui';
+import { useCurrentUser } from '../../features/auth/use-current-user';
+import { useUsers } from '../../features/users/api/get-users';
+import { InviteUserForm } from '../../features/users/components/invite-user-form';
+import { UsersTable } from '../../features/users/components/users-table';
+import { RequireAction } from '../require-auth';
+
+export default function UsersPage() {
+  const me = useCurrentUser();
+  const users = useUsers();
+  const [inviting, setInviting] = useState(false);
+  const [invited, setInvited] = useState<string | null>(null);
+  const order = { office: 0, estimator: 1, installer: 2 } as const;
+  const sorted = [...(users.data ?? [])].sort((a, b) => Number(b.active) - Number(a.active) || order[a.role] - order[b.role] || a.name.localeCompare(b.name));
+
+  return (
+    <RequireAction action="users:manage">
+      <PageHeader
+        title="Users"
+        subtitle="Everyone in your company who signs in to Quiltline, and what their role lets them do."
+        actions={!inviting ? <Button onClick={() => { setInviting(true); setInvited(null); }}>Invite a colleague</Button> : null}
+      />
+      {inviting && (
+        <InviteUserForm
+          onDone={(email) => {
+            setInviting(false);
+            if (email) setInvited(email);
+          }}
+        />
+      )}
+      {invited && (
+        <div className="mb-4">
+          <Alert tone="success">
+            Invitation sent to <strong>{invited}</strong>. The link in it lets them choose a password.
+            {can(me, 'outbox:read') && (
+              <> In development the message is in the <Link to="/outbox" className="underline">Outbox</Link>.</>
+            )}
+          </Alert>
+        </div>
+      )}
+      {users.isPending ? (
+        <LoadingState label="Loading users…" />
+      ) : users.isError ? (
+        <ErrorState error={users.error} onRetry={() => users.refetch()} title="The users could not be loaded" />
+      ) : sorted.length === 0 ? (
+        <EmptyState title="No users" />
+      ) : (
+        <UsersTable users={sorted} currentUserId={me.id} />
+      )}
+    </RequireAction>
+  );
+}

@@ -1,0 +1,86 @@
+import { Suspense, useEffect, useState } from 'react';
+import { Link, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import type { Me } from '../../../shared/api/auth';
+import { ROLE_LABELS } from '../../../shared/auth/roles';
+import { can } from '../../../shared/auth/policies';
+import { navItemsFor } from '../../app/nav-items';
+import { useLogout } from '../../features/auth/api/logout';
+import { useOutboxAvailable } from '../../features/outbox/api/get-outbox';
+import { Button, LoadingState } from '../ui';
+import { Logo } from './logo';
+import { MainNav } from './main-nav';
+import { UserMenu } from './user-menu';
+
+/** The signed-in frame: top bar with role-aware navigation (a menu on phones) and the page below. */
+export function AppShell({ user }: { user: Me }) {
+  const [menuOpen, setMenuOpen] = useState(false);
+  const location = useLocation();
+  const navigate = useNavigate();
+  const logout = useLogout();
+  const outbox = useOutboxAvailable(can(user, 'outbox:read'));
+  const items = navItemsFor(user, { outbox });
+
+  useEffect(() => setMenuOpen(false), [location.pathname]);
+
+  function signOut() {
+    logout.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) });
+  }
+
+  return (
+    <div className="notebook-paper min-h-dvh">
+      <header className="sticky top-0 z-30 border-b border-paper-line bg-paper/95 backdrop-blur supports-[backdrop-filter]:bg-paper/80">
+        <div className="mx-auto flex h-14 max-w-6xl items-center gap-4 px-4">
+          <Link to="/" aria-label="Quiltline home" className="shrink-0">
+            <Logo />
+          </Link>
+          <nav aria-label="Main" className="hidden flex-1 md:block">
+            <MainNav items={items} />
+          </nav>
+          <div className="ml-auto hidden md:block">
+            <UserMenu user={user} onSignOut={signOut} signingOut={logout.isPending} />
+          </div>
+          <Button
+            variant="ghost"
+            size="sm"
+            className="ml-auto md:hidden"
+            aria-expanded={menuOpen}
+            aria-controls="phone-menu"
+            onClick={() => setMenuOpen((o) => !o)}
+          >
+            <svg viewBox="0 0 20 20" width="20" height="20" aria-hidden>
+              {menuOpen ? (
+                <path d="M5 5l10 10M15 5L5 15" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
+              ) : (
+                <path d="M3 6h14M3 10h14M3 14h14" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
+              )}
+            </svg>
+            Menu
+          </Button>
+        </div>
+        {menuOpen && (
+          <div id="phone-menu" className="border-t border-paper-line bg-paper px-4 pb-4 pt-2 shadow-md md:hidden">
+            <nav aria-label="Main">
+              <MainNav items={items} vertical onNavigate={() => setMenuOpen(false)} />
+            </nav>
+            <div className="mt-3 flex items-center justify-between gap-3 border-t border-paper-line pt-3">
+              <div className="min-w-0 leading-tight">
+                <div className="truncate text-sm font-medium">{user.name}</div>
+                <div className="truncate text-xs text-graphite-light">
+                  {ROLE_LABELS[user.role]} · {user.organisation.name}
+                </div>
+              </div>
+              <Button variant="secondary" size="sm" onClick={signOut} busy={logout.isPending}>
+                Sign out
+              </Button>
+            </div>
+          </div>
+        )}
+      </header>
+      <main className="mx-auto max-w-6xl px-4 py-6 sm:py-8">
+        <Suspense fallback={<LoadingState />}>
+          <Outlet />
+        </Suspense>
+      </main>
+    </div>
+  );
+}

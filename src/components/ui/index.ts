@@ -1,0 +1,11 @@
+export { Button, ButtonLink, buttonClass } from './button';
+export { Card, CardTitle } from './card';
+export { Field, useFieldControl } from './field';
+export { Input, Textarea } from './input';
+export { Select } from './select';
+export { Spinner, LoadingState } from './spinner';
+export { EmptyState, ErrorState, Alert } from './states';
+export { PageHeader } from './page-header';
+export { StageBadge, STAGE_LABELS } from './stage-badge';
+export { Table, THead, TBody, Tr, Th, Td } from './table';
+export { formatAddress, formatDate, formatDateTime } from './format';

@@ -1,0 +1,58 @@
+import { JOB_SORTS, JOB_STAGES, type JobStage } from '../../../../shared/api/jobs';
+import { Button, Field, Input, Select, STAGE_LABELS } from '../../../components/ui';
+
+export type JobSort = (typeof JOB_SORTS)[number];
+export type JobFilterValues = { q: string; stage: JobStage | ''; sort: JobSort; dir: 'asc' | 'desc' };
+
+export const SORT_LABELS: Record<JobSort, string> = {
+  updated: 'Last changed',
+  created: 'Date created',
+  stage: 'Stage',
+  customer: 'Customer name',
+  installDate: 'Install date',
+};
+
+/** Search box, stage filter and sort order of the jobs list. */
+export function JobFilters({ value, onChange }: { value: JobFilterValues; onChange: (next: Partial<JobFilterValues>) => void }) {
+  return (
+    <div className="mb-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-white/60 p-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.4fr)]">
+      <Field label="Search">
+        <Input
+          type="search"
+          placeholder="Customer, address, postcode or reference"
+          value={value.q}
+          onChange={(e) => onChange({ q: e.target.value })}
+        />
+      </Field>
+      <Field label="Stage">
+        <Select value={value.stage} onChange={(e) => onChange({ stage: e.target.value as JobStage | '' })}>
+          <option value="">All stages</option>
+          {JOB_STAGES.map((s) => (
+            <option key={s} value={s}>
+              {STAGE_LABELS[s]}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <div className="flex items-end gap-2">
+        <Field label="Sort by" className="flex-1">
+          <Select value={value.sort} onChange={(e) => onChange({ sort: e.target.value as JobSort })}>
+            {JOB_SORTS.map((s) => (
+              <option key={s} value={s}>
+                {SORT_LABELS[s]}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Button
+          variant="secondary"
+          className="h-10 w-24 shrink-0"
+          aria-label={value.dir === 'asc' ? 'Ascending order; switch to descending' : 'Descending order; switch to ascending'}
+          onClick={() => onChange({ dir: value.dir === 'asc' ? 'desc' : 'asc' })}
+        >
+          {value.dir === 'asc' ? '↑ Asc' : '↓ Desc'}
+        </Button>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,86 @@
+import { useState, type FormEvent } from 'react';
+import { Link } from 'react-router-dom';
+import { spaceBodySchema } from '../../../../shared/api/spaces';
+import type { Job } from '../../../../shared/api/jobs';
+import { Alert, Button, Card, CardTitle, EmptyState, Field, Input, formatDateTime } from '../../../components/ui';
+import { formErrorMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
+import { useCreateSpace } from '../api/create-space';
+
+/** The loft spaces of a job, each opening its plan; plus a small form to add one. */
+export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
+  const [adding, setAdding] = useState(false);
+  const [name, setName] = useState('');
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const create = useCreateSpace(job.id);
+
+  function onSubmit(e: FormEvent) {
+    e.preventDefault();
+    const parsed = spaceBodySchema.safeParse({ name });
+    if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
+    setErrors({});
+    create.mutate(parsed.data, {
+      onSuccess: () => {
+        setName('');
+        setAdding(false);
+      },
+      onError: (err) => setErrors(serverFieldErrors(err)),
+    });
+  }
+
+  return (
+    <Card>
+      <CardTitle
+        action={
+          canEdit && !adding ? (
+            <Button size="sm" variant="secondary" onClick={() => setAdding(true)}>
+              Add space
+            </Button>
+          ) : null
+        }
+      >
+        Loft spaces
+      </CardTitle>
+      {adding && (
+        <form onSubmit={onSubmit} noValidate className="mb-4 flex flex-col gap-2 rounded-md bg-paper-dark/60 p-3 sm:flex-row sm:items-start" aria-label="Add space">
+          <Field label="Name of the space" error={errors.name} className="flex-1" hint="For example: Main loft, Garage loft, Extension.">
+            <Input value={name} onChange={(e) => setName(e.target.value)} autoFocus name="name" />
+          </Field>
+          <div className="flex gap-2 sm:mt-6">
+            <Button type="submit" busy={create.isPending}>
+              Add
+            </Button>
+            <Button variant="ghost" onClick={() => { setAdding(false); setErrors({}); }}>
+              Cancel
+            </Button>
+          </div>
+          {create.isError && !errors.name && <Alert>{formErrorMessage(create.error)}</Alert>}
+        </form>
+      )}
+      {job.spaces.length === 0 ? (
+        <EmptyState title="No spaces yet">
+          Each loft area (main loft, garage loft, extension) gets its own space and plan.
+        </EmptyState>
+      ) : (
+        <ul className="divide-y divide-paper-line">
+          {job.spaces.map((s) => (
+            <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-2.5">
+              <div>
+                <div className="font-medium">{s.name}</div>
+                <div className="font-mono text-xs text-graphite-light">
+                  {s.latestRevision ? `revision ${s.latestRevision}` : 'no plan yet'} · {formatDateTime(s.updatedAt)}
+                </div>
+              </div>
+              <Link to={`/spaces/${s.id}/edit`} className="text-sm font-medium text-teal-dark hover:underline">
+                {canEdit ? (s.latestRevision ? 'Open plan' : 'Draw plan') : 'View plan'} →
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+      <p className="mt-4 border-t border-paper-line pt-3 text-xs leading-relaxed text-graphite-light">
+        <strong className="text-graphite">Surveying a loft:</strong> use a secure ladder, tread only on joists or boards, keep clear of
+        cables and flues, and wear a mask, gloves and goggles near mineral wool. Local building regulations and licensed practice take precedence.
+      </p>
+    </Card>
+  );
+}

@@ -1,0 +1,35 @@
+import type { z } from 'zod';
+import { isApiError } from './api-client';
+
+export type FieldErrors = Record<string, string>;
+
+/** The first message per field path ("propertyAddress.town") of a zod error. */
+export function zodFieldErrors(error: z.ZodError): FieldErrors {
+  const out: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.map(String).join('.');
+    if (!(key in out)) out[key] = issue.message;
+  }
+  return out;
+}
+
+/**
+ * Field errors from a failed mutation: the server's details by path, with an optional prefix
+ * stripped (some servers report "body.email"). Empty when the error names no field.
+ */
+export function serverFieldErrors(error: unknown): FieldErrors {
+  if (!isApiError(error)) return {};
+  const out: FieldErrors = {};
+  for (const d of error.details) {
+    const key = d.path.replace(/^body\./, '');
+    if (!(key in out)) out[key] = d.message;
+  }
+  return out;
+}
+
+/** A message for the top of a form when the error is not about one field. */
+export function formErrorMessage(error: unknown): string | null {
+  if (!error) return null;
+  if (isApiError(error)) return error.details.length ? 'Some fields need attention.' : error.message;
+  return error instanceof Error ? error.message : 'Something went wrong.';
+}
