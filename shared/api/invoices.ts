@@ -1,24 +1,37 @@
 import { z } from 'zod';
+import { taxClassSchema } from './settings';
 
 /** Where an invoice line came from. */
 export const INVOICE_LINE_SOURCES = ['quote', 'variation', 'credit'] as const;
 
 /**
- * One line as entered: quantity in thousandths (1500 = 1.5) so totals stay integer;
- * unit price in minor units; tax rate in basis points (2000 = 20 %, 500 = 5 %, 0 = zero-rated).
+ * One line as the office enters it (a variation found on site, or a credit note line), shaped like a
+ * quote line: money in minor units, quantity to three decimals, and the tax class whose rate on the
+ * invoice date applies (the same rule as the quote).
  */
 export const invoiceLineInputSchema = z.object({
   description: z.string().trim().min(1, { error: 'describe the line' }).max(300),
-  quantityMilli: z.number().int().min(1, { error: 'quantity must be above 0' }).max(1_000_000_000),
-  unitPriceMinor: z.number().int().min(-100_000_000).max(100_000_000),
-  taxRateBp: z.number().int().min(0).max(10000),
+  quantity: z
+    .number({ error: 'enter a quantity' })
+    .gt(0, { error: 'quantity must be above 0' })
+    .max(100_000)
+    .refine((q) => Math.abs(q * 1000 - Math.round(q * 1000)) < 1e-6, { error: 'use at most three decimals' }),
+  unit: z.string().trim().min(1).max(20).default('each'),
+  unitPriceMinor: z.number({ error: 'enter a price' }).int({ error: 'price must be whole minor units' }).min(-100_000_000).max(100_000_000),
+  taxClass: taxClassSchema,
 });
-export type InvoiceLineInput = z.infer<typeof invoiceLineInputSchema>;
+export type InvoiceLineInput = z.input<typeof invoiceLineInputSchema>;
 
-export const invoiceLineSchema = invoiceLineInputSchema.extend({
+export const invoiceLineSchema = z.object({
   id: z.string(),
   position: z.number().int(),
   source: z.enum(INVOICE_LINE_SOURCES),
+  description: z.string(),
+  quantity: z.number(),
+  unit: z.string(),
+  unitPriceMinor: z.number().int(),
+  taxClass: z.string().nullable(),
+  rateBp: z.number().int(),
   netMinor: z.number().int(),
   taxMinor: z.number().int(),
   grossMinor: z.number().int(),

@@ -16,14 +16,14 @@ async function pdfText(buf: Buffer): Promise<string> {
 
 function sampleInvoice(over: Partial<Invoice> = {}): Invoice {
   const raw = [
-    ['Mineral-wool roll 200 mm, 12 rolls', 12000, 2350, 0, 'quote'],
-    ['Labour, cross layer', 6500, 3800, 2000, 'quote'],
-    ['Walkway boards (variation on site)', 3000, 1299, 2000, 'variation'],
-    ['Łódź-pattern hatch seal kit', 1000, 1850, 2000, 'variation'],
+    ['Mineral-wool roll 200 mm, 12 rolls', 12, 2350, 0, 'quote'],
+    ['Labour, cross layer', 6.5, 3800, 2000, 'quote'],
+    ['Walkway boards (variation on site)', 3, 1299, 2000, 'variation'],
+    ['Łódź-pattern hatch seal kit', 1, 1850, 2000, 'variation'],
   ] as const;
   const lines = raw.map(([description, q, u, r, source], i) => ({
-    id: `l${i}`, position: i, description, quantityMilli: q, unitPriceMinor: u, taxRateBp: r, source,
-    ...lineAmounts({ quantityMilli: q, unitPriceMinor: u, taxRateBp: r }),
+    id: `l${i}`, position: i, description, quantity: q, unit: 'each', unitPriceMinor: u, taxClass: r ? 'standard' : 'energy_saving', rateBp: r, source,
+    ...lineAmounts({ quantity: q, unitPriceMinor: u, rateBp: r }),
   }));
   const t = sumLines(lines);
   const deposit = 10000;

@@ -2,49 +2,50 @@
 // 0 % for installed energy-saving materials are from HMRC VAT Notice 708/6 (REFERENCES.md); the
 // sums themselves were worked by hand, line by line, and are written out beside each row.
 import { describe, expect, it } from 'vitest';
-import fc from 'fast-check';
-import { addDays, balanceDue, depositFor, divRoundHalfAway, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';
+import { addDays, balanceDue, depositFor, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';
+import { computeQuoteTotals } from '../../shared/quote/totals';
+import { UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 
 describe('one invoice line', () => {
   it.each([
-    // quantityMilli, unitPriceMinor, taxRateBp, net, tax — worked by hand
-    [12000, 2350, 0, 28200, 0], // 12 rolls × £23.50 = £282.00, zero-rated
-    [6500, 3800, 2000, 24700, 4940], // 6.5 h × £38.00 = £247.00; 20 % = £49.40
-    [3000, 1299, 2000, 3897, 779], // 3 × £12.99 = £38.97; 20 % = 779.4p → 779p
-    [4000, 749, 2000, 2996, 599], // 4 × £7.49 = £29.96; 20 % = 599.2p → 599p
-    [1500, 333, 500, 500, 25], // 1.5 × 333p = 499.5p → 500p (half away from zero); 5 % = 25p
-    [1000, 10, 500, 10, 1], // 10p at 5 % = 0.5p → 1p
-    [1000, -10, 500, -10, -1], // a credit: −0.5p → −1p, symmetric with the charge
-    [1000, -2350, 2000, -2350, -470],
-  ])('qty %i/1000 at %ip, VAT %i bp → net %i, VAT %i', (q, unit, rate, net, tax) => {
-    expect(lineAmounts({ quantityMilli: q, unitPriceMinor: unit, taxRateBp: rate })).toEqual({ netMinor: net, taxMinor: tax, grossMinor: net + tax });
+    // quantity, unitPriceMinor, rateBp, net, tax — worked by hand
+    [12, 2350, 0, 28200, 0], // 12 rolls × £23.50 = £282.00, zero-rated
+    [6.5, 3800, 2000, 24700, 4940], // 6.5 h × £38.00 = £247.00; 20 % = £49.40
+    [3, 1299, 2000, 3897, 779], // 3 × £12.99 = £38.97; 20 % = 779.4p → 779p
+    [4, 749, 2000, 2996, 599], // 4 × £7.49 = £29.96; 20 % = 599.2p → 599p
+    [1.5, 333, 500, 500, 25], // 1.5 × 333p = 499.5p → 500p (half away from zero); 5 % = 25p
+    [1, 10, 500, 10, 1], // 10p at 5 % = 0.5p → 1p
+    [1, -10, 500, -10, -1], // a credit: −0.5p → −1p, symmetric with the charge
+    [1, -2350, 2000, -2350, -470],
+  ])('qty %d at %ip, VAT %i bp → net %i, VAT %i', (q, unit, rate, net, tax) => {
+    expect(lineAmounts({ quantity: q, unitPriceMinor: unit, rateBp: rate })).toEqual({ netMinor: net, taxMinor: tax, grossMinor: net + tax });
   });
 
   it('refuses fractional minor units with a clear error', () => {
-    expect(() => lineAmounts({ quantityMilli: 1000, unitPriceMinor: 12.5, taxRateBp: 2000 })).toThrow(/unitPriceMinor must be an integer/);
+    expect(() => lineAmounts({ quantity: 1, unitPriceMinor: 12.5, rateBp: 2000 })).toThrow(/whole number of minor units/);
   });
 
-  it('rounds exactly where floating point would not (BigInt inside)', () => {
-    // 0.5 + 2^52 is not representable as a double; the integer division still rounds correctly.
-    expect(divRoundHalfAway(9007199254740990n * 1000n + 500n, 1000n)).toBe(9007199254740991);
-    fc.assert(
-      fc.property(fc.integer({ min: -1e9, max: 1e9 }), fc.integer({ min: 1, max: 1e6 }), (a, b) => {
-        const r = divRoundHalfAway(BigInt(a), BigInt(b));
-        expect(Math.abs(r - a / b)).toBeLessThanOrEqual(0.5 + 1e-9);
-        expect(divRoundHalfAway(BigInt(-a), BigInt(b))).toBe(-r || 0);
-      }),
-    );
+  it('prices a line exactly as the quote does (same money helpers, same tax date)', () => {
+    // 1 May 2027: installed energy-saving materials 5 %, other items 20 % (HMRC VAT Notice 708/6).
+    const lines = [
+      { kind: 'material' as const, description: 'roll', quantity: 13, unit: 'roll', unitPriceMinor: 2899, unitCostMinor: 0, taxClass: 'energy_saving' as const },
+      { kind: 'extra' as const, description: 'boards', quantity: 2.345, unit: 'm', unitPriceMinor: 199, unitCostMinor: 0, taxClass: 'standard' as const },
+    ];
+    const q = computeQuoteTotals(lines, UK_DEFAULT_TAX_RATES, '2027-05-01');
+    const mine = q.lines.map((p) => ({ ...lineAmounts({ quantity: p.line.quantity, unitPriceMinor: p.line.unitPriceMinor, rateBp: p.rateBp }), rateBp: p.rateBp }));
+    expect(mine.map((m) => [m.netMinor, m.taxMinor])).toEqual([[37687, 1884], [467, 93]]); // 13 × 2899 = 37687, 5 % = 1884.35 → 1884; 2.345 × 199 = 466.655 → 467, 20 % = 93.4 → 93
+    expect(sumLines(mine).totalMinor).toBe(q.grossMinor);
   });
 });
 
 describe('invoice totals', () => {
   const lines = [
-    [12000, 2350, 0],
-    [6500, 3800, 2000],
-    [3000, 1299, 2000],
-    [4000, 749, 2000],
-    [1500, 333, 500],
-  ].map(([q, u, r]) => ({ ...lineAmounts({ quantityMilli: q, unitPriceMinor: u, taxRateBp: r }), taxRateBp: r }));
+    [12, 2350, 0],
+    [6.5, 3800, 2000],
+    [3, 1299, 2000],
+    [4, 749, 2000],
+    [1.5, 333, 500],
+  ].map(([q, u, r]) => ({ ...lineAmounts({ quantity: q, unitPriceMinor: u, rateBp: r }), rateBp: r }));
 
   it('sums net 602.93, VAT 63.43, total 666.36 with VAT grouped by rate (hand-worked)', () => {
     const t = sumLines(lines);

@@ -8,6 +8,8 @@
 import PDFDocument from 'pdfkit';
 import { createRequire } from 'node:module';
 import type { Invoice } from '../../../shared/api/invoices';
+import { formatMoney } from '../../../shared/quote/money';
+import { formatRateBp } from '../../../shared/quote/tax';
 
 const require = createRequire(import.meta.url);
 const FONT_REGULAR = require.resolve('@expo-google-fonts/inter/400Regular/Inter_400Regular.ttf');
@@ -27,21 +29,9 @@ export interface CompanyDetails {
   taxNumber?: string;
 }
 
-/** Format integer minor units as money, e.g. 12345 GBP → "£123.45". */
-export function formatMinor(amountMinor: number, currency: string): string {
-  const fmt = new Intl.NumberFormat('en-GB', { style: 'currency', currency });
-  const digits = fmt.resolvedOptions().maximumFractionDigits ?? 2;
-  return fmt.format(amountMinor / 10 ** digits);
-}
-
-/** 1500 → "1.5"; 2000 → "2". */
-export function formatQuantity(quantityMilli: number): string {
-  return (quantityMilli / 1000).toLocaleString('en-GB', { maximumFractionDigits: 3 });
-}
-
-/** 2000 → "20%", 500 → "5%", 0 → "0%". */
-export function formatRate(rateBp: number): string {
-  return `${(rateBp / 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })}%`;
+/** 1.5 → "1.5"; 2 → "2" (quantities have at most three decimals). */
+export function formatQuantity(quantity: number): string {
+  return quantity.toLocaleString('en-GB', { maximumFractionDigits: 3 });
 }
 
 const formatDate = (iso: string) => new Date(`${iso.slice(0, 10)}T00:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
@@ -60,7 +50,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
   });
-  const money = (m: number) => formatMinor(m, invoice.currency);
+  const money = (m: number) => formatMoney(m, invoice.currency);
   const left = 50;
   const right = doc.page.width - 50;
   const width = right - left;
@@ -119,9 +109,9 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     }
     doc.fillColor(GRAPHITE).text(line.description, cols.desc, y, { width: descWidth });
     doc.font('mono').fontSize(9);
-    doc.text(formatQuantity(line.quantityMilli), cols.qty, y, { width: 40, align: 'right', ...TNUM });
+    doc.text(formatQuantity(line.quantity), cols.qty, y, { width: 40, align: 'right', ...TNUM });
     doc.text(money(line.unitPriceMinor), cols.unit, y, { width: 65, align: 'right', ...TNUM });
-    doc.text(formatRate(line.taxRateBp), cols.rate, y, { width: 40, align: 'right', ...TNUM });
+    doc.text(formatRateBp(line.rateBp), cols.rate, y, { width: 40, align: 'right', ...TNUM });
     doc.text(money(line.netMinor), cols.net, y, { width: 65, align: 'right', ...TNUM });
     doc.text(money(line.grossMinor), cols.total, y, { width: 75, align: 'right', ...TNUM });
     y += Math.max(descHeight, 12) + 6;
@@ -136,7 +126,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     y += bold ? 18 : 14;
   };
   row('Net', money(invoice.netMinor));
-  for (const t of invoice.taxBreakdown) row(`VAT at ${formatRate(t.rateBp)} on ${money(t.netMinor)}`, money(t.taxMinor));
+  for (const t of invoice.taxBreakdown) row(`VAT at ${formatRateBp(t.rateBp)} on ${money(t.netMinor)}`, money(t.taxMinor));
   row(isCredit ? 'Total credited' : 'Total', money(invoice.totalMinor), true);
   if (!isCredit) {
     if (invoice.depositMinor) row('Less deposit paid', `−${money(invoice.depositMinor)}`);
