@@ -13,3 +13,27 @@ export const revisionSummarySchema = z.object({
   note: z.string().optional(),
 });
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
+
+/** POST /api/jobs/:id/spaces — an optional first plan becomes revision 1. */
+export const spaceCreateBodySchema = spaceBodySchema.extend({ plan: z.unknown().optional() });
+export type SpaceCreateBody = z.input<typeof spaceCreateBodySchema>;
+
+/** PATCH /api/spaces/:id */
+export const spacePatchSchema = z.object({
+  name: spaceBodySchema.shape.name.optional(),
+  position: z.number().int().min(0).max(1000).optional(),
+});
+export type SpacePatch = z.infer<typeof spacePatchSchema>;
+
+/** GET /api/spaces/:id (the plan itself is at /api/spaces/:id/plan). */
+export const spaceSchema = z.object({
+  id: z.string(),
+  jobId: z.string(),
+  jobReference: z.string(),
+  name: z.string(),
+  position: z.number().int(),
+  latestRevision: z.number().int().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Space = z.infer<typeof spaceSchema>;

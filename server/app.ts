@@ -1,0 +1,72 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type { AppDeps } from './deps';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { createSessionStack } from './middleware/session';
+import { createAuthService } from './modules/auth/auth.service';
+import { authRouter } from './modules/auth/auth.router';
+import { customersRouter } from './modules/customers/customers.router';
+import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
+import { healthRouter } from './modules/health/health.router';
+import { jobsRouter } from './modules/jobs/jobs.router';
+import { spacesRouter } from './modules/spaces/spaces.router';
+import { usersRouter } from './modules/users/users.router';
+
+/**
+ * The Express app, with no listening and no global state: index.ts listens, tests use supertest.
+ * Order: security headers → body parsing → session + passport → API routers → API 404 → SPA.
+ */
+export function createApp(deps: AppDeps): Express {
+  const { config } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+  app.set('query parser', 'extended');
+
+  app.use(helmet());
+  app.use(express.json({ limit: '5mb' }));
+
+  const auth = createAuthService(deps);
+  const { handlers: sessionHandlers, passport } = createSessionStack(deps, auth);
+
+  // Health answers without a session (load balancers probe it).
+  app.use('/api/health', healthRouter(deps));
+  app.use('/api', ...sessionHandlers);
+  app.use('/api/auth', authRouter(deps, auth, passport));
+  app.use('/api/users', usersRouter(deps, auth));
+  app.use('/api/customers', customersRouter(deps));
+  app.use('/api/jobs', jobsRouter(deps));
+  app.use('/api/spaces', spacesRouter(deps));
+  if (!config.isProduction) app.use('/api/dev/outbox', devOutboxRouter(deps));
+
+  // ---------------------------------------------------------------------------------------------
+  // feature routers — other modules append their mount lines here, e.g.
+  //   app.use('/api/quotes', quotesRouter(deps));
+  // ---------------------------------------------------------------------------------------------
+
+  app.use('/api', apiNotFound);
+
+  mountClient(app, config.distDir);
+  app.use(errorHandler);
+  return app;
+}
+
+/** Serves the built client from dist/, with index.html for every other GET (client-side routes). */
+function mountClient(app: Express, distDir: string) {
+  const indexHtml = path.join(distDir, 'index.html');
+  app.use(express.static(distDir, { index: false, maxAge: '1h', setHeaders: noCacheForHtml }));
+  app.get('/{*splat}', (_req, res) => {
+    if (!fs.existsSync(indexHtml)) {
+      res.status(503).type('text/plain').send('The client is not built yet: run `npm run build` (npm start does it for you).');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+}
+
+function noCacheForHtml(res: express.Response, file: string) {
+  if (file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+}

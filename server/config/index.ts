@@ -1,0 +1,94 @@
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { z } from 'zod';
+
+export const REPO_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+
+const bool = (fallback: boolean) =>
+  z
+    .enum(['1', '0', 'true', 'false', 'yes', 'no', ''])
+    .optional()
+    .transform((v) => (v === undefined || v === '' ? fallback : ['1', 'true', 'yes'].includes(v)));
+
+const DEV_SECRET = 'quiltline-development-secret-not-for-production';
+
+const envSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    HOST: z.string().default('127.0.0.1'),
+    DATABASE_URL: z.url({ error: 'DATABASE_URL must be a postgres:// URL (npm start sets it for the local cluster)' }),
+    SESSION_SECRET: z.string().min(16, { error: 'SESSION_SECRET must be at least 16 characters' }).optional(),
+    SMTP_URL: z.url().optional(),
+    MAIL_FROM: z.string().default('Quiltline <no-reply@quiltline.example.com>'),
+    /** Public base URL used in e-mailed links; defaults to http://127.0.0.1:PORT. */
+    APP_URL: z.url().optional(),
+    /** Set when running behind a reverse proxy that terminates HTTPS (e.g. "1" or "loopback"). */
+    TRUST_PROXY: z.string().optional(),
+    UPLOAD_DIR: z.string().default(path.join(REPO_ROOT, 'uploads')),
+    DIST_DIR: z.string().default(path.join(REPO_ROOT, 'dist')),
+    MIGRATE_ON_START: bool(true),
+    SEED_DEMO: z.string().optional(),
+    LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(20),
+    LOG_SQL: bool(false),
+    BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).optional(),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
+      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required when NODE_ENV=production' });
+    }
+  });
+
+export interface Config {
+  nodeEnv: 'development' | 'test' | 'production';
+  isProduction: boolean;
+  port: number;
+  host: string;
+  databaseUrl: string;
+  sessionSecret: string;
+  smtpUrl?: string;
+  mailFrom: string;
+  appUrl: string;
+  trustProxy: string | number | boolean;
+  uploadDir: string;
+  distDir: string;
+  migrateOnStart: boolean;
+  seedDemo: boolean;
+  loginRateLimit: number;
+  logSql: boolean;
+  /** bcrypt cost; 10 by default, 4 in tests (speed only: the algorithm is the same). */
+  bcryptRounds: number;
+  /** Prune expired sessions on a timer (off in tests so nothing keeps the process alive). */
+  pruneSessions: boolean;
+}
+
+/** Parses the environment; throws one readable error naming every bad variable. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.') || '(env)'}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  const trust = e.TRUST_PROXY;
+  return {
+    nodeEnv: e.NODE_ENV,
+    isProduction: e.NODE_ENV === 'production',
+    port: e.PORT,
+    host: e.HOST,
+    databaseUrl: e.DATABASE_URL,
+    sessionSecret: e.SESSION_SECRET ?? DEV_SECRET,
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ''),
+    trustProxy: trust === undefined || trust === '' ? false : /^\d+$/.test(trust) ? Number(trust) : trust === 'true' ? true : trust,
+    uploadDir: path.resolve(e.UPLOAD_DIR),
+    distDir: path.resolve(e.DIST_DIR),
+    migrateOnStart: e.MIGRATE_ON_START,
+    seedDemo: e.SEED_DEMO === undefined ? e.NODE_ENV !== 'production' : ['1', 'true', 'yes'].includes(e.SEED_DEMO),
+    loginRateLimit: e.LOGIN_RATE_LIMIT,
+    logSql: e.LOG_SQL,
+    bcryptRounds: e.BCRYPT_ROUNDS ?? (e.NODE_ENV === 'test' ? 4 : 10),
+    pruneSessions: e.NODE_ENV !== 'test',
+  };
+}

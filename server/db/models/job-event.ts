@@ -1,0 +1,29 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Job } from './job';
+import type { Organisation } from './organisation';
+import type { User } from './user';
+
+/** The timeline of a job: who did what, when. Insert-only. */
+export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttributes<JobEvent>> {
+  declare id: CreationOptional<string>;
+  declare organisationId: ForeignKey<Organisation['id']>;
+  declare jobId: ForeignKey<Job['id']>;
+  declare userId: ForeignKey<User['id']> | null;
+  /** e.g. created, updated, stage_changed, assigned, space_added; other modules add their own. */
+  declare kind: string;
+  declare data: CreationOptional<Record<string, unknown>>;
+  declare createdAt: CreationOptional<Date>;
+  declare user?: NonAttribute<User | null>;
+
+  static initModel(sequelize: Sequelize) {
+    JobEvent.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        kind: { type: DataTypes.STRING(40), allowNull: false },
+        data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'job_events', updatedAt: false },
+    );
+  }
+}

@@ -1,0 +1,154 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import bcrypt from 'bcryptjs';
+import type { JobStage } from '../../../shared/api/jobs';
+import type { Role } from '../../../shared/auth/roles';
+import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
+import { REPO_ROOT } from '../../config';
+import type { AppDeps } from '../../deps';
+import { Customer, Job, JobEvent, Organisation, PlanRevision, Space, User } from '../models';
+import { nextJobReference } from '../../modules/jobs/job-reference';
+
+/** Demo-only password, shown in the README. */
+export const DEMO_PASSWORD = 'quiltline-demo';
+export const DEMO_COMPANY = 'Hearthfold Insulation Ltd';
+export const OTHER_COMPANY = 'Northgate Loft Co';
+
+// An invented scenario: companies, people and addresses are made up; e-mails use example.com.
+const DEMO_USERS: Array<{ key: string; email: string; name: string; role: Role }> = [
+  { key: 'office', email: 'office@demo.example.com', name: 'Olivia Marsh', role: 'office' },
+  { key: 'estimator', email: 'estimator@demo.example.com', name: 'Ellis Harper', role: 'estimator' },
+  { key: 'estimator2', email: 'estimator2@demo.example.com', name: 'Priya Nandakumar', role: 'estimator' },
+  { key: 'installer', email: 'installer@demo.example.com', name: 'Ian Calder', role: 'installer' },
+  { key: 'installer2', email: 'installer2@demo.example.com', name: 'Tomasz Weller', role: 'installer' },
+];
+const OTHER_USERS: typeof DEMO_USERS = [
+  { key: 'office', email: 'office@northgate.example.com', name: 'Nadia Brook', role: 'office' },
+  { key: 'estimator', email: 'estimator@northgate.example.com', name: 'Callum Reid', role: 'estimator' },
+  { key: 'installer', email: 'installer@northgate.example.com', name: 'Dev Okafor', role: 'installer' },
+];
+
+type DemoJob = {
+  customer: string;
+  email: string;
+  phone: string;
+  line1: string;
+  town: string;
+  postcode: string;
+  stage: JobStage;
+  installer?: 'installer' | 'installer2';
+  installDate?: string;
+  estimator: 'estimator' | 'estimator2';
+  spaces: string[];
+  accessNotes?: string;
+  notes?: string;
+};
+
+const DEMO_JOBS: DemoJob[] = [
+  { customer: 'Harriet Quayle', email: 'harriet.quayle@example.com', phone: '01632 960101', line1: '14 Wrenfield Road', town: 'Ashcombe', postcode: 'AB1 2CD', stage: 'enquiry', estimator: 'estimator', spaces: ['Main loft'], notes: 'Asked about topping up after a cold winter.' },
+  { customer: 'Gideon Pell', email: 'g.pell@example.com', phone: '01632 960102', line1: '3 Tanner Close', town: 'Ashcombe', postcode: 'AB1 4EF', stage: 'surveyed', estimator: 'estimator', spaces: ['Main loft', 'Garage loft'], accessNotes: 'Hatch on the landing; ladder in the garage.' },
+  { customer: 'Mei Lin Hartley', email: 'meilin.hartley@example.com', phone: '01632 960103', line1: '27 Orchard Rise', town: 'Bramley Cross', postcode: 'BC2 3GH', stage: 'quoted', estimator: 'estimator2', spaces: ['Main loft'] },
+  { customer: 'Rowan & Jo Achebe', email: 'rowan.achebe@example.com', phone: '01632 960104', line1: '9 Millpond Lane', town: 'Bramley Cross', postcode: 'BC2 5JK', stage: 'declined', estimator: 'estimator2', spaces: ['Main loft'], notes: 'Declined for now; revisit in spring.' },
+  { customer: 'Bernadette Fox', email: 'b.fox@example.com', phone: '01632 960105', line1: '61 Chapel Street', town: 'Kelsworth', postcode: 'KW3 1LM', stage: 'accepted', estimator: 'estimator', spaces: ['Main loft', 'Extension'] },
+  { customer: 'Samuel Okonjo', email: 'sam.okonjo@example.com', phone: '01632 960106', line1: '2 Heron Court', town: 'Kelsworth', postcode: 'KW3 6NP', stage: 'scheduled', installer: 'installer', installDate: '2027-01-18', estimator: 'estimator', spaces: ['Main loft'], accessNotes: 'Key with the neighbour at no. 4. Dog on site.' },
+  { customer: 'Lydia Carrow', email: 'lydia.carrow@example.com', phone: '01632 960107', line1: '40 Beacon Hill', town: 'Ashcombe', postcode: 'AB1 7QR', stage: 'scheduled', installer: 'installer2', installDate: '2027-01-20', estimator: 'estimator2', spaces: ['Main loft'] },
+  { customer: 'Arthur Penhaligon', email: 'a.penhaligon@example.com', phone: '01632 960108', line1: '5 Foundry Row', town: 'Kelsworth', postcode: 'KW3 2ST', stage: 'installed', installer: 'installer', installDate: '2026-11-24', estimator: 'estimator', spaces: ['Main loft'] },
+  { customer: 'Fatima Rahman', email: 'fatima.rahman@example.com', phone: '01632 960109', line1: '18 Linden Avenue', town: 'Bramley Cross', postcode: 'BC2 8UV', stage: 'closed', installer: 'installer2', installDate: '2026-10-30', estimator: 'estimator2', spaces: ['Main loft'] },
+  { customer: 'Colm Duggan', email: 'colm.duggan@example.com', phone: '01632 960110', line1: '7 Saltings Way', town: 'Ashcombe', postcode: 'AB1 9WX', stage: 'accepted', installer: 'installer', installDate: '2027-02-03', estimator: 'estimator', spaces: ['Main loft', 'Garage loft'] },
+];
+
+const OTHER_JOBS: DemoJob[] = [
+  { customer: 'Imogen Thorne', email: 'imogen.thorne@example.com', phone: '01632 960201', line1: '12 Quarry Bank', town: 'Northgate', postcode: 'NG9 1AA', stage: 'surveyed', estimator: 'estimator', spaces: ['Main loft'] },
+  { customer: 'Pádraig Walsh', email: 'p.walsh@example.com', phone: '01632 960202', line1: '33 Ferry Road', town: 'Northgate', postcode: 'NG9 2BB', stage: 'scheduled', installer: 'installer', installDate: '2027-01-22', estimator: 'estimator', spaces: ['Main loft'] },
+];
+
+/** Used only when examples/ holds no valid plan yet: a plain rectangle like PRODUCT.md's sample. */
+const FALLBACK_PLAN: unknown = {
+  format: 'quiltline-plan/1',
+  name: 'Main loft',
+  outline: [[0, 0], [8400, 0], [8400, 5200], [0, 5200]],
+  eavesEdges: [0, 2],
+  eavesGapMm: 50,
+  joists: { angleDeg: 90, centresMm: 400, widthMm: 47, depthMm: 100, offsetMm: 0 },
+  exclusions: [{ kind: 'hatch', label: 'loft hatch', polygon: [[3800, 4300], [4500, 4300], [4500, 5000], [3800, 5000]] }],
+  existing: { depthMm: 100, condition: 'good' },
+  target: { depthMm: 270 },
+};
+
+/** Every valid plan in examples/*.json (invalid ones — some are there on purpose — are skipped). */
+export function loadExamplePlans(dir = path.join(REPO_ROOT, 'examples')): Array<{ file: string; plan: Plan }> {
+  if (!fs.existsSync(dir)) return [];
+  const out: Array<{ file: string; plan: Plan }> = [];
+  for (const file of fs.readdirSync(dir).filter((f) => f.endsWith('.json')).sort()) {
+    try {
+      const r = planSchema.safeParse(JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
+      if (r.success) out.push({ file, plan: r.data });
+    } catch {
+      /* not JSON: skip */
+    }
+  }
+  return out;
+}
+
+async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS, jobs: DemoJob[], plans: Plan[], passwordHash: string) {
+  const { sequelize } = deps;
+  await sequelize.transaction(async (transaction) => {
+    const org = await Organisation.create({ name }, { transaction });
+    const byKey = new Map<string, User>();
+    for (const u of users) {
+      byKey.set(u.key, await User.create({ organisationId: org.id, email: u.email, name: u.name, role: u.role, passwordHash }, { transaction }));
+    }
+    let planIndex = 0;
+    for (const j of jobs) {
+      const customer = await Customer.create(
+        { organisationId: org.id, name: j.customer, email: j.email, phone: j.phone, addressLine1: j.line1, addressLine2: '', town: j.town, postcode: j.postcode },
+        { transaction },
+      );
+      const author = byKey.get(j.estimator) ?? null;
+      const job = await Job.create(
+        {
+          organisationId: org.id,
+          reference: await nextJobReference(sequelize, org.id, transaction),
+          customerId: customer.id,
+          addressLine1: j.line1,
+          addressLine2: '',
+          town: j.town,
+          postcode: j.postcode,
+          stage: j.stage,
+          assignedInstallerId: j.installer ? byKey.get(j.installer)!.id : null,
+          installDate: j.installDate ?? null,
+          accessNotes: j.accessNotes ?? '',
+          notes: j.notes ?? '',
+          createdById: author?.id ?? null,
+        },
+        { transaction },
+      );
+      await JobEvent.create({ organisationId: org.id, jobId: job.id, userId: author?.id ?? null, kind: 'created', data: { reference: job.reference, stage: 'enquiry', demo: true } }, { transaction });
+      if (j.stage !== 'enquiry') {
+        await JobEvent.create({ organisationId: org.id, jobId: job.id, userId: author?.id ?? null, kind: 'stage_changed', data: { from: 'enquiry', to: j.stage } }, { transaction });
+      }
+      for (const [position, spaceName] of j.spaces.entries()) {
+        const space = await Space.create({ organisationId: org.id, jobId: job.id, name: spaceName, position }, { transaction });
+        const plan = plans[planIndex++ % plans.length];
+        await PlanRevision.create(
+          { organisationId: org.id, spaceId: space.id, revision: 1, plan: { ...plan, name: spaceName }, takeoff: null, authorId: author?.id ?? null, note: 'demo plan' },
+          { transaction },
+        );
+      }
+    }
+  });
+}
+
+/**
+ * Creates the demo companies once. Idempotent: does nothing when the demo company exists.
+ * Returns true when it created them.
+ */
+export async function seedDemo(deps: AppDeps): Promise<boolean> {
+  if (await Organisation.findOne({ where: { name: DEMO_COMPANY } })) return false;
+  const examples = loadExamplePlans();
+  const plans = examples.length ? examples.map((e) => e.plan) : [planSchema.parse(FALLBACK_PLAN)];
+  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, deps.config.bcryptRounds);
+  await seedCompany(deps, DEMO_COMPANY, DEMO_USERS, DEMO_JOBS, plans, passwordHash);
+  await seedCompany(deps, OTHER_COMPANY, OTHER_USERS, OTHER_JOBS, plans, passwordHash);
+  return true;
+}

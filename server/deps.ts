@@ -1,0 +1,54 @@
+import pg from 'pg';
+import type { Sequelize } from 'sequelize';
+import type { Config } from './config';
+import { createSequelize } from './db/sequelize';
+import { FakeSmtp, type Outbox } from './lib/fake-smtp';
+import { createSmtpMailer, type Mailer } from './lib/mailer';
+import { DiskStorage, type Storage } from './lib/storage';
+
+/** Everything createApp needs from the outside world; tests build their own. */
+export interface AppDeps {
+  config: Config;
+  sequelize: Sequelize;
+  /** A pg pool for the session store. */
+  pool: pg.Pool;
+  mailer: Mailer;
+  storage: Storage;
+  /** The local fake SMTP's messages, when it runs (development and tests); null with a real relay. */
+  outbox: Outbox | null;
+  close(): Promise<void>;
+}
+
+/**
+ * Builds the deps from config: Sequelize + pool on DATABASE_URL, a mailer to SMTP_URL or to an
+ * in-process fake SMTP server on 127.0.0.1, and disk storage in UPLOAD_DIR.
+ */
+export async function createDeps(config: Config): Promise<AppDeps> {
+  const sequelize = createSequelize(config.databaseUrl, { logSql: config.logSql });
+  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  let fake: FakeSmtp | null = null;
+  let mailer: Mailer;
+  if (config.smtpUrl) {
+    mailer = createSmtpMailer({ url: config.smtpUrl }, config.mailFrom);
+  } else {
+    if (config.isProduction) throw new Error('SMTP_URL is required when NODE_ENV=production');
+    fake = new FakeSmtp();
+    const port = await fake.start(Number(process.env.FAKE_SMTP_PORT ?? 0));
+    mailer = createSmtpMailer({ host: '127.0.0.1', port }, config.mailFrom);
+  }
+  const storage = new DiskStorage(config.uploadDir);
+  return {
+    config,
+    sequelize,
+    pool,
+    mailer,
+    storage,
+    outbox: fake,
+    async close() {
+      mailer.close();
+      await fake?.stop();
+      await pool.end();
+      await sequelize.close();
+    },
+  };
+}

@@ -1,0 +1,212 @@
+import { Op, QueryTypes, type Includeable, type Order, type WhereOptions } from 'sequelize';
+import type { Job as JobDto, JobBody, JobEvent as JobEventDto, JobListQuery, JobPatch, InstallerOption, JobStage } from '../../../shared/api/jobs';
+import { JOB_STAGES } from '../../../shared/api/jobs';
+import { can } from '../../../shared/auth/policies';
+import type { AppDeps } from '../../deps';
+import { Customer, Job, JobEvent, Space, User } from '../../db/models';
+import { ForbiddenError, NotFoundError, fieldError } from '../../lib/errors';
+import { redactPrices } from '../../lib/redact';
+import type { SessionUser } from '../../types';
+import { likePattern } from '../customers/customers.service';
+import { nextJobReference } from './job-reference';
+
+const INCLUDE: Includeable[] = [
+  { model: Customer, as: 'customer' },
+  { model: User, as: 'assignedInstaller', attributes: ['id', 'name'] },
+  { model: Space, as: 'spaces' },
+];
+
+/** Where-clause every job query starts from: the actor's company, and for installers only their jobs. */
+export function jobScope(actor: SessionUser): WhereOptions<Job> {
+  const where: Record<string, unknown> = { organisationId: actor.organisationId };
+  if (!can(actor, 'jobs:read-all')) where.assignedInstallerId = actor.id;
+  return where;
+}
+
+/**
+ * The job if this user may see it, else NotFound (another company's job, or an installer's
+ * unassigned job, both look like ids that do not exist). For other modules (quotes, job sheet...).
+ */
+export async function findJobForUser(actor: SessionUser, jobId: string): Promise<Job> {
+  const job = await Job.findOne({ where: { ...jobScope(actor), id: jobId } as WhereOptions<Job> });
+  if (!job) throw new NotFoundError('job');
+  return job;
+}
+
+/** Appends to a job's timeline. Other modules call it too (quote sent, installed, ...). */
+export async function recordJobEvent(job: Pick<Job, 'id' | 'organisationId'>, actor: Pick<SessionUser, 'id'> | null, kind: string, data: Record<string, unknown> = {}) {
+  await JobEvent.create({ organisationId: job.organisationId, jobId: job.id, userId: actor?.id ?? null, kind, data });
+}
+
+async function latestRevisions(spaceIds: string[]): Promise<Map<string, number>> {
+  if (!spaceIds.length) return new Map();
+  const rows = await Job.sequelize!.query<{ space_id: string; latest: number }>(
+    'SELECT space_id, max(revision)::int AS latest FROM plan_revisions WHERE space_id IN (:ids) GROUP BY space_id',
+    { replacements: { ids: spaceIds }, type: QueryTypes.SELECT },
+  );
+  return new Map(rows.map((r) => [r.space_id, r.latest]));
+}
+
+async function toDtos(jobs: Job[], actor: SessionUser): Promise<JobDto[]> {
+  const latest = await latestRevisions(jobs.flatMap((j) => (j.spaces ?? []).map((s) => s.id)));
+  const dtos = jobs.map<JobDto>((j) => ({
+    id: j.id,
+    reference: j.reference,
+    customer: { id: j.customer!.id, name: j.customer!.name, email: j.customer!.email, phone: j.customer!.phone },
+    propertyAddress: { line1: j.addressLine1, line2: j.addressLine2, town: j.town, postcode: j.postcode },
+    stage: j.stage,
+    assignedInstaller: j.assignedInstaller ? { id: j.assignedInstaller.id, name: j.assignedInstaller.name } : null,
+    installDate: j.installDate,
+    accessNotes: j.accessNotes,
+    notes: j.notes,
+    spaces: [...(j.spaces ?? [])]
+      .sort((a, b) => a.position - b.position || a.createdAt.getTime() - b.createdAt.getTime())
+      .map((s) => ({ id: s.id, name: s.name, latestRevision: latest.get(s.id) ?? null, updatedAt: s.updatedAt.toISOString() })),
+    createdAt: j.createdAt.toISOString(),
+    updatedAt: j.updatedAt.toISOString(),
+  }));
+  return can(actor, 'prices:read') ? dtos : dtos.map((d) => redactPrices(d));
+}
+
+function orderFor(query: JobListQuery): Order {
+  const dir = (query.dir ?? 'desc').toUpperCase() as 'ASC' | 'DESC';
+  const seq = Job.sequelize!;
+  switch (query.sort) {
+    case 'created':
+      return [['createdAt', dir]];
+    case 'stage':
+      return [[seq.literal(`array_position(ARRAY[${JOB_STAGES.map((s) => `'${s}'`).join(',')}]::varchar[], "Job"."stage")`), dir], ['updatedAt', 'DESC']];
+    case 'customer':
+      return [[{ model: Customer, as: 'customer' }, 'name', dir], ['reference', 'ASC']];
+    case 'installDate':
+      return [['installDate', `${dir} NULLS LAST`], ['reference', 'ASC']];
+    default:
+      return [['updatedAt', dir]];
+  }
+}
+
+export function createJobsService(deps: AppDeps) {
+  const { sequelize } = deps;
+
+  async function checkCustomer(actor: SessionUser, customerId: string) {
+    const c = await Customer.findOne({ where: { id: customerId, organisationId: actor.organisationId } });
+    if (!c) throw fieldError('customerId', 'choose one of your customers');
+  }
+
+  async function checkInstaller(actor: SessionUser, installerId: string | null | undefined) {
+    if (!installerId) return;
+    const u = await User.findOne({ where: { id: installerId, organisationId: actor.organisationId, role: 'installer', active: true } });
+    if (!u) throw fieldError('assignedInstallerId', 'choose an active installer of your company');
+  }
+
+  function checkSchedulingRights(actor: SessionUser, body: { assignedInstallerId?: unknown; installDate?: unknown }) {
+    if ((body.assignedInstallerId !== undefined || body.installDate !== undefined) && !can(actor, 'jobs:assign')) {
+      throw new ForbiddenError('only the office assigns installers and install dates');
+    }
+  }
+
+  async function load(actor: SessionUser, id: string) {
+    const job = await Job.findOne({ where: { ...jobScope(actor), id } as WhereOptions<Job>, include: INCLUDE });
+    if (!job) throw new NotFoundError('job');
+    return job;
+  }
+
+  return {
+    async list(actor: SessionUser, query: JobListQuery): Promise<JobDto[]> {
+      const where: Record<string | symbol, unknown> = { ...(jobScope(actor) as object) };
+      if (query.stage) where.stage = query.stage;
+      if (query.installerId && can(actor, 'jobs:read-all')) where.assignedInstallerId = query.installerId;
+      if (query.q?.trim()) {
+        const p = likePattern(query.q.trim());
+        where[Op.or] = [
+          { reference: { [Op.iLike]: p } },
+          { addressLine1: { [Op.iLike]: p } },
+          { town: { [Op.iLike]: p } },
+          { postcode: { [Op.iLike]: p } },
+          { '$customer.name$': { [Op.iLike]: p } },
+        ];
+      }
+      const jobs = await Job.findAll({ where: where as WhereOptions<Job>, include: INCLUDE, order: orderFor(query), limit: 500 });
+      return toDtos(jobs, actor);
+    },
+
+    async get(actor: SessionUser, id: string): Promise<JobDto> {
+      return (await toDtos([await load(actor, id)], actor))[0];
+    },
+
+    async create(actor: SessionUser, body: JobBody & { stage: JobStage }): Promise<JobDto> {
+      checkSchedulingRights(actor, body);
+      await checkCustomer(actor, body.customerId);
+      await checkInstaller(actor, body.assignedInstallerId);
+      const job = await sequelize.transaction(async (transaction) => {
+        const reference = await nextJobReference(sequelize, actor.organisationId, transaction);
+        const created = await Job.create(
+          {
+            organisationId: actor.organisationId,
+            reference,
+            customerId: body.customerId,
+            addressLine1: body.propertyAddress.line1,
+            addressLine2: body.propertyAddress.line2 ?? '',
+            town: body.propertyAddress.town,
+            postcode: body.propertyAddress.postcode,
+            stage: body.stage,
+            assignedInstallerId: body.assignedInstallerId ?? null,
+            installDate: body.installDate ?? null,
+            accessNotes: body.accessNotes ?? '',
+            notes: body.notes ?? '',
+            createdById: actor.id,
+          },
+          { transaction },
+        );
+        await JobEvent.create({ organisationId: actor.organisationId, jobId: created.id, userId: actor.id, kind: 'created', data: { reference, stage: body.stage } }, { transaction });
+        return created;
+      });
+      return this.get(actor, job.id);
+    },
+
+    async update(actor: SessionUser, id: string, patch: JobPatch): Promise<JobDto> {
+      const job = await load(actor, id);
+      checkSchedulingRights(actor, patch);
+      if (patch.customerId && patch.customerId !== job.customerId) await checkCustomer(actor, patch.customerId);
+      if (patch.assignedInstallerId && patch.assignedInstallerId !== job.assignedInstallerId) await checkInstaller(actor, patch.assignedInstallerId);
+      const changes: Partial<Job> = {};
+      if (patch.customerId !== undefined) changes.customerId = patch.customerId;
+      if (patch.propertyAddress) {
+        Object.assign(changes, { addressLine1: patch.propertyAddress.line1, addressLine2: patch.propertyAddress.line2 ?? '', town: patch.propertyAddress.town, postcode: patch.propertyAddress.postcode });
+      }
+      for (const k of ['stage', 'assignedInstallerId', 'installDate', 'accessNotes', 'notes'] as const) {
+        if (patch[k] !== undefined) (changes as Record<string, unknown>)[k] = patch[k];
+      }
+      const before = { stage: job.stage, assignedInstallerId: job.assignedInstallerId, installDate: job.installDate };
+      await sequelize.transaction(async (transaction) => {
+        await job.update(changes, { transaction });
+        const ev = (kind: string, data: Record<string, unknown>) =>
+          JobEvent.create({ organisationId: job.organisationId, jobId: job.id, userId: actor.id, kind, data }, { transaction });
+        if (changes.stage && changes.stage !== before.stage) await ev('stage_changed', { from: before.stage, to: changes.stage });
+        if (changes.assignedInstallerId !== undefined && changes.assignedInstallerId !== before.assignedInstallerId) {
+          await ev('assigned', { from: before.assignedInstallerId, to: changes.assignedInstallerId });
+        }
+        if (changes.installDate !== undefined && changes.installDate !== before.installDate) await ev('scheduled', { from: before.installDate, to: changes.installDate });
+        const other = Object.keys(changes).filter((k) => !['stage', 'assignedInstallerId', 'installDate'].includes(k));
+        if (other.length) await ev('updated', { fields: other });
+      });
+      return this.get(actor, id);
+    },
+
+    async events(actor: SessionUser, id: string): Promise<JobEventDto[]> {
+      const job = await findJobForUser(actor, id);
+      const rows = await JobEvent.findAll({
+        where: { jobId: job.id },
+        include: [{ model: User, as: 'user', attributes: ['id', 'name'] }],
+        order: [['createdAt', 'ASC']],
+      });
+      const dtos = rows.map((e) => ({ id: e.id, kind: e.kind, data: e.data, user: e.user ? { id: e.user.id, name: e.user.name } : null, createdAt: e.createdAt.toISOString() }));
+      return can(actor, 'prices:read') ? dtos : redactPrices(dtos);
+    },
+
+    async installers(actor: SessionUser): Promise<InstallerOption[]> {
+      const rows = await User.findAll({ where: { organisationId: actor.organisationId, role: 'installer', active: true }, order: [['name', 'ASC']] });
+      return rows.map((u) => ({ id: u.id, name: u.name }));
+    },
+  };
+}
