@@ -21,7 +21,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
     }
     setErrors({});
     loginMutation.mutate(parsed.data, {
-      onSuccess: onSignedIn,
+      onSuccess: (me) => onSignedIn(me),
       onError: (err) => setErrors(serverFieldErrors(err)),
     });
   }
