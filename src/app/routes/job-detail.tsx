@@ -5,6 +5,7 @@ import { useCurrentUser } from '../../features/auth/use-current-user';
 import { useJob } from '../../features/jobs/api/get-job';
 import { JobDetails } from '../../features/jobs/components/job-details';
 import { JobSpaces } from '../../features/jobs/components/job-spaces';
+import { JobTimeline } from '../../features/jobs/components/job-timeline';
 import { StageControl } from '../../features/jobs/components/stage-control';
 import { isApiError } from '../../lib/api-client';
 import NotFoundPage from './not-found';
@@ -50,7 +51,10 @@ export default function JobDetailPage() {
         </div>
       )}
       <JobDetails job={j} />
-      <JobSpaces job={j} canEdit={can(user, 'plans:write')} />
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <JobSpaces job={j} canEdit={can(user, 'plans:write')} />
+        <JobTimeline jobId={j.id} />
+      </div>
     </div>
   );
 }
