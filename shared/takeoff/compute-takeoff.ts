@@ -1,0 +1,245 @@
+import type { Plan } from '../plan/plan-schema';
+import { InvalidPlanError } from '../plan/plan-messages';
+import { checkPlanGeometry } from '../plan/plan-geometry-checks';
+import { multiPolygonArea, polygonCentroid, type MultiPolygon } from '../geometry/polygon';
+import { vecDot, type Vec2 } from '../geometry/vector';
+import { computePlanRegions, countExclusionsByKind } from './regions';
+import { chooseLayers, existingInsulation, insulationBuildUp, thermalContext, type LayerChoice } from './layers';
+import { cutStrips, layerBands, layingOrder } from './strips';
+import { packPieces, rollsByArea, type PieceToCut } from './roll-plan';
+import { depthForTargetU, loftCombinedMethod, rdsapRoofUValue, rValueImperial, type InsulationLayer, type LoftThermalContext } from './thermal';
+import { yearlySavings } from './savings';
+import { siteChecksFor } from './site-checks';
+import { resolveSettings, type TakeoffSettings } from './settings';
+import { productLaneWidthMm, type TakeoffProduct } from './products';
+import { TAKEOFF_FORMAT, type PlanPointMm, type Takeoff, type TakeoffLayer, type TakeoffStrip, type TakeoffThermalState } from './takeoff-types';
+
+export * from './takeoff-types';
+export { DEFAULT_TAKEOFF_SETTINGS } from './settings';
+export type { TakeoffSettings } from './settings';
+export type { TakeoffProduct } from './products';
+
+/** What a takeoff needs besides the plan. */
+export interface TakeoffOptions {
+  /** The company's roll products (see `parseProductCatalogue` and examples/products.json). */
+  products: TakeoffProduct[];
+  /** Company settings; anything left out takes `DEFAULT_TAKEOFF_SETTINGS`. */
+  settings?: Partial<TakeoffSettings>;
+}
+
+const r1 = (x: number) => Math.round(x * 10) / 10;
+const r3 = (x: number) => Math.round(x * 1000) / 1000;
+const r4 = (x: number) => Math.round(x * 10000) / 10000;
+const pt = (p: readonly number[]): PlanPointMm => [r1(p[0]), r1(p[1])];
+const m2 = (mm2: number) => mm2 / 1e6;
+
+/**
+ * The takeoff of one plan: net areas, layers, numbered strips with their plan geometry, the
+ * roll plan, both roll counts, U-values before and after (ISO 6946 combined method), the yearly
+ * saving and the site checks. Pure and synchronous (no I/O); the same code runs in the editor on
+ * every change and on the server. The plan must already be parsed by `planSchema` (use
+ * `validatePlan` for raw input); geometric errors throw `InvalidPlanError` with the messages.
+ * Areas in m² (3 decimals), lengths in mm, U in W/m²K (4 decimals), money in minor units.
+ */
+export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
+  const settings = resolveSettings(options.settings);
+  const checks = checkPlanGeometry(plan);
+  if (checks.errors.length) throw new InvalidPlanError(checks.errors);
+  const warnings: Takeoff['warnings'] = checks.warnings.map(({ code, message, edgeIndex, exclusionIndex, pointIndex }) => strip({ code, message, edgeIndex, exclusionIndex, pointIndex }));
+
+  const regions = computePlanRegions(plan, settings);
+  const layerPlan = chooseLayers(plan, options.products, settings);
+  warnings.push(...layerPlan.warnings);
+
+  const hatchIndex = plan.exclusions.findIndex((e) => e.kind === 'hatch');
+  const outlineCentre = polygonCentroid(regions.outline);
+  const hatch = plan.exclusions[hatchIndex];
+  const reference: Vec2 = hatch ? (hatch.at ? [hatch.at[0], hatch.at[1]] : polygonCentroid(hatch.polygon!)) : outlineCentre;
+
+  const layers = layerPlan.layers.map((choice) => buildLayer(plan, choice, regions.layerRegion, regions.layerAreaMm2, reference, outlineCentre, settings));
+
+  const ctx = thermalContext(plan, settings);
+  const beforeLayers = existingInsulation(plan, settings);
+  const afterLayers = insulationBuildUp(plan, settings, layerPlan.layers);
+  const before = thermalState(beforeLayers, ctx);
+  const after = thermalState(afterLayers, ctx);
+  const targetU = 'uValue' in plan.target ? plan.target.uValue : undefined;
+  const firstCross = layerPlan.layers.find((l) => l.role === 'cross')?.product;
+  const base = layerPlan.layers.filter((l) => l.role === 'base');
+  const depthForTarget = targetU !== undefined ? depthForTargetU(insulationBuildUp(plan, settings, base), firstCross?.lambda ?? 0.044, targetU, ctx) : undefined;
+  const savings = yearlySavings(before.uValue, after.uValue, m2(regions.layerAreaMm2), settings.degreeDays, settings.heatingEfficiency, settings.fuelPriceMinorPerKwh);
+
+  const countsByKind = countExclusionsByKind(plan);
+  const items = plan.exclusions.map((e, index) => ({
+    index,
+    kind: e.kind,
+    ...(e.label ? { label: e.label } : {}),
+    clearanceMm: regions.exclusionClearancesMm[index],
+    footprintAreaM2: r3(m2(multiPolygonArea(regions.exclusionShapes[index]))),
+    polygons: regions.exclusionShapes[index].map((p) => p[0].map(pt)),
+  }));
+  const boardedAreaM2 = r3(items.filter((x) => x.kind === 'boarded').reduce((t, x) => t + x.footprintAreaM2, 0));
+  const eavesLengthMm = regions.eavesBands.reduce((t, b) => t + b.edgeLengthMm, 0);
+
+  const siteChecks = siteChecksFor(plan, {
+    countsByKind,
+    clearancesMm: regions.exclusionClearancesMm,
+    eavesLengthMm,
+    boardedAreaM2,
+    hasLayers: layers.length > 0,
+    aboveJoists: afterLayers.reduce((t, l) => t + l.thicknessMm, 0) > plan.joists.depthMm,
+  });
+
+  const byProduct = new Map<string, Takeoff['rollsPerProduct'][number]>();
+  for (const l of layers) {
+    const row = byProduct.get(l.productId) ?? { productId: l.productId, productName: l.productName, rollsByPacking: 0, rollsByArea: 0, priceMinor: 0 };
+    row.rollsByPacking += l.rollsByPacking;
+    row.rollsByArea += l.rollsByArea;
+    row.priceMinor += l.priceMinor;
+    byProduct.set(l.productId, row);
+  }
+
+  return {
+    format: TAKEOFF_FORMAT,
+    planName: plan.name,
+    grossAreaM2: r3(m2(regions.grossAreaMm2)),
+    netAreaM2: r3(m2(regions.netAreaMm2)),
+    excludedAreaM2: r3(m2(regions.excludedAreaMm2)),
+    eavesBandAreaM2: r3(m2(regions.netAreaMm2 - regions.layerAreaMm2)),
+    layerAreaM2: r3(m2(regions.layerAreaMm2)),
+    wasteAllowancePct: settings.wasteAllowancePct,
+    existing: { depthMm: plan.existing.depthMm, condition: plan.existing.condition, effectiveDepthMm: r1(layerPlan.existingEffectiveMm), baseNeeded: layerPlan.baseNeeded },
+    target: plan.target,
+    layers,
+    rollsPerProduct: [...byProduct.values()],
+    uValueBefore: before.uValue,
+    uValueAfter: after.uValue,
+    rValueBeforeImperial: before.rTotalImperial,
+    rValueAfterImperial: after.rTotalImperial,
+    thermal: {
+      before,
+      after,
+      method: 'BS EN ISO 6946 combined method; Rsi 0.10, Rse 0.04, roof space resistance added to Rse; joists bridge the insulation below their tops',
+      ...(targetU !== undefined ? { targetUValue: targetU, depthForTargetUMm: depthForTarget } : {}),
+      meetsTarget: targetU !== undefined ? after.uValue <= targetU + 1e-9 : afterLayers.reduce((t, l) => t + l.thicknessMm, 0) >= (plan.target as { depthMm: number }).depthMm - 1e-9,
+    },
+    savings: {
+      areaM2: r3(savings.areaM2),
+      deltaU: r4(savings.deltaU),
+      heatKwhPerYear: r1(savings.heatKwhPerYear),
+      fuelKwhPerYear: r1(savings.fuelKwhPerYear),
+      moneyMinorPerYear: savings.moneyMinorPerYear,
+      degreeDays: settings.degreeDays,
+      heatingEfficiency: settings.heatingEfficiency,
+      fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
+      note: 'estimate by the degree-day method: ignores solar and internal gains and partial heating',
+    },
+    exclusions: { countsByKind, items, boardedAreaM2 },
+    eaves: {
+      gapMm: plan.eavesGapMm,
+      totalLengthMm: r1(eavesLengthMm),
+      bands: regions.eavesBands.map((b) => ({ edgeIndex: b.edgeIndex, edgeLengthMm: r1(b.edgeLengthMm), areaM2: r3(m2(b.areaMm2)), polygons: b.polygon.map((p) => p[0].map(pt)) })),
+    },
+    siteChecks,
+    warnings,
+    settings,
+  };
+}
+
+function strip<T extends object>(o: T): T {
+  for (const k of Object.keys(o) as (keyof T)[]) if (o[k] === undefined) delete o[k];
+  return o;
+}
+
+function thermalState(layers: InsulationLayer[], ctx: LoftThermalContext): TakeoffThermalState {
+  const res = loftCombinedMethod(layers, ctx);
+  const depth = layers.reduce((t, l) => t + l.thicknessMm, 0);
+  return {
+    insulationMm: r1(depth),
+    rUpper: r4(res.rUpper),
+    rLower: r4(res.rLower),
+    rTotal: r4(res.rTotal),
+    rTotalImperial: r3(rValueImperial(res.rTotal)),
+    uValue: r4(res.uValue),
+    rdsapU: rdsapRoofUValue(depth),
+  };
+}
+
+function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regionAreaMm2: number, reference: Vec2, outlineCentre: Vec2, s: TakeoffSettings): TakeoffLayer {
+  const p = choice.product;
+  const laneWidthMm = productLaneWidthMm(p);
+  const stagger = choice.role === 'cross' ? (choice.roleIndex * laneWidthMm) / 2 : 0;
+  const lb = layerBands(plan, choice.role, laneWidthMm, region, stagger);
+  const raw = cutStrips(region, lb, s.cuttingAllowanceMm);
+  const order = layingOrder(raw, lb.frame, reference);
+  const prefix = choice.role === 'base' ? 'B' : `C${choice.roleIndex + 1}.`;
+
+  const pieces: PieceToCut[] = [];
+  const strips: TakeoffStrip[] = order.map((rawIndex, k) => {
+    const r = raw[rawIndex];
+    const number = k + 1;
+    const count = Math.ceil(r.lengthMm / p.rollLengthMm - 1e-9);
+    for (let i = 0; i < count; i++) {
+      pieces.push({ stripNumber: number, pieceIndex: i, lengthMm: i < count - 1 ? p.rollLengthMm : r.lengthMm - (count - 1) * p.rollLengthMm });
+    }
+    const c = polygonCentroid(r.polygon);
+    return {
+      number,
+      label: `${prefix}${number}`,
+      bandIndex: r.bandIndex,
+      lengthMm: r1(r.lengthMm),
+      widthMm: r1(laneWidthMm),
+      bandWidthMm: r1(lb.bandWidthMm),
+      extentMm: r1(r.extentMm),
+      areaM2: r4(m2(r.areaMm2)),
+      polygon: r.polygon.map(pt),
+      ...(r.holes.length ? { holes: r.holes.map((h) => h.map(pt)) } : {}),
+      labelAt: pt(c),
+      pieces: [],
+    };
+  });
+  const packing = packPieces(pieces, { rollLengthMm: p.rollLengthMm, lanesPerRoll: p.lanesPerRoll, minOffcutMm: s.minOffcutMm });
+  for (const lane of packing.lanes) {
+    for (const cut of lane.cuts) {
+      strips[cut.stripNumber - 1].pieces.push({ pieceIndex: cut.pieceIndex, lengthMm: r1(cut.lengthMm), roll: lane.roll, lane: lane.lane, offsetMm: r1(cut.offsetMm) });
+    }
+  }
+  for (const st of strips) st.pieces.sort((a, b) => a.pieceIndex - b.pieceIndex);
+
+  let dir: Vec2 = [lb.frame.along[0], lb.frame.along[1]];
+  const toRef: Vec2 = [reference[0] - outlineCentre[0], reference[1] - outlineCentre[1]];
+  const d = vecDot(dir, toRef);
+  if (d < -1e-6 || (Math.abs(d) <= 1e-6 && (dir[0] < -1e-12 || (Math.abs(dir[0]) <= 1e-12 && dir[1] < 0)))) dir = [-dir[0], -dir[1]];
+
+  const areaM2 = m2(regionAreaMm2);
+  const rollsArea = rollsByArea(areaM2, s.wasteAllowancePct, p.coverageM2PerRoll);
+  return {
+    role: choice.role,
+    roleIndex: choice.roleIndex,
+    productId: p.id,
+    productName: p.name,
+    thicknessMm: p.thicknessMm,
+    lambda: p.lambda,
+    areaM2: r3(areaM2),
+    rollLengthMm: p.rollLengthMm,
+    laneWidthMm: r1(laneWidthMm),
+    lanesPerRoll: p.lanesPerRoll,
+    coverageM2PerRoll: p.coverageM2PerRoll,
+    bandWidthMm: r1(lb.bandWidthMm),
+    layDirection: [r4(dir[0]) + 0, r4(dir[1]) + 0],
+    strips,
+    totalStripLengthMm: r1(raw.reduce((t, x) => t + x.lengthMm, 0)),
+    coveredAreaM2: r3(m2(raw.reduce((t, x) => t + x.areaMm2, 0))),
+    rollsByPacking: packing.rolls,
+    rollsByArea: rollsArea,
+    wastePct: r1(packing.wastePct),
+    packing: {
+      method: packing.method,
+      lanesUsed: packing.lanesUsed,
+      lanesLowerBound: packing.lanesLowerBound,
+      lanes: packing.lanes.map((l) => ({ roll: l.roll, lane: l.lane, usedMm: r1(l.usedMm), leftoverMm: r1(l.leftoverMm), cuts: l.cuts.map((c) => ({ stripNumber: c.stripNumber, pieceIndex: c.pieceIndex, lengthMm: r1(c.lengthMm), offsetMm: r1(c.offsetMm) })) })),
+      offcuts: packing.offcuts.map((o) => ({ ...o, lengthMm: r1(o.lengthMm) })),
+    },
+    priceMinor: packing.rolls * p.priceMinor,
+  };
+}

@@ -1,0 +1,107 @@
+import type { ExclusionKind, Plan } from '../plan/plan-schema';
+import { EXCLUSION_KINDS } from '../plan/plan-schema';
+import { circlePolygon, polygonBuffer } from '../geometry/offset';
+import { differencePolygons, intersectPolygons, unionPolygons } from '../geometry/boolean';
+import { multiPolygonArea, polygonArea, polygonSignedArea, ringWithPositiveArea, type MultiPolygon, type PolygonWithHoles } from '../geometry/polygon';
+import type { Vec2 } from '../geometry/vector';
+import type { TakeoffSettings } from './settings';
+
+/** The planar regions of a plan, mm and mm². */
+export interface PlanRegions {
+  /** The outline wound with positive signed area. */
+  outline: Vec2[];
+  grossAreaMm2: number;
+  /** Each exclusion's footprint grown by its clearance (not clipped), by exclusion index. */
+  exclusionShapes: MultiPolygon[];
+  /** Clearance applied to each exclusion, mm. */
+  exclusionClearancesMm: number[];
+  /** Union of all exclusion footprints clipped to the outline (overlaps counted once). */
+  excluded: MultiPolygon;
+  excludedAreaMm2: number;
+  /** Outline minus `excluded`. */
+  net: MultiPolygon;
+  netAreaMm2: number;
+  /** One band per eaves edge: `eavesGapMm` wide on the inner side, clipped to the outline. */
+  eavesBands: { edgeIndex: number; polygon: MultiPolygon; areaMm2: number; edgeLengthMm: number }[];
+  /** Net minus the eaves bands: where new layers go. */
+  layerRegion: MultiPolygon;
+  layerAreaMm2: number;
+}
+
+/** Clearance for one exclusion: its own value, else the company default for its kind, mm. */
+export function exclusionClearanceMm(e: Plan['exclusions'][number], settings: TakeoffSettings): number {
+  return e.clearanceMm ?? settings.clearanceMmByKind[e.kind] ?? 0;
+}
+
+/**
+ * Footprint of one exclusion with its clearance: a polygon grown outward by the clearance
+ * (planar offset), or for a point (`at`) a disc of `pointFootprintRadiusMm + clearance`.
+ */
+export function exclusionShape(e: Plan['exclusions'][number], settings: TakeoffSettings): MultiPolygon {
+  const c = exclusionClearanceMm(e, settings);
+  if (e.polygon) return polygonBuffer(e.polygon, c);
+  if (e.at) return [[circlePolygon(e.at, settings.pointFootprintRadiusMm + c)]];
+  return [];
+}
+
+/**
+ * Gross, excluded, net and layer regions of a plan. Booleans by polygon-clipping in the plane;
+ * the outline may wind either way. Eaves bands are rectangles on the inner side of each eaves
+ * edge (side found from the outline's winding), clipped to the outline, so a band never leaves
+ * the loft even at acute corners. Overlaps between exclusions and bands are counted once.
+ */
+export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanRegions {
+  const outline = ringWithPositiveArea(plan.outline);
+  const grossAreaMm2 = polygonArea(outline);
+  const outlinePoly: PolygonWithHoles[] = [[outline]];
+  const exclusionClearancesMm = plan.exclusions.map((e) => exclusionClearanceMm(e, settings));
+  const exclusionShapes = plan.exclusions.map((e) => exclusionShape(e, settings));
+  const allShapes = exclusionShapes.flat();
+  const excluded = allShapes.length ? intersectPolygons(outlinePoly, unionPolygons(allShapes)) : [];
+  const excludedAreaMm2 = multiPolygonArea(excluded);
+  const net = excluded.length ? differencePolygons(outlinePoly, excluded) : [[outline]];
+  const netAreaMm2 = grossAreaMm2 - excludedAreaMm2;
+
+  // ringWithPositiveArea may have reversed the ring: map plan edge indices onto it.
+  const reversed = polygonSignedArea(plan.outline) < 0;
+  const eavesBands: PlanRegions['eavesBands'] = [];
+  const gap = plan.eavesGapMm;
+  const seen = new Set<number>();
+  for (const edgeIndex of plan.eavesEdges) {
+    if (edgeIndex >= plan.outline.length || seen.has(edgeIndex)) continue;
+    seen.add(edgeIndex);
+    const a0 = plan.outline[edgeIndex];
+    const b0 = plan.outline[(edgeIndex + 1) % plan.outline.length];
+    const [a, b] = reversed ? [b0, a0] : [a0, b0];
+    const dx = b[0] - a[0];
+    const dy = b[1] - a[1];
+    const len = Math.hypot(dx, dy);
+    if (len === 0 || !(gap > 0)) {
+      eavesBands.push({ edgeIndex, polygon: [], areaMm2: 0, edgeLengthMm: len });
+      continue;
+    }
+    // Positive signed area: the interior lies to the +90° side of each edge direction.
+    const nx = (-dy / len) * gap;
+    const ny = (dx / len) * gap;
+    // Not extended past the corners: at a re-entrant corner that would eat into the next room.
+    const rect: Vec2[] = [
+      [a[0], a[1]],
+      [b[0], b[1]],
+      [b[0] + nx, b[1] + ny],
+      [a[0] + nx, a[1] + ny],
+    ];
+    const band = intersectPolygons(outlinePoly, [[rect]]);
+    eavesBands.push({ edgeIndex, polygon: band, areaMm2: multiPolygonArea(band), edgeLengthMm: len });
+  }
+  const bandPolys = eavesBands.flatMap((b) => b.polygon);
+  const layerRegion = bandPolys.length ? differencePolygons(net, bandPolys) : net;
+  const layerAreaMm2 = bandPolys.length ? multiPolygonArea(layerRegion) : netAreaMm2;
+  return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excluded, excludedAreaMm2, net, netAreaMm2, eavesBands, layerRegion, layerAreaMm2 };
+}
+
+/** How many exclusions of each kind a plan has (every kind present, zero when absent). */
+export function countExclusionsByKind(plan: Plan): Record<ExclusionKind, number> {
+  const out = Object.fromEntries(EXCLUSION_KINDS.map((k) => [k, 0])) as Record<ExclusionKind, number>;
+  for (const e of plan.exclusions) out[e.kind] += 1;
+  return out;
+}

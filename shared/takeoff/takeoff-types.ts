@@ -1,0 +1,150 @@
+import type { ExclusionKind, Target } from '../plan/plan-schema';
+import type { LayerRole } from './products';
+import type { SiteCheck } from './site-checks';
+import type { TakeoffSettings } from './settings';
+
+/** The takeoff's own format tag. */
+export const TAKEOFF_FORMAT = 'quiltline-takeoff/1' as const;
+
+/** `[x, y]` in plan millimetres. */
+export type PlanPointMm = [number, number];
+
+/** One cut of a strip taken from a roll lane. Rolls and lanes count from 1. */
+export interface TakeoffStripPiece {
+  pieceIndex: number;
+  lengthMm: number;
+  roll: number;
+  lane: number;
+  /** Where the cut starts along the lane, mm. */
+  offsetMm: number;
+}
+
+/** One strip of a layer: what to cut, where it lies, and where it comes from. */
+export interface TakeoffStrip {
+  /** Laying order within the layer, from 1. */
+  number: number;
+  /** Label drawn on the plan: `B7` (base) or `C1.7` (first cross layer). */
+  label: string;
+  /** Band the strip lies in (a bay for base layers), counting across the layer. */
+  bandIndex: number;
+  /** Cut length: the extent along the band rounded up to the cutting allowance, mm. */
+  lengthMm: number;
+  /** Width cut from the roll (the lane width), mm. */
+  widthMm: number;
+  /** Width of the band it fills (the bay for base layers), mm. */
+  bandWidthMm: number;
+  /** Extent along the band before rounding, mm. */
+  extentMm: number;
+  /** Area it covers, clipped to the layer, m². */
+  areaM2: number;
+  /** Outline in plan mm (rounded to 0.1 mm). */
+  polygon: PlanPointMm[];
+  /** Holes, when an obstacle sits wholly inside the strip. */
+  holes?: PlanPointMm[][];
+  /** A point inside the strip's band for its label, plan mm. */
+  labelAt: PlanPointMm;
+  /** Cuts from the rolls (more than one when the strip is longer than a roll). */
+  pieces: TakeoffStripPiece[];
+}
+
+/** A roll lane after packing. */
+export interface TakeoffLane {
+  roll: number;
+  lane: number;
+  usedMm: number;
+  leftoverMm: number;
+  cuts: { stripNumber: number; pieceIndex: number; lengthMm: number; offsetMm: number }[];
+}
+
+/** One layer of the takeoff. */
+export interface TakeoffLayer {
+  role: LayerRole;
+  /** 0 for base; 0, 1… for cross layers in laying order. */
+  roleIndex: number;
+  productId: string;
+  productName: string;
+  thicknessMm: number;
+  lambda: number;
+  /** Plan area the layer covers (net area minus the eaves bands), m². */
+  areaM2: number;
+  rollLengthMm: number;
+  laneWidthMm: number;
+  lanesPerRoll: number;
+  coverageM2PerRoll: number;
+  bandWidthMm: number;
+  /** Unit vector along which strips are unrolled (towards the hatch where there is one). */
+  layDirection: PlanPointMm;
+  strips: TakeoffStrip[];
+  /** Σ strip lengths, mm. */
+  totalStripLengthMm: number;
+  /** Σ strip areas, m² (base layers leave the joist tops bare). */
+  coveredAreaM2: number;
+  rollsByPacking: number;
+  rollsByArea: number;
+  /** Bought but not laid, % of the rolls bought (reusable offcuts included). */
+  wastePct: number;
+  packing: {
+    method: string;
+    lanesUsed: number;
+    /** No packing can use fewer lanes than this. */
+    lanesLowerBound: number;
+    lanes: TakeoffLane[];
+    offcuts: { roll: number; lane: number; lengthMm: number; reusable: boolean }[];
+  };
+  /** rollsByPacking × price per roll, minor units. */
+  priceMinor: number;
+}
+
+/** One side of the thermal comparison. */
+export interface TakeoffThermalState {
+  insulationMm: number;
+  rUpper: number;
+  rLower: number;
+  /** Total resistance surface to surface, m²K/W. */
+  rTotal: number;
+  /** Same, h·ft²·°F/Btu. */
+  rTotalImperial: number;
+  uValue: number;
+  /** RdSAP 2012 Table S9 value for the same depth, for comparison. */
+  rdsapU: number;
+}
+
+/** The whole takeoff (JSON-serialisable, no Infinity or NaN). */
+export interface Takeoff {
+  format: typeof TAKEOFF_FORMAT;
+  planName: string;
+  grossAreaM2: number;
+  netAreaM2: number;
+  excludedAreaM2: number;
+  eavesBandAreaM2: number;
+  /** Area new layers cover: net minus the eaves bands, m². */
+  layerAreaM2: number;
+  wasteAllowancePct: number;
+  existing: { depthMm: number; condition: string; effectiveDepthMm: number; baseNeeded: boolean };
+  target: Target;
+  layers: TakeoffLayer[];
+  rollsPerProduct: { productId: string; productName: string; rollsByPacking: number; rollsByArea: number; priceMinor: number }[];
+  uValueBefore: number;
+  uValueAfter: number;
+  rValueBeforeImperial: number;
+  rValueAfterImperial: number;
+  thermal: {
+    before: TakeoffThermalState;
+    after: TakeoffThermalState;
+    method: string;
+    targetUValue?: number;
+    meetsTarget: boolean;
+    /** Extra depth of the first cross product (or 0.040 W/mK wool) over the existing layer that reaches the target U, mm. */
+    depthForTargetUMm?: number | null;
+  };
+  savings: { areaM2: number; deltaU: number; heatKwhPerYear: number; fuelKwhPerYear: number; moneyMinorPerYear: number; degreeDays: number; heatingEfficiency: number; fuelPriceMinorPerKwh: number; note: string };
+  exclusions: {
+    countsByKind: Record<ExclusionKind, number>;
+    items: { index: number; kind: ExclusionKind; label?: string; clearanceMm: number; footprintAreaM2: number; polygons: PlanPointMm[][] }[];
+    boardedAreaM2: number;
+  };
+  eaves: { gapMm: number; totalLengthMm: number; bands: { edgeIndex: number; edgeLengthMm: number; areaM2: number; polygons: PlanPointMm[][] }[] };
+  siteChecks: SiteCheck[];
+  warnings: { code: string; message: string; edgeIndex?: number; exclusionIndex?: number; pointIndex?: number }[];
+  settings: TakeoffSettings;
+}
