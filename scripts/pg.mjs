@@ -118,9 +118,12 @@ function pgUid() {
 }
 
 /** Runs a PostgreSQL binary, as the postgres system user when we are root (postgres refuses root). */
-function runPg(binDir, tool, args, opts = {}) {
+function runPg(binDir, tool, args, { newSession = false, ...opts } = {}) {
   const bin = path.join(binDir, tool);
-  const [cmd, argv] = isRoot ? ['runuser', ['-u', SUPERUSER, '--', bin, ...args]] : [bin, args];
+  // setsid: the server gets a session of its own, so a Ctrl-C in our terminal does not reach it
+  // directly; we stop it ourselves, cleanly, after the app.
+  const inner = newSession && which('setsid') ? ['setsid', '-w', bin, ...args] : [bin, ...args];
+  const [cmd, argv] = isRoot ? ['runuser', ['-u', SUPERUSER, '--', ...inner]] : [inner[0], inner.slice(1)];
   const r = spawnSync(cmd, argv, { encoding: 'utf8', cwd: '/', ...opts });
   return { status: r.status, stdout: r.stdout ?? '', stderr: r.stderr ?? '', error: r.error };
 }
@@ -252,7 +255,7 @@ export async function ensurePgRunning() {
     if (!isPgRunning(cfg, binDir)) {
       ensureDirFor(cfg.socketDir, 0o755);
       writeLocalConf(cfg);
-      const r = runPg(binDir, 'pg_ctl', ['-D', cfg.dataDir, '-l', cfg.logFile, '-w', '-t', '60', 'start']);
+      const r = runPg(binDir, 'pg_ctl', ['-D', cfg.dataDir, '-l', cfg.logFile, '-w', '-t', '60', 'start'], { newSession: true });
       if (r.status !== 0) {
         let tail = '';
         try {

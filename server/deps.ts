@@ -23,8 +23,10 @@ export interface AppDeps {
  * Builds the deps from config: Sequelize + pool on DATABASE_URL, a mailer to SMTP_URL or to an
  * in-process fake SMTP server on 127.0.0.1, and disk storage in UPLOAD_DIR.
  */
-export async function createDeps(config: Config): Promise<AppDeps> {
-  const sequelize = createSequelize(config.databaseUrl, { logSql: config.logSql });
+export async function createDeps(config: Config, opts: { sequelize?: Sequelize } = {}): Promise<AppDeps> {
+  // Sequelize models are classes bound to one instance: one per process. Tests that build several
+  // apps pass the shared instance in (and close it themselves).
+  const sequelize = opts.sequelize ?? createSequelize(config.databaseUrl, { logSql: config.logSql });
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
   let fake: FakeSmtp | null = null;
   let mailer: Mailer;
@@ -48,7 +50,7 @@ export async function createDeps(config: Config): Promise<AppDeps> {
       mailer.close();
       await fake?.stop();
       await pool.end();
-      await sequelize.close();
+      if (!opts.sequelize) await sequelize.close();
     },
   };
 }

@@ -1,0 +1,90 @@
+#!/usr/bin/env node
+// `npm start`: build the client if needed, start the project PostgreSQL (unless DATABASE_URL is
+// set), then the API server, which runs migrations, seeds the demo data once, starts the fake
+// SMTP server (unless SMTP_URL is set) and serves dist/ + /api on PORT (default 3000).
+// `npm run dev` (--dev): the API under `tsx watch` plus the Vite dev server with its /api proxy.
+// Ctrl-C / SIGTERM stops the server, then the cluster (if this script started it).
+import { spawn } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { buildClient } from './client-build.mjs';
+import { APP_DB, REPO_ROOT, databaseUrl, ensureDatabase, ensurePgRunning, stopPg } from './pg.mjs';
+
+const dev = process.argv.includes('--dev');
+const log = (m) => process.stderr.write(`[start] ${m}\n`);
+const bin = (name) => path.join(REPO_ROOT, 'node_modules', '.bin', name);
+
+async function main() {
+  if (!fs.existsSync(bin('tsx'))) {
+    log('node_modules is missing: run `npm install` first (the README command does: npm install && npm start)');
+    process.exit(1);
+  }
+  const port = Number(process.env.PORT ?? 3000);
+  if (!dev) buildClient();
+
+  let pg = null;
+  const env = { ...process.env };
+  if (!env.DATABASE_URL) {
+    pg = await ensurePgRunning();
+    ensureDatabase(APP_DB, { cfg: pg.cfg });
+    env.DATABASE_URL = databaseUrl(APP_DB, pg.cfg);
+    log(`PostgreSQL on 127.0.0.1:${pg.cfg.port}, data in ${pg.cfg.dataDir}${pg.startedHere ? '' : ' (already running; left running on exit)'}`);
+  } else {
+    log('using DATABASE_URL (no local cluster started)');
+  }
+
+  const children = [];
+  const apiPort = dev ? Number(process.env.API_PORT ?? port + 1) : port;
+  // tsx directly (not npx) so signals reach the server process.
+  const serverArgs = dev ? ['watch', '--clear-screen=false', 'server/index.ts'] : ['server/index.ts'];
+  const server = spawn(bin('tsx'), serverArgs, { cwd: REPO_ROOT, stdio: 'inherit', env: { ...env, PORT: String(apiPort) } });
+  children.push(server);
+  if (dev) {
+    const vite = spawn(bin('vite'), ['--port', String(process.env.VITE_PORT ?? 5173), '--strictPort'], {
+      cwd: REPO_ROOT,
+      stdio: 'inherit',
+      env: { ...env, API_PORT: String(apiPort) },
+    });
+    children.push(vite);
+    log(`dev: open http://127.0.0.1:${process.env.VITE_PORT ?? 5173} (Vite, reloads on change); API on :${apiPort}`);
+  }
+
+  let stopping = false;
+  const shutdown = async (code) => {
+    if (stopping) return;
+    stopping = true;
+    await Promise.all(
+      children.map(
+        (c) =>
+          new Promise((resolve) => {
+            if (c.exitCode !== null || c.signalCode !== null) return resolve();
+            c.once('exit', resolve);
+            c.kill('SIGTERM');
+            setTimeout(() => c.kill('SIGKILL'), 8000).unref();
+          }),
+      ),
+    );
+    if (pg?.startedHere) {
+      try {
+        stopPg(pg.cfg);
+      } catch (e) {
+        log(e.message);
+      }
+    }
+    process.exit(code);
+  };
+  process.on('SIGINT', () => shutdown(0));
+  process.on('SIGTERM', () => shutdown(0));
+  for (const c of children) {
+    c.on('exit', (code, signal) => {
+      if (stopping) return;
+      log(`${c === server ? 'server' : 'vite'} exited (${signal ?? code}); shutting down`);
+      shutdown(code ?? 1);
+    });
+  }
+}
+
+main().catch((e) => {
+  log(e.message);
+  process.exit(1);
+});
