@@ -6,34 +6,40 @@ export const depositModeSchema = z.enum(DEPOSIT_MODES);
 export type DepositMode = z.infer<typeof depositModeSchema>;
 
 /**
- * Office settings for payments. `depositPercentBp` is basis points (2500 = 25 %);
- * `depositFixedMinor` is integer minor units (pence). Keys are never here: they come from the
- * server's environment.
+ * Office settings for payments, as the office edits them. `depositPercentBp` is basis points
+ * (2500 = 25 %); `depositFixedMinor` is integer minor units (pence). Keys are never here: they come
+ * from the server's environment.
  */
-export const paymentSettingsSchema = z
+export const paymentSettingsBodySchema = z
   .object({
     depositMode: depositModeSchema,
-    depositPercentBp: z.number().int().min(1, { error: 'enter a percentage above 0' }).max(10000, { error: 'at most 100 %' }).nullable(),
-    depositFixedMinor: z.number().int().min(1, { error: 'enter an amount above 0' }).max(100_000_000).nullable(),
+    depositPercentBp: z.number().int().min(1, { error: 'enter a percentage above 0' }).max(10000, { error: 'at most 100 %' }).nullable().default(null),
+    depositFixedMinor: z.number().int().min(1, { error: 'enter an amount above 0' }).max(100_000_000).nullable().default(null),
     paymentTermsDays: z.number().int().min(0).max(365, { error: 'at most 365 days' }),
-    currency: z.string().regex(/^[A-Z]{3}$/, { error: 'use a three-letter currency code such as GBP' }),
   })
-  .check((ctx) => {
-    const v = ctx.value;
-    if (v.depositMode === 'percent' && v.depositPercentBp == null) {
-      ctx.issues.push({ code: 'custom', input: v, path: ['depositPercentBp'], message: 'enter the deposit percentage' });
-    }
-    if (v.depositMode === 'fixed' && v.depositFixedMinor == null) {
-      ctx.issues.push({ code: 'custom', input: v, path: ['depositFixedMinor'], message: 'enter the deposit amount' });
-    }
+  .superRefine((v, ctx) => {
+    if (v.depositMode === 'percent' && v.depositPercentBp == null) ctx.addIssue({ code: 'custom', path: ['depositPercentBp'], message: 'enter the deposit percentage' });
+    if (v.depositMode === 'fixed' && v.depositFixedMinor == null) ctx.addIssue({ code: 'custom', path: ['depositFixedMinor'], message: 'enter the deposit amount' });
   });
+export type PaymentSettingsBody = z.input<typeof paymentSettingsBodySchema>;
+
+/** The settings as read back: the body plus the company's currency (from the company settings). */
+export const paymentSettingsSchema = z.object({
+  depositMode: depositModeSchema,
+  depositPercentBp: z.number().int().nullable(),
+  depositFixedMinor: z.number().int().nullable(),
+  paymentTermsDays: z.number().int(),
+  currency: z.string(),
+});
 export type PaymentSettings = z.infer<typeof paymentSettingsSchema>;
 
 /** What the settings page shows besides the editable values. */
 export const paymentSettingsViewSchema = z.object({
   settings: paymentSettingsSchema,
-  /** 'service' when real keys are set in the environment; 'local' when the local stand-in is used */
-  provider: z.enum(['service', 'local']),
+  /** 'service' when real keys are set in the environment; 'local' when a local stand-in is used */
+  provider: z.enum(['service', 'local', 'off']),
+  /** false when card payments are switched off (production without keys) */
+  enabled: z.boolean(),
 });
 export type PaymentSettingsView = z.infer<typeof paymentSettingsViewSchema>;
 

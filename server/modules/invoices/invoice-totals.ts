@@ -35,7 +35,7 @@ export interface Totals {
 }
 
 /** Sum lines that already carry their amounts; tax grouped by rate, highest rate first. */
-export function sumLines(lines: readonly (LineAmounts & { rateBp: number })[]): Totals {
+export function sumLines(lines: readonly { netMinor: number; taxMinor: number; rateBp: number }[]): Totals {
   const byRate = new Map<number, { rateBp: number; netMinor: number; taxMinor: number }>();
   for (const l of lines) {
     const g = byRate.get(l.rateBp) ?? { rateBp: l.rateBp, netMinor: 0, taxMinor: 0 };

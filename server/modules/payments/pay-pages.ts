@@ -1,0 +1,47 @@
+/** The customer's payment pages (no sign-in): plain server-rendered HTML in Quiltline's notebook look. */
+import { formatMoney } from '../../../shared/quote/money';
+
+export const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+/** CSP for these pages: forms may post here and be redirected on to the hosted checkout only. */
+export function payPageCsp(checkoutOrigins: string[]): string {
+  return [
+    "default-src 'self'",
+    "style-src 'self' 'unsafe-inline'",
+    "img-src 'self' data:",
+    `form-action 'self' ${checkoutOrigins.join(' ')}`,
+    "frame-ancestors 'none'",
+    "base-uri 'self'",
+    "object-src 'none'",
+  ].join('; ');
+}
+
+export function payLayout(title: string, body: string, opts: { company?: string; refreshSeconds?: number } = {}): string {
+  return `<!doctype html><html lang="en-GB"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+${opts.refreshSeconds ? `<meta http-equiv="refresh" content="${opts.refreshSeconds}">` : ''}
+<title>${escapeHtml(title)}${opts.company ? ` — ${escapeHtml(opts.company)}` : ''}</title>
+<style>
+  :root { color-scheme: light; }
+  body { margin: 0; font: 16px/1.55 Inter, system-ui, sans-serif; color: #33363b; background: #faf7f0;
+    background-image: linear-gradient(#e7e0cf 1px, transparent 1px), linear-gradient(90deg, #e7e0cf 1px, transparent 1px); background-size: 40px 40px; }
+  main { max-width: 34rem; margin: 3rem auto; padding: 1.75rem; background: #fffdf8; border: 1px solid #e7e0cf; border-radius: 8px; box-shadow: 0 1px 2px rgba(51,54,59,.08); }
+  .company { font-size: .85rem; letter-spacing: .04em; text-transform: uppercase; color: #8a5a2b; margin: 0 0 .25rem; }
+  h1 { font-size: 1.45rem; margin: 0 0 1rem; }
+  .amount { font-size: 2rem; font-weight: 700; font-variant-numeric: tabular-nums; margin: .25rem 0 1rem; }
+  dl { display: grid; grid-template-columns: auto 1fr; gap: .3rem 1rem; margin: 0 0 1.25rem; } dt { color: #5b6068; } dd { margin: 0; font-variant-numeric: tabular-nums; }
+  .btn { display: inline-block; border: 0; border-radius: 6px; padding: .75rem 1.3rem; font: inherit; font-weight: 600; cursor: pointer; text-decoration: none; }
+  .btn-primary { background: #1f8a84; color: #fff; } .btn-primary:hover { background: #135e5a; }
+  .btn-quiet { background: transparent; color: #33363b; border: 1px solid #9aa0a8; }
+  .note { font-size: .9rem; color: #5b6068; }
+  .ok { border-left: 4px solid #1f8a84; padding: .5rem .9rem; background: #eef8f7; }
+  .warn { border-left: 4px solid #e2b94b; padding: .5rem .9rem; background: #fcf5e1; }
+  .actions { display: flex; gap: .75rem; flex-wrap: wrap; align-items: center; }
+</style></head><body><main>
+${opts.company ? `<p class="company">${escapeHtml(opts.company)}</p>` : ''}
+<h1>${escapeHtml(title)}</h1>
+${body}
+</main></body></html>`;
+}
+
+export const money = (minor: number, currency: string) => escapeHtml(formatMoney(minor, currency));

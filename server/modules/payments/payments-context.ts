@@ -1,0 +1,30 @@
+import type { AppDeps } from '../../deps';
+import { createPaymentsGateway, type PaymentsGateway } from '../../lib/payments/gateway';
+import { paymentsConfigFromEnv } from '../../lib/payments/payments-config';
+
+export interface PaymentsContext {
+  /** null when payments are switched off (production without keys) */
+  gateway: PaymentsGateway | null;
+  provider: 'service' | 'local' | 'off';
+  /** origins the hosted checkout lives on, for the pages' form-action CSP */
+  checkoutOrigins: string[];
+  appUrl: string;
+}
+
+const cache = new WeakMap<object, PaymentsContext>();
+
+/**
+ * The payments gateway for these deps: `deps.payments` when given, else built once from the
+ * environment (STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET, PAYMENTS_API_URL; see payments-config.ts).
+ */
+export function paymentsContext(deps: AppDeps): PaymentsContext {
+  const hit = cache.get(deps);
+  if (hit) return hit;
+  const cfg = paymentsConfigFromEnv(process.env, deps.config.isProduction);
+  const gateway = (deps as AppDeps & { payments?: PaymentsGateway }).payments ?? (cfg ? createPaymentsGateway(cfg) : null);
+  const origins = ['https://checkout.stripe.com'];
+  if (cfg?.apiUrl) origins.push(new URL(cfg.apiUrl).origin);
+  const ctx: PaymentsContext = { gateway, provider: cfg ? cfg.provider : 'off', checkoutOrigins: origins, appUrl: deps.config.appUrl };
+  cache.set(deps, ctx);
+  return ctx;
+}
