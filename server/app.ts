@@ -10,7 +10,10 @@ import { authRouter } from './modules/auth/auth.router';
 import { customersRouter } from './modules/customers/customers.router';
 import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { healthRouter } from './modules/health/health.router';
+import { jobSheetRouter } from './modules/job-sheet/job-sheet.router';
 import { jobsRouter } from './modules/jobs/jobs.router';
+import { photosRouter } from './modules/photos/photos.router';
+import { scheduleRouter } from './modules/schedule/schedule.router';
 import { spacesRouter } from './modules/spaces/spaces.router';
 import { usersRouter } from './modules/users/users.router';
 
@@ -45,6 +48,9 @@ export function createApp(deps: AppDeps): Express {
   // feature routers — other modules append their mount lines here, e.g.
   //   app.use('/api/quotes', quotesRouter(deps));
   // ---------------------------------------------------------------------------------------------
+  app.use('/api/schedule', scheduleRouter(deps)); // installer engineer: week view, booking, install settings
+  app.use('/api', jobSheetRouter(deps)); // installer engineer: my-jobs, job sheet, ticks, notes, finish, handover
+  app.use('/api', photosRouter(deps)); // installer engineer: site photos
 
   app.use('/api', apiNotFound);
 

@@ -6,6 +6,7 @@ import { JobEvent } from './job-event';
 import { Organisation } from './organisation';
 import { PlanRevision } from './plan-revision';
 import { Space } from './space';
+import { INSTALLER_MODELS } from './installer-registry';
 import { User } from './user';
 
 export type { AuthTokenPurpose } from './auth-token';
@@ -26,6 +27,7 @@ export const MODEL_REGISTRY: Array<{ init: (s: Sequelize) => void; associate?: (
   { init: (s) => JobEvent.initModel(s) },
   { init: () => undefined, associate: associateFoundation },
   // feature models: append below
+  ...INSTALLER_MODELS, // installer engineer: install settings, ticks, notes, photos, completions, idempotency keys
 ];
 
 function associateFoundation() {

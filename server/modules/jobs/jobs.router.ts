@@ -8,6 +8,7 @@ import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
 import { createSpacesController } from '../spaces/spaces.controller';
 import { createSpacesService } from '../spaces/spaces.service';
+import { installerJobRoute } from '../job-sheet/installer-job-route';
 import { createJobsController } from './jobs.controller';
 import { createJobsService } from './jobs.service';
 
@@ -23,7 +24,8 @@ export function jobsRouter(deps: AppDeps) {
   r.get('/', validate({ query: jobListQuerySchema }), c.list);
   r.get('/installers', requireCan('jobs:read-all'), c.installers);
   r.post('/', requireCan('jobs:write'), validate({ body: jobBodySchema }), c.create);
-  r.get('/:id', validate({ params: idParamsSchema }), c.get);
+  // installer engineer: an installer's GET /:id also carries the job sheet (no prices); others fall through to c.get
+  r.get('/:id', validate({ params: idParamsSchema }), installerJobRoute(deps), c.get);
   r.patch('/:id', requireCan('jobs:write'), validate({ params: idParamsSchema, body: jobPatchSchema }), c.update);
   r.get('/:id/events', validate({ params: idParamsSchema }), c.events);
   r.post('/:id/spaces', requireCan('plans:write'), validate({ params: idParamsSchema, body: spaceCreateBodySchema }), spaces.create);

@@ -1,0 +1,136 @@
+import type { AppDeps } from '../../deps';
+import { Customer, Job, JobEvent, Organisation, Space, User } from '../../db/models';
+import { JobCompletion, JobPhoto, JobTick } from '../../db/models/installer-registry';
+import { ConflictError, NotFoundError } from '../../lib/errors';
+import type { SessionUser } from '../../types';
+import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
+import { isTakeoff, latestRevisionRows, sheetChecks } from '../job-sheet/takeoff-view';
+import { loadInstallSettings } from '../schedule/schedule.service';
+import { renderHandoverPdf, type HandoverData } from './handover-pdf';
+
+const PHOTOS_PER_STAGE = 2;
+
+export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage' | 'mailer'>) {
+  const { sequelize, storage, mailer } = deps;
+
+  async function handoverData(job: Job): Promise<HandoverData> {
+    const [org, customer, completion, settings] = await Promise.all([
+      Organisation.findByPk(job.organisationId),
+      Customer.findByPk(job.customerId),
+      JobCompletion.findByPk(job.id, { include: ['user'] }),
+      loadInstallSettings(job.organisationId),
+    ]);
+    const installer = completion?.user ?? (job.assignedInstallerId ? await User.findByPk(job.assignedInstallerId) : null);
+    const spaces = await Space.findAll({ where: { jobId: job.id }, order: [['position', 'ASC'], ['createdAt', 'ASC']] });
+    const revisions = await latestRevisionRows(spaces.map((s) => s.id));
+    const photoRows = await JobPhoto.findAll({ where: { jobId: job.id }, order: [['takenAt', 'ASC']] });
+    const out: HandoverData['spaces'] = [];
+    for (const s of spaces) {
+      const t = revisions.get(s.id)?.takeoff;
+      const chosen = (['before', 'after'] as const).flatMap((stage) => photoRows.filter((p) => p.spaceId === s.id && p.stage === stage).slice(0, PHOTOS_PER_STAGE));
+      const photos = [];
+      for (const p of chosen) photos.push({ stage: p.stage as 'before' | 'after', caption: p.caption, jpeg: await storage.get(p.storageKey) });
+      out.push({
+        name: s.name,
+        netAreaM2: isTakeoff(t) ? t.netAreaM2 : null,
+        uValueBefore: isTakeoff(t) ? t.uValueBefore : null,
+        uValueAfter: isTakeoff(t) ? t.uValueAfter : null,
+        layers: isTakeoff(t)
+          ? t.layers.map((l) => ({ productName: l.productName, role: l.role, thicknessMm: l.thicknessMm, areaM2: l.areaM2, rolls: l.rollsByPacking, lambdaWmK: l.lambda ?? null }))
+          : [],
+        photos,
+      });
+    }
+    const when = completion?.completedAt ?? new Date();
+    return {
+      companyName: org?.name ?? '',
+      reference: job.reference,
+      customerName: customer?.name ?? '',
+      address: [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', '),
+      installerName: installer?.name ?? '',
+      installedOn: when.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }),
+      spaces: out,
+      showRValues: settings.handoverRValues,
+      signedReceipt: settings.handoverReceipt,
+    };
+  }
+
+  return {
+    /**
+     * Marks the job installed when every site check is ticked or has a written reason (given now
+     * or before) and every space has at least one after photo; otherwise 409 `not_ready` naming
+     * each thing missing. Then stores the handover pack and e-mails it to the customer.
+     */
+    async finish(user: SessionUser, jobId: string, reasons: Record<string, string>): Promise<{ stage: 'installed'; emailed: boolean; warnings: string[] }> {
+      const job = await sequelize.transaction(async (t) => {
+        const j = await findWorkableJob(user, jobId, t);
+        await Job.findByPk(j.id, { transaction: t, lock: t.LOCK.UPDATE });
+        const spaces = await Space.findAll({ where: { jobId: j.id }, transaction: t });
+        if (spaces.length === 0) throw new ConflictError('this job has no spaces to finish', 'not_ready');
+        const revisions = await latestRevisionRows(spaces.map((s) => s.id));
+        const ticks = await JobTick.findAll({ where: { jobId: j.id, kind: 'check' }, transaction: t });
+        const afterPhotos = await JobPhoto.findAll({ where: { jobId: j.id, stage: 'after' }, transaction: t });
+        const missing: { path: string; message: string }[] = [];
+        const now = new Date();
+        for (const s of spaces) {
+          const row = revisions.get(s.id);
+          const checks = isTakeoff(row?.takeoff) ? sheetChecks(row.takeoff) : [];
+          for (const c of checks) {
+            const tick = ticks.find((x) => x.spaceId === s.id && x.ref === c.code);
+            const given = (reasons[`${s.id}:${c.code}`] ?? '').trim();
+            if (tick?.done) continue;
+            if (given) {
+              if (tick) await tick.update({ reason: given, userId: user.id, tickedAt: now }, { transaction: t });
+              else await JobTick.create({ organisationId: user.organisationId, jobId: j.id, spaceId: s.id, kind: 'check', ref: c.code, done: false, reason: given, userId: user.id, tickedAt: now }, { transaction: t });
+              continue;
+            }
+            if (!tick?.reason) missing.push({ path: `checks.${s.id}:${c.code}`, message: `${s.name}: "${c.title}" is not ticked and has no reason` });
+          }
+          if (!afterPhotos.some((p) => p.spaceId === s.id)) missing.push({ path: `photos.${s.id}`, message: `${s.name}: add at least one after photo` });
+        }
+        if (missing.length) {
+          throw new ConflictError(`not ready to mark installed: ${missing.map((m) => m.message).join('; ')}`, 'not_ready', missing);
+        }
+        await j.update({ stage: 'installed' }, { transaction: t });
+        await JobCompletion.create({ jobId: j.id, organisationId: user.organisationId, userId: user.id, completedAt: now, reasons, handoverKey: null }, { transaction: t });
+        await JobEvent.create({ organisationId: user.organisationId, jobId: j.id, userId: user.id, kind: 'installed', data: { reasons } }, { transaction: t });
+        return j;
+      });
+
+      const warnings: string[] = [];
+      let emailed = false;
+      try {
+        const data = await handoverData(job);
+        const pdf = await renderHandoverPdf(data);
+        const key = `${job.organisationId}/handover/${job.id}.pdf`;
+        await storage.put(key, pdf);
+        await JobCompletion.update({ handoverKey: key }, { where: { jobId: job.id } });
+        const customer = await Customer.findByPk(job.customerId);
+        if (customer?.email) {
+          await mailer.send({
+            to: customer.email,
+            subject: `Your loft insulation handover pack (${job.reference})`,
+            text: `Dear ${customer.name},\n\nYour loft insulation was installed on ${data.installedOn} by ${data.installerName}. The handover pack attached lists what was installed, the U-values before and after, photos, and how to look after the insulation.\n\n${data.companyName}`,
+            attachments: [{ filename: `handover-${job.reference}.pdf`, content: pdf, contentType: 'application/pdf' }],
+          });
+          emailed = true;
+        } else {
+          warnings.push('the customer has no e-mail address: the office can download the handover pack and send it');
+        }
+      } catch (e) {
+        warnings.push(`the job is marked installed, but the handover pack could not be sent: ${(e as Error).message}`);
+      }
+      return { stage: 'installed', emailed, warnings };
+    },
+
+    /** The handover pack PDF of an installed job (rendered now from the current records). */
+    async pdf(user: SessionUser, jobId: string): Promise<{ filename: string; pdf: Buffer }> {
+      const job = await findSheetJob(user, jobId);
+      if (!['installed', 'closed'].includes(job.stage)) throw new ConflictError('the handover pack is ready once the job is marked installed', 'not_installed');
+      const pdf = await renderHandoverPdf(await handoverData(job));
+      if (!pdf.length) throw new NotFoundError('handover pack');
+      return { filename: `handover-${job.reference}.pdf`, pdf };
+    },
+  };
+}
+export type HandoverService = ReturnType<typeof createHandoverService>;

@@ -1,0 +1,75 @@
+import { Op } from 'sequelize';
+import type { JobSheet, MyJob } from '../../../shared/api/job-sheet';
+import type { AppDeps } from '../../deps';
+import { Customer, Job, Space } from '../../db/models';
+import { JobCompletion } from '../../db/models/installer-registry';
+import type { SessionUser } from '../../types';
+import { createPhotosService } from '../photos/photos.service';
+import { findSheetJob } from './job-access';
+import { createSiteRecordsService } from './site-records.service';
+import { latestRevisionRows, sheetSpace, vanLoad } from './takeoff-view';
+
+/** Shown on every job sheet above the checks (PRODUCT.md, Cautions). */
+export const SHEET_CAUTIONS = [
+  'Loft work is work at height: a secure ladder, good light, and tread only on joists or boards.',
+  'Mineral-wool dust: gloves, goggles, a disposable mask and long sleeves.',
+  'Cables lie over the insulation, never under it; recessed lights get covers or their clearance; anything doubtful electrically goes to an electrician.',
+  'Keep the clearance around flues and chimneys and the ventilation gap at the eaves; never insulate beneath a cold-water tank.',
+  'Local building regulations, electrical rules and licensed practice come first: where they say otherwise, follow them.',
+];
+
+export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage'>) {
+  const records = createSiteRecordsService(deps);
+  const photos = createPhotosService(deps);
+
+  return {
+    /** Everything the installer needs on site, built field by field: no price, cost or margin can be in it. */
+    async sheet(user: SessionUser, jobId: string): Promise<JobSheet> {
+      const job = await findSheetJob(user, jobId);
+      const spaces = await Space.findAll({ where: { jobId: job.id }, order: [['position', 'ASC'], ['createdAt', 'ASC']] });
+      const revisions = await latestRevisionRows(spaces.map((s) => s.id));
+      const completion = await JobCompletion.findByPk(job.id, { include: ['user'] });
+      return {
+        job: {
+          id: job.id,
+          reference: job.reference,
+          stage: job.stage,
+          installDate: job.installDate,
+          propertyAddress: { line1: job.addressLine1, line2: job.addressLine2, town: job.town, postcode: job.postcode },
+          accessNotes: job.accessNotes,
+          notes: job.notes,
+          customer: { name: job.customer?.name ?? '', phone: job.customer?.phone ?? '' },
+          installer: job.assignedInstaller ? { id: job.assignedInstaller.id, name: job.assignedInstaller.name } : null,
+        },
+        spaces: spaces.map((s) => sheetSpace(s, revisions.get(s.id))),
+        vanLoad: vanLoad([...revisions.values()]),
+        cautions: SHEET_CAUTIONS,
+        ticks: await records.listTicks(job.id),
+        notes: await records.listNotes(job.id),
+        photos: await photos.list(job.id),
+        completion: completion
+          ? { by: { id: completion.userId ?? '', name: completion.user?.name ?? 'former user' }, at: completion.completedAt.toISOString(), handoverUrl: `/api/jobs/${job.id}/handover.pdf` }
+          : null,
+      };
+    },
+
+    /** The installer's own jobs (scheduled, installed or closed), today's first is the client's ordering. */
+    async myJobs(user: SessionUser): Promise<MyJob[]> {
+      const jobs = await Job.findAll({
+        where: { organisationId: user.organisationId, assignedInstallerId: user.id, stage: { [Op.in]: ['scheduled', 'installed', 'closed'] } },
+        include: [{ model: Customer, as: 'customer' }, { model: Space, as: 'spaces' }],
+        order: [['installDate', 'ASC'], ['reference', 'ASC']],
+      });
+      return jobs.map((j) => ({
+        id: j.id,
+        reference: j.reference,
+        stage: j.stage,
+        installDate: j.installDate,
+        customerName: j.customer?.name ?? '',
+        propertyAddress: { line1: j.addressLine1, line2: j.addressLine2, town: j.town, postcode: j.postcode },
+        spaceCount: j.spaces?.length ?? 0,
+      }));
+    },
+  };
+}
+export type JobSheetService = ReturnType<typeof createJobSheetService>;

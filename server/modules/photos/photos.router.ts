@@ -1,0 +1,81 @@
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import multer from 'multer';
+import { idParamsSchema } from '../../../shared/api/common';
+import { IDEMPOTENCY_HEADER, photoFieldsSchema } from '../../../shared/api/job-sheet';
+import type { AppDeps } from '../../deps';
+import { AppError, fieldError } from '../../lib/errors';
+import { currentUser, requireAuth } from '../../middleware/require-auth';
+import { validate, zodDetails } from '../../middleware/validate';
+import { ValidationError } from '../../lib/errors';
+import { readIdempotencyKey, runOnce } from '../job-sheet/idempotency';
+import { findWorkableJob } from '../job-sheet/job-access';
+import { PHOTO_MAX_BYTES } from './image-processing';
+import { createPhotosService } from './photos.service';
+
+const MAX_MB = Math.round(PHOTO_MAX_BYTES / 1024 / 1024);
+
+/** multer in memory, one file in field `photo`; its limit errors become clear 413/422 answers. */
+function receivePhoto() {
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 10, fieldSize: 10_000 },
+  }).single('photo');
+  return (req: Request, res: Response, next: NextFunction) => {
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'photo_too_large', `The photo is larger than ${MAX_MB} MB. Take it at a lower resolution or pick a smaller file.`));
+        if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(fieldError('photo', 'send one photo, in the field "photo"'));
+        return next(new AppError(400, 'bad_upload', err.message));
+      }
+      next(err);
+    });
+  };
+}
+
+/** POST /api/jobs/:id/photos (multipart) and GET /api/photos/:id[/thumb]. Mounted at /api. */
+export function photosRouter(deps: AppDeps) {
+  const photos = createPhotosService(deps);
+  const r = Router();
+
+  r.post(
+    '/jobs/:id/photos',
+    requireAuth,
+    validate({ params: idParamsSchema }),
+    // Refuse before reading a large body when the job is not one the user may record on.
+    async (req, _res, next) => {
+      await findWorkableJob(currentUser(req), String(req.params.id));
+      next();
+    },
+    receivePhoto(),
+    async (req, res) => {
+      const user = currentUser(req);
+      const key = readIdempotencyKey(req.get(IDEMPOTENCY_HEADER));
+      const fields = photoFieldsSchema.safeParse(req.body ?? {});
+      if (!fields.success) throw new ValidationError(zodDetails(fields.error));
+      if (!req.file) throw fieldError('photo', 'choose a photo to upload (field "photo")');
+      const stored: string[] = [];
+      try {
+        const result = await runOnce(deps.sequelize, user, key, `POST /api/jobs/${req.params.id}/photos`, async (t) => ({
+          status: 201,
+          body: { photo: await photos.add(user, String(req.params.id), { bytes: req.file!.buffer, ...fields.data }, t, stored) },
+        }));
+        res.status(result.status).json(result.body);
+      } catch (e) {
+        await photos.discard(stored);
+        throw e;
+      }
+    },
+  );
+
+  const sendFile = (thumb: boolean) => async (req: Request, res: Response) => {
+    const fileKey = await photos.fileKey(currentUser(req), String(req.params.id), thumb);
+    const bytes = await deps.storage.get(fileKey);
+    res.set('Content-Type', 'image/jpeg');
+    res.set('Cache-Control', 'private, max-age=86400, immutable');
+    res.send(bytes);
+  };
+  r.get('/photos/:id', requireAuth, validate({ params: idParamsSchema }), sendFile(false));
+  r.get('/photos/:id/thumb', requireAuth, validate({ params: idParamsSchema }), sendFile(true));
+  return r;
+}

@@ -1,0 +1,65 @@
+import type { SheetSpace } from '../../../../shared/api/job-sheet';
+import { tickKey, type ShownTick } from '../merge-pending';
+import { TickButton } from './tick-button';
+
+type Props = {
+  space: SheetSpace;
+  ticks: Map<string, ShownTick>;
+  onTick: (kind: 'strip-cut' | 'strip-laid', ref: string, done: boolean) => void;
+};
+
+const mm = (n: number) => `${Math.round(n)} mm`;
+
+/** The cut list of one space: per layer, roll by roll and lane by lane, each piece in laying order with Cut and Laid ticks. */
+export function CutList({ space, ticks, onTick }: Props) {
+  if (space.rolls.length === 0) return <p className="text-base text-graphite-light">No strips to cut for this space.</p>;
+  return (
+    <div className="flex flex-col gap-4">
+      {space.layers.map((layer) => {
+        const rolls = space.rolls.filter((r) => r.layerKey === layer.key);
+        if (rolls.length === 0) return null;
+        const laidCount = layer.strips.filter((s) => ticks.get(tickKey('strip-laid', space.id, s.id))?.done).length;
+        return (
+          <section key={layer.key} aria-label={`Cut list, ${layer.label}`}>
+            <h4 className="text-lg font-bold">
+              {layer.label}: {layer.productName} {layer.thicknessMm} mm
+            </h4>
+            <p className="mb-2 text-base text-graphite-light">
+              {layer.strips.length} strips · {laidCount} laid · lay {layer.role === 'base' ? 'between the joists, along them' : 'across the joists'}
+            </p>
+            {rolls.map((roll) => (
+              <div key={`${roll.layerKey}-${roll.rollNo}`} className="mb-3 rounded-md border-2 border-graphite/25 bg-white">
+                <div className="border-b-2 border-graphite/15 bg-paper-dark px-3 py-2 text-lg font-bold">Roll {roll.rollNo}</div>
+                {roll.lanes.map((lane) => (
+                  <div key={lane.lane} className="px-3 py-2">
+                    {roll.lanes.length > 1 && (
+                      <div className="text-base font-semibold text-timber">
+                        Lane {lane.lane} · {mm(lane.widthMm)} wide
+                      </div>
+                    )}
+                    <ol className="flex flex-col divide-y divide-graphite/10">
+                      {lane.cuts.map((cut) => (
+                        <li key={cut.id} className="flex flex-wrap items-center gap-2 py-2">
+                          <span className="min-w-[3ch] font-mono text-xl font-bold">#{cut.stripNumber}</span>
+                          <span className="flex-1 font-mono text-lg">
+                            {mm(cut.lengthMm)}
+                            {cut.pieceCount > 1 && <span className="text-base text-graphite-light"> (piece {cut.piece} of {cut.pieceCount})</span>}
+                          </span>
+                          <span className="flex gap-2">
+                            <TickButton label="Cut" tick={ticks.get(tickKey('strip-cut', space.id, cut.id))} onToggle={(d) => onTick('strip-cut', cut.id, d)} testId={`cut-${cut.id}`} />
+                            <TickButton label="Laid" tick={ticks.get(tickKey('strip-laid', space.id, cut.stripId))} onToggle={(d) => onTick('strip-laid', cut.stripId, d)} testId={`laid-${cut.stripId}`} />
+                          </span>
+                        </li>
+                      ))}
+                    </ol>
+                    {lane.offcutMm > 0 && <div className="text-base text-graphite-light">Offcut left: {mm(lane.offcutMm)}</div>}
+                  </div>
+                ))}
+              </div>
+            ))}
+          </section>
+        );
+      })}
+    </div>
+  );
+}
