@@ -4,6 +4,7 @@ import bcrypt from 'bcryptjs';
 import type { JobStage } from '../../../shared/api/jobs';
 import type { Role } from '../../../shared/auth/roles';
 import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
+import { validatePlan } from '../../../shared/plan/validate-plan';
 import { REPO_ROOT } from '../../config';
 import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Organisation, PlanRevision, Space, User } from '../models';
@@ -75,14 +76,14 @@ const FALLBACK_PLAN: unknown = {
   target: { depthMm: 270 },
 };
 
-/** Every valid plan in examples/*.json (invalid ones — some are there on purpose — are skipped). */
+/** Every valid plan in examples/*.json, checked by validatePlan (invalid ones — some are there on purpose — are skipped). */
 export function loadExamplePlans(dir = path.join(REPO_ROOT, 'examples')): Array<{ file: string; plan: Plan }> {
   if (!fs.existsSync(dir)) return [];
   const out: Array<{ file: string; plan: Plan }> = [];
   for (const file of fs.readdirSync(dir).filter((f) => f.endsWith('.json')).sort()) {
     try {
-      const r = planSchema.safeParse(JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
-      if (r.success) out.push({ file, plan: r.data });
+      const r = validatePlan(JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
+      if (r.ok) out.push({ file, plan: r.plan });
     } catch {
       /* not JSON: skip */
     }

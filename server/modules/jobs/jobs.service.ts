@@ -13,7 +13,8 @@ import { nextJobReference } from './job-reference';
 const INCLUDE: Includeable[] = [
   { model: Customer, as: 'customer' },
   { model: User, as: 'assignedInstaller', attributes: ['id', 'name'] },
-  { model: Space, as: 'spaces' },
+  // separate: spaces load in their own query, so LIMIT and `$customer.name$` search apply to jobs only.
+  { model: Space, as: 'spaces', separate: true },
 ];
 
 /** Where-clause every job query starts from: the actor's company, and for installers only their jobs. */

@@ -1,11 +1,11 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Space as SpaceDto, SpaceCreateBody, SpacePatch } from '../../../shared/api/spaces';
 import { can } from '../../../shared/auth/policies';
-import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
+import type { Plan } from '../../../shared/plan/plan-schema';
+import { validatePlan } from '../../../shared/plan/validate-plan';
 import type { AppDeps } from '../../deps';
 import { Job, PlanRevision, Space } from '../../db/models';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { zodDetails } from '../../middleware/validate';
 import type { SessionUser } from '../../types';
 import { findJobForUser, recordJobEvent } from '../jobs/jobs.service';
 
@@ -41,11 +41,14 @@ export async function getRevision(spaceId: string, revision: number): Promise<Pl
   return row;
 }
 
-/** Parses a plan with the shared schema; 422 naming the field (`plan.outline.0`) when it is not valid. */
+/**
+ * Validates a plan with the shared validatePlan (schema, then geometry: self-intersection,
+ * zero-length edges...); 422 naming the place (`plan.outline.0`, `plan.format`) when it is not valid.
+ */
 export function parsePlanOr422(input: unknown): Plan {
-  const r = planSchema.safeParse(input);
-  if (!r.success) throw new ValidationError(zodDetails(r.error).map((d) => ({ ...d, path: d.path ? `plan.${d.path}` : 'plan' })));
-  return r.data;
+  const r = validatePlan(input);
+  if (!r.ok) throw new ValidationError(r.errors.map((e) => ({ path: e.path ? `plan.${e.path}` : 'plan', message: e.message })));
+  return r.plan;
 }
 
 /**
