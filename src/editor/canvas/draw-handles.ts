@@ -1,0 +1,53 @@
+import type { Plan } from '../../../shared/plan/plan-schema';
+import { boxOf } from '../commands/resize-exclusion';
+import type { Session } from '../store/session';
+import { edgeMidpoint } from '../tools/hit-test';
+import { sx, sy, type DrawContext } from './draw-context';
+import { PALETTE } from './palette';
+
+/** Corner handles and "insert" midpoints (outline step), resize handles of a selected exclusion. */
+export function drawHandles(d: DrawContext, plan: Plan, session: Session) {
+  const { ctx, cam } = d;
+  const sel = session.selection;
+  if (session.step === 'outline') {
+    const n = plan.outline.length;
+    if (n >= 3 && !session.draft) {
+      ctx.beginPath();
+      for (let i = 0; i < n; i++) {
+        const [x, y] = edgeMidpoint(plan, i);
+        ctx.moveTo(sx(cam, x) + 4, sy(cam, y));
+        ctx.arc(sx(cam, x), sy(cam, y), 4, 0, Math.PI * 2);
+      }
+      ctx.fillStyle = PALETTE.paper;
+      ctx.fill();
+      ctx.strokeStyle = PALETTE.graphiteFaint;
+      ctx.lineWidth = 1.5;
+      ctx.stroke();
+    }
+    plan.outline.forEach(([x, y], i) => {
+      const on = sel?.kind === 'corner' && sel.index === i;
+      ctx.beginPath();
+      ctx.rect(sx(cam, x) - 5, sy(cam, y) - 5, 10, 10);
+      ctx.fillStyle = on ? PALETTE.select : PALETTE.paper;
+      ctx.fill();
+      ctx.strokeStyle = on ? PALETTE.select : PALETTE.graphite;
+      ctx.lineWidth = 1.5;
+      ctx.stroke();
+    });
+  }
+  if (session.step === 'exclusions' && sel?.kind === 'exclusion') {
+    const e = plan.exclusions[sel.index];
+    if (e?.polygon) {
+      const b = boxOf(e.polygon);
+      ctx.beginPath();
+      for (const [x, y] of [[b.minX, b.minY], [b.maxX, b.minY], [b.maxX, b.maxY], [b.minX, b.maxY]]) {
+        ctx.rect(sx(cam, x) - 5, sy(cam, y) - 5, 10, 10);
+      }
+      ctx.fillStyle = PALETTE.paper;
+      ctx.fill();
+      ctx.strokeStyle = PALETTE.select;
+      ctx.lineWidth = 1.5;
+      ctx.stroke();
+    }
+  }
+}

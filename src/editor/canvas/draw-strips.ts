@@ -1,0 +1,66 @@
+import { sx, sy, traceRing, type DrawContext } from './draw-context';
+import { MONO, PALETTE } from './palette';
+
+/** What the canvas needs of a takeoff: each layer's strips in laying order, and its lay direction. */
+export type DrawnTakeoff = {
+  layers: {
+    role: 'base' | 'cross';
+    /** Direction the strips run, degrees from the x axis. */
+    layAngleDeg: number;
+    strips: { number: number; polygons: ReadonlyArray<ReadonlyArray<readonly [number, number]>>; lengthMm: number; labelAt: readonly [number, number] }[];
+  }[];
+};
+
+/**
+ * Strips in their layer's colour (base straw, cross teal), numbered in laying order, with an
+ * arrow per layer showing the lay direction. Only the top layer is numbered in the review step
+ * unless zoomed in, to keep the numbers readable.
+ */
+export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
+  const { ctx, cam } = d;
+  t.layers.forEach((layer, li) => {
+    const base = layer.role === 'base';
+    ctx.beginPath();
+    for (const s of layer.strips) for (const p of s.polygons) traceRing(d, p);
+    ctx.fillStyle = base ? PALETTE.strawLight : PALETTE.tealLight;
+    ctx.globalAlpha = base ? 0.75 : 0.35;
+    ctx.fill();
+    ctx.globalAlpha = 1;
+    ctx.strokeStyle = base ? PALETTE.straw : PALETTE.teal;
+    ctx.lineWidth = 1;
+    ctx.stroke();
+    const top = li === t.layers.length - 1;
+    if (!top && review) return;
+    ctx.font = `500 10px ${MONO}`;
+    ctx.textAlign = 'center';
+    ctx.textBaseline = 'middle';
+    ctx.fillStyle = base ? PALETTE.strawDark : PALETTE.tealDark;
+    for (const s of layer.strips) {
+      const [cx, cy] = s.labelAt;
+      // Stagger the cross layer's numbers so they do not sit on the base layer's.
+      const off = base ? 0 : 12;
+      ctx.fillText(String(s.number), sx(cam, cx) + off, sy(cam, cy) + off);
+    }
+  });
+  // Lay-direction arrows, top-left of the view, one per layer.
+  t.layers.forEach((layer, i) => {
+    const x = 34, y = 34 + i * 34;
+    const a = (layer.layAngleDeg * Math.PI) / 180;
+    const ux = Math.cos(a), uy = Math.sin(a);
+    const colour = layer.role === 'base' ? PALETTE.strawDark : PALETTE.teal;
+    ctx.beginPath();
+    ctx.moveTo(x - ux * 14, y - uy * 14);
+    ctx.lineTo(x + ux * 14, y + uy * 14);
+    ctx.moveTo(x + ux * 14, y + uy * 14);
+    ctx.lineTo(x + ux * 8 - uy * 5, y + uy * 8 + ux * 5);
+    ctx.moveTo(x + ux * 14, y + uy * 14);
+    ctx.lineTo(x + ux * 8 + uy * 5, y + uy * 8 - ux * 5);
+    ctx.strokeStyle = colour;
+    ctx.lineWidth = 2.5;
+    ctx.stroke();
+    ctx.font = `600 11px ${MONO}`;
+    ctx.fillStyle = colour;
+    ctx.textAlign = 'left';
+    ctx.fillText(`${layer.role} ${layer.role === 'cross' ? i : ''}`.trim() + ' lay', x + 22, y);
+  });
+}

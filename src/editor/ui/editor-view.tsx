@@ -1,0 +1,83 @@
+import { useMemo, type ReactNode } from 'react';
+import type { TakeoffProduct } from '../../../shared/takeoff/compute-takeoff';
+import type { Editor } from '../create-editor';
+import { PlanStage } from '../canvas/plan-stage';
+import { placeMessage, type PlacedIssue } from '../canvas/draw-issues';
+import { useEditorState } from '../store/use-editor-state';
+import { toDrawnTakeoff } from '../takeoff/to-drawn';
+import { useLiveTakeoff } from '../takeoff/use-live-takeoff';
+import { BackgroundControls } from './background-controls';
+import { EavesTools } from './eaves-tools';
+import { EditorContext } from './editor-context';
+import { EditorToolbar } from './editor-toolbar';
+import { ExclusionsTools } from './exclusions-tools';
+import { HelpSheet } from './help-sheet';
+import { JoistsTools } from './joists-tools';
+import { LayersTools } from './layers-tools';
+import { OutlineTools } from './outline-tools';
+import { StepHint, StepsBar } from './steps-bar';
+import { TakeoffPanel } from './takeoff-panel';
+
+type Props = {
+  editor: Editor;
+  products: TakeoffProduct[];
+  /** The page's own toolbar controls (save, revisions, import/export). */
+  toolbar?: ReactNode;
+  onUploadBackground?: (file: File) => Promise<{ url: string }>;
+};
+
+/** The whole editor screen: toolbar, canvas, live takeoff, step tools and the steps bar. */
+export function EditorView({ editor, products, toolbar, onUploadBackground }: Props) {
+  const plan = useEditorState(editor.store, (s) => s.plan);
+  const step = useEditorState(editor.store, (s) => s.session.step);
+  const units = useEditorState(editor.store, (s) => s.session.units);
+  const error = useEditorState(editor.store, (s) => s.session.error);
+  const run = useLiveTakeoff(plan, products);
+  const drawn = useMemo(() => (run?.takeoff ? toDrawnTakeoff(run.takeoff) : null), [run]);
+  const issues = useMemo(() => {
+    if (!run) return [];
+    const out: PlacedIssue[] = [];
+    for (const m of run.errors) { const p = placeMessage(plan, m, 'error'); if (p) out.push(p); }
+    for (const m of run.warnings) { const p = placeMessage(plan, m, 'warning'); if (p) out.push(p); }
+    return out;
+    // Messages belong to the plan they were computed for; placing them on the live plan is what we want.
+  }, [run, plan]);
+
+  return (
+    <EditorContext.Provider value={editor}>
+      <div className="flex h-full min-h-0 flex-col bg-paper" data-testid="plan-editor">
+        <EditorToolbar>
+          <BackgroundControls onUpload={onUploadBackground} />
+          {toolbar}
+        </EditorToolbar>
+        <div className="flex min-h-0 flex-1">
+          <div className="relative min-w-0 flex-1">
+            <PlanStage editor={editor} takeoff={drawn} issues={issues} />
+            <HelpSheet />
+            {error && (
+              <div role="alert" data-testid="editor-error" className="absolute left-1/2 top-3 -translate-x-1/2 rounded bg-brick px-3 py-1.5 text-sm text-white shadow">
+                {error}
+                <button type="button" className="ml-3 underline" onClick={() => editor.store.setError(null)}>dismiss</button>
+              </div>
+            )}
+          </div>
+          <div className="w-80 shrink-0 max-md:w-64">
+            <TakeoffPanel run={run} units={units} />
+          </div>
+        </div>
+        <div className="border-t border-graphite/15 bg-paper px-3 py-2">
+          <StepHint />
+          <div className="mt-1.5">
+            {step === 'outline' && <OutlineTools />}
+            {step === 'joists' && <JoistsTools />}
+            {step === 'exclusions' && <ExclusionsTools />}
+            {step === 'eaves' && <EavesTools />}
+            {step === 'layers' && <LayersTools products={products} />}
+            {step === 'review' && <p className="text-sm text-graphite-light">Read the takeoff on the right; go back to any step to change it.</p>}
+          </div>
+        </div>
+        <StepsBar />
+      </div>
+    </EditorContext.Provider>
+  );
+}

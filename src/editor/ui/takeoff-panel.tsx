@@ -1,0 +1,119 @@
+import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/compute-takeoff';
+import type { PlanMessage } from '../../../shared/plan/plan-messages';
+import { formatArea, formatLength } from '../geometry/units';
+import type { Units } from '../store/session';
+import type { TakeoffRun } from '../takeoff/run-takeoff';
+
+const money = (minor: number) => new Intl.NumberFormat('en-GB', { style: 'currency', currency: 'GBP', maximumFractionDigits: 0 }).format(minor / 100);
+
+function Row({ label, value, testId, strong }: { label: string; value: string; testId?: string; strong?: boolean }) {
+  return (
+    <div className="flex justify-between gap-2 py-0.5">
+      <dt className="text-graphite-light">{label}</dt>
+      <dd className={`font-mono ${strong ? 'font-semibold text-graphite' : ''}`} data-testid={testId}>{value}</dd>
+    </div>
+  );
+}
+
+/** Strips of a layer grouped by cut length: "6 × 4200". */
+export function groupStripsByLength(layer: TakeoffLayer): { lengthMm: number; count: number }[] {
+  const m = new Map<number, number>();
+  for (const s of layer.strips) m.set(s.lengthMm, (m.get(s.lengthMm) ?? 0) + 1);
+  return [...m.entries()].sort((a, b) => b[0] - a[0]).map(([lengthMm, count]) => ({ lengthMm, count }));
+}
+
+function LayerBlock({ layer, units }: { layer: TakeoffLayer; units: Units }) {
+  const base = layer.role === 'base';
+  return (
+    <section className={`rounded border-l-4 bg-white/60 px-2 py-1 ${base ? 'border-straw' : 'border-teal'}`} data-testid={`layer-${layer.role}-${layer.roleIndex}`}>
+      <h4 className="text-sm font-semibold">{base ? 'Base layer (between joists)' : `Cross layer ${layer.roleIndex + 1} (over joists)`}</h4>
+      <p className="text-xs text-graphite-light">{layer.productName}</p>
+      <dl className="text-xs">
+        <Row label="Area" value={formatArea(layer.areaM2, units)} testId={`layer-area-${layer.role}-${layer.roleIndex}`} />
+        <Row label="Strips" value={`${layer.strips.length}, ${formatLength(layer.totalStripLengthMm, units)}${units === 'metric' ? ' mm' : ''} in all`} />
+        <Row label="Rolls by packing" value={String(layer.rollsByPacking)} strong />
+        <Row label="Rolls by rule of thumb" value={String(layer.rollsByArea)} />
+        <Row label="Waste" value={`${layer.wastePct.toFixed(1)} %`} />
+      </dl>
+      <details className="text-xs">
+        <summary className="cursor-pointer text-graphite-light">Strips by length</summary>
+        <ul className="font-mono">
+          {groupStripsByLength(layer).map((g) => (
+            <li key={g.lengthMm}>{g.count} × {formatLength(g.lengthMm, units)}{units === 'metric' ? ' mm' : ''}</li>
+          ))}
+        </ul>
+      </details>
+    </section>
+  );
+}
+
+function Messages({ items, tone }: { items: PlanMessage[]; tone: 'error' | 'warning' }) {
+  if (!items.length) return null;
+  return (
+    <ul className={`space-y-1 text-xs ${tone === 'error' ? 'text-brick' : 'text-straw-dark'}`} data-testid={`takeoff-${tone}s`}>
+      {items.map((m, i) => <li key={i}>{tone === 'error' ? '⚠ ' : '• '}{m.message}</li>)}
+    </ul>
+  );
+}
+
+function Summary({ t, units }: { t: Takeoff; units: Units }) {
+  return (
+    <>
+      <dl className="text-sm">
+        <Row label="Gross area" value={formatArea(t.grossAreaM2, units)} testId="gross-area" />
+        <Row label="Net area" value={formatArea(t.netAreaM2, units)} testId="net-area" strong />
+        <Row label="Excluded" value={formatArea(t.excludedAreaM2, units)} />
+        <Row label="Eaves bands" value={formatArea(t.eavesBandAreaM2, units)} />
+      </dl>
+      <div className="space-y-2">{t.layers.map((l) => <LayerBlock key={`${l.role}${l.roleIndex}`} layer={l} units={units} />)}</div>
+      {t.layers.length === 0 && <p className="text-xs text-graphite-light">No new layers needed for this target.</p>}
+      {t.rollsPerProduct.length > 0 && (
+        <section>
+          <h4 className="text-sm font-semibold">Rolls</h4>
+          <table className="w-full text-xs">
+            <thead><tr className="text-graphite-light"><th className="text-left font-normal">Product</th><th className="font-normal">Packing</th><th className="font-normal">Thumb</th></tr></thead>
+            <tbody className="font-mono">
+              {t.rollsPerProduct.map((r) => (
+                <tr key={r.productId}><td className="font-sans">{r.productName}</td><td className="text-center" data-testid="rolls-packing">{r.rollsByPacking}</td><td className="text-center">{r.rollsByArea}</td></tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+      )}
+      <section>
+        <h4 className="text-sm font-semibold">Heat loss</h4>
+        <dl className="text-xs">
+          <Row label="U before" value={`${t.uValueBefore.toFixed(2)} W/m²K`} testId="u-before" />
+          <Row label="U after" value={`${t.uValueAfter.toFixed(2)} W/m²K`} testId="u-after" strong />
+          {units === 'imperial' && <Row label="R before → after" value={`R-${t.rValueBeforeImperial.toFixed(0)} → R-${t.rValueAfterImperial.toFixed(0)}`} />}
+          <Row label="Target" value={t.thermal.meetsTarget ? 'met' : 'not met'} />
+          <Row label="Saving a year (estimate)" value={`${Math.round(t.savings.fuelKwhPerYear)} kWh · ${money(t.savings.moneyMinorPerYear)}`} testId="saving" />
+        </dl>
+        <p className="text-[11px] text-graphite-faint">{t.savings.note}</p>
+      </section>
+      {t.siteChecks.length > 0 && (
+        <section>
+          <h4 className="text-sm font-semibold">Site checks</h4>
+          <ul className="list-disc space-y-1 pl-4 text-xs" data-testid="site-checks">
+            {t.siteChecks.map((c) => <li key={c.code}>{c.message}</li>)}
+          </ul>
+          <p className="mt-1 text-[11px] text-graphite-faint">Reminders only: follow local building regulations, electrical rules and licensed practice.</p>
+        </section>
+      )}
+    </>
+  );
+}
+
+/** The live takeoff beside the plan. */
+export function TakeoffPanel({ run, units }: { run: TakeoffRun | null; units: Units }) {
+  return (
+    <aside className="flex h-full flex-col gap-3 overflow-y-auto border-l border-graphite/15 bg-paper/95 p-3" aria-label="Live takeoff" data-testid="takeoff-panel">
+      <h3 className="font-semibold">Takeoff</h3>
+      {!run && <p className="text-sm text-graphite-light">Working…</p>}
+      {run && !run.takeoff && run.errors.length === 0 && <p className="text-sm text-graphite-light">Draw or type the outline to see the takeoff.</p>}
+      {run && <Messages items={run.errors} tone="error" />}
+      {run?.takeoff && <Summary t={run.takeoff} units={units} />}
+      {run && <Messages items={[...run.warnings, ...(run.takeoff?.warnings.filter((w) => !run.warnings.some((v) => v.code === w.code)) ?? [])]} tone="warning" />}
+    </aside>
+  );
+}
