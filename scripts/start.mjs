@@ -39,6 +39,16 @@ async function main() {
   const serverArgs = dev ? ['watch', '--clear-screen=false', 'server/index.ts'] : ['server/index.ts'];
   const server = spawn(bin('tsx'), serverArgs, { cwd: REPO_ROOT, stdio: 'inherit', env: { ...env, PORT: String(apiPort) } });
   children.push(server);
+  // payments engineer: with no real payment keys, the local checkout stand-in (no money moves).
+  if (!env.STRIPE_SECRET_KEY) {
+    const payments = spawn(bin('tsx'), ['scripts/fake-payments.ts'], {
+      cwd: REPO_ROOT,
+      stdio: 'inherit',
+      env: { ...env, PAYMENTS_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/payments/webhook` },
+    });
+    children.push(payments);
+    payments.isPaymentsStandIn = true;
+  }
   if (dev) {
     const vite = spawn(bin('vite'), ['--port', String(process.env.VITE_PORT ?? 5173), '--strictPort'], {
       cwd: REPO_ROOT,
@@ -78,6 +88,8 @@ async function main() {
   for (const c of children) {
     c.on('exit', (code, signal) => {
       if (stopping) return;
+      // The app runs without the payments stand-in (card payment pages then say the service is unreachable).
+      if (c.isPaymentsStandIn) return log(`payments stand-in exited (${signal ?? code}); the app keeps running`);
       log(`${c === server ? 'server' : 'vite'} exited (${signal ?? code}); shutting down`);
       shutdown(code ?? 1);
     });

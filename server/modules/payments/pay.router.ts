@@ -139,5 +139,15 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     res.redirect(303, url ?? `/pay/done/${encodeURIComponent(p.token)}`);
   });
 
+  // The customer sees a page, not JSON, when something goes wrong here.
+  r.use((err: unknown, _req: express.Request, res: Response, next: express.NextFunction) => {
+    if (res.headersSent) return next(err);
+    if (err instanceof AppError && err.status < 500) {
+      return send(res, err.status, payLayout('Payment not available', `<p class="warn">${escapeHtml(err.message)}</p>`));
+    }
+    console.error('[pay] error:', err instanceof Error ? err.message : err);
+    send(res, 502, payLayout('Card payment unavailable', '<p class="warn">The card payment service could not be reached, so nothing was paid. Please try again in a few minutes.</p>'));
+  });
+
   return r;
 }
