@@ -27,9 +27,16 @@ export function serverFieldErrors(error: unknown): FieldErrors {
   return out;
 }
 
+/** The server writes messages in lower case to sit beside a field; a strip on its own reads as a sentence. */
+export function asSentence(message: string): string {
+  const s = message.trim();
+  if (!s) return s;
+  return s[0].toUpperCase() + s.slice(1) + (/[.!?]$/.test(s) ? '' : '.');
+}
+
 /** A message for the top of a form when the error is not about one field. */
 export function formErrorMessage(error: unknown): string | null {
   if (!error) return null;
-  if (isApiError(error)) return error.details.length ? 'Some fields need attention.' : error.message;
-  return error instanceof Error ? error.message : 'Something went wrong.';
+  if (isApiError(error)) return error.details.length ? 'Some fields need attention.' : asSentence(error.message);
+  return error instanceof Error ? asSentence(error.message) : 'Something went wrong.';
 }

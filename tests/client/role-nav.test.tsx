@@ -12,8 +12,8 @@ afterEach(() => {
 });
 
 const EXPECTED: Record<Role, string[]> = {
-  office: ['Jobs', 'Customers', 'Users', 'Settings', 'Outbox'],
-  estimator: ['Jobs', 'Customers'],
+  office: ['Jobs', 'Schedule', 'Customers', 'Users', 'Settings', 'Outbox'],
+  estimator: ['Jobs', 'Schedule', 'Customers'],
   installer: ['My jobs'],
 };
 
@@ -46,7 +46,7 @@ describe('role-aware navigation', () => {
   it('hides the outbox when the server has none (production)', async () => {
     renderShell('office', { outbox: false });
     await screen.findByText('page body');
-    await waitFor(() => expect(navLabels()).toEqual(['Jobs', 'Customers', 'Users', 'Settings']));
+    await waitFor(() => expect(navLabels()).toEqual(['Jobs', 'Schedule', 'Customers', 'Users', 'Settings']));
   });
 
   it('never asks for the outbox for roles that may not read it', async () => {
@@ -78,7 +78,7 @@ describe('role-aware navigation', () => {
     fireEvent.click(toggle);
     expect(toggle.getAttribute('aria-expanded')).toBe('true');
     const menu = document.getElementById('phone-menu')!;
-    expect(within(menu).getAllByRole('link').map((a) => a.textContent)).toEqual(['Jobs', 'Customers']);
+    expect(within(menu).getAllByRole('link').map((a) => a.textContent)).toEqual(['Jobs', 'Schedule', 'Customers']);
   });
 
   it('starts installers on their own list and everyone else on jobs', () => {

@@ -3,7 +3,7 @@ import { Link, type LinkProps } from 'react-router-dom';
 import { cn } from '../../lib/cn';
 import { Spinner } from './spinner';
 
-type Variant = 'primary' | 'secondary' | 'ghost' | 'danger';
+type Variant = 'primary' | 'secondary' | 'ghost' | 'danger' | 'danger-ghost';
 type Size = 'sm' | 'md';
 
 const base =
@@ -13,6 +13,7 @@ const variants: Record<Variant, string> = {
   secondary: 'border border-graphite/25 bg-white/70 text-graphite hover:bg-white hover:border-graphite/40',
   ghost: 'text-graphite hover:bg-paper-dark',
   danger: 'bg-brick text-white hover:bg-brick-dark',
+  'danger-ghost': 'text-brick-dark hover:bg-brick-light/30',
 };
 const sizes: Record<Size, string> = { sm: 'h-8 px-3 text-sm', md: 'h-10 px-4 text-sm' };
 

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { isApiError } from '../../lib/api-client';
+import { asSentence } from '../../lib/form-errors';
 import { Button } from './button';
 
 /** Shown where a list has nothing in it: what is missing and, often, the action that fills it. */
@@ -15,7 +16,7 @@ export function EmptyState({ title, children, action }: { title: string; childre
 
 /** Shown where loading failed, with the server's message and a retry. */
 export function ErrorState({ error, onRetry, title = 'This could not be loaded' }: { error: unknown; onRetry?: () => void; title?: string }) {
-  const message = isApiError(error) || error instanceof Error ? error.message : 'Unknown error';
+  const message = isApiError(error) || error instanceof Error ? asSentence(error.message) : 'Unknown error.';
   return (
     <div role="alert" className="rounded-lg border border-brick/40 bg-brick-light/25 px-5 py-4">
       <p className="font-semibold text-brick-dark">{title}</p>

@@ -1,4 +1,6 @@
 import { useState, type FormEvent } from 'react';
+import { Link } from 'react-router-dom';
+import { isApiError } from '../../../lib/api-client';
 import { setPasswordBodySchema } from '../../../../shared/api/auth';
 import { Alert, Button, Field, Input } from '../../../components/ui';
 import { formErrorMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
@@ -27,9 +29,23 @@ export function SetPasswordForm({ token, submitLabel, onDone }: { token: string;
   const tokenProblem = errors.token ? 'This link is not valid. Ask the office for a new one.' : null;
   const formError = tokenProblem ?? (mutation.isError && !errors.password ? formErrorMessage(mutation.error) : null);
 
+  const linkUsedUp = isApiError(mutation.error) && mutation.error.code === 'invalid_token';
+
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Set password">
-      {formError && <Alert>{formError}</Alert>}
+      {formError && (
+        <Alert>
+          {formError}
+          {linkUsedUp && (
+            <>
+              {' '}
+              <Link to="/reset-password" className="font-medium underline">
+                Send me a new link
+              </Link>
+            </>
+          )}
+        </Alert>
+      )}
       <Field label="New password" error={errors.password} hint="At least 10 characters. A short sentence is easy to remember.">
         <Input type="password" name="password" autoComplete="new-password" value={password} onChange={(e) => setPassword(e.target.value)} autoFocus />
       </Field>

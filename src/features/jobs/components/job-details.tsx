@@ -3,7 +3,7 @@ import { Card, CardTitle, formatAddress, formatDate } from '../../../components/
 
 function Row({ label, children }: { label: string; children: React.ReactNode }) {
   return (
-    <div className="grid grid-cols-[7.5rem_1fr] gap-2 py-1.5 text-sm">
+    <div className="grid grid-cols-[5.5rem_minmax(0,1fr)] gap-2 py-1.5 text-sm sm:grid-cols-[7.5rem_minmax(0,1fr)]">
       <dt className="text-graphite-light">{label}</dt>
       <dd className="min-w-0 break-words">{children}</dd>
     </div>

@@ -19,7 +19,7 @@ export function JobFilters({ value, onChange }: { value: JobFilterValues; onChan
       <Field label="Search">
         <Input
           type="search"
-          placeholder="Customer, address, postcode or reference"
+          placeholder="Name, address, postcode or ref"
           value={value.q}
           onChange={(e) => onChange({ q: e.target.value })}
         />
