@@ -16,6 +16,10 @@ import { photosRouter } from './modules/photos/photos.router';
 import { scheduleRouter } from './modules/schedule/schedule.router';
 import { spacesRouter } from './modules/spaces/spaces.router';
 import { usersRouter } from './modules/users/users.router';
+import { catalogueRouter } from './modules/catalogue/catalogue.router';
+import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
+import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
+import { settingsRouter } from './modules/settings/settings.router';
 
 /**
  * The Express app, with no listening and no global state: index.ts listens, tests use supertest.
@@ -51,6 +55,12 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/schedule', scheduleRouter(deps)); // installer engineer: week view, booking, install settings
   app.use('/api', jobSheetRouter(deps)); // installer engineer: my-jobs, job sheet, ticks, notes, finish, handover
   app.use('/api', photosRouter(deps)); // installer engineer: site photos
+
+  app.use('/api/settings', settingsRouter(deps)); // quotes engineer: company settings, logo
+  app.use('/api/catalogue', catalogueRouter(deps)); // quotes engineer: products, extras, tax rates
+  app.use('/api/jobs', jobQuotesRouter(deps)); // quotes engineer: build and list a job's quotes
+  app.use('/api/quotes', quotesRouter(deps)); // quotes engineer: quotes, send, PDF/CSV/XLSX
+  app.use('/api/public/quotes', publicQuoteRouter(deps)); // quotes engineer: the customer's private link (no sign-in)
 
   app.use('/api', apiNotFound);
 

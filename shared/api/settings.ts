@@ -62,6 +62,8 @@ export const productBodySchema = z.object({
   unitPriceMinor: minor('the unit price'),
   unitCostMinor: minor('the unit cost').default(0),
   taxClass: taxClassSchema.default('energy_saving'),
+  /** Layer roles the product may be used for. */
+  roles: z.array(z.enum(['base', 'cross'])).min(1, { error: 'choose at least one layer role' }).default(['base', 'cross']),
   active: z.boolean().default(true),
 });
 export type ProductBody = z.input<typeof productBodySchema>;

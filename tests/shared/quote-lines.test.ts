@@ -7,7 +7,7 @@ import { quoteCautions } from '../../shared/quote/cautions';
 
 const product = (id: string, name: string, unitPriceMinor: number): Product => ({
   id, name, supplierCode: '', thicknessMm: 100, rollWidthMm: 1140, lanes: 1, rollLengthMm: 8000, coverageM2: 9.12,
-  lambdaWmK: 0.044, unitPriceMinor, unitCostMinor: 0, taxClass: 'energy_saving', active: true,
+  lambdaWmK: 0.044, unitPriceMinor, unitCostMinor: 0, taxClass: 'energy_saving', roles: ['base', 'cross'], active: true,
 });
 const extra = (kind: ExtraKind, unitPriceMinor: number, minutesPerUnit: number, taxClass: Extra['taxClass'], unit: Extra['unit'] = 'each'): Extra => ({
   id: kind, kind, name: kind, unit, unitPriceMinor, unitCostMinor: 0, minutesPerUnit, taxClass, active: true,

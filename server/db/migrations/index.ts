@@ -1,6 +1,7 @@
 import type { QueryInterface } from 'sequelize';
 import type { RunnableMigration } from 'umzug';
 import * as m0001 from './0001-foundation';
+import * as m0100 from './0100-quotes-settings';
 import * as m0200 from './0200-installer';
 
 type Migration = RunnableMigration<QueryInterface>;
@@ -14,5 +15,6 @@ const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'
 export const MIGRATIONS: Migration[] = [
   entry('0001-foundation', m0001),
   // append below
+  entry('0100-quotes-settings', m0100), // quotes engineer
   entry('0200-installer', m0200), // installer engineer
 ];

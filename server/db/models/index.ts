@@ -5,6 +5,7 @@ import { Job } from './job';
 import { JobEvent } from './job-event';
 import { Organisation } from './organisation';
 import { PlanRevision } from './plan-revision';
+import { QUOTES_SETTINGS_MODELS } from './quotes-settings-registry';
 import { Space } from './space';
 import { INSTALLER_MODELS } from './installer-registry';
 import { User } from './user';
@@ -27,6 +28,7 @@ export const MODEL_REGISTRY: Array<{ init: (s: Sequelize) => void; associate?: (
   { init: (s) => JobEvent.initModel(s) },
   { init: () => undefined, associate: associateFoundation },
   // feature models: append below
+  ...QUOTES_SETTINGS_MODELS, // quotes engineer: company settings, catalogue, tax rates, quotes
   ...INSTALLER_MODELS, // installer engineer: install settings, ticks, notes, photos, completions, idempotency keys
 ];
 

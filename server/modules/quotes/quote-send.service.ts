@@ -1,0 +1,101 @@
+import type { AppDeps } from '../../deps';
+import { JobEvent, User } from '../../db/models';
+import { Quote } from '../../db/models/quote';
+import { ConflictError, ValidationError } from '../../lib/errors';
+import type { SessionUser } from '../../types';
+import { formatMoney } from '../../../shared/quote/money';
+import { loadCompanySettings } from '../settings/settings.service';
+import { priceQuote } from './quote-dto';
+import { quoteFileName, quotePdf } from './quote-document';
+import { endOfDayEpochSec, newLinkNonce, signQuoteLink } from './quote-link';
+import { addDaysIso, expireIfDue, findJobInOrg, findQuoteInOrg, linesOf, quoteDto, recordEvent, todayIso } from './quotes.service';
+
+/** The private link's signing secret: the server secret (a purpose-bound key is derived from it in quote-link.ts). */
+export function linkSecret(deps: AppDeps): string {
+  return deps.config.sessionSecret;
+}
+
+export function quoteLinkUrl(deps: AppDeps, token: string): string {
+  return `${deps.config.appUrl}/q/${encodeURIComponent(token)}`;
+}
+
+/** Sends an e-mail and records it on the job's timeline (kind `email_sent`). */
+export async function sendRecordedMail(
+  deps: AppDeps,
+  ctx: { organisationId: string; jobId: string; userId: string | null; purpose: string; quoteId?: string },
+  message: { to: string; subject: string; text: string; attachments?: Array<{ filename: string; content: Buffer; contentType?: string }> },
+) {
+  await deps.mailer.send(message);
+  await JobEvent.create({
+    organisationId: ctx.organisationId, jobId: ctx.jobId, userId: ctx.userId, kind: 'email_sent',
+    data: { to: message.to, subject: message.subject, purpose: ctx.purpose, quoteId: ctx.quoteId ?? null, attachments: (message.attachments ?? []).map((a) => a.filename) },
+  } as never);
+}
+
+/** Where office notifications go: the company's e-mail, else every active office user. */
+export async function officeRecipients(organisationId: string): Promise<string[]> {
+  const settings = await loadCompanySettings(organisationId);
+  if (settings.email) return [settings.email];
+  const office = await User.findAll({ where: { organisationId, role: 'office', active: true } });
+  return office.map((u) => u.email);
+}
+
+export function createQuoteSendService(deps: AppDeps) {
+  return {
+    /**
+     * Sends a draft (or re-sends a sent quote) to the customer: the PDF attached and a private link
+     * that expires at the end of the valid-until day. A re-send makes a new link; older ones stop working.
+     * The job moves to `quoted` if it was earlier in its life.
+     */
+    async send(actor: SessionUser, id: string, body: { message?: string }) {
+      const q = await expireIfDue(await findQuoteInOrg(actor, id));
+      if (q.status !== 'draft' && q.status !== 'sent') {
+        throw new ConflictError(`a quote that is ${q.status} cannot be sent; edit it to make a new version`, 'quote_not_sendable');
+      }
+      const job = await findJobInOrg(actor, q.jobId);
+      const customer = job.customer!;
+      if (!customer.email) throw new ValidationError([{ path: 'customer.email', message: 'the customer has no e-mail address: add one to the customer first' }]);
+      const lines = await linesOf(q);
+      if (lines.length === 0) throw new ValidationError([{ path: 'lines', message: 'the quote has no lines' }]);
+      const settings = await loadCompanySettings(actor.organisationId);
+      const today = todayIso();
+      if (q.status === 'draft') {
+        const validUntil = q.validUntil > today ? q.validUntil : addDaysIso(today, settings.validityDays);
+        await q.update({ issueDate: today, validUntil });
+      }
+      const nonce = newLinkNonce();
+      const token = signQuoteLink({ quoteId: q.id, nonce, exp: endOfDayEpochSec(q.validUntil) }, linkSecret(deps));
+      const url = quoteLinkUrl(deps, token);
+      const { totals } = priceQuote(q, lines);
+      const pdf = await quotePdf(q, lines, job, settings, deps.storage, url);
+      const total = formatMoney(totals.grossMinor, q.currency, q.locale);
+      const subject = `Your loft insulation quote ${q.number}${q.version > 1 ? ` (version ${q.version})` : ''} from ${settings.companyName}`;
+      const text = [
+        `Dear ${customer.name},`,
+        '',
+        `Thank you for letting us survey your loft at ${job.addressLine1}, ${job.town}. Your quote ${q.number} is attached as a PDF: ${total} in total, valid until ${q.validUntil}.`,
+        ...(body.message ? ['', body.message] : []),
+        '',
+        'You can read it, accept it or decline it online at your private link:',
+        url,
+        '',
+        'The link is for you only and stops working after the quote\'s valid-until date.',
+        '',
+        `${settings.companyName}${settings.phone ? ` · ${settings.phone}` : ''}${settings.email ? ` · ${settings.email}` : ''}`,
+      ].join('\n');
+      await sendRecordedMail(deps, { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id }, {
+        to: customer.email, subject, text, attachments: [{ filename: quoteFileName(q, 'pdf'), content: pdf, contentType: 'application/pdf' }],
+      });
+      const firstSend = q.status === 'draft';
+      await Quote.update({ status: 'sent', linkNonce: nonce, sentAt: new Date() }, { where: { id: q.id } });
+      await recordEvent(actor.organisationId, job.id, actor.id, firstSend ? 'quote_sent' : 'quote_resent', { quoteId: q.id, number: q.number, version: q.version, to: customer.email, grossMinor: totals.grossMinor });
+      if (['enquiry', 'surveyed'].includes(job.stage)) {
+        const from = job.stage;
+        await job.update({ stage: 'quoted' });
+        await recordEvent(actor.organisationId, job.id, actor.id, 'stage_changed', { from, to: 'quoted', reason: `quote ${q.number} sent` });
+      }
+      await q.reload();
+      return { quote: await quoteDto(q), link: url };
+    },
+  };
+}

@@ -1,0 +1,114 @@
+import type { CompanySettings, CompanySettingsBody } from '../../../shared/api/settings';
+import { companySettingsBodySchema, extraBodySchema, productBodySchema } from '../../../shared/api/settings';
+import { Organisation } from '../../db/models';
+import { CompanySetting } from '../../db/models/company-setting';
+import { Extra } from '../../db/models/extra';
+import { Product } from '../../db/models/product';
+import { TaxRate } from '../../db/models/tax-rate';
+import { BadRequestError, NotFoundError } from '../../lib/errors';
+import type { Storage } from '../../lib/storage';
+import type { SessionUser } from '../../types';
+import { DEFAULT_TAX_RATES, DEMO_EXTRAS, DEMO_PRODUCTS, defaultCompanySettings } from './settings.defaults';
+
+export function toSettingsDto(s: CompanySetting): CompanySettings {
+  return {
+    companyName: s.companyName,
+    address: { line1: s.address.line1, line2: s.address.line2 ?? '', town: s.address.town, postcode: s.address.postcode },
+    email: s.email,
+    phone: s.phone,
+    taxNumber: s.taxNumber,
+    terms: s.terms,
+    validityDays: s.validityDays,
+    currency: s.currency,
+    locale: s.locale,
+    degreeDays: s.degreeDays,
+    fuelPriceMinorPerKwh: s.fuelPriceMinorPerKwh,
+    heatingEfficiency: s.heatingEfficiency,
+    wasteAllowance: s.wasteAllowance,
+    rollCountMethod: s.rollCountMethod,
+    labour: s.labour,
+    extraRules: s.extraRules,
+    hasLogo: !!s.logoKey,
+  };
+}
+
+/**
+ * The company's settings row, created with defaults (and the default dated tax rates) the first time
+ * anything asks for it, so a new company can quote at once.
+ */
+export async function loadCompanySettings(organisationId: string): Promise<CompanySetting> {
+  const existing = await CompanySetting.findByPk(organisationId);
+  if (existing) return existing;
+  const org = await Organisation.findByPk(organisationId);
+  if (!org) throw new NotFoundError('organisation');
+  const [row] = await CompanySetting.findOrCreate({
+    where: { organisationId },
+    defaults: { organisationId, ...defaultCompanySettings(org.name) } as never,
+  });
+  if ((await TaxRate.count({ where: { organisationId } })) === 0) {
+    await TaxRate.bulkCreate(DEFAULT_TAX_RATES.map((r) => ({ organisationId, taxClass: r.taxClass, rateBp: r.rateBp, validFrom: r.validFrom, label: r.label ?? '' })) as never);
+  }
+  return row;
+}
+
+/**
+ * Gives a company the demo catalogue (products and extras with invented prices) when it has none.
+ * Called by the demo seed; safe to call twice.
+ */
+export async function seedDemoCatalogue(organisationId: string, company?: Partial<CompanySettingsBody>): Promise<void> {
+  const settings = await loadCompanySettings(organisationId);
+  if (company) {
+    const merged = companySettingsBodySchema.parse({ ...toSettingsDto(settings), ...company });
+    await settings.update(merged as never);
+  }
+  if ((await Product.count({ where: { organisationId } })) === 0) {
+    await Product.bulkCreate(DEMO_PRODUCTS.map((p) => ({ organisationId, ...productBodySchema.parse(p) })) as never);
+  }
+  if ((await Extra.count({ where: { organisationId } })) === 0) {
+    await Extra.bulkCreate(DEMO_EXTRAS.map((e) => ({ organisationId, ...extraBodySchema.parse(e) })) as never);
+  }
+}
+
+const LOGO_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg' };
+
+function sniffImage(buf: Buffer): string | null {
+  if (buf.length > 8 && buf.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))) return 'image/png';
+  if (buf.length > 3 && buf[0] === 0xff && buf[1] === 0xd8 && buf[2] === 0xff) return 'image/jpeg';
+  return null;
+}
+
+export function createSettingsService(storage: Storage) {
+  return {
+    async get(actor: SessionUser) {
+      return toSettingsDto(await loadCompanySettings(actor.organisationId));
+    },
+    async update(actor: SessionUser, body: CompanySettingsBody) {
+      const row = await loadCompanySettings(actor.organisationId);
+      await row.update(body as never);
+      return toSettingsDto(row);
+    },
+    /** PNG or JPEG only (checked by content, not by name), at most 1 MB; pdfkit draws both. */
+    async setLogo(actor: SessionUser, file: { buffer: Buffer } | undefined) {
+      if (!file) throw new BadRequestError('attach the logo as a PNG or JPEG file in the "logo" field', 'file_missing');
+      const type = sniffImage(file.buffer);
+      if (!type) throw new BadRequestError('the logo must be a PNG or JPEG image', 'unsupported_type');
+      const row = await loadCompanySettings(actor.organisationId);
+      const key = `${actor.organisationId}/logo/logo.${LOGO_TYPES[type]}`;
+      await storage.put(key, file.buffer);
+      await row.update({ logoKey: key, logoType: type });
+      return toSettingsDto(row);
+    },
+    async removeLogo(actor: SessionUser) {
+      const row = await loadCompanySettings(actor.organisationId);
+      if (row.logoKey) await storage.delete(row.logoKey);
+      await row.update({ logoKey: null, logoType: null });
+      return toSettingsDto(row);
+    },
+    async logo(actor: SessionUser) {
+      const row = await loadCompanySettings(actor.organisationId);
+      if (!row.logoKey || !(await storage.exists(row.logoKey))) throw new NotFoundError('logo');
+      return { type: row.logoType ?? 'application/octet-stream', data: await storage.get(row.logoKey) };
+    },
+  };
+}
+export type SettingsService = ReturnType<typeof createSettingsService>;
