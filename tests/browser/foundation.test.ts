@@ -1,0 +1,125 @@
+// Signs in through the real UI as each demo role, on a desktop and a 360 px phone, and checks the
+// navigation each role gets (PRODUCT.md, People; shared/auth/policies.ts). Screenshots are kept in
+// test-output/screenshots/ for a person to look at.
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Role } from '../../shared/auth/roles';
+import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
+import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+
+// Links each role must see, in this order, and links it must not see. Other features may add
+// links of their own (a schedule, say), so extra links are allowed.
+const ROLES: Array<{ role: Role; email: string; home: string; nav: string[]; not: string[] }> = [
+  { role: 'office', email: 'office@demo.example.com', home: '/jobs', nav: ['Jobs', 'Customers', 'Users', 'Settings', 'Outbox'], not: ['My jobs'] },
+  { role: 'estimator', email: 'estimator@demo.example.com', home: '/jobs', nav: ['Jobs', 'Customers'], not: ['Users', 'Settings', 'Outbox', 'My jobs'] },
+  { role: 'installer', email: 'installer@demo.example.com', home: '/my-jobs', nav: ['My jobs'], not: ['Jobs', 'Customers', 'Users', 'Settings', 'Outbox'] },
+];
+
+function expectNav(labels: string[], nav: string[], not: string[]) {
+  expect(labels.filter((l) => nav.includes(l))).toEqual(nav);
+  expect(labels.filter((l) => not.includes(l))).toEqual([]);
+}
+
+let app: Awaited<ReturnType<typeof startAppServer>>;
+let desktop: Awaited<ReturnType<typeof launchBrowser>>;
+let phone: Awaited<ReturnType<typeof launchBrowser>>;
+
+beforeAll(async () => {
+  app = await startAppServer();
+  await seedDemo(app.ctx.deps);
+  desktop = await launchBrowser({ viewport: { width: 1280, height: 860 } });
+  phone = await launchBrowser({ viewport: { width: 360, height: 740 } });
+}, 120_000);
+
+afterAll(async () => {
+  await desktop?.close();
+  await phone?.close();
+  await app?.close();
+});
+
+/** A new tab with no session left over from the previous test (the profile's cookies are shared). */
+async function freshPage(browser: Awaited<ReturnType<typeof launchBrowser>>): Promise<Page> {
+  await browser.context.clearCookies();
+  return browser.newPage();
+}
+
+/** Link texts of the visible main navigation. */
+async function navLinks(page: Page): Promise<string[]> {
+  const nav = page.locator('nav[aria-label="Main"]:visible');
+  await nav.first().waitFor();
+  return (await nav.first().getByRole('link').allInnerTexts()).map((t) => t.trim());
+}
+
+async function signOut(page: Page) {
+  await page.getByRole('button', { name: 'Sign out' }).filter({ visible: true }).first().click();
+  await page.waitForURL((u) => u.pathname === '/sign-in');
+}
+
+describe('foundation in a real browser', () => {
+  it('refuses a wrong password on the sign-in page and says why', async () => {
+    const page = await freshPage(desktop);
+    await page.goto(`${app.url}/sign-in`);
+    await page.getByLabel('E-mail').fill('office@demo.example.com');
+    await page.getByLabel('Password').fill('not-the-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page.getByRole('alert').textContent()).resolves.toMatch(/do not match/);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await screenshot(page, 'foundation-sign-in-error-1280');
+    await page.close();
+  });
+
+  it.each(ROLES)('shows $role the right navigation on a desktop', async ({ role, email, home, nav, not }) => {
+    const page = await freshPage(desktop);
+    await signInThroughUi(page, app.url, email, DEMO_PASSWORD);
+    await page.waitForURL((u) => u.pathname === home);
+    await page.getByRole('heading').first().waitFor();
+    expectNav(await navLinks(page), nav, not);
+    await expect(page.getByTestId('signed-in-user').filter({ visible: true }).first().innerText()).resolves.toContain('Hearthfold Insulation');
+    if (role !== 'installer') await page.getByRole('table', { name: 'Jobs' }).waitFor();
+    await screenshot(page, `foundation-${role}-1280`);
+    await signOut(page);
+    await page.close();
+  });
+
+  it.each(ROLES)('folds the navigation into a menu for $role at 360 px', async ({ role, email, home, nav, not }) => {
+    const page = await freshPage(phone);
+    await signInThroughUi(page, app.url, email, DEMO_PASSWORD);
+    await page.waitForURL((u) => u.pathname === home);
+    await page.getByRole('heading').first().waitFor();
+    expect(await page.locator('nav[aria-label="Main"]:visible').count()).toBe(0);
+    // Nothing may stick out sideways on a phone.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
+    await screenshot(page, `foundation-${role}-360`);
+    await page.getByRole('button', { name: 'Menu' }).click();
+    expectNav(await navLinks(page), nav, not);
+    await screenshot(page, `foundation-${role}-360-menu`);
+    await signOut(page);
+    await page.close();
+  });
+
+  it('lets the office open a job, its users and the outbox', async () => {
+    const page = await freshPage(desktop);
+    await signInThroughUi(page, app.url, 'office@demo.example.com', DEMO_PASSWORD);
+    await page.getByRole('table', { name: 'Jobs' }).getByRole('link', { name: 'Samuel Okonjo' }).click();
+    await page.getByRole('heading', { name: /Samuel Okonjo/ }).waitFor();
+    await page.getByText('Loft spaces').waitFor();
+    await screenshot(page, 'foundation-office-job-1280');
+
+    await page.goto(`${app.url}/users`);
+    await page.getByRole('list', { name: 'Users' }).getByText('Ian Calder').waitFor();
+    await screenshot(page, 'foundation-office-users-1280');
+
+    await page.goto(`${app.url}/outbox`);
+    await page.getByRole('heading', { name: 'Outbox' }).waitFor();
+    await screenshot(page, 'foundation-office-outbox-1280');
+    await page.close();
+  });
+
+  it('keeps an installer out of the office pages', async () => {
+    const page = await freshPage(desktop);
+    await signInThroughUi(page, app.url, 'installer@demo.example.com', DEMO_PASSWORD);
+    await page.goto(`${app.url}/users`);
+    await page.getByRole('heading', { name: 'Not available for your role' }).waitFor();
+    await page.close();
+  });
+});
