@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { runMigrations } from './db/migrate';
 import { seedDemo } from './db/seeders/demo';
+import { seedQuotesDemo } from './db/seeders/quotes-demo';
 import { createDeps } from './deps';
 
 /** Boots the API: config → deps → migrations → demo seed → listen. Listening only; the app is in app.ts. */
@@ -22,6 +23,7 @@ async function main() {
   if (config.seedDemo) {
     const seeded = await seedDemo(deps);
     if (seeded) console.log('[server] demo data created (sign in as office@demo.example.com / quiltline-demo)');
+    await seedQuotesDemo(); // quotes engineer: demo company details, catalogue prices, tax rates (idempotent)
   }
   const app = createApp(deps);
   const server = app.listen(config.port, config.host, () => {

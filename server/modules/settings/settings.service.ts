@@ -57,7 +57,8 @@ export async function loadCompanySettings(organisationId: string): Promise<Compa
  */
 export async function seedDemoCatalogue(organisationId: string, company?: Partial<CompanySettingsBody>): Promise<void> {
   const settings = await loadCompanySettings(organisationId);
-  if (company) {
+  // Company details only while they are still the defaults: an office's own edits are never overwritten.
+  if (company && settings.address.line1 === defaultCompanySettings('').address.line1) {
     const merged = companySettingsBodySchema.parse({ ...toSettingsDto(settings), ...company });
     await settings.update(merged as never);
   }
