@@ -33,6 +33,11 @@ const JobSheetPage = lazy(() => import('./routes/placeholder').then((m) => ({ de
 const SettingsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SettingsPlaceholder })));
 const SpaceEditorPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SpaceEditorPlaceholder })));
 
+// payments engineer: invoices, payment settings
+const InvoicesPage = lazy(() => import('../features/invoices/components/invoices-page'));
+const InvoicePage = lazy(() => import('../features/invoices/components/invoice-page'));
+const PaymentSettingsPage = lazy(() => import('../features/invoices/components/payment-settings-page'));
+
 /** Pages reachable only when signed in; they render inside the app frame (RequireAuth). */
 const signedInRoutes: RouteObject[] = [
   { index: true, element: page(HomeRedirect) },
@@ -48,6 +53,9 @@ const signedInRoutes: RouteObject[] = [
   { path: 'my-jobs', element: page(MyJobsPage) }, // installer engineer
   { path: 'jobs/:id/sheet', element: page(JobSheetPage) }, // installer engineer
   { path: 'settings', element: page(SettingsPage) }, // quotes engineer
+  { path: 'invoices', element: page(InvoicesPage) }, // payments engineer
+  { path: 'invoices/:id', element: page(InvoicePage) }, // payments engineer
+  { path: 'settings/payments', element: page(PaymentSettingsPage) }, // payments engineer
   { path: 'spaces/:id/edit', element: page(SpaceEditorPage) }, // editor engineer
 ];
 

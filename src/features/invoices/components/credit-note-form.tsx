@@ -1,0 +1,45 @@
+import { useState, type FormEvent } from 'react';
+import { useNavigate } from 'react-router-dom';
+import type { Invoice } from '../../../../shared/api/invoices';
+import { Alert, Button, Field, Input } from '../../../components/ui';
+import { asSentence } from '../../../lib/form-errors';
+import { useCreateCreditNote } from '../api/update-invoice';
+import { emptyLine, LineEditor, toLineInputs, type DraftLine } from './line-editor';
+
+/** Issue a credit note against an invoice; for a paid one, optionally refund it to the card. */
+export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
+  const create = useCreateCreditNote(invoice.id);
+  const navigate = useNavigate();
+  const [reason, setReason] = useState('');
+  const [lines, setLines] = useState<DraftLine[]>([emptyLine()]);
+  const [refund, setRefund] = useState(false);
+  const [problem, setProblem] = useState<string | null>(null);
+
+  function submit(e: FormEvent) {
+    e.preventDefault();
+    const parsed = toLineInputs(lines, invoice.currency);
+    if ('error' in parsed) return setProblem(parsed.error);
+    if (parsed.lines.length === 0) return setProblem('add at least one line');
+    if (!reason.trim()) return setProblem('say why the credit is given');
+    setProblem(null);
+    create.mutate({ reason, lines: parsed.lines, refund: invoice.status === 'paid' && refund }, { onSuccess: (cn) => navigate(`/invoices/${cn.id}`) });
+  }
+
+  return (
+    <form onSubmit={submit} className="flex flex-col gap-3">
+      <Field label="Reason (printed on the credit note)" required>
+        <Input value={reason} onChange={(e) => setReason(e.target.value)} placeholder="e.g. walkway boards not fitted" />
+      </Field>
+      <LineEditor label="What is credited" lines={lines} onChange={setLines} />
+      {invoice.status === 'paid' && (
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={refund} onChange={(e) => setRefund(e.target.checked)} /> Pay it back to the customer's card
+        </label>
+      )}
+      {(problem || create.isError) && <Alert>{asSentence(problem ?? create.error?.message ?? '')}</Alert>}
+      <div>
+        <Button type="submit" variant="secondary" busy={create.isPending}>Issue credit note</Button>
+      </div>
+    </form>
+  );
+}

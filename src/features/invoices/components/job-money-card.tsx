@@ -1,0 +1,84 @@
+import { useState, type FormEvent } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
+import type { JobStage } from '../../../../shared/api/jobs';
+import { formatMoney } from '../../../../shared/quote/money';
+import { Alert, Button, Card, CardTitle, ErrorState, Spinner, Textarea, formatDateTime } from '../../../components/ui';
+import { asSentence } from '../../../lib/form-errors';
+import { useCreateInvoice } from '../api/create-invoice';
+import { usePaymentTimeline } from '../api/get-deposit';
+import { useInvoices } from '../api/get-invoices';
+import { InvoiceStatusBadge } from './invoice-status-badge';
+import { LineEditor, toLineInputs, type DraftLine } from './line-editor';
+
+/** The job's money: deposit, invoice and payments on one card, and "Create invoice" once installed. */
+export function JobMoneyCard({ jobId, stage, canInvoice }: { jobId: string; stage: JobStage; canInvoice: boolean }) {
+  const timeline = usePaymentTimeline(jobId);
+  const invoices = useInvoices({ jobId });
+  const invoice = invoices.data?.find((i) => i.kind === 'invoice');
+  return (
+    <Card>
+      <CardTitle>Payments</CardTitle>
+      {timeline.isPending ? (
+        <Spinner size="sm" label="Loading payments" />
+      ) : timeline.isError ? (
+        <ErrorState error={timeline.error} onRetry={() => timeline.refetch()} title="Payments could not be loaded" />
+      ) : timeline.data.length === 0 ? (
+        <p className="text-sm text-graphite-light">No deposit or invoice yet.</p>
+      ) : (
+        <ol className="flex flex-col gap-1.5 text-sm" data-testid="money-timeline">
+          {timeline.data.map((e, i) => (
+            <li key={i} className="flex flex-wrap justify-between gap-x-3">
+              <span>{e.text}</span>
+              <span className="font-mono text-xs text-graphite-light">{formatDateTime(e.at)}</span>
+            </li>
+          ))}
+        </ol>
+      )}
+      {invoice && (
+        <p className="mt-3 flex items-center gap-2 text-sm">
+          Invoice <Link className="font-mono text-teal-dark hover:underline" to={`/invoices/${invoice.id}`}>{invoice.number}</Link>
+          <InvoiceStatusBadge invoice={invoice} /> {invoice.status !== 'paid' && <span className="font-mono">{formatMoney(invoice.balanceMinor, invoice.currency)} to pay</span>}
+        </p>
+      )}
+      {canInvoice && !invoice && invoices.isSuccess && (stage === 'installed' || stage === 'closed') && <NewInvoiceForm jobId={jobId} />}
+      {canInvoice && !invoice && invoices.isSuccess && stage !== 'installed' && stage !== 'closed' && (
+        <p className="mt-3 text-xs text-graphite-light">The invoice is made once the job is installed.</p>
+      )}
+    </Card>
+  );
+}
+
+function NewInvoiceForm({ jobId }: { jobId: string }) {
+  const create = useCreateInvoice();
+  const navigate = useNavigate();
+  const [open, setOpen] = useState(false);
+  const [lines, setLines] = useState<DraftLine[]>([]);
+  const [notes, setNotes] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  if (!open) {
+    return (
+      <div className="mt-3">
+        <Button onClick={() => setOpen(true)}>Create invoice</Button>
+      </div>
+    );
+  }
+  function submit(e: FormEvent) {
+    e.preventDefault();
+    const parsed = toLineInputs(lines, 'GBP');
+    if ('error' in parsed) return setProblem(parsed.error);
+    setProblem(null);
+    create.mutate({ jobId, variations: parsed.lines, notes, send: true }, { onSuccess: (inv) => navigate(`/invoices/${inv.id}`) });
+  }
+  return (
+    <form onSubmit={submit} className="mt-4 flex flex-col gap-3 border-t border-paper-line pt-3">
+      <p className="text-sm text-graphite-light">The invoice takes the accepted quote's lines, adds any variations below (see the installer's site notes), takes off the deposit paid, and is e-mailed to the customer with a link to pay.</p>
+      <LineEditor label="Variations found on site" lines={lines} onChange={setLines} />
+      <Textarea aria-label="Notes printed on the invoice" placeholder="Notes printed on the invoice (optional)" rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} />
+      {(problem || create.isError) && <Alert>{asSentence(problem ?? create.error?.message ?? '')}</Alert>}
+      <div className="flex gap-2">
+        <Button type="submit" busy={create.isPending}>Create and e-mail invoice</Button>
+        <Button variant="ghost" onClick={() => setOpen(false)}>Cancel</Button>
+      </div>
+    </form>
+  );
+}
