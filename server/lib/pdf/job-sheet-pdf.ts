@@ -1,0 +1,118 @@
+import type { JobSheet } from '../../../shared/api/job-sheet';
+import { bullets, ensureSpace, heading, newDocument, table } from './document';
+import { INK } from './fonts';
+import { drawPlan, type PlanForDrawing, type StripForDrawing } from './plan-drawing';
+
+const mm = (n: number) => `${Math.round(n)} mm`;
+
+/** One cut list row per roll lane: the strips cut from it in order, and what is left. */
+function cutListRows(space: JobSheet['spaces'][number]): string[][] {
+  const rows: string[][] = [];
+  for (const roll of space.rolls) {
+    for (const lane of roll.lanes) {
+      rows.push([
+        `Roll ${roll.rollNo}${roll.lanes.length > 1 ? ` lane ${lane.lane}` : ''}`,
+        `${roll.productName}${lane.widthMm ? `, ${mm(lane.widthMm)} wide` : ''}`,
+        lane.cuts.map((c) => `${c.stripLabel}${c.pieceCount > 1 ? ` (${c.piece}/${c.pieceCount})` : ''} ${mm(c.lengthMm)}`).join(' · ') || '—',
+        lane.offcutMm > 0 ? mm(lane.offcutMm) : '—',
+      ]);
+    }
+  }
+  return rows;
+}
+
+/**
+ * The installer's job sheet as a PDF: per space the plan with strips numbered and the lay direction,
+ * the cut list grouped by roll, then the van load and the site checks to tick. It prints only what
+ * the job sheet API gives an installer, which carries no prices.
+ */
+export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): Promise<Buffer> {
+  const { doc, done } = newDocument(`Job sheet ${sheet.job.reference}`);
+  const left = doc.page.margins.left;
+  const width = doc.page.width - left - doc.page.margins.right;
+  const a = sheet.job.propertyAddress;
+
+  doc.font('ui-bold').fontSize(18).fillColor(INK.timber).text('Job sheet', left, doc.y);
+  doc.font('mono').fontSize(10).fillColor(INK.graphite).text(`${sheet.job.reference} · install ${sheet.job.installDate ?? 'date to be agreed'}`);
+  doc.font('ui').fontSize(10).text([a.line1, a.line2, a.town, a.postcode].filter(Boolean).join(', '));
+  doc.fontSize(9.5).fillColor(INK.graphiteLight).text(`Customer: ${sheet.job.customer.name}${sheet.job.customer.phone ? ` · ${sheet.job.customer.phone}` : ''}`);
+  doc.text(`Installer: ${sheet.job.installer?.name ?? 'not assigned yet'} · ${companyName}`);
+  if (sheet.job.accessNotes) doc.fillColor(INK.graphite).text(`Access: ${sheet.job.accessNotes}`, { width });
+  if (sheet.job.notes) doc.fillColor(INK.graphite).text(`Notes: ${sheet.job.notes}`, { width });
+
+  heading(doc, 'Safety first');
+  bullets(doc, sheet.cautions);
+
+  for (const space of sheet.spaces) {
+    doc.addPage();
+    doc.font('ui-bold').fontSize(15).fillColor(INK.graphite).text(space.name, left, doc.y);
+    const facts = [
+      space.netAreaM2 !== null ? `${space.netAreaM2.toFixed(1)} m² net` : '',
+      space.uValueBefore !== null && space.uValueAfter !== null ? `U ${space.uValueBefore.toFixed(2)} → ${space.uValueAfter.toFixed(2)} W/m²K` : '',
+      space.revision ? `plan revision ${space.revision}` : '',
+    ].filter(Boolean);
+    doc.font('ui').fontSize(9).fillColor(INK.graphiteLight).text(facts.join(' · '));
+    if (space.problem) {
+      doc.moveDown(0.5).fillColor(INK.brick).fontSize(10).text(space.problem, { width });
+      continue;
+    }
+    if (space.plan) {
+      const strips: StripForDrawing[] = space.layers.flatMap((l) => l.strips.map((s) => ({ corners: s.polygon as Array<[number, number]>, label: s.label, role: l.role })));
+      const boxY = doc.y + 6;
+      const box = { x: left, y: boxY, width, height: 300 };
+      doc.rect(box.x, box.y, box.width, box.height).lineWidth(0.5).strokeColor(INK.paperLine).stroke();
+      drawPlan(doc, space.plan as PlanForDrawing, box, { strips, showArrow: true });
+      doc.y = boxY + box.height + 6;
+      doc.x = left;
+      doc.font('ui').fontSize(7.5).fillColor(INK.graphiteLight).text('Straw: base strips between the joists. Teal: cross strips. Numbers are the laying order (from the eaves inward, finishing at the hatch). Red hatching: do not cover. Blue: eaves, keep the ventilation gap. Arrow: base lay direction.', left, doc.y, { width });
+    }
+    heading(doc, 'Layers');
+    table(
+      doc,
+      [
+        { header: 'Layer', width: 60 },
+        { header: 'Product', width: width - 60 - 60 - 60 - 90 },
+        { header: 'Depth', width: 60, align: 'right', mono: true },
+        { header: 'Area', width: 60, align: 'right', mono: true },
+        { header: 'Lay direction', width: 90, align: 'right', mono: true },
+      ],
+      space.layers.map((l) => [l.label, l.productName, mm(l.thicknessMm), `${l.areaM2.toFixed(1)} m²`, `${Math.round(l.layDirectionDeg)}° (${l.strips.length} strips)`]),
+    );
+    heading(doc, 'Cut list, by roll');
+    table(
+      doc,
+      [
+        { header: 'Roll', width: 70 },
+        { header: 'Product', width: 140 },
+        { header: 'Strips in order (label length)', width: width - 70 - 140 - 60, mono: true },
+        { header: 'Offcut', width: 60, align: 'right', mono: true },
+      ],
+      cutListRows(space),
+    );
+    heading(doc, 'Site checks');
+    for (const c of space.checks) {
+      ensureSpace(doc, 30);
+      const y = doc.y;
+      doc.rect(left, y + 1, 9, 9).lineWidth(0.8).strokeColor(INK.graphite).stroke();
+      doc.font('ui-bold').fontSize(9.5).fillColor(INK.graphite).text(c.title, left + 16, y, { width: width - 16 });
+      doc.font('ui').fontSize(8.5).fillColor(INK.graphiteLight).text(c.detail, left + 16, doc.y, { width: width - 16 });
+      doc.moveDown(0.3);
+    }
+  }
+
+  doc.addPage();
+  doc.font('ui-bold').fontSize(15).fillColor(INK.graphite).text('Van load', left, doc.y);
+  doc.moveDown(0.3);
+  table(
+    doc,
+    [
+      { header: 'Item', width: width - 100 },
+      { header: 'Quantity', width: 100, align: 'right', mono: true },
+    ],
+    [
+      ...sheet.vanLoad.rolls.map((r) => [`${r.productName} (${mm(r.thicknessMm)})`, `${r.count} rolls`]),
+      ...sheet.vanLoad.extras.map((e) => [e.label, `${e.quantity} ${e.unit}`]),
+    ],
+  );
+  return done(`${companyName} · Job sheet ${sheet.job.reference}`);
+}

@@ -1,0 +1,85 @@
+// The installer's job sheet as a PDF (plan with numbered strips, cut list by roll, van load, checks;
+// no prices) and e-mailing it to the assigned installer.
+import { simpleParser } from 'mailparser';
+import { PDFParse } from 'pdf-parse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { JobEvent, PlanRevision } from '../../server/db/models';
+import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
+import { parseProductCatalogue } from '../../shared/takeoff/products';
+import { loadCatalogue } from '../../server/modules/catalogue/catalogue.service';
+import { createJob, createTestContext, createUser, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
+import { binary, examplePlan, quoteCompany } from './quotes-fixtures';
+
+let ctx: TestContext;
+let org: TestOrg;
+
+beforeAll(async () => {
+  ctx = await createTestContext();
+  org = await quoteCompany();
+});
+afterAll(async () => {
+  await ctx?.close();
+});
+
+/** A scheduled job whose plan revision carries its saved takeoff, as the editor leaves it on save. */
+async function scheduledJob(opts: { assigned?: boolean; stage?: 'scheduled' | 'accepted' } = {}) {
+  const plan = examplePlan();
+  const made = await createJob(org, { stage: opts.stage ?? 'scheduled', assignedInstallerId: opts.assigned === false ? null : org.installer.id, plan });
+  const { products } = await loadCatalogue(org.id);
+  await PlanRevision.update({ takeoff: computeTakeoff(plan, { products: parseProductCatalogue(products) }) as never }, { where: { spaceId: made.space.id } });
+  return made;
+}
+
+const pdfText = async (buf: Buffer) => (await new PDFParse({ data: new Uint8Array(buf) }).getText()).text;
+
+describe('job sheet PDF', () => {
+  it('prints the plan strips, the cut list by roll, the van load and the checks, and no prices', async () => {
+    const { job } = await scheduledJob();
+    const installer = await loginAs(ctx.app, org.installer);
+    const res = await installer.get(`/api/jobs/${job.id}/sheet.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const text = await pdfText(res.body);
+    const sheet = (await installer.get(`/api/jobs/${job.id}/job-sheet`)).body;
+    const s = sheet.sheet ?? sheet;
+    const firstStrip = s.spaces[0].layers[0].strips[0].label;
+    expect(text).toContain(job.reference);
+    expect(text).toMatch(/Cut list, by roll/);
+    expect(text).toContain('Roll 1');
+    expect(text).toContain(firstStrip);
+    expect(text).toMatch(/Van load/);
+    expect(text).toContain(s.spaces[0].checks[0].title);
+    expect(text).not.toMatch(/£|price|VAT/i);
+  });
+
+  it('is refused to an installer the job is not assigned to', async () => {
+    const { job } = await scheduledJob();
+    const other = await createUser(org.id, 'installer');
+    const agent = await loginAs(ctx.app, other);
+    expect((await agent.get(`/api/jobs/${job.id}/sheet.pdf`)).status).toBe(404);
+  });
+
+  it('is e-mailed by the office to the assigned installer, with the PDF attached, and recorded on the timeline', async () => {
+    const { job } = await scheduledJob();
+    const office = await loginAs(ctx.app, org.office);
+    const estimator = await loginAs(ctx.app, org.estimator);
+    expect((await estimator.post(`/api/jobs/${job.id}/sheet/send`).send({})).status).toBe(403);
+    const res = await office.post(`/api/jobs/${job.id}/sheet/send`).send({});
+    expect(res.status).toBe(200);
+    const mail = await ctx.outbox.waitFor((m) => m.to.includes(org.installer.email));
+    const parsed = await simpleParser(mail.raw);
+    const pdf = parsed.attachments.find((a) => a.contentType === 'application/pdf')!;
+    expect(pdf.filename).toBe(`job-sheet-${job.reference}.pdf`);
+    expect(await pdfText(pdf.content)).toContain(job.reference);
+    expect(mail.links.some((l) => l.endsWith(`/jobs/${job.id}`))).toBe(true);
+    const events = await JobEvent.findAll({ where: { jobId: job.id, kind: 'email_sent' } });
+    expect(events.map((e) => e.data)).toContainEqual(expect.objectContaining({ to: org.installer.email, purpose: 'job_sheet' }));
+  });
+
+  it('asks for an installer before e-mailing', async () => {
+    const { job } = await scheduledJob({ assigned: false, stage: 'accepted' });
+    const office = await loginAs(ctx.app, org.office);
+    const res = await office.post(`/api/jobs/${job.id}/sheet/send`).send({});
+    expect(res.status).toBe(422);
+    expect(res.body.error.details[0].path).toBe('assignedInstallerId');
+  });
+});
