@@ -10,6 +10,7 @@ import { authRouter } from './modules/auth/auth.router';
 import { customersRouter } from './modules/customers/customers.router';
 import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { healthRouter } from './modules/health/health.router';
+import { mountPayments, mountPaymentsWebhook } from './modules/payments/mount';
 import { jobSheetRouter } from './modules/job-sheet/job-sheet.router';
 import { jobsRouter } from './modules/jobs/jobs.router';
 import { photosRouter } from './modules/photos/photos.router';
@@ -20,7 +21,6 @@ import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
 import { settingsRouter } from './modules/settings/settings.router';
-import { jobSheetExportRouter } from './modules/exports/job-sheet-export.router';
 
 /**
  * The Express app, with no listening and no global state: index.ts listens, tests use supertest.
@@ -34,6 +34,8 @@ export function createApp(deps: AppDeps): Express {
   app.set('query parser', 'extended');
 
   app.use(helmet());
+  // payments engineer: the webhook verifies a signature over the raw body, so it sits before the JSON parser.
+  mountPaymentsWebhook(app, deps);
   app.use(express.json({ limit: '5mb' }));
 
   const auth = createAuthService(deps);
@@ -53,6 +55,7 @@ export function createApp(deps: AppDeps): Express {
   // feature routers — other modules append their mount lines here, e.g.
   //   app.use('/api/quotes', quotesRouter(deps));
   // ---------------------------------------------------------------------------------------------
+  mountPayments(app, deps); // payments engineer: /api/payments, /api/invoices, customer pages under /pay
   app.use('/api/schedule', scheduleRouter(deps)); // installer engineer: week view, booking, install settings
   app.use('/api', jobSheetRouter(deps)); // installer engineer: my-jobs, job sheet, ticks, notes, finish, handover
   app.use('/api', photosRouter(deps)); // installer engineer: site photos
@@ -62,7 +65,6 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/jobs', jobQuotesRouter(deps)); // quotes engineer: build and list a job's quotes
   app.use('/api/quotes', quotesRouter(deps)); // quotes engineer: quotes, send, PDF/CSV/XLSX
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // quotes engineer: the customer's private link (no sign-in)
-  app.use('/api/jobs', jobSheetExportRouter(deps)); // quotes engineer: job sheet PDF and e-mailing it to the installer
 
   app.use('/api', apiNotFound);
 

@@ -3,6 +3,7 @@ import type { RunnableMigration } from 'umzug';
 import * as m0001 from './0001-foundation';
 import * as m0100 from './0100-quotes-settings';
 import * as m0200 from './0200-installer';
+import * as m0400 from './0400-payments';
 
 type Migration = RunnableMigration<QueryInterface>;
 const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'] }): Migration => ({ name, up: mod.up, down: mod.down });
@@ -17,4 +18,5 @@ export const MIGRATIONS: Migration[] = [
   // append below
   entry('0100-quotes-settings', m0100), // quotes engineer
   entry('0200-installer', m0200), // installer engineer
+  entry('0400-payments', m0400), // payments engineer
 ];

@@ -4,6 +4,7 @@ import { Customer } from './customer';
 import { Job } from './job';
 import { JobEvent } from './job-event';
 import { Organisation } from './organisation';
+import { PAYMENTS_MODELS } from './payments-registry';
 import { PlanRevision } from './plan-revision';
 import { QUOTES_SETTINGS_MODELS } from './quotes-settings-registry';
 import { Space } from './space';
@@ -30,6 +31,7 @@ export const MODEL_REGISTRY: Array<{ init: (s: Sequelize) => void; associate?: (
   // feature models: append below
   ...QUOTES_SETTINGS_MODELS, // quotes engineer: company settings, catalogue, tax rates, quotes
   ...INSTALLER_MODELS, // installer engineer: install settings, ticks, notes, photos, completions, idempotency keys
+  ...PAYMENTS_MODELS, // payments engineer: payment settings, payments, webhook events, invoices
 ];
 
 function associateFoundation() {
