@@ -21,6 +21,7 @@ import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
 import { settingsRouter } from './modules/settings/settings.router';
+import { jobSheetExportRouter } from './modules/exports/job-sheet-export.router';
 
 /**
  * The Express app, with no listening and no global state: index.ts listens, tests use supertest.
@@ -65,6 +66,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/jobs', jobQuotesRouter(deps)); // quotes engineer: build and list a job's quotes
   app.use('/api/quotes', quotesRouter(deps)); // quotes engineer: quotes, send, PDF/CSV/XLSX
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // quotes engineer: the customer's private link (no sign-in)
+  app.use('/api/jobs', jobSheetExportRouter(deps)); // quotes engineer: job sheet PDF and e-mailing it to the installer
 
   app.use('/api', apiNotFound);
 
