@@ -17,6 +17,15 @@ function matches(c: Customer, q: string): boolean {
 }
 
 export default function CustomersPage() {
+  return (
+    <RequireAction action="customers:read">
+      <Customers />
+    </RequireAction>
+  );
+}
+
+// Separate so its queries run only for roles that may use the page.
+function Customers() {
   const user = useCurrentUser();
   const customers = useCustomers();
   const [editing, setEditing] = useState<Editing>(null);
@@ -25,7 +34,7 @@ export default function CustomersPage() {
   const shown = (customers.data ?? []).filter((c) => matches(c, q)).sort((a, b) => a.name.localeCompare(b.name));
 
   return (
-    <RequireAction action="customers:read">
+    <>
       <PageHeader
         title="Customers"
         subtitle="The people whose lofts you survey and insulate."
@@ -58,6 +67,6 @@ export default function CustomersPage() {
           )}
         </>
       )}
-    </RequireAction>
+    </>
   );
 }

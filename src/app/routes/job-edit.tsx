@@ -7,11 +7,20 @@ import { JobFormPage } from '../job-form/job-form-page';
 import NotFoundPage from './not-found';
 
 export default function JobEditPage() {
+  return (
+    <RequireAction action="jobs:write">
+      <JobEdit />
+    </RequireAction>
+  );
+}
+
+// Separate so its queries run only for roles that may use the page.
+function JobEdit() {
   const { id = '' } = useParams();
   const navigate = useNavigate();
   const job = useJob(id);
   return (
-    <RequireAction action="jobs:write">
+    <>
       <div className="mx-auto max-w-3xl">
         {job.isPending ? (
           <LoadingState label="Loading the job…" />
@@ -28,6 +37,6 @@ export default function JobEditPage() {
           </>
         )}
       </div>
-    </RequireAction>
+    </>
   );
 }

@@ -6,9 +6,18 @@ import { RequireAction } from '../require-auth';
 
 /** Development only: every e-mail the app sent, caught by the local SMTP stand-in. */
 export default function OutboxPage() {
-  const outbox = useOutbox();
   return (
     <RequireAction action="outbox:read">
+      <Outbox />
+    </RequireAction>
+  );
+}
+
+// Separate so the query runs only for roles that may read the outbox.
+function Outbox() {
+  const outbox = useOutbox();
+  return (
+    <>
       <PageHeader
         title="Outbox"
         subtitle="In development no e-mail leaves this machine: invitations, password resets and quotes land here instead."
@@ -33,6 +42,6 @@ export default function OutboxPage() {
       ) : (
         <OutboxList messages={outbox.data.messages} />
       )}
-    </RequireAction>
+    </>
   );
 }

@@ -9,6 +9,15 @@ import { UsersTable } from '../../features/users/components/users-table';
 import { RequireAction } from '../require-auth';
 
 export default function UsersPage() {
+  return (
+    <RequireAction action="users:manage">
+      <Users />
+    </RequireAction>
+  );
+}
+
+// Separate so its queries run only for roles that may use the page.
+function Users() {
   const me = useCurrentUser();
   const users = useUsers();
   const [inviting, setInviting] = useState(false);
@@ -17,7 +26,7 @@ export default function UsersPage() {
   const sorted = [...(users.data ?? [])].sort((a, b) => Number(b.active) - Number(a.active) || order[a.role] - order[b.role] || a.name.localeCompare(b.name));
 
   return (
-    <RequireAction action="users:manage">
+    <>
       <PageHeader
         title="Users"
         subtitle="Everyone in your company who signs in to Quiltline, and what their role lets them do."
@@ -50,6 +59,6 @@ export default function UsersPage() {
       ) : (
         <UsersTable users={sorted} currentUserId={me.id} />
       )}
-    </RequireAction>
+    </>
   );
 }
