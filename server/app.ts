@@ -16,6 +16,7 @@ import { jobsRouter } from './modules/jobs/jobs.router';
 import { photosRouter } from './modules/photos/photos.router';
 import { scheduleRouter } from './modules/schedule/schedule.router';
 import { spacesRouter } from './modules/spaces/spaces.router';
+import { plansRouter } from './modules/plans/plans.router';
 import { usersRouter } from './modules/users/users.router';
 import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
@@ -67,6 +68,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/quotes', quotesRouter(deps)); // quotes engineer: quotes, send, PDF/CSV/XLSX
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // quotes engineer: the customer's private link (no sign-in)
   app.use('/api/jobs', jobSheetExportRouter(deps)); // quotes engineer: job sheet PDF and e-mailing it to the installer
+
+  app.use('/api/spaces', plansRouter(deps)); // editor engineer: plan, revisions, restore, background underlay
 
   app.use('/api', apiNotFound);
 

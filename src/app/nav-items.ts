@@ -12,6 +12,7 @@ export function navItemsFor(user: { role: Role } | null | undefined, opts: { out
   const items: NavItem[] = [];
   if (can(user, 'jobs:read-all')) items.push({ to: '/jobs', label: 'Jobs' });
   else if (can(user, 'jobsheet:work')) items.push({ to: '/my-jobs', label: 'My jobs' });
+  if (can(user, 'jobs:read-all')) items.push({ to: '/schedule', label: 'Schedule' }); // installer engineer
   if (can(user, 'customers:read')) items.push({ to: '/customers', label: 'Customers' });
   if (can(user, 'quotes:manage')) items.push({ to: '/invoices', label: 'Invoices' }); // payments engineer
   if (can(user, 'users:manage')) items.push({ to: '/users', label: 'Users' });

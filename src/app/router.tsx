@@ -31,7 +31,7 @@ const NotFoundPage = lazy(() => import('./routes/not-found'));
 const MyJobsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.MyJobsPlaceholder })));
 const JobSheetPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.JobSheetPlaceholder })));
 const SettingsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SettingsPlaceholder })));
-const SpaceEditorPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SpaceEditorPlaceholder })));
+const SpaceEditorPage = lazy(() => import('../editor/page/space-editor-page')); // editor engineer: konva loads only here
 
 // payments engineer: invoices, payment settings
 const InvoicesPage = lazy(() => import('../features/invoices/components/invoices-page'));

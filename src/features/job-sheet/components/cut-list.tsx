@@ -40,7 +40,7 @@ export function CutList({ space, ticks, onTick }: Props) {
                     <ol className="flex flex-col divide-y divide-graphite/10">
                       {lane.cuts.map((cut) => (
                         <li key={cut.id} className="flex flex-wrap items-center gap-2 py-2">
-                          <span className="min-w-[3ch] font-mono text-xl font-bold">#{cut.stripNumber}</span>
+                          <span className="min-w-[3ch] font-mono text-xl font-bold">{cut.stripLabel}</span>
                           <span className="flex-1 font-mono text-lg">
                             {mm(cut.lengthMm)}
                             {cut.pieceCount > 1 && <span className="text-base text-graphite-light"> (piece {cut.piece} of {cut.pieceCount})</span>}

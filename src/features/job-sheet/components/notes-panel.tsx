@@ -2,7 +2,7 @@ import { useState } from 'react';
 import type { ShownNote } from '../merge-pending';
 
 /** Notes on the job: what was found, what was left, anything the office should know. */
-export function NotesPanel({ notes, onAdd }: { notes: ShownNote[]; onAdd: (text: string) => void }) {
+export function NotesPanel({ notes, onAdd }: { notes: ShownNote[]; onAdd?: (text: string) => void }) {
   const [text, setText] = useState('');
   return (
     <div>
@@ -18,22 +18,24 @@ export function NotesPanel({ notes, onAdd }: { notes: ShownNote[]; onAdd: (text:
           </li>
         ))}
       </ul>
-      <form
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (!text.trim()) return;
-          onAdd(text.trim());
-          setText('');
-        }}
-      >
-        <label htmlFor="new-note" className="block text-base font-semibold">
-          Add a note
-        </label>
-        <textarea id="new-note" value={text} onChange={(e) => setText(e.target.value)} rows={3} maxLength={4000} className="mt-1 w-full rounded-md border-2 border-graphite/40 bg-white p-2 text-lg" />
-        <button type="submit" disabled={!text.trim()} className="mt-2 min-h-12 w-full rounded-md bg-teal-dark px-4 text-lg font-bold text-white disabled:opacity-50">
-          Save note
-        </button>
-      </form>
+      {onAdd && (
+        <form
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (!text.trim()) return;
+            onAdd(text.trim());
+            setText('');
+          }}
+        >
+          <label htmlFor="new-note" className="block text-base font-semibold">
+            Add a note
+          </label>
+          <textarea id="new-note" value={text} onChange={(e) => setText(e.target.value)} rows={3} maxLength={4000} className="mt-1 w-full rounded-md border-2 border-graphite/40 bg-white p-2 text-lg" />
+          <button type="submit" disabled={!text.trim()} className="mt-2 min-h-12 w-full rounded-md bg-teal-dark px-4 text-lg font-bold text-white disabled:opacity-50">
+            Save note
+          </button>
+        </form>
+      )}
     </div>
   );
 }

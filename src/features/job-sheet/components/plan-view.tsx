@@ -110,8 +110,7 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
     zoomAt(e.deltaY < 0 ? 1.2 : 1 / 1.2, toPlan(e.clientX, e.clientY, view));
   }
 
-  const arrow = layer ? layDirectionArrow(home, layer.layDirectionDeg) : null;
-  const font = Math.max(size / 34, 60);
+  const font = size / 20;
 
   return (
     <div className="relative">
@@ -120,7 +119,8 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
         role="img"
         aria-label={`Plan of ${space.name}${layer ? `, ${layer.label} strips` : ''}`}
         viewBox={`${view.x} ${view.y} ${view.w} ${view.h}`}
-        className="h-72 w-full touch-none select-none rounded-md border-2 border-graphite/30 bg-[#fffdf7]"
+        className="max-h-[60vh] min-h-48 w-full touch-none select-none rounded-md border-2 border-graphite/30 bg-[#fffdf7]"
+        style={{ aspectRatio: `${home.w} / ${home.h}` }}
         onPointerDown={onPointerDown}
         onPointerMove={onPointerMove}
         onPointerUp={onPointerUp}
@@ -134,9 +134,6 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
           <pattern id={hatchId} width={size / 60} height={size / 60} patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
             <line x1="0" y1="0" x2="0" y2={size / 60} stroke="#b0462f" strokeWidth={size / 300} />
           </pattern>
-          <marker id={`arrow-${space.id}`} viewBox="0 0 10 10" refX="8" refY="5" markerWidth="5" markerHeight="5" orient="auto-start-reverse">
-            <path d="M0,0 L10,5 L0,10 z" fill="#33363b" />
-          </marker>
         </defs>
         <g clipPath={`url(#${clipId})`}>
           {plan.eavesEdges.map((i) => {
@@ -164,29 +161,32 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
         {layer?.strips.map((s) => {
           const c = centroid(s.polygon as Pt[]);
           return (
-            <text key={`n-${s.id}`} x={c[0]} y={c[1]} fontSize={Math.min(font, s.widthMm * 0.9)} textAnchor="middle" dominantBaseline="central" fontFamily="JetBrains Mono, monospace" fontWeight={700} fill={laid.has(s.id) ? '#ffffff' : '#1d1f22'}>
-              {s.number}
+            <text key={`n-${s.id}`} x={c[0]} y={c[1]} fontSize={Math.min(font, s.widthMm * 0.95)} textAnchor="middle" dominantBaseline="central" fontFamily="JetBrains Mono, monospace" fontWeight={700} fill={laid.has(s.id) ? '#ffffff' : '#1d1f22'}>
+              {s.label}
             </text>
           );
         })}
-        {arrow && (
-          <g>
-            <line x1={arrow[0][0]} y1={arrow[0][1]} x2={arrow[1][0]} y2={arrow[1][1]} stroke="#33363b" strokeWidth={size / 110} markerEnd={`url(#arrow-${space.id})`} markerStart={`url(#arrow-${space.id})`} />
-          </g>
-        )}
       </svg>
-      <div className="absolute right-2 top-2 flex flex-col gap-1">
+      <div className="mt-2 flex items-center gap-2">
+        {layer && (
+          <span className="mr-auto flex items-center gap-2 text-base font-semibold" data-testid="lay-direction">
+            <svg viewBox="0 0 40 40" width="36" height="36" aria-hidden style={{ transform: `rotate(${layer.layDirectionDeg}deg)` }}>
+              <path d="M4 20h28M24 11l10 9-10 9" fill="none" stroke="#1d1f22" strokeWidth="4" strokeLinecap="round" strokeLinejoin="round" />
+            </svg>
+            Lay direction
+          </span>
+        )}
         {[
           ['+', 'Zoom in', () => zoomAt(1.5, [view.x + view.w / 2, view.y + view.h / 2])],
           ['−', 'Zoom out', () => zoomAt(1 / 1.5, [view.x + view.w / 2, view.y + view.h / 2])],
-          ['⤢', 'Fit the plan', () => setView(home)],
+          ['Fit', 'Fit the plan', () => setView(home)],
         ].map(([label, title, fn]) => (
           <button
             key={title as string}
             type="button"
             aria-label={title as string}
             onClick={fn as () => void}
-            className="h-11 w-11 rounded-md border-2 border-graphite/40 bg-white text-xl font-bold text-graphite shadow"
+            className="h-11 min-w-11 rounded-md border-2 border-graphite/40 bg-white px-2 text-xl font-bold text-graphite shadow"
           >
             {label as string}
           </button>
@@ -194,15 +194,4 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
       </div>
     </div>
   );
-}
-
-/** A double-headed arrow through the plan's middle along the lay direction (rolls run both ways along it). */
-function layDirectionArrow(box: View, deg: number): [Pt, Pt] {
-  const a = (deg * Math.PI) / 180;
-  const c: Pt = [box.x + box.w / 2, box.y + box.h / 2];
-  const half = Math.min(box.w, box.h) * 0.3;
-  return [
-    [c[0] - Math.cos(a) * half, c[1] - Math.sin(a) * half],
-    [c[0] + Math.cos(a) * half, c[1] + Math.sin(a) * half],
-  ];
 }

@@ -15,11 +15,9 @@ function CheckRow({ spaceId, check, tick, onCheck }: { spaceId: string; check: S
   const fieldId = `reason-${spaceId}-${check.code}`;
   return (
     <li className="rounded-md border-2 border-graphite/25 bg-white p-3" data-testid={`check-${check.code}`}>
-      <div className="flex items-start justify-between gap-3">
-        <div className="min-w-0">
-          <div className="text-lg font-bold leading-snug">{check.title}</div>
-          <p className="mt-1 text-base leading-snug text-graphite">{check.detail}</p>
-        </div>
+      <div className="text-lg font-bold leading-snug">{check.title}</div>
+      <p className="mt-1 text-base leading-snug text-graphite">{check.detail}</p>
+      <div className="mt-2">
         <TickButton label="Done" tick={tick} onToggle={(d) => onCheck(check.code, d, '')} testId={`tick-${check.code}`} />
       </div>
       {tick && (tick.done || tick.reason) && <p className="mt-2 text-sm font-medium text-teal-dark">{tickedByLine(tick)}</p>}

@@ -9,15 +9,16 @@ export function VanLoad({ load }: { load: VanLoadData }) {
         {load.rolls.map((r) => (
           <li key={`${r.productName}-${r.thicknessMm}`} className="flex justify-between gap-3 border-b border-graphite/10 py-1">
             <span>
-              {r.productName} <span className="text-graphite-light">({r.thicknessMm} mm)</span>
+              {r.productName}
+              {!r.productName.includes(`${r.thicknessMm} mm`) && <span className="text-graphite-light"> ({r.thicknessMm} mm)</span>}
             </span>
-            <span className="font-mono font-bold">{r.count} roll{r.count === 1 ? '' : 's'}</span>
+            <span className="shrink-0 whitespace-nowrap font-mono font-bold">{r.count} roll{r.count === 1 ? '' : 's'}</span>
           </li>
         ))}
         {load.extras.map((x) => (
           <li key={x.label} className="flex justify-between gap-3 border-b border-graphite/10 py-1">
             <span>{x.label}</span>
-            <span className="font-mono font-bold">
+            <span className="shrink-0 whitespace-nowrap font-mono font-bold">
               {x.quantity} {x.unit}
             </span>
           </li>

@@ -1,0 +1,58 @@
+import { useState } from 'react';
+import type { JobSheet } from '../../../../shared/api/job-sheet';
+import { isApiError } from '../../../lib/api-client';
+import { useFinishJob } from '../api/finish-job';
+import { finishBlockers, type PendingPhoto, type ShownTick } from '../merge-pending';
+import { SheetSection } from './sheet-section';
+
+/** Mark installed: only with every check ticked or explained and an after photo of every space, and online. */
+export function FinishPanel({ sheet, ticks, pendingPhotos, waiting }: { sheet: JobSheet; ticks: Map<string, ShownTick>; pendingPhotos: PendingPhoto[]; waiting: number }) {
+  const [reasons, setReasons] = useState<Record<string, string>>({});
+  const [writing, setWriting] = useState(false);
+  const finish = useFinishJob(sheet.job.id);
+  const blockers = finishBlockers(sheet, ticks, reasons, pendingPhotos);
+  const unticked = finishBlockers(sheet, ticks, {}, pendingPhotos).checks;
+  const ready = blockers.checks.length === 0 && blockers.photos.length === 0;
+  return (
+    <SheetSection title="Finish the job">
+      {ready && waiting === 0 && <p className="mb-2 text-base">Every check is ticked or explained and every space has an after photo.</p>}
+      {unticked.length > 0 && (
+        <div className="mb-3">
+          <p className="text-base font-semibold">
+            {unticked.length} check{unticked.length === 1 ? ' is' : 's are'} not ticked. Tick {unticked.length === 1 ? 'it' : 'them'} above, or write why {unticked.length === 1 ? 'it' : 'each'} could not be done.
+          </p>
+          {!writing ? (
+            <button type="button" className="mt-2 min-h-11 rounded-md border-2 border-graphite/40 bg-white px-3 text-base font-semibold" onClick={() => setWriting(true)}>
+              Write reasons
+            </button>
+          ) : (
+            unticked.map((c) => (
+              <label key={c.key} className="mt-2 block text-base">
+                <span className="font-semibold">
+                  {c.spaceName}: {c.title}
+                </span>
+                <textarea
+                  rows={2}
+                  value={reasons[c.key] ?? ''}
+                  onChange={(e) => setReasons((r) => ({ ...r, [c.key]: e.target.value }))}
+                  className="mt-1 w-full rounded-md border-2 border-graphite/40 bg-white p-2 text-base"
+                />
+              </label>
+            ))
+          )}
+        </div>
+      )}
+      {blockers.photos.length > 0 && <p className="mb-2 text-base font-semibold text-brick-dark">Add at least one after photo of: {blockers.photos.join(', ')}.</p>}
+      {waiting > 0 && <p className="mb-2 text-base">Waiting to send {waiting} change{waiting === 1 ? '' : 's'}: finish once they are sent.</p>}
+      {finish.error && <p role="alert" className="mb-2 text-base font-semibold text-brick-dark">{isApiError(finish.error) ? finish.error.message : 'Could not mark the job installed.'}</p>}
+      <button
+        type="button"
+        disabled={!ready || waiting > 0 || finish.isPending}
+        onClick={() => finish.mutate({ reasons: Object.fromEntries(Object.entries(reasons).filter(([, v]) => v.trim())) })}
+        className="min-h-14 w-full rounded-md bg-teal-dark px-4 text-xl font-bold text-white disabled:bg-graphite/30 disabled:text-graphite"
+      >
+        {finish.isPending ? 'Marking installed…' : 'Mark installed'}
+      </button>
+    </SheetSection>
+  );
+}

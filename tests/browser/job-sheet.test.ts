@@ -1,0 +1,112 @@
+// The installer's job sheet in headless chromium at 360 px: opened with signal, then used offline.
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { IdempotencyKey, JobNote, JobTick } from '../../server/db/models/installer-registry';
+import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+import { createOrgWithUsers, type TestOrg } from '../helpers/test-app';
+import { Job } from '../../server/db/models';
+import { addDays, mondayOf } from '../../server/modules/schedule/schedule.service';
+import { createJob } from '../helpers/test-app';
+import { scheduledJobWithTakeoff } from '../server/job-sheet-fixtures';
+
+function acceptedJobFor(org: TestOrg) {
+  return createJob(org, { stage: 'accepted', customerName: 'Robin Hale' });
+}
+
+const PHONE = { width: 360, height: 740 };
+
+let server: Awaited<ReturnType<typeof startAppServer>>;
+let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let org: TestOrg;
+
+beforeAll(async () => {
+  server = await startAppServer();
+  org = await createOrgWithUsers(server.ctx);
+  browser = await launchBrowser({ viewport: PHONE });
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+const waitingCount = (page: Page) => page.getByTestId('waiting-count').first().textContent();
+
+describe('job sheet on a phone', () => {
+  it('opens offline after one visit, queues two check ticks and a note, and sends each exactly once when back online', async () => {
+    const { job, space } = await scheduledJobWithTakeoff(org);
+    const page = await browser.newPage();
+    await signInThroughUi(page, server.url, org.installer.email, org.installer.password);
+
+    await page.goto(`${server.url}/my-jobs`);
+    await page.getByRole('heading', { name: 'Today' }).waitFor();
+    await screenshot(page, 'installer-my-jobs-360');
+
+    await page.getByRole('link', { name: /Testbury/ }).first().click();
+    await page.waitForURL(`**/jobs/${job.id}/sheet`);
+    await page.getByText('Saved on this device: opens without signal.').waitFor({ timeout: 20_000 });
+    await page.getByRole('img', { name: /Plan of Main loft/ }).waitFor();
+    await screenshot(page, 'job-sheet-360');
+    // The folded parts: the cut list (roll by roll) and the photos.
+    await page.locator('summary', { hasText: 'Cut list' }).click();
+    await page.locator('summary', { hasText: 'Photos' }).click();
+    await page.locator('summary', { hasText: 'Finish the job' }).click();
+    await screenshot(page, 'job-sheet-open-360');
+
+    // No signal: the page itself cannot reach the server, yet the sheet reloads from the service worker.
+    await browser.context.setOffline(true);
+    expect(await page.evaluate(() => fetch('/api/health').then(() => 'reached', () => 'unreachable'))).toBe('unreachable');
+    await page.reload();
+    await page.getByRole('heading', { name: 'Main loft' }).waitFor();
+
+    await page.getByTestId('tick-downlight.covers').click();
+    await page.getByTestId('tick-ppe.dust').click();
+    await page.getByLabel('Add a note').fill('Two downlights had no covers; fitted from the van.');
+    await page.getByRole('button', { name: 'Save note' }).click();
+    await expect.poll(() => waitingCount(page)).toBe('3');
+    await expect.poll(() => page.getByTestId('tick-ppe.dust').getAttribute('aria-pressed')).toBe('true');
+    await screenshot(page, 'job-sheet-offline-360');
+    expect(await JobTick.count({ where: { jobId: job.id } })).toBe(0);
+
+    // Closing and reopening the app offline loses nothing.
+    await page.close();
+    const again = await browser.newPage();
+    await again.goto(`${server.url}/jobs/${job.id}/sheet`);
+    await again.getByRole('heading', { name: 'Main loft' }).waitFor();
+    await expect.poll(() => waitingCount(again)).toBe('3');
+    expect(await again.getByTestId('notes-list').textContent()).toContain('Two downlights had no covers');
+
+    await browser.context.setOffline(false);
+    await expect.poll(() => waitingCount(again), { timeout: 20_000 }).toBe('0');
+
+    const ticks = await JobTick.findAll({ where: { jobId: job.id } });
+    expect(ticks.map((t) => `${t.kind} ${t.ref} ${t.done} ${t.spaceId === space.id}`).sort()).toEqual(['check downlight.covers true true', 'check ppe.dust true true']);
+    const notes = await JobNote.findAll({ where: { jobId: job.id } });
+    expect(notes.map((n) => n.text)).toEqual(['Two downlights had no covers; fitted from the van.']);
+    expect(await IdempotencyKey.count({ where: { userId: org.installer.id } })).toBe(3);
+
+    await again.reload();
+    await again.getByRole('heading', { name: 'Main loft' }).waitFor();
+    await expect.poll(() => again.getByTestId(`checks-${space.id}`).locator('summary').textContent()).toMatch(/2\/\d+/);
+    await screenshot(again, 'job-sheet-synced-360');
+    await again.close();
+  });
+
+  it('shows the office the week with the booked job', async () => {
+    const { job } = await scheduledJobWithTakeoff(org);
+    await Job.update({ installDate: addDays(mondayOf(new Date().toISOString().slice(0, 10)), 1) }, { where: { id: job.id } });
+    await acceptedJobFor(org);
+    // A browser of its own: the installer's session lives in the other one.
+    const office = await launchBrowser({ viewport: PHONE });
+    try {
+      const page = await office.newPage();
+      await signInThroughUi(page, server.url, org.office.email, org.office.password);
+      await page.goto(`${server.url}/schedule`);
+      await page.getByRole('heading', { name: 'Schedule' }).waitFor();
+      await page.getByText(job.reference).first().waitFor();
+      await page.getByRole('button', { name: 'Book' }).first().waitFor();
+      await screenshot(page, 'schedule-360');
+    } finally {
+      await office.close();
+    }
+  });
+});
