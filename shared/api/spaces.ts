@@ -4,7 +4,7 @@ export const spaceBodySchema = z.object({ name: z.string().trim().min(1, { error
 export type SpaceBody = z.infer<typeof spaceBodySchema>;
 
 /** PUT /api/spaces/:id/plan — `plan` is checked against the plan schema by the server. */
-export const savePlanBodySchema = z.object({ plan: z.unknown(), baseRevision: z.number().int().min(0) });
+export const savePlanBodySchema = z.object({ plan: z.unknown(), baseRevision: z.number().int().min(0), note: z.string().trim().max(500).optional() });
 
 export const revisionSummarySchema = z.object({
   revision: z.number().int(),
@@ -37,3 +37,6 @@ export const spaceSchema = z.object({
   updatedAt: z.string(),
 });
 export type Space = z.infer<typeof spaceSchema>;
+
+/** POST /api/spaces/:id/revisions/:rev/restore — with `baseRevision`, refused (409) when stale. */
+export const restoreRevisionBodySchema = z.object({ baseRevision: z.number().int().min(0).optional() });

@@ -31,6 +31,7 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}) {
     calibrate: createCalibrateTool(),
   };
   let calibrating = false;
+  let sized = false;
   const ctx: ToolContext = { store, camera: () => store.getState().session.camera };
   const tool = () => (calibrating ? tools.calibrate : tools[store.getState().session.step]);
 
@@ -118,8 +119,13 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}) {
     },
     zoomBy,
     fit,
+    /** The canvas size in px; the first real size also fits the plan into view. */
     setViewport(width: number, height: number) {
       store.setSession({ viewport: { width, height } });
+      if (!sized && width > 0 && height > 0) {
+        sized = true;
+        fit();
+      }
     },
     undo: store.undo,
     redo: store.redo,

@@ -39,28 +39,44 @@ export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
       const [cx, cy] = s.labelAt;
       // Stagger the cross layer's numbers so they do not sit on the base layer's.
       const off = base ? 0 : 12;
-      ctx.fillText(String(s.number), sx(cam, cx) + off, sy(cam, cy) + off);
+      const x = sx(cam, cx) + off, y = sy(cam, cy) + off;
+      ctx.strokeStyle = 'rgba(250,247,240,0.95)';
+      ctx.lineWidth = 3;
+      ctx.strokeText(String(s.number), x, y);
+      ctx.fillText(String(s.number), x, y);
     }
   });
-  // Lay-direction arrows, top-left of the view, one per layer.
+}
+
+/** Lay-direction arrows, one per layer, in a key at the top-left corner of the view. */
+export function drawLayArrows(d: DrawContext, t: DrawnTakeoff) {
+  const { ctx } = d;
+  if (!t.layers.length) return;
+  ctx.fillStyle = 'rgba(250,247,240,0.92)';
+  ctx.strokeStyle = PALETTE.paperLineStrong;
+  ctx.lineWidth = 1;
+  ctx.fillRect(8, 8, 150, 12 + t.layers.length * 30);
+  ctx.strokeRect(8.5, 8.5, 150, 12 + t.layers.length * 30);
   t.layers.forEach((layer, i) => {
-    const x = 34, y = 34 + i * 34;
+    const x = 30, y = 29 + i * 30;
     const a = (layer.layAngleDeg * Math.PI) / 180;
     const ux = Math.cos(a), uy = Math.sin(a);
     const colour = layer.role === 'base' ? PALETTE.strawDark : PALETTE.teal;
     ctx.beginPath();
-    ctx.moveTo(x - ux * 14, y - uy * 14);
-    ctx.lineTo(x + ux * 14, y + uy * 14);
-    ctx.moveTo(x + ux * 14, y + uy * 14);
-    ctx.lineTo(x + ux * 8 - uy * 5, y + uy * 8 + ux * 5);
-    ctx.moveTo(x + ux * 14, y + uy * 14);
-    ctx.lineTo(x + ux * 8 + uy * 5, y + uy * 8 - ux * 5);
+    ctx.moveTo(x - ux * 11, y - uy * 11);
+    ctx.lineTo(x + ux * 11, y + uy * 11);
+    ctx.moveTo(x + ux * 11, y + uy * 11);
+    ctx.lineTo(x + ux * 5 - uy * 5, y + uy * 5 + ux * 5);
+    ctx.moveTo(x + ux * 11, y + uy * 11);
+    ctx.lineTo(x + ux * 5 + uy * 5, y + uy * 5 - ux * 5);
     ctx.strokeStyle = colour;
     ctx.lineWidth = 2.5;
     ctx.stroke();
     ctx.font = `600 11px ${MONO}`;
     ctx.fillStyle = colour;
     ctx.textAlign = 'left';
-    ctx.fillText(`${layer.role} ${layer.role === 'cross' ? i : ''}`.trim() + ' lay', x + 22, y);
+    ctx.textBaseline = 'middle';
+    const n = t.layers.filter((l, k) => k < i && l.role === layer.role).length + 1;
+    ctx.fillText(layer.role === 'base' ? 'base: lay this way' : `cross ${n}: lay this way`, x + 20, y);
   });
 }

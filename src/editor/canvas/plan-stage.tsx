@@ -14,7 +14,7 @@ import { drawHandles } from './draw-handles';
 import { drawJoists } from './draw-joists';
 import { drawOutline } from './draw-outline';
 import { drawPaper } from './draw-paper';
-import { drawStrips, type DrawnTakeoff } from './draw-strips';
+import { drawLayArrows, drawStrips, type DrawnTakeoff } from './draw-strips';
 import { drawIssues, type PlacedIssue } from './draw-issues';
 import { BackgroundImage } from './background-image';
 import { usePointerInput } from './use-pointer-input';
@@ -70,7 +70,7 @@ export function PlanStage({ editor, takeoff, issues }: Props) {
             {plan.background && <BackgroundImage background={plan.background} camera={cam} />}
             <Shape sceneFunc={draw((d) => drawLoft(d, plan, session, takeoff, showStrips, selExcl))} perfectDrawEnabled={false} />
             <Shape sceneFunc={draw((d) => drawOutline(d, plan, session.units, selEdge))} perfectDrawEnabled={false} />
-            <Shape sceneFunc={draw((d) => drawIssues(d, issues))} perfectDrawEnabled={false} />
+            <Shape sceneFunc={draw((d) => { drawIssues(d, issues); if (showStrips && takeoff) drawLayArrows(d, takeoff); })} perfectDrawEnabled={false} />
             <Shape sceneFunc={draw((d) => { drawHandles(d, plan, session); drawDraft(d, plan, session); })} perfectDrawEnabled={false} />
           </Layer>
         </Stage>

@@ -74,9 +74,6 @@ export function usePointerInput(editor: Editor, wrap: RefObject<HTMLDivElement |
       // Trackpad pinch arrives as a wheel with ctrl; a plain wheel zooms too (there is no page to scroll).
       editor.wheel({ ...p, deltaY: e.deltaMode === 1 ? e.deltaY * 16 : e.deltaY });
     },
-    onKeyDown(e: React.KeyboardEvent) {
-      if (editor.keyDown({ key: e.key, shift: e.shiftKey, ctrl: e.ctrlKey || e.metaKey, alt: e.altKey })) e.preventDefault();
-    },
     onContextMenu(e: React.MouseEvent) {
       e.preventDefault();
     },

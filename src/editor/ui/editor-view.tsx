@@ -1,5 +1,5 @@
 import { useMemo, type ReactNode } from 'react';
-import type { TakeoffProduct } from '../../../shared/takeoff/compute-takeoff';
+import type { TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
 import type { Editor } from '../create-editor';
 import { PlanStage } from '../canvas/plan-stage';
 import { placeMessage, type PlacedIssue } from '../canvas/draw-issues';
@@ -17,22 +17,26 @@ import { LayersTools } from './layers-tools';
 import { OutlineTools } from './outline-tools';
 import { StepHint, StepsBar } from './steps-bar';
 import { TakeoffPanel } from './takeoff-panel';
+import { useEditorKeys } from './use-editor-keys';
 
 type Props = {
   editor: Editor;
   products: TakeoffProduct[];
+  /** Company settings for the takeoff (the server recomputes with the same). */
+  settings?: Partial<TakeoffSettings>;
   /** The page's own toolbar controls (save, revisions, import/export). */
   toolbar?: ReactNode;
   onUploadBackground?: (file: File) => Promise<{ url: string }>;
 };
 
 /** The whole editor screen: toolbar, canvas, live takeoff, step tools and the steps bar. */
-export function EditorView({ editor, products, toolbar, onUploadBackground }: Props) {
+export function EditorView({ editor, products, settings, toolbar, onUploadBackground }: Props) {
   const plan = useEditorState(editor.store, (s) => s.plan);
   const step = useEditorState(editor.store, (s) => s.session.step);
   const units = useEditorState(editor.store, (s) => s.session.units);
   const error = useEditorState(editor.store, (s) => s.session.error);
-  const run = useLiveTakeoff(plan, products);
+  const run = useLiveTakeoff(plan, products, settings);
+  useEditorKeys(editor);
   const drawn = useMemo(() => (run?.takeoff ? toDrawnTakeoff(run.takeoff) : null), [run]);
   const issues = useMemo(() => {
     if (!run) return [];

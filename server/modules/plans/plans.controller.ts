@@ -1,0 +1,34 @@
+import type { Request, Response } from 'express';
+import { currentUser } from '../../middleware/require-auth';
+import type { PlansService } from './plans.service';
+
+/** HTTP only: the service does the rest. */
+export function createPlansController(plans: PlansService) {
+  const id = (req: Request) => String(req.params.id);
+  return {
+    async get(req: Request, res: Response) {
+      res.json(await plans.get(currentUser(req), id(req)));
+    },
+    async save(req: Request, res: Response) {
+      res.status(201).json(await plans.save(currentUser(req), id(req), req.body));
+    },
+    async revisions(req: Request, res: Response) {
+      res.json({ items: await plans.revisions(currentUser(req), id(req)) });
+    },
+    async revision(req: Request, res: Response) {
+      res.json(await plans.revision(currentUser(req), id(req), Number(req.params.rev)));
+    },
+    async restore(req: Request, res: Response) {
+      res.status(201).json(await plans.restore(currentUser(req), id(req), Number(req.params.rev), req.body?.baseRevision));
+    },
+    async uploadBackground(req: Request, res: Response) {
+      res.status(201).json(await plans.uploadBackground(currentUser(req), id(req), req.file));
+    },
+    async background(req: Request, res: Response) {
+      const { stream, type } = await plans.background(currentUser(req), id(req), String(req.params.name));
+      res.setHeader('Content-Type', type);
+      res.setHeader('Cache-Control', 'private, max-age=86400');
+      stream.pipe(res);
+    },
+  };
+}

@@ -1,0 +1,66 @@
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { idSchema } from '../../../shared/api/common';
+import { restoreRevisionBodySchema, savePlanBodySchema } from '../../../shared/api/spaces';
+import type { AppDeps } from '../../deps';
+import { AppError, fieldError } from '../../lib/errors';
+import { currentUser, requireAuth } from '../../middleware/require-auth';
+import { requireCan } from '../../middleware/require-role';
+import { validate } from '../../middleware/validate';
+import { findSpaceForUser } from '../spaces/spaces.service';
+import { createPlansController } from './plans.controller';
+import { BACKGROUND_MAX_BYTES, createPlansService } from './plans.service';
+
+const params = z.object({ id: idSchema });
+const revParams = z.object({ id: idSchema, rev: z.coerce.number().int().min(1) });
+const fileParams = z.object({ id: idSchema, name: z.string().max(60) });
+
+/** multer in memory, one image in field `image`, size-limited; limit errors become clear answers. */
+function receiveImage() {
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: BACKGROUND_MAX_BYTES, files: 1, fields: 5 } }).single('image');
+  return (req: Request, res: Response, next: NextFunction) => {
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'image_too_large', `the underlay image is larger than ${BACKGROUND_MAX_BYTES / 1024 / 1024} MB; scan or export it smaller`));
+        if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(fieldError('image', 'send one image, in the field "image"'));
+        return next(new AppError(400, 'bad_upload', err.message));
+      }
+      next(err);
+    });
+  };
+}
+
+/**
+ * The plan of a space and its revisions (mounted at /api/spaces beside the spaces router):
+ * GET /:id/plan, PUT /:id/plan, GET /:id/revisions, GET /:id/revisions/:rev,
+ * POST /:id/revisions/:rev/restore, POST /:id/background, GET /:id/background/:name.
+ * Office and estimators write; installers read the plans of jobs assigned to them; other
+ * companies' spaces are 404.
+ */
+export function plansRouter(deps: AppDeps) {
+  const c = createPlansController(createPlansService(deps));
+  const r = Router();
+  const write = requireCan('plans:write');
+  r.get('/:id/plan', requireAuth, validate({ params }), c.get);
+  r.put('/:id/plan', requireAuth, write, validate({ params, body: savePlanBodySchema }), c.save);
+  r.get('/:id/revisions', requireAuth, validate({ params }), c.revisions);
+  r.get('/:id/revisions/:rev', requireAuth, validate({ params: revParams }), c.revision);
+  r.post('/:id/revisions/:rev/restore', requireAuth, write, validate({ params: revParams, body: restoreRevisionBodySchema }), c.restore);
+  r.post(
+    '/:id/background',
+    requireAuth,
+    write,
+    validate({ params }),
+    // Refuse before reading a large body when the space is not one this user may see.
+    async (req, _res, next) => {
+      await findSpaceForUser(currentUser(req), String(req.params.id));
+      next();
+    },
+    receiveImage(),
+    c.uploadBackground,
+  );
+  r.get('/:id/background/:name', requireAuth, validate({ params: fileParams }), c.background);
+  return r;
+}

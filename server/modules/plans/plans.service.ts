@@ -1,0 +1,134 @@
+import { randomUUID } from 'node:crypto';
+import { fileTypeFromBuffer } from 'file-type';
+import { can } from '../../../shared/auth/policies';
+import { PLAN_FORMAT, type Plan } from '../../../shared/plan/plan-schema';
+import { InvalidPlanError } from '../../../shared/plan/plan-messages';
+import { validatePlan, type PlanMessage } from '../../../shared/plan/validate-plan';
+import { computeTakeoff, type Takeoff } from '../../../shared/takeoff/compute-takeoff';
+import type { AppDeps } from '../../deps';
+import { PlanRevision, User } from '../../db/models';
+import { AppError, ValidationError, type ErrorDetail } from '../../lib/errors';
+import type { SessionUser } from '../../types';
+import { addPlanRevision, findSpaceForUser, getLatestRevision, getRevision, listRevisions } from '../spaces/spaces.service';
+import { takeoffInputsFor } from './plans.takeoff';
+
+export const BACKGROUND_MAX_BYTES = 8 * 1024 * 1024;
+const IMAGE_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp', 'image/gif': 'gif' };
+
+/** A new, empty plan for a space that has none yet. */
+export function starterPlan(name: string): Plan {
+  return {
+    format: PLAN_FORMAT,
+    name: name.slice(0, 120) || 'Loft',
+    outline: [],
+    eavesEdges: [],
+    eavesGapMm: 50,
+    joists: { angleDeg: 90, centresMm: 400, widthMm: 47, depthMm: 100, offsetMm: 0 },
+    exclusions: [],
+    existing: { depthMm: 0, condition: 'none' },
+    target: { depthMm: 270 },
+  };
+}
+
+function messageDetail(m: PlanMessage): ErrorDetail {
+  const where = m.path ?? (m.edgeIndex !== undefined ? `outline.edge.${m.edgeIndex}` : m.pointIndex !== undefined ? `outline.${m.pointIndex}` : m.exclusionIndex !== undefined ? `exclusions.${m.exclusionIndex}` : '');
+  return { path: where ? `plan.${where}` : 'plan', message: m.message };
+}
+
+function invalidPlan(errors: PlanMessage[]): ValidationError {
+  return new ValidationError(errors.map(messageDetail), `the plan is not valid: ${errors.map((e) => e.message).join('; ')}`);
+}
+
+export function createPlansService(deps: AppDeps) {
+  const { sequelize, storage } = deps;
+
+  /** Validates with the engine and computes the takeoff the revision keeps; 422 with the engine's messages. */
+  async function checkedTakeoff(actor: SessionUser, input: unknown): Promise<{ plan: Plan; takeoff: Takeoff }> {
+    const v = validatePlan(input);
+    if (!v.ok) throw invalidPlan(v.errors);
+    const { products, settings } = await takeoffInputsFor(actor.organisationId, { withPrices: true });
+    try {
+      return { plan: v.plan, takeoff: computeTakeoff(v.plan, { products, settings }) };
+    } catch (e) {
+      if (e instanceof InvalidPlanError) throw invalidPlan(e.errors);
+      throw e;
+    }
+  }
+
+  async function save(actor: SessionUser, spaceId: string, input: unknown, opts: { baseRevision?: number; note?: string }) {
+    const { plan, takeoff } = await checkedTakeoff(actor, input);
+    const row = await addPlanRevision(sequelize, actor, spaceId, plan, { ...opts, takeoff: takeoff as unknown as Record<string, unknown> });
+    return { plan, revision: row.revision, createdAt: row.createdAt.toISOString(), netAreaM2: takeoff.netAreaM2 };
+  }
+
+  return {
+    async get(actor: SessionUser, spaceId: string) {
+      const space = await findSpaceForUser(actor, spaceId);
+      const latest = await getLatestRevision(space.id);
+      const inputs = await takeoffInputsFor(actor.organisationId, { withPrices: can(actor, 'prices:read') });
+      return {
+        plan: (latest?.plan as Plan | undefined) ?? starterPlan(space.name),
+        revision: latest?.revision ?? 0,
+        savedAt: latest?.createdAt.toISOString() ?? null,
+        space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.job.reference },
+        canWrite: can(actor, 'plans:write'),
+        takeoffInputs: inputs,
+      };
+    },
+
+    async save(actor: SessionUser, spaceId: string, body: { plan: unknown; baseRevision: number; note?: string }) {
+      await findSpaceForUser(actor, spaceId);
+      return save(actor, spaceId, body.plan, { baseRevision: body.baseRevision, note: body.note });
+    },
+
+    async revisions(actor: SessionUser, spaceId: string) {
+      await findSpaceForUser(actor, spaceId);
+      const rows = await listRevisions(spaceId);
+      const authorIds = [...new Set(rows.map((r) => r.authorId).filter((x): x is string => !!x))];
+      const authors = new Map((await User.findAll({ where: { id: authorIds }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+      return rows.map((r) => ({
+        revision: r.revision,
+        author: r.authorId ? { id: r.authorId, name: authors.get(r.authorId) ?? 'former user' } : null,
+        createdAt: r.createdAt.toISOString(),
+        note: r.note || undefined,
+      }));
+    },
+
+    async revision(actor: SessionUser, spaceId: string, revision: number) {
+      await findSpaceForUser(actor, spaceId);
+      const row = await getRevision(spaceId, revision);
+      return { plan: row.plan as Plan, revision: row.revision, createdAt: row.createdAt.toISOString() };
+    },
+
+    /** Saves an old revision's plan as the newest one (history is never rewritten). */
+    async restore(actor: SessionUser, spaceId: string, revision: number, baseRevision?: number) {
+      await findSpaceForUser(actor, spaceId);
+      const old = await getRevision(spaceId, revision);
+      return save(actor, spaceId, old.plan, { baseRevision, note: `restored from revision ${revision}` });
+    },
+
+    /** Stores an underlay image (PNG, JPEG, WebP or GIF, checked by its bytes) and returns its URL. */
+    async uploadBackground(actor: SessionUser, spaceId: string, file: { buffer: Buffer; originalname: string } | undefined) {
+      const space = await findSpaceForUser(actor, spaceId);
+      if (!file) throw new ValidationError([{ path: 'image', message: 'choose an image file to upload (field "image")' }]);
+      const type = await fileTypeFromBuffer(file.buffer);
+      const ext = type ? IMAGE_TYPES[type.mime] : undefined;
+      if (!ext) throw new AppError(415, 'unsupported_image', 'the underlay must be a PNG, JPEG, WebP or GIF image');
+      const name = `${randomUUID()}.${ext}`;
+      await storage.put(`${actor.organisationId}/plan-backgrounds/${space.id}/${name}`, file.buffer);
+      return { url: `/api/spaces/${space.id}/background/${name}`, bytes: file.buffer.length };
+    },
+
+    async background(actor: SessionUser, spaceId: string, name: string) {
+      const space = await findSpaceForUser(actor, spaceId);
+      if (!/^[0-9a-f-]{36}\.(png|jpg|webp|gif)$/.test(name)) throw new AppError(404, 'not_found', 'image not found');
+      const key = `${actor.organisationId}/plan-backgrounds/${space.id}/${name}`;
+      if (!(await storage.exists(key))) throw new AppError(404, 'not_found', 'image not found');
+      const ext = name.split('.').pop()!;
+      return { stream: storage.stream(key), type: ext === 'jpg' ? 'image/jpeg' : `image/${ext}` };
+    },
+  };
+}
+
+export type PlansService = ReturnType<typeof createPlansService>;
+export { PlanRevision };

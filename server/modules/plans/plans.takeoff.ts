@@ -1,0 +1,50 @@
+import { createRequire } from 'node:module';
+import { Product } from '../../db/models/product';
+import { parseProductCatalogue, type TakeoffProduct } from '../../../shared/takeoff/products';
+import type { TakeoffSettings } from '../../../shared/takeoff/settings';
+import { loadCompanySettings } from '../settings/settings.service';
+
+const require = createRequire(import.meta.url);
+
+let defaults: TakeoffProduct[] | null = null;
+/** The generic catalogue in examples/products.json, for companies that have not set up theirs. */
+export function defaultProducts(): TakeoffProduct[] {
+  defaults ??= parseProductCatalogue(require('../../../examples/products.json'));
+  return defaults;
+}
+
+export type TakeoffInputs = { products: TakeoffProduct[]; settings: Partial<TakeoffSettings>; catalogue: 'company' | 'default' };
+
+/**
+ * What the takeoff needs besides the plan, for one company: its active roll products (or the
+ * example defaults when it has none) and its settings (degree days, fuel price, efficiency,
+ * waste). The editor receives the same inputs, so its live takeoff equals the saved one.
+ * `withPrices: false` zeroes prices (installers never see them).
+ */
+export async function takeoffInputsFor(organisationId: string, opts: { withPrices: boolean }): Promise<TakeoffInputs> {
+  const [settingsRow, rows] = await Promise.all([
+    loadCompanySettings(organisationId),
+    Product.findAll({ where: { organisationId }, order: [['name', 'ASC']] }),
+  ]);
+  let products: TakeoffProduct[] = [];
+  let catalogue: TakeoffInputs['catalogue'] = 'company';
+  try {
+    // parseProductCatalogue reads the catalogue's own field names (lanes, coverageM2, lambdaWmK…).
+    products = parseProductCatalogue(rows.map((r) => ({ ...r.get({ plain: true }), id: r.id })));
+  } catch {
+    products = [];
+  }
+  if (products.length === 0) {
+    products = defaultProducts();
+    catalogue = 'default';
+  }
+  if (!opts.withPrices) products = products.map((p) => ({ ...p, priceMinor: 0 }));
+  const settings: Partial<TakeoffSettings> = {
+    // The company keeps waste as a fraction; the takeoff reads a percentage.
+    wasteAllowancePct: settingsRow.wasteAllowance * 100,
+    degreeDays: settingsRow.degreeDays,
+    fuelPriceMinorPerKwh: settingsRow.fuelPriceMinorPerKwh,
+    heatingEfficiency: settingsRow.heatingEfficiency,
+  };
+  return { products, settings, catalogue };
+}

@@ -1,0 +1,17 @@
+import { useEffect } from 'react';
+import type { Editor } from '../create-editor';
+
+const isTyping = (t: EventTarget | null) =>
+  t instanceof HTMLElement && (t.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(t.tagName));
+
+/** The editor's shortcuts wherever focus is on the page, except while typing in a field. */
+export function useEditorKeys(editor: Editor) {
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (isTyping(e.target) || e.defaultPrevented) return;
+      if (editor.keyDown({ key: e.key, shift: e.shiftKey, ctrl: e.ctrlKey || e.metaKey, alt: e.altKey })) e.preventDefault();
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [editor]);
+}
