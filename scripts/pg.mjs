@@ -64,7 +64,7 @@ export function findPgBinDir() {
 function aptInstall(pkg) {
   log(`installing Debian package ${pkg} (apt-get update && apt-get install -y ${pkg}) ...`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  for (const args of [['update'], ['install', '-y', '--no-install-recommends', pkg]]) {
+  for (const args of [['update'], ['install', '-y', pkg]]) {
     const r = spawnSync('apt-get', args, { stdio: ['ignore', 'inherit', 'inherit'], env });
     if (r.status !== 0) throw new Error(`apt-get ${args.join(' ')} failed (exit ${r.status})`);
   }
@@ -106,8 +106,8 @@ export function pgConfig() {
     dataNote = `the postgres user cannot reach ${REPO_ROOT}; the data folder is ${dataDir} instead of .pgdata/`;
   }
   // Unix socket paths are limited to ~107 bytes; fall back to a short folder under /tmp.
-  let socketDir = path.join(path.dirname(dataDir), '.pgsock');
-  if (socketDir.length + `/.s.PGSQL.${port}.lock`.length > 100 || (dataNote && socketDir.startsWith(REPO_ROOT))) {
+  let socketDir = path.join(REPO_ROOT, '.pgsock');
+  if (dataDir !== path.join(REPO_ROOT, '.pgdata') || socketDir.length + `/.s.PGSQL.${port}.lock`.length > 100) {
     socketDir = path.join('/tmp', `ql-pgsock-${shortHash(dataDir)}`);
   }
   return { port, dataDir, socketDir, dataNote, logFile: path.join(dataDir, 'server.log') };

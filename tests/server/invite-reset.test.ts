@@ -164,3 +164,23 @@ describe('deactivating a user', () => {
     expect((await estAgent.get('/api/customers')).status).toBe(403);
   });
 });
+
+describe('in production', () => {
+  it('does not mount the dev outbox', async () => {
+    const prod = await createTestContext({
+      NODE_ENV: 'production',
+      SESSION_SECRET: 'a-production-secret-for-this-test',
+      // a relay that is never contacted in this test: production refuses to start without one
+      SMTP_URL: 'smtp://127.0.0.1:2',
+    });
+    try {
+      expect(prod.deps.outbox).toBeNull();
+      const office = await loginAs(prod.app, org.office);
+      const res = await office.get('/api/dev/outbox');
+      expect(res.status).toBe(404);
+      expect((await office.get('/api/auth/me')).status).toBe(200);
+    } finally {
+      await prod.close();
+    }
+  });
+});
