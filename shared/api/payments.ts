@@ -82,3 +82,14 @@ export const paymentTimelineEntrySchema = z.object({
   currency: z.string(),
 });
 export type PaymentTimelineEntry = z.infer<typeof paymentTimelineEntrySchema>;
+
+/** GET /api/payments/public/deposit/:link — the customer's view right after accepting. */
+export const publicDepositSchema = z.object({
+  state: z.enum(['none', 'due', 'paid']),
+  amountMinor: z.number().int(),
+  currency: z.string(),
+  paidAt: z.string().nullable(),
+  /** our deposit page (same origin), when a deposit is due on an accepted quote */
+  payUrl: z.string().nullable(),
+});
+export type PublicDeposit = z.infer<typeof publicDepositSchema>;

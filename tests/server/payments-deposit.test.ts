@@ -59,7 +59,13 @@ describe('deposit on acceptance', () => {
   });
 
   it('accept → checkout with the amount in minor units and the quote reference → pay → signed webhook → paid, on the timeline, office e-mailed', async () => {
-    const { job, quote, link } = await newAcceptedQuote();
+    const { job } = await createJob(org, { stage: 'quoted' });
+    const { quote, link } = await createAcceptedQuote(org.id, job.id, h.ctx.config.sessionSecret, { status: 'sent' });
+    // Before acceptance nothing is payable; the customer accepts through the quote's own public endpoint.
+    expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toMatchObject({ state: 'due', payUrl: null });
+    const accepted = await request(h.ctx.app).post(`/api/public/quotes/${link}/accept`).send({ name: 'Ada Fenwick', acceptTerms: true });
+    expect(accepted.status).toBe(200);
+    expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toEqual({ state: 'due', amountMinor: DEPOSIT, currency: 'GBP', paidAt: null, payUrl: `/pay/deposit/${link}` });
     expect((await office.get(`/api/payments/deposits/${quote.id}`)).body.deposit).toMatchObject({ state: 'due', amountMinor: DEPOSIT, currency: 'GBP', paidAt: null });
     const page = await request(h.ctx.app).get(`/pay/deposit/${link}`);
     expect(page.status).toBe(200);
@@ -96,6 +102,7 @@ describe('deposit on acceptance', () => {
     expect((await request(h.ctx.app).get(`/pay/done/${payment!.token}`)).text).toContain('We received your deposit of <strong>£143.94</strong>');
     // Paying again is not offered.
     expect((await request(h.ctx.app).get(`/pay/deposit/${link}`)).text).toContain('Deposit received');
+    expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toMatchObject({ state: 'paid', payUrl: null });
     expect(QUOTE_GROSS_MINOR * 0.25).toBe(DEPOSIT);
   });
 

@@ -1,3 +1,4 @@
+import { linkSecret } from '../quotes/quote-send.service';
 import express, { Router, type Response } from 'express';
 import type { AppDeps } from '../../deps';
 import { CompanySetting } from '../../db/models/company-setting';
@@ -34,7 +35,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   const notFound = (res: Response) => send(res, 404, payLayout('Link not recognised', '<p>This payment link is not valid. Please use the latest link from your e-mail, or contact us.</p>'));
 
   r.get('/deposit/:link', async (req, res) => {
-    const quote = await quoteFromLink(String(req.params.link), deps.config.sessionSecret);
+    const quote = await quoteFromLink(String(req.params.link), linkSecret(deps));
     if (!quote) return notFound(res);
     const company = await companyName(quote.organisationId);
     const status = await payments.depositStatusOf(quote);
@@ -53,7 +54,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   });
 
   r.post('/deposit/:link', async (req, res) => {
-    const quote = await quoteFromLink(String(req.params.link), deps.config.sessionSecret);
+    const quote = await quoteFromLink(String(req.params.link), linkSecret(deps));
     if (!quote) return notFound(res);
     const url = await payments.startDeposit(quote);
     res.redirect(303, url ?? `/pay/deposit/${encodeURIComponent(String(req.params.link))}`);

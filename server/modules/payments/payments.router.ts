@@ -1,3 +1,4 @@
+import { linkSecret } from '../quotes/quote-send.service';
 import express, { Router } from 'express';
 import { z } from 'zod';
 import { idParamsSchema } from '../../../shared/api/common';
@@ -6,7 +7,9 @@ import type { AppDeps } from '../../deps';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
+import { NotFoundError } from '../../lib/errors';
 import { createPaymentsService, type PaymentsService } from './payments.service';
+import { quoteFromLink } from './quote-link-resolver';
 
 /**
  * POST /api/payments/webhook — the payment service's signed events. Mounted BEFORE the app's JSON
@@ -26,6 +29,16 @@ export function paymentsWebhookRouter(deps: AppDeps, service: PaymentsService = 
 /** /api/payments — settings (office) and deposit status for the quote and job pages. */
 export function paymentsRouter(deps: AppDeps, service: PaymentsService = createPaymentsService(deps)) {
   const r = Router();
+  // For the customer's quote page right after accepting (no sign-in; the signed quote link is the key):
+  // whether a deposit is due and where to pay it.
+  r.get('/public/deposit/:link', validate({ params: z.object({ link: z.string().min(10).max(500) }) }), async (req, res) => {
+    res.setHeader('Cache-Control', 'no-store');
+    const link = String(req.params.link);
+    const quote = await quoteFromLink(link, linkSecret(deps));
+    if (!quote) throw new NotFoundError('quote');
+    const d = await service.depositStatusOf(quote);
+    res.json({ deposit: { state: d.state, amountMinor: d.amountMinor, currency: d.currency, paidAt: d.paidAt, payUrl: quote.status === 'accepted' && d.state === 'due' ? `/pay/deposit/${encodeURIComponent(link)}` : null } });
+  });
   r.use(requireAuth);
   r.get('/settings', requireCan('settings:manage'), async (req, res) => {
     res.json({ settings: await service.settingsOf(currentUser(req).organisationId), provider: service.provider, enabled: service.provider !== 'off' });

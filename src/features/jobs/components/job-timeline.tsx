@@ -20,6 +20,8 @@ export function describeEvent(e: JobEvent): string {
     case 'updated':
       return 'Details edited';
     default:
+      // Modules that add events may carry their own sentence (payments: amounts and numbers).
+      if (typeof d.text === 'string' && d.text) return d.text;
       return e.kind.replace(/[_-]+/g, ' ').replace(/^./, (c) => c.toUpperCase());
   }
 }
