@@ -5,7 +5,7 @@ import { can } from '../../shared/auth/policies';
 import { AppShell } from '../components/layout/app-shell';
 import { ErrorState, LoadingState, PageHeader } from '../components/ui';
 import { useMe } from '../features/auth/api/get-me';
-import { useCurrentUser } from '../features/auth/use-current-user';
+import { CurrentUserContext, useCurrentUser } from '../features/auth/use-current-user';
 
 /** Layout route: the app frame for a signed-in user, otherwise off to sign-in (and back afterwards). */
 export function RequireAuth() {
@@ -22,7 +22,11 @@ export function RequireAuth() {
     const next = location.pathname + location.search;
     return <Navigate to={next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'} replace />;
   }
-  return <AppShell user={me.data} />;
+  return (
+    <CurrentUserContext.Provider value={me.data}>
+      <AppShell user={me.data} />
+    </CurrentUserContext.Provider>
+  );
 }
 
 /** Renders the page only for roles that may perform `action`; the server enforces the same rule. */

@@ -42,8 +42,8 @@ export function fakeApi(handler: Handler): FakeCall[] {
 }
 
 /** Renders routes in memory with a fresh query cache; `user` pre-loads the signed-in user. */
-export function renderRoutes(routes: RouteObject[], opts: { path: string; user?: Me | null }) {
-  const queryClient = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity }, mutations: { retry: false } } });
+export function renderRoutes(routes: RouteObject[], opts: { path: string; user?: Me | null; queryClient?: QueryClient }) {
+  const queryClient = opts.queryClient ?? new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity }, mutations: { retry: false } } });
   if (opts.user !== undefined) queryClient.setQueryData(authKeys.me(), opts.user);
   const router = createMemoryRouter(routes, { initialEntries: [opts.path] });
   const utils = render(

@@ -4,6 +4,8 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { Role } from '../../shared/auth/roles';
 import { homePathFor, navItemsFor } from '../../src/app/nav-items';
 import { RequireAuth } from '../../src/app/require-auth';
+import JobsListPage from '../../src/app/routes/jobs-list';
+import { createQueryClient } from '../../src/lib/query-client';
 import { demoUser, fakeApi, renderRoutes } from './render';
 
 afterEach(() => {
@@ -67,6 +69,19 @@ describe('role-aware navigation', () => {
     const { router } = renderShell(null);
     await screen.findByText('sign-in page');
     expect(router.state.location.search).toBe('?next=%2Fjobs');
+  });
+
+  it('sends the person to sign in again when the session has expired mid-visit', async () => {
+    fakeApi(({ url }) =>
+      url.pathname === '/api/jobs' ? { status: 401, body: { error: { code: 'unauthenticated', message: 'sign in first' } } } : { body: { enabled: true, messages: [] } },
+    );
+    const routes = [
+      { path: '/sign-in', element: <p>sign-in page</p> },
+      { path: '/', element: <RequireAuth />, children: [{ path: 'jobs', element: <JobsListPage /> }] },
+    ];
+    const { router } = renderRoutes(routes, { path: '/jobs?stage=quoted', user: demoUser('office'), queryClient: createQueryClient() });
+    await screen.findByText('sign-in page');
+    expect(router.state.location.search).toBe(`?next=${encodeURIComponent('/jobs?stage=quoted')}`);
   });
 
   it('signs out and returns to sign-in', async () => {
