@@ -1,17 +1,17 @@
 import type { Vec2 } from './vector';
 import type { Ring } from './polygon';
-import { unionPolygons } from './boolean';
 
 /**
  * Band clipping: cut a polygonal area into the pieces that fall inside parallel bands.
  *
  * Work in a strip frame (see transform.ts): bands are slabs `lo ≤ t ≤ hi` of the second
- * coordinate and pieces run along the first (`s`). Within a band, the slab is split at every
- * vertex height so that each sub-slab is crossed only by straight edges; pairing the crossings
- * by x (even-odd rule) gives trapezoids, and trapezoids of neighbouring sub-slabs whose shared
- * sides overlap join into one piece (union-find). This is the classic trapezoidal
- * decomposition (de Berg et al., Computational Geometry, ch. 6) restricted to the bands, and it
- * costs O(E log E + pieces) instead of one polygon boolean per band.
+ * coordinate and pieces run along the first (`s`). Within a band, the slab is split at the ends
+ * of the edges that cross it, so that each sub-slab is crossed only by straight edges; pairing
+ * the crossings by x (even-odd rule) gives trapezoids, and trapezoids of neighbouring sub-slabs
+ * whose shared sides overlap join into one piece (union-find). Each unbranched run of
+ * trapezoids is outlined as one simple polygon, so no polygon boolean is needed. This is the
+ * classic trapezoidal decomposition (de Berg et al., Computational Geometry, ch. 6) restricted
+ * to the bands: O(E log E + Σ active edges × sub-slabs) for the whole layer.
  *
  * The rings must describe a region by the even-odd rule without overlaps (as polygon-clipping
  * returns: outer rings and their holes). Winding does not matter.
@@ -32,10 +32,12 @@ export interface BandPiece {
   sMaxMm: number;
   /** Exact area of the piece, mm². */
   areaMm2: number;
-  /** Outline of the piece in frame coordinates (positive signed area). */
-  polygon: Vec2[];
-  /** Holes inside the piece, if any (rare: an obstacle wholly inside the band). */
-  holes: Vec2[][];
+  /**
+   * The piece as one or more simple polygons in frame coordinates (positive signed area) whose
+   * union is the piece: one for a plain run, more where the piece forks around an obstacle
+   * inside the band (each unbranched run of trapezoids becomes one part).
+   */
+  polygons: Vec2[][];
 }
 
 interface Edge {
@@ -46,7 +48,6 @@ interface Edge {
 }
 
 interface Trap {
-  slab: number;
   y0: number;
   y1: number;
   l0: number;
@@ -55,7 +56,47 @@ interface Trap {
   r1: number;
 }
 
+interface Crossing {
+  m: number;
+  at0: number;
+  at1: number;
+}
+
 const EPS = 1e-7;
+
+// Comparators and helpers live at module level: hot loops must not create closures (a bundler's
+// keep-names wrapper makes every closure creation costly, and the engine cannot inline them).
+const bySMin = (p: BandPiece, q: BandPiece) => p.sMinMm - q.sMinMm;
+
+// The lists sorted per band are short (tens of items): insertion sort beats a comparator sort.
+function insertionSortNumbers(a: number[]): void {
+  for (let i = 1; i < a.length; i++) {
+    const v = a[i];
+    let j = i - 1;
+    while (j >= 0 && a[j] > v) {
+      a[j + 1] = a[j];
+      j--;
+    }
+    a[j + 1] = v;
+  }
+}
+
+function insertionSortCrossings(a: Crossing[]): void {
+  for (let i = 1; i < a.length; i++) {
+    const v = a[i];
+    let j = i - 1;
+    while (j >= 0 && a[j].m > v.m) {
+      a[j + 1] = a[j];
+      j--;
+    }
+    a[j + 1] = v;
+  }
+}
+
+function findRoot(parent: number[], i: number): number {
+  while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+  return i;
+}
 
 /**
  * Pieces of the region (`rings`, frame coordinates) inside each band. Bands must be sorted by
@@ -63,127 +104,162 @@ const EPS = 1e-7;
  * a corner) are dropped. Output is ordered by band, then by `sMinMm`.
  */
 export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1): BandPiece[] {
-  const edges: Edge[] = [];
-  const ys: number[] = [];
+  // Bucket each edge by the first band it can reach (binary search) instead of sorting them all.
+  const buckets: Edge[][] = [];
+  for (let i = 0; i < bands.length; i++) buckets.push([]);
+  const nb = bands.length;
   for (const ring of rings) {
     const n = ring.length;
     for (let i = 0; i < n; i++) {
       const a = ring[i];
       const b = ring[(i + 1) % n];
-      ys.push(a[1]);
       if (a[1] === b[1]) continue;
-      edges.push(a[1] < b[1] ? { xa: a[0], ya: a[1], xb: b[0], yb: b[1] } : { xa: b[0], ya: b[1], xb: a[0], yb: a[1] });
+      const e: Edge = a[1] < b[1] ? { xa: a[0], ya: a[1], xb: b[0], yb: b[1] } : { xa: b[0], ya: b[1], xb: a[0], yb: a[1] };
+      // First band whose top lies above the edge's bottom end.
+      let lo = 0;
+      let hi = nb;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (bands[mid].hiMm <= e.ya) lo = mid + 1;
+        else hi = mid;
+      }
+      if (lo < nb && bands[lo].loMm < e.yb) buckets[lo].push(e);
     }
   }
-  edges.sort((e, f) => e.ya - f.ya);
-  const yv = Float64Array.from(ys).sort();
   const out: BandPiece[] = [];
-  let next = 0;
   let active: Edge[] = [];
+  const cuts: number[] = [];
+  const xs: Crossing[] = [];
   for (let bi = 0; bi < bands.length; bi++) {
-    const { loMm: lo, hiMm: hi } = bands[bi];
+    const lo = bands[bi].loMm;
+    const hi = bands[bi].hiMm;
+    const bucket = buckets[bi];
+    for (let k = 0; k < bucket.length; k++) active.push(bucket[k]);
     if (!(hi - lo > EPS)) continue;
-    while (next < edges.length && edges[next].ya < hi) active.push(edges[next++]);
-    active = active.filter((e) => e.yb > lo);
-    if (active.length === 0) continue;
-    // Sub-slab boundaries: the band's edges and every vertex height strictly inside it.
-    const cuts = [lo];
-    for (let k = lowerBound(yv, lo + EPS); k < yv.length && yv[k] < hi - EPS; k++) {
-      if (yv[k] - cuts[cuts.length - 1] > EPS) cuts.push(yv[k]);
+    let w = 0;
+    for (let k = 0; k < active.length; k++) if (active[k].yb > lo) active[w++] = active[k];
+    active.length = w;
+    if (w === 0) continue;
+    cuts.length = 0;
+    for (let k = 0; k < w; k++) {
+      const e = active[k];
+      if (e.ya > lo + EPS && e.ya < hi - EPS) cuts.push(e.ya);
+      if (e.yb > lo + EPS && e.yb < hi - EPS) cuts.push(e.yb);
     }
-    cuts.push(hi);
+    insertionSortNumbers(cuts);
+    const ys = [lo];
+    for (const y of cuts) if (y - ys[ys.length - 1] > EPS) ys.push(y);
+    if (hi - ys[ys.length - 1] > EPS) ys.push(hi);
+    else ys[ys.length - 1] = hi;
     const traps: Trap[] = [];
     const slabStart: number[] = [];
-    for (let si = 0; si + 1 < cuts.length; si++) {
+    for (let si = 0; si + 1 < ys.length; si++) {
       slabStart.push(traps.length);
-      const y0 = cuts[si];
-      const y1 = cuts[si + 1];
+      const y0 = ys[si];
+      const y1 = ys[si + 1];
       const ym = (y0 + y1) / 2;
-      const xs: { m: number; at0: number; at1: number }[] = [];
-      for (const e of active) {
+      xs.length = 0;
+      for (let k = 0; k < w; k++) {
+        const e = active[k];
         if (e.ya < ym && e.yb > ym) {
-          const k = (e.xb - e.xa) / (e.yb - e.ya);
-          xs.push({ m: e.xa + k * (ym - e.ya), at0: e.xa + k * (Math.max(y0, e.ya) - e.ya), at1: e.xa + k * (Math.min(y1, e.yb) - e.ya) });
+          const slope = (e.xb - e.xa) / (e.yb - e.ya);
+          xs.push({ m: e.xa + slope * (ym - e.ya), at0: e.xa + slope * (Math.max(y0, e.ya) - e.ya), at1: e.xa + slope * (Math.min(y1, e.yb) - e.ya) });
         }
       }
-      xs.sort((p, q) => p.m - q.m);
+      insertionSortCrossings(xs);
       for (let k = 0; k + 1 < xs.length; k += 2) {
-        traps.push({ slab: si, y0, y1, l0: xs[k].at0, l1: xs[k].at1, r0: xs[k + 1].at0, r1: xs[k + 1].at1 });
+        traps.push({ y0, y1, l0: xs[k].at0, l1: xs[k].at1, r0: xs[k + 1].at0, r1: xs[k + 1].at1 });
       }
     }
     slabStart.push(traps.length);
-    if (traps.length === 0) continue;
-    const parent = traps.map((_, i) => i);
-    const find = (i: number): number => {
-      while (parent[i] !== i) i = parent[i] = parent[parent[i]];
-      return i;
-    };
-    for (let si = 1; si + 1 < slabStart.length; si++) {
-      for (let a = slabStart[si - 1]; a < slabStart[si]; a++) {
-        for (let b = slabStart[si]; b < slabStart[si + 1]; b++) {
-          const ta = traps[a];
-          const tb = traps[b];
-          if (Math.min(ta.r1, tb.r0) - Math.max(ta.l1, tb.l0) > EPS) parent[find(a)] = find(b);
-        }
-      }
-    }
-    const groups = new Map<number, Trap[]>();
-    for (let i = 0; i < traps.length; i++) {
-      const r = find(i);
-      const g = groups.get(r);
-      if (g) g.push(traps[i]);
-      else groups.set(r, [traps[i]]);
-    }
-    const pieces: BandPiece[] = [];
-    for (const g of groups.values()) {
-      let area = 0;
-      let sMin = Infinity;
-      let sMax = -Infinity;
-      for (const t of g) {
-        area += ((t.r0 - t.l0 + (t.r1 - t.l1)) / 2) * (t.y1 - t.y0);
-        sMin = Math.min(sMin, t.l0, t.l1);
-        sMax = Math.max(sMax, t.r0, t.r1);
-      }
-      if (area < minAreaMm2) continue;
-      const { polygon, holes } = pieceOutline(g);
-      pieces.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygon, holes });
-    }
-    pieces.sort((p, q) => p.sMinMm - q.sMinMm);
-    out.push(...pieces);
+    if (traps.length) bandPieces(bi, traps, slabStart, minAreaMm2, out);
   }
   return out;
 }
 
-function lowerBound(a: Float64Array, v: number): number {
-  let lo = 0;
-  let hi = a.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (a[mid] < v) lo = mid + 1;
-    else hi = mid;
+/** Joins a band's trapezoids into pieces (union-find over overlapping neighbours) and outlines them. */
+function bandPieces(bi: number, traps: Trap[], slabStart: number[], minAreaMm2: number, out: BandPiece[]): void {
+  const nt = traps.length;
+  const parent: number[] = [];
+  const ups: number[] = [];
+  const downs: number[] = [];
+  const upLink: number[] = [];
+  for (let i = 0; i < nt; i++) {
+    parent.push(i);
+    ups.push(0);
+    downs.push(0);
+    upLink.push(-1);
   }
-  return lo;
+  for (let si = 1; si + 1 < slabStart.length; si++) {
+    for (let a = slabStart[si - 1]; a < slabStart[si]; a++) {
+      for (let b = slabStart[si]; b < slabStart[si + 1]; b++) {
+        const ta = traps[a];
+        const tb = traps[b];
+        if (Math.min(ta.r1, tb.r0) - Math.max(ta.l1, tb.l0) > EPS) {
+          parent[findRoot(parent, a)] = findRoot(parent, b);
+          ups[a]++;
+          downs[b]++;
+          upLink[a] = b;
+        }
+      }
+    }
+  }
+  // Unbranched runs: a links to b when each is the other's only neighbour.
+  const runNext: number[] = [];
+  const hasPrev: boolean[] = [];
+  for (let i = 0; i < nt; i++) {
+    runNext.push(-1);
+    hasPrev.push(false);
+  }
+  for (let a = 0; a < nt; a++) {
+    const b = upLink[a];
+    if (b >= 0 && ups[a] === 1 && downs[b] === 1) {
+      runNext[a] = b;
+      hasPrev[b] = true;
+    }
+  }
+  const groups = new Map<number, { traps: Trap[]; runs: Trap[][] }>();
+  for (let i = 0; i < nt; i++) {
+    const r = findRoot(parent, i);
+    let g = groups.get(r);
+    if (!g) groups.set(r, (g = { traps: [], runs: [] }));
+    g.traps.push(traps[i]);
+    if (hasPrev[i]) continue;
+    const run: Trap[] = [];
+    for (let k = i; k >= 0; k = runNext[k]) run.push(traps[k]);
+    g.runs.push(run);
+  }
+  const start = out.length;
+  for (const g of groups.values()) {
+    let area = 0;
+    let sMin = Infinity;
+    let sMax = -Infinity;
+    for (const t of g.traps) {
+      area += ((t.r0 - t.l0 + (t.r1 - t.l1)) / 2) * (t.y1 - t.y0);
+      if (t.l0 < sMin) sMin = t.l0;
+      if (t.l1 < sMin) sMin = t.l1;
+      if (t.r0 > sMax) sMax = t.r0;
+      if (t.r1 > sMax) sMax = t.r1;
+    }
+    if (area < minAreaMm2) continue;
+    out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons: g.runs.map(runOutline) });
+  }
+  if (out.length - start > 1) {
+    const mine = out.splice(start).sort(bySMin);
+    for (const p of mine) out.push(p);
+  }
 }
 
-function pieceOutline(g: Trap[]): { polygon: Vec2[]; holes: Vec2[][] } {
-  g.sort((a, b) => a.slab - b.slab);
-  let chain = true;
-  for (let i = 1; i < g.length; i++) if (g[i].slab !== g[i - 1].slab + 1) chain = false;
-  if (chain) {
-    // One trapezoid per sub-slab: walk up the left side and down the right side.
-    const pts: Vec2[] = [[g[0].l0, g[0].y0]];
-    for (const t of g) pts.push([t.l1, t.y1]);
-    for (let i = g.length - 1; i >= 0; i--) pts.push([g[i].r1, g[i].y1]);
-    pts.push([g[0].r0, g[0].y0]);
-    return { polygon: simplifyRing(pts), holes: [] };
-  }
-  const merged = unionPolygons(g.map((t) => [[[t.l0, t.y0], [t.r0, t.y0], [t.r1, t.y1], [t.l1, t.y1]] as Vec2[]]));
-  let best = merged[0];
-  for (const p of merged) if (p[0].length > best[0].length) best = p;
-  return { polygon: simplifyRing(best[0].map((p) => [p[0], p[1]] as Vec2)), holes: best.slice(1).map((r) => r.map((p) => [p[0], p[1]] as Vec2)) };
+/** Outline of an unbranched run (one trapezoid per consecutive sub-slab): up the left side, down the right. */
+function runOutline(g: Trap[]): Vec2[] {
+  const pts: Vec2[] = [[g[0].l0, g[0].y0]];
+  for (const t of g) pts.push([t.l1, t.y1]);
+  for (let i = g.length - 1; i >= 0; i--) pts.push([g[i].r1, g[i].y1]);
+  pts.push([g[0].r0, g[0].y0]);
+  return simplifyRing(pts);
 }
 
-/** Drop repeated and collinear points (within 1e-6 mm); winding is made positive. */
+/** Drop repeated and collinear points (within 1e-6 mm) in one pass; winding is made positive. */
 function simplifyRing(pts: Vec2[]): Vec2[] {
   let out: Vec2[] = [];
   for (const p of pts) {
@@ -195,22 +271,22 @@ function simplifyRing(pts: Vec2[]): Vec2[] {
     const b = out[out.length - 1];
     if (Math.abs(a[0] - b[0]) <= 1e-6 && Math.abs(a[1] - b[1]) <= 1e-6) out.pop();
   }
-  let changed = true;
-  while (changed && out.length > 3) {
-    changed = false;
+  if (out.length > 3) {
     const keep: Vec2[] = [];
     const n = out.length;
     for (let i = 0; i < n; i++) {
-      const a = out[(i + n - 1) % n];
+      const a = keep.length ? keep[keep.length - 1] : out[n - 1];
       const b = out[i];
       const c = out[(i + 1) % n];
-      const cross = (b[0] - a[0]) * (c[1] - b[1]) - (b[1] - a[1]) * (c[0] - b[0]);
-      const scale = Math.hypot(b[0] - a[0], b[1] - a[1]) + Math.hypot(c[0] - b[0], c[1] - b[1]);
-      if (Math.abs(cross) <= 1e-6 * scale) changed = true;
-      else keep.push(b);
+      const ux = b[0] - a[0];
+      const uy = b[1] - a[1];
+      const vx = c[0] - b[0];
+      const vy = c[1] - b[1];
+      const cross = ux * vy - uy * vx;
+      // |cross| / (|u| + |v|) bounds the distance of b from the line a–c, give or take a factor 2.
+      if (Math.abs(cross) > 1e-6 * (Math.sqrt(ux * ux + uy * uy) + Math.sqrt(vx * vx + vy * vy))) keep.push(b);
     }
-    if (keep.length < 3) break;
-    out = keep;
+    if (keep.length >= 3) out = keep;
   }
   let s = 0;
   for (let i = 0; i < out.length; i++) {

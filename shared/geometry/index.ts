@@ -6,3 +6,4 @@ export * from './transform';
 export * from './boolean';
 export * from './offset';
 export * from './bands';
+export * from './clip-convex';

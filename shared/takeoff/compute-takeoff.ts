@@ -3,6 +3,7 @@ import { InvalidPlanError } from '../plan/plan-messages';
 import { checkPlanGeometry } from '../plan/plan-geometry-checks';
 import { multiPolygonArea, polygonCentroid, type MultiPolygon } from '../geometry/polygon';
 import { vecDot, type Vec2 } from '../geometry/vector';
+import { fromFrame } from '../geometry/transform';
 import { computePlanRegions, countExclusionsByKind } from './regions';
 import { chooseLayers, existingInsulation, insulationBuildUp, thermalContext, type LayerChoice } from './layers';
 import { cutStrips, layerBands, layingOrder } from './strips';
@@ -138,7 +139,7 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     eaves: {
       gapMm: plan.eavesGapMm,
       totalLengthMm: r1(eavesLengthMm),
-      bands: regions.eavesBands.map((b) => ({ edgeIndex: b.edgeIndex, edgeLengthMm: r1(b.edgeLengthMm), areaM2: r3(m2(b.areaMm2)), polygons: b.polygon.map((p) => p[0].map(pt)) })),
+      bands: regions.eavesBands.map((b) => ({ edgeIndex: b.edgeIndex, edgeLengthMm: r1(b.edgeLengthMm), areaM2: r3(m2(b.areaMm2)), polygon: b.polygon.map(pt) })),
     },
     siteChecks,
     warnings,
@@ -182,7 +183,7 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
     for (let i = 0; i < count; i++) {
       pieces.push({ stripNumber: number, pieceIndex: i, lengthMm: i < count - 1 ? p.rollLengthMm : r.lengthMm - (count - 1) * p.rollLengthMm });
     }
-    const c = polygonCentroid(r.polygon);
+    const c = fromFrame(lb.frame, [r.midS, r.midT]);
     return {
       number,
       label: `${prefix}${number}`,
@@ -192,8 +193,7 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
       bandWidthMm: r1(lb.bandWidthMm),
       extentMm: r1(r.extentMm),
       areaM2: r4(m2(r.areaMm2)),
-      polygon: r.polygon.map(pt),
-      ...(r.holes.length ? { holes: r.holes.map((h) => h.map(pt)) } : {}),
+      polygons: r.polygons.map((poly) => poly.map(pt)),
       labelAt: pt(c),
       pieces: [],
     };

@@ -60,7 +60,7 @@ const costPerM2 = (p: TakeoffProduct) => p.priceMinor / p.coverageM2PerRoll;
  * lane is at least the bay width (`centres − width`), the narrowest such lane, the thinnest
  * thickness that fills the joist depth, then the cheapest. Cross layers: combinations of up to
  * `maxCrossLayers` products that reach the target depth (or target U-value), preferring fewer
- * layers, then the least overshoot, then the lowest cost. Products pinned in `plan.products` are
+ * layers, then the least overshoot, then the lowest cost, then the widest lanes. Products pinned in `plan.products` are
  * used as given. Rules are Quiltline's own reading of common practice.
  */
 export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffSettings): LayerPlan {
@@ -118,7 +118,7 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
     const need = plan.target.depthMm - belowMm;
     if (need > 0) {
       const ok = combos.filter((c) => sum(c) >= need);
-      if (ok.length) chosen = pickBest(ok, (c) => [c.length, sum(c) - need, c.reduce((t, p) => t + costPerM2(p), 0)]);
+      if (ok.length) chosen = pickBest(ok, (c) => [c.length, sum(c) - need, c.reduce((t, p) => t + costPerM2(p), 0), -minLane(c)]);
       else if (combos.length) {
         chosen = pickBest(combos, (c) => [-sum(c), c.length]);
         warnings.push({ code: 'target.not-reached', message: `the catalogue reaches ${Math.round(belowMm + sum(chosen))} mm at most with ${s.maxCrossLayers} cross layers; the target is ${plan.target.depthMm} mm` });
@@ -132,7 +132,7 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
     if (u([]) > target) {
       const scored = combos.map((c) => ({ c, u: u(c) }));
       const ok = scored.filter((x) => x.u <= target);
-      if (ok.length) chosen = pickBest(ok, (x) => [x.c.length, sum(x.c), x.c.reduce((t, p) => t + costPerM2(p), 0)]).c;
+      if (ok.length) chosen = pickBest(ok, (x) => [x.c.length, sum(x.c), x.c.reduce((t, p) => t + costPerM2(p), 0), -minLane(x.c)]).c;
       else if (scored.length) {
         const best = pickBest(scored, (x) => [x.u, x.c.length]);
         chosen = best.c;
@@ -152,6 +152,11 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
 
 function sum(c: TakeoffProduct[]): number {
   return c.reduce((t, p) => t + p.thicknessMm, 0);
+}
+
+/** Narrowest lane of a combination: wider lanes mean fewer cross strips to cut and lay. */
+function minLane(c: TakeoffProduct[]): number {
+  return Math.min(...c.map(productLaneWidthMm));
 }
 
 function round1(x: number): number {

@@ -1,7 +1,8 @@
 import type { ExclusionKind, Plan } from '../plan/plan-schema';
 import { EXCLUSION_KINDS } from '../plan/plan-schema';
 import { circlePolygon, polygonBuffer } from '../geometry/offset';
-import { differencePolygons, intersectPolygons, unionPolygons } from '../geometry/boolean';
+import { differencePolygons } from '../geometry/boolean';
+import { clipRingByConvex } from '../geometry/clip-convex';
 import { multiPolygonArea, polygonArea, polygonSignedArea, ringWithPositiveArea, type MultiPolygon, type PolygonWithHoles } from '../geometry/polygon';
 import type { Vec2 } from '../geometry/vector';
 import type { TakeoffSettings } from './settings';
@@ -15,14 +16,13 @@ export interface PlanRegions {
   exclusionShapes: MultiPolygon[];
   /** Clearance applied to each exclusion, mm. */
   exclusionClearancesMm: number[];
-  /** Union of all exclusion footprints clipped to the outline (overlaps counted once). */
-  excluded: MultiPolygon;
+  /** Area of the union of all exclusion footprints inside the outline (overlaps counted once): gross − net. */
   excludedAreaMm2: number;
   /** Outline minus `excluded`. */
   net: MultiPolygon;
   netAreaMm2: number;
-  /** One band per eaves edge: `eavesGapMm` wide on the inner side, clipped to the outline. */
-  eavesBands: { edgeIndex: number; polygon: MultiPolygon; areaMm2: number; edgeLengthMm: number }[];
+  /** One band per eaves edge: `eavesGapMm` wide on the inner side, clipped to the outline (exclusions not taken out). */
+  eavesBands: { edgeIndex: number; polygon: Vec2[]; areaMm2: number; edgeLengthMm: number }[];
   /** Net minus the eaves bands: where new layers go. */
   layerRegion: MultiPolygon;
   layerAreaMm2: number;
@@ -57,14 +57,14 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   const exclusionClearancesMm = plan.exclusions.map((e) => exclusionClearanceMm(e, settings));
   const exclusionShapes = plan.exclusions.map((e) => exclusionShape(e, settings));
   const allShapes = exclusionShapes.flat();
-  const excluded = allShapes.length ? intersectPolygons(outlinePoly, unionPolygons(allShapes)) : [];
-  const excludedAreaMm2 = multiPolygonArea(excluded);
-  const net = excluded.length ? differencePolygons(outlinePoly, excluded) : [[outline]];
-  const netAreaMm2 = grossAreaMm2 - excludedAreaMm2;
+  // One boolean call each for net and layer regions: polygon-clipping's cost is mostly per call.
+  const net = allShapes.length ? differencePolygons(outlinePoly, allShapes) : [[outline]];
+  const netAreaMm2 = allShapes.length ? multiPolygonArea(net) : grossAreaMm2;
+  const excludedAreaMm2 = grossAreaMm2 - netAreaMm2;
 
   // ringWithPositiveArea may have reversed the ring: map plan edge indices onto it.
   const reversed = polygonSignedArea(plan.outline) < 0;
-  const eavesBands: PlanRegions['eavesBands'] = [];
+  const eavesBands: (PlanRegions['eavesBands'][number] & { rect: Vec2[] })[] = [];
   const gap = plan.eavesGapMm;
   const seen = new Set<number>();
   for (const edgeIndex of plan.eavesEdges) {
@@ -77,7 +77,7 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
     const dy = b[1] - a[1];
     const len = Math.hypot(dx, dy);
     if (len === 0 || !(gap > 0)) {
-      eavesBands.push({ edgeIndex, polygon: [], areaMm2: 0, edgeLengthMm: len });
+      eavesBands.push({ edgeIndex, polygon: [], areaMm2: 0, edgeLengthMm: len, rect: [] });
       continue;
     }
     // Positive signed area: the interior lies to the +90° side of each edge direction.
@@ -90,13 +90,13 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
       [b[0] + nx, b[1] + ny],
       [a[0] + nx, a[1] + ny],
     ];
-    const band = intersectPolygons(outlinePoly, [[rect]]);
-    eavesBands.push({ edgeIndex, polygon: band, areaMm2: multiPolygonArea(band), edgeLengthMm: len });
+    const band = clipRingByConvex(outline, rect);
+    eavesBands.push({ edgeIndex, polygon: band, areaMm2: polygonArea(band), edgeLengthMm: len, rect });
   }
-  const bandPolys = eavesBands.flatMap((b) => b.polygon);
+  const bandPolys = eavesBands.filter((b) => b.rect.length).map((b) => [b.rect]);
   const layerRegion = bandPolys.length ? differencePolygons(net, bandPolys) : net;
   const layerAreaMm2 = bandPolys.length ? multiPolygonArea(layerRegion) : netAreaMm2;
-  return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excluded, excludedAreaMm2, net, netAreaMm2, eavesBands, layerRegion, layerAreaMm2 };
+  return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excludedAreaMm2, net, netAreaMm2, eavesBands: eavesBands.map(({ rect: _rect, ...b }) => b), layerRegion, layerAreaMm2 };
 }
 
 /** How many exclusions of each kind a plan has (every kind present, zero when absent). */

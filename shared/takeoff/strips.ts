@@ -17,9 +17,8 @@ export interface RawStrip {
   /** Frame coordinates of the piece's middle (s along the band, t across). */
   midS: number;
   midT: number;
-  /** Outline in plan coordinates, mm. */
-  polygon: Vec2[];
-  holes: Vec2[][];
+  /** The strip as one or more simple polygons in plan coordinates (see `BandPiece.polygons`), mm. */
+  polygons: Vec2[][];
 }
 
 /** The bands of one layer and the frame they are laid in. */
@@ -76,8 +75,7 @@ export function roundUpToStep(x: number, stepMm: number): number {
 /**
  * Cuts a layer's region into strips along its bands. Each connected piece of the region in a
  * band is one strip; its length is its extent along the band rounded up to `cuttingAllowanceMm`.
- * Pieces under 0.01 m² where a band only grazes a corner are kept (they still need covering)
- * unless smaller than 1 mm².
+ * Slivers under 1 mm² (a band grazing a corner) are dropped.
  */
 export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowanceMm: number): RawStrip[] {
   const rings: Vec2[][] = [];
@@ -93,8 +91,7 @@ export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowance
       areaMm2: pc.areaMm2,
       midS: (pc.sMinMm + pc.sMaxMm) / 2,
       midT: (band.loMm + band.hiMm) / 2,
-      polygon: pc.polygon.map((q) => fromFrame(lb.frame, q)),
-      holes: pc.holes.map((h) => h.map((q) => fromFrame(lb.frame, q))),
+      polygons: pc.polygons.map((poly) => poly.map((q) => fromFrame(lb.frame, q))),
     };
   });
 }

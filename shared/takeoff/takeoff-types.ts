@@ -37,11 +37,12 @@ export interface TakeoffStrip {
   extentMm: number;
   /** Area it covers, clipped to the layer, m². */
   areaM2: number;
-  /** Outline in plan mm (rounded to 0.1 mm). */
-  polygon: PlanPointMm[];
-  /** Holes, when an obstacle sits wholly inside the strip. */
-  holes?: PlanPointMm[][];
-  /** A point inside the strip's band for its label, plan mm. */
+  /**
+   * The strip's shape in plan mm (rounded to 0.1 mm): usually one polygon; several parts whose
+   * union is the strip where it forks around an obstacle inside its band.
+   */
+  polygons: PlanPointMm[][];
+  /** Where to draw the label: the middle of the strip's extent on its band's centre line, plan mm. */
   labelAt: PlanPointMm;
   /** Cuts from the rolls (more than one when the strip is longer than a roll). */
   pieces: TakeoffStripPiece[];
@@ -143,7 +144,7 @@ export interface Takeoff {
     items: { index: number; kind: ExclusionKind; label?: string; clearanceMm: number; footprintAreaM2: number; polygons: PlanPointMm[][] }[];
     boardedAreaM2: number;
   };
-  eaves: { gapMm: number; totalLengthMm: number; bands: { edgeIndex: number; edgeLengthMm: number; areaM2: number; polygons: PlanPointMm[][] }[] };
+  eaves: { gapMm: number; totalLengthMm: number; bands: { edgeIndex: number; edgeLengthMm: number; areaM2: number; polygon: PlanPointMm[] }[] };
   siteChecks: SiteCheck[];
   warnings: { code: string; message: string; edgeIndex?: number; exclusionIndex?: number; pointIndex?: number }[];
   settings: TakeoffSettings;
