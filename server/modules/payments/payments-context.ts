@@ -24,7 +24,15 @@ export function paymentsContext(deps: AppDeps): PaymentsContext {
   const gateway = (deps as AppDeps & { payments?: PaymentsGateway }).payments ?? (cfg ? createPaymentsGateway(cfg) : null);
   const origins = ['https://checkout.stripe.com'];
   if (cfg?.apiUrl) origins.push(new URL(cfg.apiUrl).origin);
-  const ctx: PaymentsContext = { gateway, provider: cfg ? cfg.provider : 'off', checkoutOrigins: origins, appUrl: deps.config.appUrl };
+  const ctx: PaymentsContext = {
+    gateway,
+    provider: cfg ? cfg.provider : 'off',
+    checkoutOrigins: origins,
+    // read when used: a test server may learn its port (and so its URL) after the app is built
+    get appUrl() {
+      return deps.config.appUrl;
+    },
+  };
   cache.set(deps, ctx);
   return ctx;
 }

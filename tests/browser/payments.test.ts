@@ -1,0 +1,79 @@
+// The customer pays a deposit in headless chromium: our deposit page → the local checkout stand-in
+// (through the real SDK) → cancel and try again → pay → our success page once the signed webhook
+// has landed; then the office sees it on the job. Screenshots: test-output/screenshots/payments-*.png.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Job } from '../../server/db/models/job';
+import { createFakePaymentService, type FakePaymentService } from '../../server/lib/payments/fake-service';
+import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+import { createJob, createOrgWithUsers, loginAs, type TestOrg } from '../helpers/test-app';
+import { createAcceptedQuote, WEBHOOK_SECRET } from '../server/payments-fixtures';
+
+let server: Awaited<ReturnType<typeof startAppServer>>;
+let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let fake: FakePaymentService;
+let fakeHandle: { url: string; close(): Promise<void> };
+let org: TestOrg;
+const saved = { ...process.env };
+
+beforeAll(async () => {
+  fake = createFakePaymentService({ webhookSecret: WEBHOOK_SECRET });
+  fakeHandle = await fake.listen(0);
+  process.env.STRIPE_SECRET_KEY = 'sk_test_quiltline_browser';
+  process.env.STRIPE_WEBHOOK_SECRET = WEBHOOK_SECRET;
+  process.env.PAYMENTS_API_URL = fakeHandle.url;
+  server = await startAppServer();
+  fake.setWebhookUrl(`${server.url}/api/payments/webhook`);
+  org = await createOrgWithUsers(server.ctx);
+  const office = await loginAs(server.ctx.app, org.office);
+  await office.put('/api/payments/settings').send({ depositMode: 'percent', depositPercentBp: 2500, paymentTermsDays: 14 });
+  browser = await launchBrowser({ viewport: { width: 1280, height: 860 } });
+}, 120_000);
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+  await fakeHandle?.close();
+  for (const k of ['STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET', 'PAYMENTS_API_URL']) {
+    if (saved[k] === undefined) delete process.env[k];
+    else process.env[k] = saved[k];
+  }
+});
+
+describe('customer pays the deposit', () => {
+  it('cancels once, tries again, pays on the stand-in checkout and sees it confirmed; the office sees it on the job', async () => {
+    const { job } = await createJob(org, { stage: 'accepted', customerName: 'Ada Fenwick' });
+    const { quote, link } = await createAcceptedQuote(org.id, job.id, server.ctx.config.sessionSecret);
+    const page = await browser.newPage();
+
+    await page.goto(`${server.url}/pay/deposit/${link}`);
+    await expect.poll(() => page.getByTestId('deposit-amount').textContent()).toBe('£143.94');
+    await screenshot(page, 'payments-1-deposit-page');
+
+    await page.getByRole('button', { name: 'Pay deposit by card' }).click();
+    await page.waitForURL((u) => u.origin === fakeHandle.url);
+    expect(await page.getByTestId('total').textContent()).toBe('£143.94');
+    expect(await page.getByRole('note').textContent()).toContain('Local test checkout');
+    await screenshot(page, 'payments-2-stand-in-checkout');
+
+    await page.getByRole('button', { name: 'Cancel and go back' }).click();
+    await page.waitForURL((u) => u.pathname.startsWith('/pay/cancelled/'));
+    expect(await page.getByTestId('cancelled').textContent()).toContain('nothing was paid');
+    await screenshot(page, 'payments-3-cancelled');
+    expect(fake.deliveries).toHaveLength(0);
+
+    await page.getByRole('button', { name: /Try again: pay £143\.94/ }).click();
+    await page.waitForURL((u) => u.origin === fakeHandle.url);
+    await page.getByRole('button', { name: 'Pay £143.94' }).click();
+    await page.waitForURL((u) => u.pathname.startsWith('/pay/done/'));
+    await expect.poll(() => page.getByTestId('paid').textContent(), { timeout: 10_000 }).toContain('£143.94');
+    await screenshot(page, 'payments-4-paid');
+    expect(fake.deliveries.map((d) => [d.type, d.status])).toEqual([['checkout.session.completed', 200]]);
+
+    // The office: the job's payments card shows the deposit with its amount and time.
+    await Job.update({ stage: 'accepted' }, { where: { id: job.id } });
+    const office = await browser.newPage();
+    await signInThroughUi(office, server.url, org.office.email, org.office.password);
+    await office.goto(`${server.url}/jobs/${job.id}`);
+    await expect.poll(() => office.getByTestId('money-timeline').textContent(), { timeout: 10_000 }).toContain(`Deposit of £143.94 paid for quote ${quote.number}`);
+    await screenshot(office, 'payments-5-office-job');
+  });
+});
