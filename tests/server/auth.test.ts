@@ -103,14 +103,18 @@ describe('session', () => {
     expect(me2.body.user.id).toBe(org.installer.id);
   });
 
-  it('gives a new session id at sign-in (no session fixation)', async () => {
-    const agent = await loginAs(ctx.app, org.office);
-    const before = await agent.get('/api/auth/me');
-    expect(before.status).toBe(200);
+  it('gives a new session id at sign-in and retires the old one (no session fixation)', async () => {
+    const sidOf = (r: request.Response) => String(r.headers['set-cookie']?.[0]).split(';')[0];
     const first = await request(ctx.app).post('/api/auth/login').send({ email: org.office.email, password: org.office.password });
-    const second = await request(ctx.app).post('/api/auth/login').send({ email: org.office.email, password: org.office.password });
-    const sid = (r: request.Response) => String(r.headers['set-cookie']?.[0]).split(';')[0];
-    expect(sid(first)).not.toBe(sid(second));
+    const cookie1 = sidOf(first);
+    expect((await request(ctx.app).get('/api/auth/me').set('Cookie', cookie1)).status).toBe(200);
+    // signing in again while holding that cookie
+    const second = await request(ctx.app).post('/api/auth/login').set('Cookie', cookie1).send({ email: org.estimator.email, password: org.estimator.password });
+    const cookie2 = sidOf(second);
+    expect(cookie2).toMatch(/^quiltline\.sid=/);
+    expect(cookie2).not.toBe(cookie1);
+    expect((await request(ctx.app).get('/api/auth/me').set('Cookie', cookie2)).body.user.id).toBe(org.estimator.id);
+    expect((await request(ctx.app).get('/api/auth/me').set('Cookie', cookie1)).status).toBe(401);
   });
 
   it('signs out: the same cookie no longer works', async () => {
