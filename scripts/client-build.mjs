@@ -23,7 +23,29 @@ export function clientIsStale() {
   return SOURCES.some((s) => newestMtime(path.join(REPO_ROOT, s)) > builtAt);
 }
 
-/** Runs `vite build` (when stale, or always with force). Throws when the build fails. */
+function copyTree(from, to, skip) {
+  fs.mkdirSync(to, { recursive: true });
+  for (const e of fs.readdirSync(from, { withFileTypes: true })) {
+    const src = path.join(from, e.name);
+    const dst = path.join(to, e.name);
+    if (skip(src)) continue;
+    if (e.isDirectory()) copyTree(src, dst, skip);
+    else fs.copyFileSync(src, dst);
+  }
+}
+
+function listFiles(dir) {
+  if (!fs.existsSync(dir)) return [];
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? listFiles(path.join(dir, e.name)) : [path.join(dir, e.name)]));
+}
+
+/**
+ * Runs `vite build` (when stale, or always with force). Throws when the build fails.
+ *
+ * Builds into a private folder, then merges into dist/ with index.html replaced last (atomically),
+ * keeping the previous build's hashed assets for a while: several test runs and servers share this
+ * work tree, and a page loaded from the old index.html must still find its scripts.
+ */
 export function buildClient({ force = false, log = (m) => process.stderr.write(`${m}\n`) } = {}) {
   if (!force && !clientIsStale()) {
     log('[build] dist/ is up to date');
@@ -31,8 +53,25 @@ export function buildClient({ force = false, log = (m) => process.stderr.write(`
   }
   log('[build] building the client with Vite ...');
   const started = Date.now();
-  const r = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { cwd: REPO_ROOT, stdio: 'inherit' });
-  if (r.status !== 0) throw new Error(`vite build failed (exit ${r.status})`);
+  const dist = path.join(REPO_ROOT, 'dist');
+  const tmp = path.join(REPO_ROOT, 'node_modules', '.cache', `quiltline-build-${process.pid}`);
+  fs.rmSync(tmp, { recursive: true, force: true });
+  try {
+    const r = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn', '--outDir', tmp, '--emptyOutDir'], { cwd: REPO_ROOT, stdio: 'inherit' });
+    if (r.status !== 0) throw new Error(`vite build failed (exit ${r.status})`);
+    const indexHtml = path.join(tmp, 'index.html');
+    copyTree(tmp, dist, (src) => src === indexHtml);
+    const staged = path.join(dist, `.index-${process.pid}.html`);
+    fs.copyFileSync(indexHtml, staged);
+    fs.renameSync(staged, path.join(dist, 'index.html'));
+    // Old hashed assets go once they are an hour old and not part of this build.
+    const fresh = new Set(listFiles(tmp).map((f) => path.relative(tmp, f)));
+    for (const f of listFiles(path.join(dist, 'assets'))) {
+      if (!fresh.has(path.relative(dist, f)) && Date.now() - fs.statSync(f).mtimeMs > 3600_000) fs.rmSync(f, { force: true });
+    }
+  } finally {
+    fs.rmSync(tmp, { recursive: true, force: true });
+  }
   log(`[build] done in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   return true;
 }
