@@ -8,7 +8,7 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { buildClient } from './client-build.mjs';
-import { APP_DB, REPO_ROOT, databaseUrl, ensureDatabase, ensurePgRunning, stopPg } from './pg.mjs';
+import { APP_DB, REPO_ROOT, databaseUrl, ensureDatabase, ensurePgRunning, psql, stopPg } from './pg.mjs';
 
 const dev = process.argv.includes('--dev');
 const log = (m) => process.stderr.write(`[start] ${m}\n`);
@@ -76,7 +76,10 @@ async function main() {
     );
     if (pg?.startedHere) {
       try {
-        stopPg(pg.cfg);
+        // A test run that found the cluster running uses it too: leave it to that run.
+        const testRuns = Number(psql("SELECT count(*) FROM pg_database WHERE datname LIKE 'quiltline_test_%'", { cfg: pg.cfg }));
+        if (testRuns > 0) log('PostgreSQL left running: a test run is using it (node scripts/pg.mjs stop)');
+        else stopPg(pg.cfg);
       } catch (e) {
         log(e.message);
       }
