@@ -19,8 +19,10 @@ export const sheetStripSchema = z.object({
   layerKey: z.string(),
   lengthMm: z.number(),
   widthMm: z.number(),
-  /** Where the strip lies, plan millimetres. */
-  polygon: z.array(pointMm),
+  /** Where the strip lies, plan millimetres: usually one polygon, several where it forks around an obstacle. */
+  polygons: z.array(z.array(pointMm)),
+  /** A point inside the strip for its label, plan millimetres. */
+  labelAt: pointMm,
 });
 export type SheetStrip = z.infer<typeof sheetStripSchema>;
 

@@ -9,6 +9,12 @@ import { addDays, mondayOf } from '../../server/modules/schedule/schedule.servic
 import { createJob } from '../helpers/test-app';
 import { scheduledJobWithTakeoff } from '../server/job-sheet-fixtures';
 
+/** Full-page shot from the top (sticky bars are drawn where the page is scrolled to). */
+async function shot(page: Page, name: string) {
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await screenshot(page, name);
+}
+
 function acceptedJobFor(org: TestOrg) {
   return createJob(org, { stage: 'accepted', customerName: 'Robin Hale' });
 }
@@ -39,18 +45,18 @@ describe('job sheet on a phone', () => {
 
     await page.goto(`${server.url}/my-jobs`);
     await page.getByRole('heading', { name: 'Today' }).waitFor();
-    await screenshot(page, 'installer-my-jobs-360');
+    await shot(page, 'installer-my-jobs-360');
 
     await page.getByRole('link', { name: /Testbury/ }).first().click();
     await page.waitForURL(`**/jobs/${job.id}/sheet`);
     await page.getByText('Saved on this device: opens without signal.').waitFor({ timeout: 20_000 });
     await page.getByRole('img', { name: /Plan of Main loft/ }).waitFor();
-    await screenshot(page, 'job-sheet-360');
+    await shot(page, 'job-sheet-360');
     // The folded parts: the cut list (roll by roll) and the photos.
     await page.locator('summary', { hasText: 'Cut list' }).click();
     await page.locator('summary', { hasText: 'Photos' }).click();
     await page.locator('summary', { hasText: 'Finish the job' }).click();
-    await screenshot(page, 'job-sheet-open-360');
+    await shot(page, 'job-sheet-open-360');
 
     // No signal: the page itself cannot reach the server, yet the sheet reloads from the service worker.
     await browser.context.setOffline(true);
@@ -64,7 +70,7 @@ describe('job sheet on a phone', () => {
     await page.getByRole('button', { name: 'Save note' }).click();
     await expect.poll(() => waitingCount(page)).toBe('3');
     await expect.poll(() => page.getByTestId('tick-ppe.dust').getAttribute('aria-pressed')).toBe('true');
-    await screenshot(page, 'job-sheet-offline-360');
+    await shot(page, 'job-sheet-offline-360');
     expect(await JobTick.count({ where: { jobId: job.id } })).toBe(0);
 
     // Closing and reopening the app offline loses nothing.
@@ -87,7 +93,7 @@ describe('job sheet on a phone', () => {
     await again.reload();
     await again.getByRole('heading', { name: 'Main loft' }).waitFor();
     await expect.poll(() => again.getByTestId(`checks-${space.id}`).locator('summary').textContent()).toMatch(/2\/\d+/);
-    await screenshot(again, 'job-sheet-synced-360');
+    await shot(again, 'job-sheet-synced-360');
     await again.close();
   });
 
@@ -104,7 +110,7 @@ describe('job sheet on a phone', () => {
       await page.getByRole('heading', { name: 'Schedule' }).waitFor();
       await page.getByText(job.reference).first().waitFor();
       await page.getByRole('button', { name: 'Book' }).first().waitFor();
-      await screenshot(page, 'schedule-360');
+      await shot(page, 'schedule-360');
     } finally {
       await office.close();
     }

@@ -54,6 +54,13 @@ export function sheetChecks(takeoff: Takeoff): SheetCheck[] {
     .map((c) => ({ code: String(c.code), title: CHECK_TITLES[c.code] ?? String(c.message).split(/[.:;]/)[0], detail: String(c.message) }));
 }
 
+type Pair = [number, number];
+/** A strip's shape: `polygons` in current takeoffs, a single `polygon` in ones saved before that change. */
+function stripPolygons(s: TakeoffLayer['strips'][number]): Pair[][] {
+  const loose = s as unknown as { polygons?: Pair[][]; polygon?: Pair[] };
+  return loose.polygons ?? (loose.polygon ? [loose.polygon] : []);
+}
+
 function sheetLayer(l: TakeoffLayer): SheetLayer {
   const key = layerKeyOf(l);
   return {
@@ -71,7 +78,8 @@ function sheetLayer(l: TakeoffLayer): SheetLayer {
       layerKey: key,
       lengthMm: Number(s.lengthMm),
       widthMm: Number(s.widthMm),
-      polygon: s.polygon.map((p) => [Number(p[0]), Number(p[1])] as [number, number]),
+      polygons: stripPolygons(s).map((poly) => poly.map((p) => [Number(p[0]), Number(p[1])] as [number, number])),
+      labelAt: [Number(s.labelAt[0]), Number(s.labelAt[1])] as [number, number],
     })),
   };
 }

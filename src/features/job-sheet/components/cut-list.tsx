@@ -22,7 +22,8 @@ export function CutList({ space, ticks, onTick }: Props) {
         return (
           <section key={layer.key} aria-label={`Cut list, ${layer.label}`}>
             <h4 className="text-lg font-bold">
-              {layer.label}: {layer.productName} {layer.thicknessMm} mm
+              {layer.label}: {layer.productName}
+              {!layer.productName.includes(`${layer.thicknessMm} mm`) && ` ${layer.thicknessMm} mm`}
             </h4>
             <p className="mb-2 text-base text-graphite-light">
               {layer.strips.length} strips · {laidCount} laid · lay {layer.role === 'base' ? 'between the joists, along them' : 'across the joists'}
@@ -39,16 +40,16 @@ export function CutList({ space, ticks, onTick }: Props) {
                     )}
                     <ol className="flex flex-col divide-y divide-graphite/10">
                       {lane.cuts.map((cut) => (
-                        <li key={cut.id} className="flex flex-wrap items-center gap-2 py-2">
-                          <span className="min-w-[3ch] font-mono text-xl font-bold">{cut.stripLabel}</span>
-                          <span className="flex-1 font-mono text-lg">
-                            {mm(cut.lengthMm)}
-                            {cut.pieceCount > 1 && <span className="text-base text-graphite-light"> (piece {cut.piece} of {cut.pieceCount})</span>}
-                          </span>
-                          <span className="flex gap-2">
+                        <li key={cut.id} className="py-2">
+                          <div className="flex items-baseline gap-3">
+                            <span className="min-w-[3.5ch] font-mono text-xl font-bold">{cut.stripLabel}</span>
+                            <span className="whitespace-nowrap font-mono text-xl">{mm(cut.lengthMm)}</span>
+                            {cut.pieceCount > 1 && <span className="text-base text-graphite-light">piece {cut.piece} of {cut.pieceCount}</span>}
+                          </div>
+                          <div className="mt-1 flex gap-2">
                             <TickButton label="Cut" tick={ticks.get(tickKey('strip-cut', space.id, cut.id))} onToggle={(d) => onTick('strip-cut', cut.id, d)} testId={`cut-${cut.id}`} />
                             <TickButton label="Laid" tick={ticks.get(tickKey('strip-laid', space.id, cut.stripId))} onToggle={(d) => onTick('strip-laid', cut.stripId, d)} testId={`laid-${cut.stripId}`} />
-                          </span>
+                          </div>
                         </li>
                       ))}
                     </ol>

@@ -14,11 +14,6 @@ function bboxOf(pts: Pt[]): View {
   return { x, y, w: Math.max(...xs) - x || 1, h: Math.max(...ys) - y || 1 };
 }
 
-function centroid(pts: Pt[]): Pt {
-  const n = pts.length || 1;
-  return [pts.reduce((s, p) => s + p[0], 0) / n, pts.reduce((s, p) => s + p[1], 0) / n];
-}
-
 /** Joist centre lines across the plan's box: direction angleDeg, spaced centresMm, first at offsetMm (plan file, joists). */
 function joistLines(box: View, j: { angleDeg: number; centresMm: number; offsetMm: number }): [Pt, Pt][] {
   const a = (j.angleDeg * Math.PI) / 180;
@@ -144,7 +139,7 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
           {layer?.strips.map((s) => {
             const isLaid = laid.has(s.id);
             const fill = layer.role === 'base' ? (isLaid ? '#a57e16' : '#f3dc93') : isLaid ? '#135e5a' : '#9fd6d1';
-            return <polygon key={s.id} points={pointsAttr(s.polygon as Pt[])} fill={fill} stroke="#33363b" strokeWidth={size / 900} />;
+            return s.polygons.map((poly, i) => <polygon key={`${s.id}-${i}`} points={pointsAttr(poly as Pt[])} fill={fill} stroke="#33363b" strokeWidth={size / 900} />);
           })}
           {joistLines(home, plan.joists).map(([a, b], i) => (
             <line key={`j-${i}`} x1={a[0]} y1={a[1]} x2={b[0]} y2={b[1]} stroke="#8a5a2b" strokeOpacity={0.55} strokeWidth={Math.max(plan.joists.widthMm / 3, size / 1200)} />
@@ -159,7 +154,7 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
         </g>
         <polygon points={pointsAttr(plan.outline as Pt[])} fill="none" stroke="#33363b" strokeWidth={size / 250} strokeLinejoin="round" />
         {layer?.strips.map((s) => {
-          const c = centroid(s.polygon as Pt[]);
+          const c = s.labelAt as Pt;
           return (
             <text key={`n-${s.id}`} x={c[0]} y={c[1]} fontSize={Math.min(font, s.widthMm * 0.95)} textAnchor="middle" dominantBaseline="central" fontFamily="JetBrains Mono, monospace" fontWeight={700} fill={laid.has(s.id) ? '#ffffff' : '#1d1f22'}>
               {s.label}
@@ -169,7 +164,7 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
       </svg>
       <div className="mt-2 flex items-center gap-2">
         {layer && (
-          <span className="mr-auto flex items-center gap-2 text-base font-semibold" data-testid="lay-direction">
+          <span className="mr-auto flex items-center gap-2 whitespace-nowrap text-base font-semibold" data-testid="lay-direction">
             <svg viewBox="0 0 40 40" width="36" height="36" aria-hidden style={{ transform: `rotate(${layer.layDirectionDeg}deg)` }}>
               <path d="M4 20h28M24 11l10 9-10 9" fill="none" stroke="#1d1f22" strokeWidth="4" strokeLinecap="round" strokeLinejoin="round" />
             </svg>

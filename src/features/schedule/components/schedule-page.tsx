@@ -78,7 +78,7 @@ export default function SchedulePage() {
                         {job.areaM2 !== null && ` · ${job.areaM2.toFixed(1)} m²`}
                       </div>
                     </div>
-                    {canBook && <BookingForm job={job} installers={week.data.installers} defaultDate={week.data.days[0]} />}
+                    {canBook && <BookingForm job={job} installers={week.data.installers} defaultDate={week.data.days[0] < isoDay(new Date()) ? isoDay(new Date()) : week.data.days[0]} />}
                   </li>
                 ))}
               </ul>
