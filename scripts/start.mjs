@@ -11,6 +11,15 @@ import { buildClient } from './client-build.mjs';
 import { APP_DB, REPO_ROOT, databaseUrl, ensureDatabase, ensurePgRunning, psql, stopPg } from './pg.mjs';
 
 const dev = process.argv.includes('--dev');
+
+function pidAlive(pid) {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return e.code === 'EPERM';
+  }
+}
 const log = (m) => process.stderr.write(`[start] ${m}\n`);
 const bin = (name) => path.join(REPO_ROOT, 'node_modules', '.bin', name);
 
@@ -77,8 +86,10 @@ async function main() {
     if (pg?.startedHere) {
       try {
         // A test run that found the cluster running uses it too: leave it to that run.
-        const testRuns = Number(psql("SELECT count(*) FROM pg_database WHERE datname LIKE 'quiltline_test_%'", { cfg: pg.cfg }));
-        if (testRuns > 0) log('PostgreSQL left running: a test run is using it (node scripts/pg.mjs stop)');
+        const testRuns = psql("SELECT datname FROM pg_database WHERE datname LIKE 'quiltline_test_%'", { cfg: pg.cfg })
+          .split('\n')
+          .filter((name) => name && pidAlive(Number(name.split('_').pop())));
+        if (testRuns.length > 0) log('PostgreSQL left running: a test run is using it (node scripts/pg.mjs stop)');
         else stopPg(pg.cfg);
       } catch (e) {
         log(e.message);
