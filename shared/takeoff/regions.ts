@@ -1,9 +1,9 @@
 import type { ExclusionKind, Plan } from '../plan/plan-schema';
 import { EXCLUSION_KINDS } from '../plan/plan-schema';
 import { circlePolygon, polygonBuffer } from '../geometry/offset';
-import { differencePolygons } from '../geometry/boolean';
+import { differencePolygons, intersectPolygons } from '../geometry/boolean';
 import { clipRingByConvex } from '../geometry/clip-convex';
-import { multiPolygonArea, polygonArea, polygonSignedArea, ringWithPositiveArea, type MultiPolygon, type PolygonWithHoles } from '../geometry/polygon';
+import { multiPolygonArea, polygonArea, polygonBounds, polygonSignedArea, ringWithPositiveArea, type MultiPolygon, type PolygonWithHoles } from '../geometry/polygon';
 import type { Vec2 } from '../geometry/vector';
 import type { TakeoffSettings } from './settings';
 
@@ -18,8 +18,7 @@ export interface PlanRegions {
   exclusionClearancesMm: number[];
   /** Area of the union of all exclusion footprints inside the outline (overlaps counted once): gross − net. */
   excludedAreaMm2: number;
-  /** Outline minus `excluded`. */
-  net: MultiPolygon;
+  /** Outline minus the exclusions, mm². */
   netAreaMm2: number;
   /** One band per eaves edge: `eavesGapMm` wide on the inner side, clipped to the outline (exclusions not taken out). */
   eavesBands: { edgeIndex: number; polygon: Vec2[]; areaMm2: number; edgeLengthMm: number }[];
@@ -57,11 +56,6 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   const exclusionClearancesMm = plan.exclusions.map((e) => exclusionClearanceMm(e, settings));
   const exclusionShapes = plan.exclusions.map((e) => exclusionShape(e, settings));
   const allShapes = exclusionShapes.flat();
-  // One boolean call each for net and layer regions: polygon-clipping's cost is mostly per call.
-  const net = allShapes.length ? differencePolygons(outlinePoly, allShapes) : [[outline]];
-  const netAreaMm2 = allShapes.length ? multiPolygonArea(net) : grossAreaMm2;
-  const excludedAreaMm2 = grossAreaMm2 - netAreaMm2;
-
   // ringWithPositiveArea may have reversed the ring: map plan edge indices onto it.
   const reversed = polygonSignedArea(plan.outline) < 0;
   const eavesBands: (PlanRegions['eavesBands'][number] & { rect: Vec2[] })[] = [];
@@ -93,10 +87,25 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
     const band = clipRingByConvex(outline, rect);
     eavesBands.push({ edgeIndex, polygon: band, areaMm2: polygonArea(band), edgeLengthMm: len, rect });
   }
-  const bandPolys = eavesBands.filter((b) => b.rect.length).map((b) => [b.rect]);
-  const layerRegion = bandPolys.length ? differencePolygons(net, bandPolys) : net;
-  const layerAreaMm2 = bandPolys.length ? multiPolygonArea(layerRegion) : netAreaMm2;
-  return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excludedAreaMm2, net, netAreaMm2, eavesBands: eavesBands.map(({ rect: _rect, ...b }) => b), layerRegion, layerAreaMm2 };
+  const rects = eavesBands.filter((b) => b.rect.length).map((b) => [b.rect]);
+  // polygon-clipping's cost grows with every vertex it sweeps, and the outline and exclusions
+  // dominate: sweep them once. Layer region = outline − (exclusions ∪ bands). The net area adds
+  // back the bands' part of the loft that no exclusion covers, computed from the bands and only
+  // the exclusions whose bounds touch them.
+  const layerRegion = allShapes.length || rects.length ? differencePolygons(outlinePoly, [...allShapes, ...rects]) : [[outline]];
+  const layerAreaMm2 = allShapes.length || rects.length ? multiPolygonArea(layerRegion) : grossAreaMm2;
+  let netAreaMm2 = layerAreaMm2;
+  if (rects.length) {
+    const bandsInLoft = intersectPolygons(outlinePoly, rects);
+    const boxes = rects.map((r) => polygonBounds(r));
+    const near = allShapes.filter((sh) => {
+      const b = polygonBounds([sh[0]]);
+      return boxes.some((r) => b.minX <= r.maxX && b.maxX >= r.minX && b.minY <= r.maxY && b.maxY >= r.minY);
+    });
+    netAreaMm2 += multiPolygonArea(near.length ? differencePolygons(bandsInLoft, near) : bandsInLoft);
+  }
+  const excludedAreaMm2 = grossAreaMm2 - netAreaMm2;
+  return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excludedAreaMm2, netAreaMm2, eavesBands: eavesBands.map(({ rect: _rect, ...b }) => b), layerRegion, layerAreaMm2 };
 }
 
 /** How many exclusions of each kind a plan has (every kind present, zero when absent). */
