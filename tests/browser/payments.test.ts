@@ -2,6 +2,7 @@
 // (through the real SDK) → cancel and try again → pay → our success page once the signed webhook
 // has landed; then the office sees it on the job. Screenshots: test-output/screenshots/payments-*.png.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Customer } from '../../server/db/models/customer';
 import { Job } from '../../server/db/models/job';
 import { createFakePaymentService, type FakePaymentService } from '../../server/lib/payments/fake-service';
 import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
@@ -76,4 +77,47 @@ describe('customer pays the deposit', () => {
     await expect.poll(() => office.getByTestId('money-timeline').textContent(), { timeout: 10_000 }).toContain(`Deposit of £143.94 paid for quote ${quote.number}`);
     await screenshot(office, 'payments-5-office-job');
   });
+
+  it('the office invoices the installed job with a variation; the customer pays the balance from the private link', async () => {
+    const { job, customer } = await createJob(org, { stage: 'accepted', customerName: 'Basil Orrin' });
+    await Customer.update({ email: 'basil.orrin@example.com' }, { where: { id: customer.id } });
+    const { link } = await createAcceptedQuote(org.id, job.id, server.ctx.config.sessionSecret);
+    const customerPage = await browser.newPage();
+    await customerPage.goto(`${server.url}/pay/deposit/${link}`);
+    await customerPage.getByRole('button', { name: 'Pay deposit by card' }).click();
+    await customerPage.getByRole('button', { name: 'Pay £143.94' }).click();
+    await customerPage.waitForURL((u) => u.pathname.startsWith('/pay/done/'));
+    await Job.update({ stage: 'installed' }, { where: { id: job.id } });
+
+    const office = await browser.newPage();
+    await signInThroughUi(office, server.url, org.office.email, org.office.password);
+    await office.goto(`${server.url}/jobs/${job.id}`);
+    await office.getByRole('button', { name: 'Create invoice' }).click();
+    await office.getByRole('button', { name: 'Add a line' }).click();
+    await office.getByLabel('Line 1 description').fill('Extra walkway boards');
+    await office.getByLabel('Line 1 quantity').fill('2');
+    await office.getByLabel('Line 1 unit price').fill('12.99');
+    await office.getByLabel('Line 1 tax class').selectOption('standard');
+    await office.getByRole('button', { name: 'Create and e-mail invoice' }).click();
+    await office.waitForURL((u) => u.pathname.startsWith('/invoices/'));
+    // Hand-worked: £575.76 + 2 × £12.99 + 20 % VAT (£5.20) = £606.94; less £143.94 deposit = £463.00.
+    await expect.poll(() => office.getByTestId('summary-to-pay').textContent(), { timeout: 10_000 }).toBe('£463.00');
+    expect(await office.getByTestId('summary-total').textContent()).toBe('£606.94');
+    await screenshot(office, 'payments-6-office-invoice');
+
+    const mail = await server.ctx.outbox.waitFor((m) => m.to.includes('basil.orrin@example.com') && m.subject.startsWith('Invoice'));
+    const payUrl = /(http:\/\/127\.0\.0\.1:\d+\/pay\/invoice\/[A-Za-z0-9_-]+)/.exec(mail.text)![1];
+    await customerPage.goto(payUrl);
+    expect(await customerPage.getByTestId('balance').textContent()).toBe('£463.00');
+    await screenshot(customerPage, 'payments-7-invoice-pay-page');
+    await customerPage.getByRole('button', { name: 'Pay by card' }).click();
+    await customerPage.getByRole('button', { name: 'Pay £463.00' }).click();
+    await customerPage.waitForURL((u) => u.pathname.startsWith('/pay/done/'));
+    await expect.poll(() => customerPage.getByTestId('paid').textContent(), { timeout: 10_000 }).toContain('£463.00');
+    await screenshot(customerPage, 'payments-8-balance-paid');
+
+    await office.reload();
+    await expect.poll(() => office.getByTestId('summary-paid').count(), { timeout: 10_000 }).toBe(1);
+    await screenshot(office, 'payments-9-office-invoice-paid');
+  }, 90_000);
 });
