@@ -76,6 +76,7 @@ describe('foundation in a real browser', () => {
     expectNav(await navLinks(page), nav, not);
     await expect(page.getByTestId('signed-in-user').filter({ visible: true }).first().innerText()).resolves.toContain('Hearthfold Insulation');
     if (role !== 'installer') await page.getByRole('table', { name: 'Jobs' }).waitFor();
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(1280);
     await screenshot(page, `foundation-${role}-1280`);
     await signOut(page);
     await page.close();

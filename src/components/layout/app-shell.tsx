@@ -33,16 +33,16 @@ export function AppShell({ user }: { user: Me }) {
           <Link to="/" aria-label="Quiltline home" className="shrink-0">
             <Logo />
           </Link>
-          <nav aria-label="Main" className="hidden flex-1 md:block">
+          <nav aria-label="Main" className="hidden min-w-0 flex-1 overflow-x-auto [scrollbar-width:none] lg:block">
             <MainNav items={items} />
           </nav>
-          <div className="ml-auto hidden md:block">
+          <div className="ml-auto hidden shrink-0 lg:block">
             <UserMenu user={user} onSignOut={signOut} signingOut={logout.isPending} />
           </div>
           <Button
             variant="ghost"
             size="sm"
-            className="ml-auto md:hidden"
+            className="ml-auto lg:hidden"
             aria-expanded={menuOpen}
             aria-controls="phone-menu"
             onClick={() => setMenuOpen((o) => !o)}
@@ -58,7 +58,7 @@ export function AppShell({ user }: { user: Me }) {
           </Button>
         </div>
         {menuOpen && (
-          <div id="phone-menu" className="border-t border-paper-line bg-paper px-4 pb-4 pt-2 shadow-md md:hidden">
+          <div id="phone-menu" className="border-t border-paper-line bg-paper px-4 pb-4 pt-2 shadow-md lg:hidden">
             <nav aria-label="Main">
               <MainNav items={items} vertical onNavigate={() => setMenuOpen(false)} />
             </nav>
