@@ -7,6 +7,7 @@ import { asSentence } from '../../../lib/form-errors';
 import { useCreateInvoice } from '../api/create-invoice';
 import { usePaymentTimeline } from '../api/get-deposit';
 import { useInvoices } from '../api/get-invoices';
+import { usePaymentSettings } from '../api/payment-settings';
 import { InvoiceStatusBadge } from './invoice-status-badge';
 import { LineEditor, toLineInputs, type DraftLine } from './line-editor';
 
@@ -50,6 +51,7 @@ export function JobMoneyCard({ jobId, stage, canInvoice }: { jobId: string; stag
 
 function NewInvoiceForm({ jobId }: { jobId: string }) {
   const create = useCreateInvoice();
+  const currency = usePaymentSettings().data?.settings.currency ?? 'GBP';
   const navigate = useNavigate();
   const [open, setOpen] = useState(false);
   const [lines, setLines] = useState<DraftLine[]>([]);
@@ -64,7 +66,7 @@ function NewInvoiceForm({ jobId }: { jobId: string }) {
   }
   function submit(e: FormEvent) {
     e.preventDefault();
-    const parsed = toLineInputs(lines, 'GBP');
+    const parsed = toLineInputs(lines, currency);
     if ('error' in parsed) return setProblem(parsed.error);
     setProblem(null);
     create.mutate({ jobId, variations: parsed.lines, notes, send: true }, { onSuccess: (inv) => navigate(`/invoices/${inv.id}`) });

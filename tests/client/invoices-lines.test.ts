@@ -1,0 +1,26 @@
+// The invoice line editor's conversion from what the office typed to API lines (money in pence).
+import { describe, expect, it } from 'vitest';
+import { toLineInputs, type DraftLine } from '../../src/features/invoices/components/line-editor';
+import { invoiceLineInputSchema } from '../../shared/api/invoices';
+
+const line = (over: Partial<DraftLine>): DraftLine => ({ description: 'Extra walkway board', quantity: '2', price: '12.99', taxClass: 'standard', ...over });
+
+describe('invoice line editor', () => {
+  it('turns typed prices into integer pence the API accepts', () => {
+    const r = toLineInputs([line({}), line({ description: 'Hatch kit', quantity: '1.5', price: '£1,234.5', taxClass: 'energy_saving' })], 'GBP');
+    expect(r).toEqual({
+      lines: [
+        { description: 'Extra walkway board', quantity: 2, unit: 'each', unitPriceMinor: 1299, taxClass: 'standard' },
+        { description: 'Hatch kit', quantity: 1.5, unit: 'each', unitPriceMinor: 123450, taxClass: 'energy_saving' },
+      ],
+    });
+    for (const l of (r as { lines: unknown[] }).lines) expect(invoiceLineInputSchema.safeParse(l).success).toBe(true);
+  });
+
+  it('skips empty rows and names the row of the first problem', () => {
+    expect(toLineInputs([line({ description: '', price: '' })], 'GBP')).toEqual({ lines: [] });
+    expect(toLineInputs([line({}), line({ price: '12.999' })], 'GBP')).toEqual({ error: 'line 2: enter the price like 12.99' });
+    expect(toLineInputs([line({ quantity: '0' })], 'GBP')).toEqual({ error: 'line 1: the quantity must be above 0' });
+    expect(toLineInputs([line({ description: ' ' })], 'GBP')).toEqual({ error: 'line 1: describe the line' });
+  });
+});
