@@ -8,6 +8,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { buildClient } from './client-build.mjs';
 import { REPO_ROOT, ensureChromium, ensurePgInstalled } from './pg.mjs';
+import { summarise } from './test-summary.mjs';
 
 const log = (m) => process.stderr.write(`[test] ${m}\n`);
 const started = Date.now();
@@ -46,14 +47,7 @@ if (!fs.existsSync(reportFile)) {
   finish(0, 1, `vitest wrote no report (exit ${vitest.status ?? vitest.signal}); see its output above`);
 }
 const report = JSON.parse(fs.readFileSync(reportFile, 'utf8'));
-// A file that fails to load has no failed assertions but must still count as a failure.
-const brokenFiles = (report.testResults ?? []).filter(
-  (f) => f.status === 'failed' && !(f.assertionResults ?? []).some((a) => a.status === 'failed'),
-);
+const { passed, failed, brokenFiles, unexplainedExit } = summarise(report, vitest.status ?? 1);
 for (const f of brokenFiles) log(`file failed without a failing test: ${path.relative(REPO_ROOT, f.name)}: ${String(f.message).split('\n')[0]}`);
-let failed = (report.numFailedTests ?? 0) + brokenFiles.length;
-if (failed === 0 && vitest.status !== 0) {
-  failed = 1;
-  log(`vitest exited with ${vitest.status ?? vitest.signal} although no test failed (an unhandled error?)`);
-}
-finish(report.numPassedTests ?? 0, failed);
+if (unexplainedExit) log(`vitest exited with ${vitest.status ?? vitest.signal} although no test failed (an unhandled error?)`);
+finish(passed, failed);
