@@ -1,13 +1,13 @@
 // The installer's job sheet in headless chromium at 360 px: opened with signal, then used offline.
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { IdempotencyKey, JobNote, JobTick } from '../../server/db/models/installer-registry';
+import { IdempotencyKey, JobNote, JobPhoto, JobTick } from '../../server/db/models/installer-registry';
 import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
 import { createOrgWithUsers, type TestOrg } from '../helpers/test-app';
 import { Job } from '../../server/db/models';
 import { addDays, mondayOf } from '../../server/modules/schedule/schedule.service';
 import { createJob } from '../helpers/test-app';
-import { scheduledJobWithTakeoff } from '../server/job-sheet-fixtures';
+import { rotatedJpeg, scheduledJobWithTakeoff } from '../server/job-sheet-fixtures';
 
 /** Full-page shot from the top (sticky bars are drawn where the page is scrolled to). */
 async function shot(page: Page, name: string) {
@@ -38,7 +38,7 @@ afterAll(async () => {
 const waitingCount = (page: Page) => page.getByTestId('waiting-count').first().textContent();
 
 describe('job sheet on a phone', () => {
-  it('opens offline after one visit, queues two check ticks and a note, and sends each exactly once when back online', async () => {
+  it('opens offline after one visit, queues two check ticks, a note and a photo, sends each exactly once when back online, then finishes the job', async () => {
     const { job, space } = await scheduledJobWithTakeoff(org);
     const page = await browser.newPage();
     await signInThroughUi(page, server.url, org.installer.email, org.installer.password);
@@ -68,7 +68,11 @@ describe('job sheet on a phone', () => {
     await page.getByTestId('tick-ppe.dust').click();
     await page.getByLabel('Add a note').fill('Two downlights had no covers; fitted from the van.');
     await page.getByRole('button', { name: 'Save note' }).click();
-    await expect.poll(() => waitingCount(page)).toBe('3');
+    // An after photo from the camera, kept in IndexedDB until there is signal.
+    await page.locator('summary', { hasText: 'Photos' }).click();
+    await page.getByRole('radio', { name: 'After' }).click();
+    await page.locator(`#photo-${space.id}`).setInputFiles({ name: 'after.jpg', mimeType: 'image/jpeg', buffer: await rotatedJpeg() });
+    await expect.poll(() => waitingCount(page)).toBe('4');
     await expect.poll(() => page.getByTestId('tick-ppe.dust').getAttribute('aria-pressed')).toBe('true');
     await shot(page, 'job-sheet-offline-360');
     expect(await JobTick.count({ where: { jobId: job.id } })).toBe(0);
@@ -78,7 +82,7 @@ describe('job sheet on a phone', () => {
     const again = await browser.newPage();
     await again.goto(`${server.url}/jobs/${job.id}/sheet`);
     await again.getByRole('heading', { name: 'Main loft' }).waitFor();
-    await expect.poll(() => waitingCount(again)).toBe('3');
+    await expect.poll(() => waitingCount(again)).toBe('4');
     expect(await again.getByTestId('notes-list').textContent()).toContain('Two downlights had no covers');
 
     await browser.context.setOffline(false);
@@ -88,14 +92,28 @@ describe('job sheet on a phone', () => {
     expect(ticks.map((t) => `${t.kind} ${t.ref} ${t.done} ${t.spaceId === space.id}`).sort()).toEqual(['check downlight.covers true true', 'check ppe.dust true true']);
     const notes = await JobNote.findAll({ where: { jobId: job.id } });
     expect(notes.map((n) => n.text)).toEqual(['Two downlights had no covers; fitted from the van.']);
-    expect(await IdempotencyKey.count({ where: { userId: org.installer.id } })).toBe(3);
+    expect(await JobPhoto.count({ where: { jobId: job.id, stage: 'after' } })).toBe(1);
+    expect(await IdempotencyKey.count({ where: { userId: org.installer.id } })).toBe(4);
 
     await again.reload();
     await again.getByRole('heading', { name: 'Main loft' }).waitFor();
     await expect.poll(() => again.getByTestId(`checks-${space.id}`).locator('summary').textContent()).toMatch(/2\/\d+/);
     await shot(again, 'job-sheet-synced-360');
+
+    // Tick the remaining checks and mark the job installed from the phone.
+    const unticked = again.locator('[data-testid^="tick-"][aria-pressed="false"]');
+    for (let left = await unticked.count(); left > 0; left--) {
+      await unticked.first().click();
+      await expect.poll(() => unticked.count()).toBe(left - 1);
+    }
+    await expect.poll(() => waitingCount(again), { timeout: 20_000 }).toBe('0');
+    await again.locator('summary', { hasText: 'Finish the job' }).click();
+    await again.getByRole('button', { name: 'Mark installed' }).click();
+    await again.getByText(/Marked installed by/).waitFor({ timeout: 20_000 });
+    expect((await Job.findByPk(job.id))!.stage).toBe('installed');
+    await shot(again, 'job-sheet-installed-360');
     await again.close();
-  });
+  }, 120_000);
 
   it('shows the office the week with the booked job', async () => {
     const { job } = await scheduledJobWithTakeoff(org);
