@@ -43,7 +43,8 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
         });
       }
     }
-    for (const c of findRingSelfIntersections(outline, 10)) {
+    const crossings = findRingSelfIntersections(outline, 10);
+    for (const c of crossings) {
       errors.push({
         code: 'outline.self-intersection',
         message: `the outline crosses itself: edge ${c.edgeIndex} and edge ${c.otherEdgeIndex} meet at ${fmtPt(c.at)}`,
@@ -58,7 +59,8 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
     const area = polygonArea(outline);
     if (span > MAX_SPAN_MM) {
       errors.push({ code: 'outline.too-large', message: `the outline spans ${(span / 1000).toFixed(1)} m; lengths are in millimetres and a loft is under ${MAX_SPAN_MM / 1000} m`, path: 'outline' });
-    } else if (area < MIN_AREA_MM2 && zeroEdges === 0) {
+    } else if (area < MIN_AREA_MM2 && zeroEdges === 0 && crossings.length === 0) {
+      // A crossed outline's shoelace area means nothing: the crossing is the message then.
       errors.push({ code: 'outline.too-small', message: `the outline encloses ${(area / 1e6).toFixed(3)} m²; lengths are in millimetres and a loft is at least ${MIN_AREA_MM2 / 1e6} m²`, path: 'outline' });
     }
     outlineUsable = errors.length === 0;
