@@ -58,7 +58,9 @@ export function PlanStage({ editor, takeoff, issues }: Props) {
     <div
       ref={wrap}
       className="relative h-full w-full touch-none select-none overflow-hidden outline-none"
-      style={{ cursor: cursorFor(editor, session) }}
+      // Its own compositing layer, contained: redrawing the canvas then repaints only the canvas,
+      // not the takeoff panel's text beside it (which matters without GPU raster).
+      style={{ cursor: cursorFor(editor, session), willChange: 'transform', contain: 'strict' }}
       tabIndex={0}
       data-testid="plan-canvas"
       {...handlers}

@@ -21,6 +21,8 @@ export type EditorState = {
   redoStack: readonly HistoryEntry[];
   /** Increases on every plan change (including undo/redo); for autosave and dirty checks. */
   planVersion: number;
+  /** A gesture (drag) is previewing changes that are not in the history yet. */
+  inGesture: boolean;
 };
 
 export type EditorStore = ReturnType<typeof createEditorStore>;
@@ -34,6 +36,7 @@ export function createEditorStore(plan: Plan, session: Partial<Session> = {}) {
     undoStack: [],
     redoStack: [],
     planVersion: 0,
+    inGesture: false,
   };
   let gesture: { before: Plan; label: string } | null = null;
   const listeners = new Set<() => void>();
@@ -67,7 +70,7 @@ export function createEditorStore(plan: Plan, session: Partial<Session> = {}) {
     const session = state.session.error ? { ...state.session, error: null } : state.session;
     if (opts.history === 'gesture') {
       if (!gesture) gesture = { before: state.plan, label: command.label };
-      set({ ...state, plan: next, session, planVersion: state.planVersion + 1 });
+      set({ ...state, plan: next, session, planVersion: state.planVersion + 1, inGesture: true });
       return true;
     }
     if (next === state.plan) {
@@ -76,7 +79,7 @@ export function createEditorStore(plan: Plan, session: Partial<Session> = {}) {
     }
     if (opts.history === 'none') {
       gesture = null;
-      set({ ...state, plan: next, session, undoStack: [], redoStack: [], planVersion: state.planVersion + 1 });
+      set({ ...state, plan: next, session, undoStack: [], redoStack: [], planVersion: state.planVersion + 1, inGesture: false });
       return true;
     }
     if (gesture) endGesture();
@@ -100,11 +103,15 @@ export function createEditorStore(plan: Plan, session: Partial<Session> = {}) {
   function endGesture() {
     const g = gesture;
     gesture = null;
-    if (!g || g.before === state.plan) return;
+    if (!g || g.before === state.plan) {
+      if (state.inGesture) set({ ...state, inGesture: false });
+      return;
+    }
     set({
       ...state,
       undoStack: push(state.undoStack, { label: g.label, before: g.before, after: state.plan }),
       redoStack: [],
+      inGesture: false,
     });
   }
 
@@ -112,8 +119,11 @@ export function createEditorStore(plan: Plan, session: Partial<Session> = {}) {
   function cancelGesture() {
     const g = gesture;
     gesture = null;
-    if (!g || g.before === state.plan) return;
-    set({ ...state, plan: g.before, planVersion: state.planVersion + 1 });
+    if (!g || g.before === state.plan) {
+      if (state.inGesture) set({ ...state, inGesture: false });
+      return;
+    }
+    set({ ...state, plan: g.before, planVersion: state.planVersion + 1, inGesture: false });
   }
 
   function undo(): boolean {

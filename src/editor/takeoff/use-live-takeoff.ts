@@ -3,12 +3,17 @@ import type { Plan } from '../../../shared/plan/plan-schema';
 import type { TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
 import { runTakeoff, type TakeoffRun } from './run-takeoff';
 
+/** During a drag, plans whose takeoff takes longer than this wait for the drag to end. */
+const LIVE_DURING_DRAG_MS = 40;
+
 /**
  * The live takeoff of `plan`, computed in a Web Worker: at most one request in flight, and only
- * the newest plan is sent when it comes back, so a fast drag never queues stale work. Falls back
- * to computing in place where workers are missing (tests).
+ * the newest plan is sent when it comes back, so a fast drag never queues stale work. While a
+ * drag is in progress, a plan whose takeoff is slow (a very large loft) is recomputed when the
+ * drag ends instead, so the worker does not compete with drawing for the CPU. Falls back to
+ * computing in place where workers are missing (tests).
  */
-export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?: Partial<TakeoffSettings>): TakeoffRun | null {
+export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?: Partial<TakeoffSettings>, dragging = false): TakeoffRun | null {
   const [run, setRun] = useState<TakeoffRun | null>(null);
   const worker = useRef<Worker | null>(null);
   const busy = useRef(false);
@@ -48,12 +53,18 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
     worker.current.postMessage({ id, input });
   }
 
+  const lastElapsed = useRef(0);
   useEffect(() => {
+    if (run) lastElapsed.current = run.elapsedMs;
+  }, [run]);
+
+  useEffect(() => {
+    if (dragging && lastElapsed.current > LIVE_DURING_DRAG_MS) return;
     const input = { plan, products, settings };
     if (busy.current) pending.current = input;
     else send(input);
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [plan, products, settings]);
+  }, [plan, products, settings, dragging]);
 
   return run;
 }

@@ -35,7 +35,8 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
   const step = useEditorState(editor.store, (s) => s.session.step);
   const units = useEditorState(editor.store, (s) => s.session.units);
   const error = useEditorState(editor.store, (s) => s.session.error);
-  const run = useLiveTakeoff(plan, products, settings);
+  const dragging = useEditorState(editor.store, (s) => s.inGesture);
+  const run = useLiveTakeoff(plan, products, settings, dragging);
   useEditorKeys(editor);
   const drawn = useMemo(() => (run?.takeoff ? toDrawnTakeoff(run.takeoff) : null), [run]);
   const issues = useMemo(() => {
@@ -66,7 +67,7 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
             )}
           </div>
           <div className="w-80 shrink-0 max-md:w-64">
-            <TakeoffPanel run={run} units={units} />
+            <TakeoffPanel run={run} units={units} stale={dragging && run?.takeoff != null} />
           </div>
         </div>
         <div className="border-t border-graphite/15 bg-paper px-3 py-2">

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/compute-takeoff';
 import type { PlanMessage } from '../../../shared/plan/plan-messages';
 import { formatArea, formatLength } from '../geometry/units';
@@ -104,10 +105,10 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
   );
 }
 
-/** The live takeoff beside the plan. */
-export function TakeoffPanel({ run, units }: { run: TakeoffRun | null; units: Units }) {
+/** The live takeoff beside the plan; memoised so a drag that does not change it costs nothing here. */
+export const TakeoffPanel = memo(function TakeoffPanel({ run, units, stale }: { run: TakeoffRun | null; units: Units; stale?: boolean }) {
   return (
-    <aside className="flex h-full flex-col gap-3 overflow-y-auto border-l border-graphite/15 bg-paper/95 p-3" aria-label="Live takeoff" data-testid="takeoff-panel">
+    <aside className={`flex h-full flex-col gap-3 overflow-y-auto border-l border-graphite/15 bg-paper/95 p-3 transition-opacity ${stale ? 'opacity-60' : ''}`} aria-label="Live takeoff" data-testid="takeoff-panel">
       <h3 className="font-semibold">Takeoff</h3>
       {!run && <p className="text-sm text-graphite-light">Working…</p>}
       {run && !run.takeoff && run.errors.length === 0 && <p className="text-sm text-graphite-light">Draw or type the outline to see the takeoff.</p>}
@@ -116,4 +117,4 @@ export function TakeoffPanel({ run, units }: { run: TakeoffRun | null; units: Un
       {run && <Messages items={[...run.warnings, ...(run.takeoff?.warnings.filter((w) => !run.warnings.some((v) => v.code === w.code)) ?? [])]} tone="warning" />}
     </aside>
   );
-}
+});
