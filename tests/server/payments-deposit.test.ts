@@ -40,6 +40,7 @@ async function newAcceptedQuote() {
 async function startCheckout(link: string) {
   const res = await request(h.ctx.app).post(`/pay/deposit/${link}`);
   expect(res.status).toBe(303);
+  expect(res.headers['ratelimit-policy']).toBeDefined(); // each POST opens a checkout: rate-limited
   const url = new URL(res.headers.location);
   expect(url.origin).toBe(h.fakeUrl);
   const session = h.fake.sessions.get(url.pathname.split('/').pop()!)!;

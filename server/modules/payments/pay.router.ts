@@ -1,5 +1,6 @@
 import { linkSecret } from '../quotes/quote-send.service';
 import express, { Router, type Response } from 'express';
+import { rateLimit } from 'express-rate-limit';
 import type { AppDeps } from '../../deps';
 import { CompanySetting } from '../../db/models/company-setting';
 import { Invoice } from '../../db/models/invoice';
@@ -23,6 +24,9 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   const ctx = paymentsContext(deps);
   const r = Router();
   r.use(express.urlencoded({ extended: false, limit: '10kb' }));
+  // Each POST opens a checkout at the payment service: keep a stranger from opening thousands.
+  const startLimit = rateLimit({ windowMs: 15 * 60_000, limit: 60, standardHeaders: 'draft-8', legacyHeaders: false, message: 'Too many attempts: wait a few minutes.' });
+  r.post('/{*rest}', startLimit);
   r.use((_req, res, next) => {
     res.setHeader('Content-Security-Policy', payPageCsp(ctx.checkoutOrigins));
     res.setHeader('Cache-Control', 'no-store');
