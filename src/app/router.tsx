@@ -28,8 +28,9 @@ const OutboxPage = lazy(() => import('./routes/outbox'));
 const NotFoundPage = lazy(() => import('./routes/not-found'));
 
 // Placeholders for pages other engineers build: replace the import with the real page.
-const MyJobsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.MyJobsPlaceholder })));
-const JobSheetPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.JobSheetPlaceholder })));
+const MyJobsPage = lazy(() => import('../features/job-sheet/components/my-jobs-page')); // installer engineer
+const JobSheetPage = lazy(() => import('../features/job-sheet/components/job-sheet-page')); // installer engineer
+const SchedulePage = lazy(() => import('../features/schedule/components/schedule-page')); // installer engineer
 const SettingsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SettingsPlaceholder })));
 const SpaceEditorPage = lazy(() => import('../editor/page/space-editor-page')); // editor engineer: konva loads only here
 
@@ -52,6 +53,7 @@ const signedInRoutes: RouteObject[] = [
   // --- routes owned by other engineers (append below; lazy-load heavy pages) ---
   { path: 'my-jobs', element: page(MyJobsPage) }, // installer engineer
   { path: 'jobs/:id/sheet', element: page(JobSheetPage) }, // installer engineer
+  { path: 'schedule', element: page(SchedulePage) }, // installer engineer
   { path: 'settings', element: page(SettingsPage) }, // quotes engineer
   { path: 'invoices', element: page(InvoicesPage) }, // payments engineer
   { path: 'invoices/:id', element: page(InvoicePage) }, // payments engineer
