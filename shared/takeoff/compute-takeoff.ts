@@ -28,9 +28,10 @@ export interface TakeoffOptions {
   settings?: Partial<TakeoffSettings>;
 }
 
-const r1 = (x: number) => Math.round(x * 10) / 10;
-const r3 = (x: number) => Math.round(x * 1000) / 1000;
-const r4 = (x: number) => Math.round(x * 10000) / 10000;
+// `+ 0` turns -0 into 0, which JSON cannot tell apart anyway.
+const r1 = (x: number) => Math.round(x * 10) / 10 + 0;
+const r3 = (x: number) => Math.round(x * 1000) / 1000 + 0;
+const r4 = (x: number) => Math.round(x * 10000) / 10000 + 0;
 const pt = (p: readonly number[]): PlanPointMm => [r1(p[0]), r1(p[1])];
 const m2 = (mm2: number) => mm2 / 1e6;
 
@@ -226,7 +227,7 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
     lanesPerRoll: p.lanesPerRoll,
     coverageM2PerRoll: p.coverageM2PerRoll,
     bandWidthMm: r1(lb.bandWidthMm),
-    layDirection: [r4(dir[0]) + 0, r4(dir[1]) + 0],
+    layDirection: [r4(dir[0]), r4(dir[1])],
     strips,
     totalStripLengthMm: r1(raw.reduce((t, x) => t + x.lengthMm, 0)),
     coveredAreaM2: r3(m2(raw.reduce((t, x) => t + x.areaMm2, 0))),
