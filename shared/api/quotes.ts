@@ -70,6 +70,8 @@ export const quoteSchema = z.object({
   lines: z.array(quoteLineSchema),
   totals: quoteTotalsSchema,
   saving: quoteSavingSchema.nullable(),
+  /** The dated tax rates the quote was priced with (frozen with the quote), for live previews. */
+  taxRates: z.array(z.object({ taxClass: taxClassSchema, rateBp: z.number().int(), validFrom: z.string(), label: z.string().optional() })),
   personHours: z.number(),
   siteHours: z.number(),
   warnings: z.array(z.string()),

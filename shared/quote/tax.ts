@@ -25,7 +25,9 @@ export function taxRateOn(rates: readonly DatedTaxRate[], taxClass: TaxClass, da
 /**
  * UK VAT for loft insulation in homes, as a starting point for a UK company (HMRC VAT Notice 708/6):
  * installing energy-saving materials is zero-rated from 1 May 2023 to 31 March 2027, then 5%;
- * other items on the job are standard-rated at 20% (since 4 January 2011).
+ * other items on the job are standard-rated at 20% (since 4 January 2011). The 5% entry from
+ * 2019-10-01 stands for the reduced rate that applied (with conditions) before the zero rate: from
+ * memory, kept only so older quotes price sensibly; the standard rate's start date is from memory too.
  */
 export const UK_DEFAULT_TAX_RATES: readonly DatedTaxRate[] = [
   { taxClass: 'energy_saving', rateBp: 500, validFrom: '2019-10-01', label: 'Reduced rate, energy-saving materials' },

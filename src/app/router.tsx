@@ -31,7 +31,9 @@ const NotFoundPage = lazy(() => import('./routes/not-found'));
 const MyJobsPage = lazy(() => import('../features/job-sheet/components/my-jobs-page')); // installer engineer
 const JobSheetPage = lazy(() => import('../features/job-sheet/components/job-sheet-page')); // installer engineer
 const SchedulePage = lazy(() => import('../features/schedule/components/schedule-page')); // installer engineer
-const SettingsPage = lazy(() => import('./routes/placeholder').then((m) => ({ default: m.SettingsPlaceholder })));
+const SettingsPage = lazy(() => import('../features/settings/components/settings-page')); // quotes engineer
+const QuotePage = lazy(() => import('../features/quotes/components/quote-page')); // quotes engineer
+const PublicQuotePage = lazy(() => import('../features/quotes/components/public-quote-page')); // quotes engineer: the customer's private link
 const SpaceEditorPage = lazy(() => import('../editor/page/space-editor-page')); // editor engineer: konva loads only here
 
 // payments engineer: invoices, payment settings
@@ -55,6 +57,7 @@ const signedInRoutes: RouteObject[] = [
   { path: 'jobs/:id/sheet', element: page(JobSheetPage) }, // installer engineer
   { path: 'schedule', element: page(SchedulePage) }, // installer engineer
   { path: 'settings', element: page(SettingsPage) }, // quotes engineer
+  { path: 'jobs/:id/quotes/:quoteId', element: page(QuotePage) }, // quotes engineer
   { path: 'invoices', element: page(InvoicesPage) }, // payments engineer
   { path: 'invoices/:id', element: page(InvoicePage) }, // payments engineer
   { path: 'settings/payments', element: page(PaymentSettingsPage) }, // payments engineer
@@ -66,6 +69,7 @@ const publicRoutes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
   { path: '/set-password', element: page(SetPasswordPage) },
   { path: '/reset-password', element: page(ResetPasswordPage) },
+  { path: '/q/:token', element: page(PublicQuotePage) }, // quotes engineer: no sign-in
 ];
 
 export const routes: RouteObject[] = [

@@ -2,6 +2,7 @@
 // job whose one space holds an example plan (tank, hatch, downlights).
 import fs from 'node:fs';
 import path from 'node:path';
+import type request from 'supertest';
 import { planSchema, type Plan } from '../../shared/plan/plan-schema';
 import { Customer } from '../../server/db/models';
 import { TaxRate } from '../../server/db/models/tax-rate';
@@ -13,10 +14,11 @@ export function examplePlan(file = 'tank-hatch-downlights.json'): Plan {
 }
 
 /** Collects a binary response body (PDF, XLSX) with supertest. */
-export function binary(res: NodeJS.ReadableStream & { setEncoding?: (e: string) => void }, cb: (err: Error | null, body: Buffer) => void) {
+export function binary(res: request.Response, cb: (err: Error | null, body: Buffer) => void) {
+  const stream = res as unknown as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(Buffer.from(c)));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(Buffer.from(c)));
+  stream.on('end', () => cb(null, Buffer.concat(chunks)));
 }
 
 /**

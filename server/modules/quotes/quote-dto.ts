@@ -110,6 +110,7 @@ export function toQuoteDto(q: Quote, lines: QuoteLine[], versions: Array<{ id: s
       costMinor: totals.costMinor, marginMinor: totals.marginMinor, marginBp: totals.marginBp,
     },
     saving,
+    taxRates: snap.taxRates,
     personHours: snap.personHours,
     siteHours: snap.siteHours,
     warnings: snap.warnings,

@@ -8,6 +8,7 @@ import { JobSpaces } from '../../features/jobs/components/job-spaces';
 import { JobTimeline } from '../../features/jobs/components/job-timeline';
 import { StageControl } from '../../features/jobs/components/stage-control';
 import { JobMoneyCard } from '../../features/invoices/components/job-money-card'; // payments engineer
+import { JobQuotesCard } from '../../features/quotes/components/job-quotes-card'; // quotes engineer
 import { isApiError } from '../../lib/api-client';
 import NotFoundPage from './not-found';
 
@@ -56,6 +57,7 @@ export default function JobDetailPage() {
         <JobSpaces job={j} canEdit={can(user, 'plans:write')} />
         <JobTimeline jobId={j.id} />
       </div>
+      {can(user, 'quotes:draft') && <JobQuotesCard jobId={j.id} />}
       {can(user, 'prices:read') && <JobMoneyCard jobId={j.id} stage={j.stage} canInvoice={can(user, 'quotes:manage')} />}
     </div>
   );
