@@ -94,7 +94,7 @@ describe('deposit on acceptance', () => {
     expect(Date.now() - Date.parse(dep.paidAt)).toBeLessThan(60_000);
     const events = (await office.get(`/api/jobs/${job.id}/events`)).body.events.filter((e: { kind: string }) => e.kind === 'deposit_paid');
     expect(events).toHaveLength(1);
-    expect(events[0].data).toMatchObject({ amountMinor: DEPOSIT, currency: 'GBP', quoteNumber: quote.number, text: `Deposit of £143.94 paid for quote ${quote.number}` });
+    expect(events[0].data).toMatchObject({ amountMinor: DEPOSIT, currency: 'GBP', quoteNumber: quote.number, paymentText: `Deposit of £143.94 paid for quote ${quote.number}` });
     const timeline = (await office.get(`/api/payments/jobs/${job.id}/timeline`)).body.entries;
     expect(timeline).toEqual([expect.objectContaining({ kind: 'deposit-paid', amountMinor: DEPOSIT })]);
     const mail = await h.ctx.outbox.waitFor((m) => m.subject.startsWith('Deposit paid'));
@@ -105,6 +105,19 @@ describe('deposit on acceptance', () => {
     expect((await request(h.ctx.app).get(`/pay/deposit/${link}`)).text).toContain('Deposit received');
     expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toMatchObject({ state: 'paid', payUrl: null });
     expect(QUOTE_GROSS_MINOR * 0.25).toBe(DEPOSIT);
+  });
+
+  it('never shows the deposit amount to the installer of the job', async () => {
+    const { job } = await createJob(org, { stage: 'accepted', assignedInstallerId: org.installer.id });
+    const { link } = await createAcceptedQuote(org.id, job.id, h.ctx.config.sessionSecret);
+    await h.fake.pay((await startCheckout(link)).id);
+    const installer = await loginAs(h.ctx.app, org.installer);
+    const res = await installer.get(`/api/jobs/${job.id}/events`);
+    expect(res.status).toBe(200);
+    const paid = res.body.events.find((e: { kind: string }) => e.kind === 'deposit_paid');
+    expect(paid).toBeDefined();
+    expect(JSON.stringify(res.body)).not.toMatch(/143\.94|14394/);
+    expect((await installer.get(`/api/payments/jobs/${job.id}/timeline`)).status).toBe(403);
   });
 
   it('a replayed webhook changes nothing the second time', async () => {
@@ -184,6 +197,7 @@ describe('deposit on acceptance', () => {
     const { job: otherJob } = await createJob(other, { stage: 'accepted' });
     const theirs = await createAcceptedQuote(other.id, otherJob.id, h.ctx.config.sessionSecret);
     expect((await office.get(`/api/payments/deposits/${theirs.quote.id}`)).status).toBe(404);
+    expect((await office.get(`/api/payments/jobs/${otherJob.id}/timeline`)).status).toBe(404);
     // That company asks no deposit (no settings row): nothing is due and no checkout is opened.
     const count = h.fake.sessions.size;
     expect((await request(h.ctx.app).get(`/pay/deposit/${theirs.link}`)).text).toContain('No deposit needed');

@@ -180,7 +180,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
             { transaction: t },
           );
           await insertLines(created, rows, t);
-          await event(created, actor.id, 'invoice_issued', { invoiceId: created.id, invoiceNumber: created.number, amountMinor: created.totalMinor, currency: created.currency, text: `Invoice ${created.number} issued for ${formatMoney(created.totalMinor, created.currency)}` }, t);
+          await event(created, actor.id, 'invoice_issued', { invoiceId: created.id, invoiceNumber: created.number, amountMinor: created.totalMinor, currency: created.currency, paymentText: `Invoice ${created.number} issued for ${formatMoney(created.totalMinor, created.currency)}` }, t);
           return created;
         });
       } catch (e) {
@@ -279,7 +279,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           { transaction: t },
         );
         await insertLines(cn, rows, t);
-        await event(cn, actor.id, 'credit_note_issued', { invoiceId: inv.id, creditNoteId: cn.id, creditNoteNumber: cn.number, amountMinor: cn.totalMinor, currency: cn.currency, text: `Credit note ${cn.number} for ${formatMoney(cn.totalMinor, cn.currency)} against ${inv.number}` }, t);
+        await event(cn, actor.id, 'credit_note_issued', { invoiceId: inv.id, creditNoteId: cn.id, creditNoteNumber: cn.number, amountMinor: cn.totalMinor, currency: cn.currency, paymentText: `Credit note ${cn.number} for ${formatMoney(cn.totalMinor, cn.currency)} against ${inv.number}` }, t);
         return cn;
       });
       await Payment.update({ status: 'expired' }, { where: { invoiceId, status: 'open' } });
@@ -318,11 +318,11 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
         r = await ctx.gateway.refund(p.paymentIntentId, amount, { creditNote: cn.number, paymentId: p.id });
       } catch (e) {
         // The credit note stands; the office refunds by hand and sees why here.
-        await event(cn, actor.id, 'refund_failed', { paymentId: p.id, creditNoteNumber: cn.number, amountMinor: amount, currency: cn.currency, text: `Card refund of ${formatMoney(amount, cn.currency)} failed: ${e instanceof Error ? e.message : 'error'}` });
+        await event(cn, actor.id, 'refund_failed', { paymentId: p.id, creditNoteNumber: cn.number, amountMinor: amount, currency: cn.currency, paymentText: `Card refund of ${formatMoney(amount, cn.currency)} failed: ${e instanceof Error ? e.message : 'error'}` });
         continue;
       }
       left -= r.amountMinor;
-      await event(cn, actor.id, 'payment_refunded', { paymentId: p.id, refundId: r.id, creditNoteNumber: cn.number, amountMinor: r.amountMinor, currency: r.currency.toUpperCase(), text: `Refunded ${formatMoney(r.amountMinor, r.currency.toUpperCase())} to the card for ${cn.number}` });
+      await event(cn, actor.id, 'payment_refunded', { paymentId: p.id, refundId: r.id, creditNoteNumber: cn.number, amountMinor: r.amountMinor, currency: r.currency.toUpperCase(), paymentText: `Refunded ${formatMoney(r.amountMinor, r.currency.toUpperCase())} to the card for ${cn.number}` });
     }
   }
 

@@ -206,6 +206,7 @@ export function createPaymentsService(deps: AppDeps) {
 
     /** The money events of a job, oldest first. */
     async timeline(organisationId: string, jobId: string): Promise<PaymentTimelineEntry[]> {
+      if (!(await Job.findOne({ where: { id: jobId, organisationId }, attributes: ['id'] }))) throw new NotFoundError('job');
       const events = await JobEvent.findAll({
         where: { organisationId, jobId, kind: { [Op.in]: ['deposit_paid', 'invoice_issued', 'invoice_paid', 'credit_note_issued', 'payment_refunded'] } },
         order: [['createdAt', 'ASC']],
@@ -214,8 +215,9 @@ export function createPaymentsService(deps: AppDeps) {
         deposit_paid: 'deposit-paid', invoice_issued: 'invoice-issued', invoice_paid: 'invoice-paid', credit_note_issued: 'credit-note-issued', payment_refunded: 'refund',
       };
       return events.map((e) => {
-        const d = e.data as { amountMinor?: number; currency?: string; text?: string };
-        return { at: e.createdAt.toISOString(), kind: kindMap[e.kind], text: d.text ?? e.kind, amountMinor: d.amountMinor ?? 0, currency: d.currency ?? 'GBP' };
+        // `paymentText` (not `text`): price-like keys are stripped for installers (server/lib/redact.ts).
+        const d = e.data as { amountMinor?: number; currency?: string; paymentText?: string };
+        return { at: e.createdAt.toISOString(), kind: kindMap[e.kind], text: d.paymentText ?? e.kind, amountMinor: d.amountMinor ?? 0, currency: d.currency ?? 'GBP' };
       });
     },
   };
@@ -231,14 +233,14 @@ export function createPaymentsService(deps: AppDeps) {
       const others = await Payment.count({ where: { quoteId: p.quoteId, purpose: 'deposit', status: 'paid', id: { [Op.ne]: p.id } }, transaction: t });
       if (others > 0) {
         // Paid twice (two tabs): give the second one back at once.
-        await recordJobEvent(p, 'payment_refunded', { paymentId: p.id, amountMinor: p.amountMinor, currency: p.currency, text: `Second deposit payment of ${money} refunded` }, t);
+        await recordJobEvent(p, 'payment_refunded', { paymentId: p.id, amountMinor: p.amountMinor, currency: p.currency, paymentText: `Second deposit payment of ${money} refunded` }, t);
         after.push(async () => {
           if (ctx.gateway && p.paymentIntentId) await ctx.gateway.refund(p.paymentIntentId, p.amountMinor, { reason: 'duplicate deposit', paymentId: p.id });
         });
         return;
       }
       const text = `Deposit of ${money} paid for quote ${quote?.number ?? ''}`.trim();
-      await recordJobEvent(p, 'deposit_paid', { paymentId: p.id, quoteId: p.quoteId, quoteNumber: quote?.number ?? null, amountMinor: p.amountMinor, currency: p.currency, paidAt: paidAt.toISOString(), text }, t);
+      await recordJobEvent(p, 'deposit_paid', { paymentId: p.id, quoteId: p.quoteId, quoteNumber: quote?.number ?? null, amountMinor: p.amountMinor, currency: p.currency, paidAt: paidAt.toISOString(), paymentText: text }, t);
       const job = await Job.findByPk(p.jobId, { include: ['customer'], transaction: t });
       after.push(() =>
         mailOffice(deps.mailer, p.organisationId, `Deposit paid: ${money} for quote ${quote?.number ?? ''}`, `${job?.customer?.name ?? 'The customer'} paid a deposit of ${money} for quote ${quote?.number ?? ''} (job ${job?.reference ?? ''}) on ${paidAt.toUTCString()}.\n\nThe payment service's reference: ${p.paymentIntentId ?? p.checkoutSessionId}.`),
@@ -250,7 +252,7 @@ export function createPaymentsService(deps: AppDeps) {
       if (!inv) return;
       if (inv.status !== 'paid') await inv.update({ status: 'paid', paidAt }, { transaction: t });
       const text = `Invoice ${inv.number} paid: ${money}`;
-      await recordJobEvent(p, 'invoice_paid', { paymentId: p.id, invoiceId: inv.id, invoiceNumber: inv.number, amountMinor: p.amountMinor, currency: p.currency, paidAt: paidAt.toISOString(), text }, t);
+      await recordJobEvent(p, 'invoice_paid', { paymentId: p.id, invoiceId: inv.id, invoiceNumber: inv.number, amountMinor: p.amountMinor, currency: p.currency, paidAt: paidAt.toISOString(), paymentText: text }, t);
       after.push(() => mailOffice(deps.mailer, p.organisationId, `Invoice ${inv.number} paid: ${money}`, `${inv.customerName} paid the balance of invoice ${inv.number}, ${money}, on ${paidAt.toUTCString()}.`));
     }
   }

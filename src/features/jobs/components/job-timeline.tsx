@@ -20,7 +20,9 @@ export function describeEvent(e: JobEvent): string {
     case 'updated':
       return 'Details edited';
     default:
-      // Modules that add events may carry their own sentence (payments: amounts and numbers).
+      // Modules that add events may carry their own sentence (payments: `paymentText`, with amounts,
+      // which the server strips for installers like every price-like key).
+      if (typeof d.paymentText === 'string' && d.paymentText) return d.paymentText;
       if (typeof d.text === 'string' && d.text) return d.text;
       return e.kind.replace(/[_-]+/g, ' ').replace(/^./, (c) => c.toUpperCase());
   }
