@@ -28,6 +28,7 @@ export default function JobDetailPage() {
     <div className="flex flex-col gap-4">
       <PageHeader
         eyebrow={j.reference}
+        documentTitle={`${j.reference} ${j.customer.name}`}
         title={
           <span className="flex flex-wrap items-center gap-x-3 gap-y-1">
             {j.customer.name} <StageBadge stage={j.stage} />

@@ -21,6 +21,12 @@ export function AppShell({ user }: { user: Me }) {
   const items = navItemsFor(user, { outbox });
 
   useEffect(() => setMenuOpen(false), [location.pathname]);
+  useEffect(() => {
+    if (!menuOpen) return;
+    const onKey = (e: KeyboardEvent) => e.key === 'Escape' && setMenuOpen(false);
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [menuOpen]);
 
   function signOut() {
     logout.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) });

@@ -1,9 +1,11 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
+import { useDocumentTitle } from '../ui/use-document-title';
 import { Logo } from './logo';
 
 /** A single card on the notebook paper, for signing in and setting a password. */
 export function AuthLayout({ title, subtitle, children, footer }: { title: string; subtitle?: ReactNode; children: ReactNode; footer?: ReactNode }) {
+  useDocumentTitle(title);
   return (
     <div className="notebook-paper flex min-h-dvh flex-col items-center px-4 py-10 sm:justify-center">
       <Link to="/" className="mb-6" aria-label="Quiltline home">

@@ -1,7 +1,22 @@
 import type { ReactNode } from 'react';
+import { useDocumentTitle } from './use-document-title';
 
 /** The title of a page, an optional line beneath it and the page's main actions. */
-export function PageHeader({ title, subtitle, actions, eyebrow }: { title: ReactNode; subtitle?: ReactNode; actions?: ReactNode; eyebrow?: ReactNode }) {
+export function PageHeader({
+  title,
+  subtitle,
+  actions,
+  eyebrow,
+  documentTitle,
+}: {
+  title: ReactNode;
+  subtitle?: ReactNode;
+  actions?: ReactNode;
+  eyebrow?: ReactNode;
+  /** The tab title; defaults to `title` when that is plain text. */
+  documentTitle?: string;
+}) {
+  useDocumentTitle(documentTitle ?? (typeof title === 'string' ? title : undefined));
   return (
     <header className="mb-5 flex flex-col gap-3 sm:flex-row sm:items-end sm:justify-between">
       <div className="min-w-0">
