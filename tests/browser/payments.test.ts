@@ -40,12 +40,18 @@ afterAll(async () => {
 });
 
 describe('customer pays the deposit', () => {
-  it('cancels once, tries again, pays on the stand-in checkout and sees it confirmed; the office sees it on the job', async () => {
-    const { job } = await createJob(org, { stage: 'accepted', customerName: 'Ada Fenwick' });
-    const { quote, link } = await createAcceptedQuote(org.id, job.id, server.ctx.config.sessionSecret);
+  it('accepts the quote, cancels once, tries again, pays on the stand-in checkout and sees it confirmed; the office sees it on the job and the quote', async () => {
+    const { job } = await createJob(org, { stage: 'quoted', customerName: 'Ada Fenwick' });
+    const { quote, link } = await createAcceptedQuote(org.id, job.id, server.ctx.config.sessionSecret, { status: 'sent' });
     const page = await browser.newPage();
 
-    await page.goto(`${server.url}/pay/deposit/${link}`);
+    // The customer accepts on the quote's public page and is sent straight on to the deposit.
+    await page.goto(`${server.url}/q/${link}`);
+    await page.getByLabel(/Your full name/).fill('Ada Fenwick');
+    await page.getByLabel(/I have read the quote/).check();
+    await screenshot(page, 'payments-0-accepting');
+    await page.getByRole('button', { name: /Accept the quote/ }).click();
+    await page.waitForURL((u) => u.pathname.startsWith('/pay/deposit/'), { timeout: 15_000 });
     await expect.poll(() => page.getByTestId('deposit-amount').textContent()).toBe('£143.94');
     await screenshot(page, 'payments-1-deposit-page');
 
@@ -70,13 +76,15 @@ describe('customer pays the deposit', () => {
     expect(fake.deliveries.map((d) => [d.type, d.status])).toEqual([['checkout.session.completed', 200]]);
 
     // The office: the job's payments card shows the deposit with its amount and time.
-    await Job.update({ stage: 'accepted' }, { where: { id: job.id } });
     const office = await browser.newPage();
     await signInThroughUi(office, server.url, org.office.email, org.office.password);
     await office.goto(`${server.url}/jobs/${job.id}`);
     await expect.poll(() => office.getByTestId('money-timeline').textContent(), { timeout: 10_000 }).toContain(`Deposit of £143.94 paid for quote ${quote.number}`);
     await screenshot(office, 'payments-5-office-job');
-  });
+    await office.goto(`${server.url}/jobs/${job.id}/quotes/${quote.id}`);
+    await expect.poll(() => office.getByTestId('deposit-status').textContent(), { timeout: 10_000 }).toMatch(/^Deposit of £143\.94 paid /);
+    await screenshot(office, 'payments-5b-office-quote');
+  }, 90_000);
 
   it('the office invoices the installed job with a variation; the customer pays the balance from the private link', async () => {
     const { job, customer } = await createJob(org, { stage: 'accepted', customerName: 'Basil Orrin' });

@@ -6,6 +6,7 @@ import { formatRateBp } from '../../../../shared/quote/tax';
 import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { publicQuotePdfUrl, useAnswerQuote, usePublicQuote } from '../api/public-quote';
+import { DepositAfterAccept } from '../../invoices/components/deposit-after-accept'; // payments engineer
 
 /** What the customer sees through the private link: the quote, then accept (typed name + terms) or decline. */
 export default function PublicQuotePage() {
@@ -113,7 +114,13 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
   const [mode, setMode] = useState<'accept' | 'decline'>('accept');
   const [problem, setProblem] = useState<string | null>(null);
   if (q.status === 'accepted') {
-    return <Alert tone="success">Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${new Date(q.acceptedAt).toLocaleDateString(q.locale)}` : ''}. We will be in touch to agree the install date.</Alert>;
+    return (
+      <>
+        <Alert tone="success">Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${new Date(q.acceptedAt).toLocaleDateString(q.locale)}` : ''}. We will be in touch to agree the install date.</Alert>
+        {/* payments engineer: when a deposit is due, straight on to pay it after accepting; a button when coming back later */}
+        <DepositAfterAccept link={token} redirect={answer.isSuccess} />
+      </>
+    );
   }
   if (q.status === 'declined') return <Alert tone="info">You declined this quote. Thank you for letting us know.</Alert>;
   const error = answer.error ? (answer.error as Error).message : null;

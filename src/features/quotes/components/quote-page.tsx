@@ -12,6 +12,7 @@ import { parseDraft, toDraft, type DraftLine } from './draft-lines';
 import { QuoteLinesEditor } from './quote-lines-editor';
 import { QuoteStatusBadge } from './quote-status-badge';
 import { QuoteTotalsPanel } from './quote-totals-panel';
+import { DepositStatus } from '../../invoices/components/deposit-status'; // payments engineer
 
 /** The quote builder: lines, totals, tax by rate, margin, valid-until, saving; save, send, download. */
 export default function QuotePage() {
@@ -110,6 +111,7 @@ export default function QuotePage() {
           </ul>
         </Alert>
       )}
+      {(q.status === 'sent' || q.status === 'accepted') && <DepositStatus quoteId={q.id} />}
       {q.status === 'accepted' && (
         <Alert tone="success">
           Accepted by {q.acceptedName} on {q.acceptedAt ? formatDateTime(q.acceptedAt) : ''}.

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { EXTRA_KINDS, EXTRA_KIND_LABELS, TAX_CLASS_LABELS, extraBodySchema, productBodySchema, taxRateBodySchema } from '../../../../shared/api/settings';
-import { ErrorState, LoadingState, PageHeader } from '../../../components/ui';
+import { ButtonLink, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
 import { useCompanySettings } from '../api/company-settings';
 import { CatalogueTable, type ColumnDef } from './catalogue-table';
 import { CompanySettingsForm } from './company-settings-form';
@@ -59,7 +59,7 @@ export default function SettingsPage() {
   const s = settings.data;
   return (
     <div className="flex flex-col gap-4">
-      <PageHeader title="Settings" subtitle="What quotes are built from and what they print." />
+      <PageHeader title="Settings" subtitle="What quotes are built from and what they print." actions={<ButtonLink to="/settings/payments">Deposits and payment terms</ButtonLink>} />
       <div role="tablist" className="flex flex-wrap gap-1 border-b border-paper-line">
         {TABS.map(([key, label]) => (
           <button key={key} role="tab" type="button" aria-selected={tab === key} onClick={() => setTab(key)}
