@@ -1,5 +1,7 @@
 // The installer's job sheet as a PDF (plan with numbered strips, cut list by roll, van load, checks;
 // no prices) and e-mailing it to the assigned installer.
+import fs from 'node:fs';
+import path from 'node:path';
 import { simpleParser } from 'mailparser';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -38,6 +40,8 @@ describe('job sheet PDF', () => {
     const installer = await loginAs(ctx.app, org.installer);
     const res = await installer.get(`/api/jobs/${job.id}/sheet.pdf`).buffer(true).parse(binary);
     expect(res.status).toBe(200);
+    fs.mkdirSync(path.join(process.cwd(), 'test-output', 'pdf'), { recursive: true });
+    fs.writeFileSync(path.join(process.cwd(), 'test-output', 'pdf', 'job-sheet.pdf'), res.body);
     const text = await pdfText(res.body);
     const sheet = (await installer.get(`/api/jobs/${job.id}/job-sheet`)).body;
     const s = sheet.sheet ?? sheet;

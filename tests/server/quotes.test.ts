@@ -1,4 +1,6 @@
 // Quotes API: building a draft from a job's takeoffs, editing, versions, roles and exports.
+import fs from 'node:fs';
+import path from 'node:path';
 import ExcelJS from 'exceljs';
 import { PDFParse } from 'pdf-parse';
 import request from 'supertest';
@@ -158,6 +160,9 @@ describe('exports', () => {
     const res = await office.get(`/api/quotes/${q.id}/pdf`).buffer(true).parse(binary);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/application\/pdf/);
+    // Kept for a person to look at (pdftoppm -png test-output/pdf/quote.pdf).
+    fs.mkdirSync(path.join(process.cwd(), 'test-output', 'pdf'), { recursive: true });
+    fs.writeFileSync(path.join(process.cwd(), 'test-output', 'pdf', 'quote.pdf'), res.body);
     const text = (await new PDFParse({ data: new Uint8Array(res.body) }).getText()).text;
     const money = (m: number) => new Intl.NumberFormat('en-GB', { style: 'currency', currency: 'GBP' }).format(m / 100);
     expect(text).toContain('Oswin Treharne');

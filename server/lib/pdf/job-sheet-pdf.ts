@@ -57,7 +57,7 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
       continue;
     }
     if (space.plan) {
-      const strips: StripForDrawing[] = space.layers.flatMap((l) => l.strips.map((s) => ({ corners: s.polygon as Array<[number, number]>, label: s.label, role: l.role })));
+      const strips: StripForDrawing[] = space.layers.flatMap((l) => l.strips.map((s) => ({ parts: s.polygons as Array<Array<[number, number]>>, labelAt: s.labelAt as [number, number], label: s.label, role: l.role })));
       const boxY = doc.y + 6;
       const box = { x: left, y: boxY, width, height: 300 };
       doc.rect(box.x, box.y, box.width, box.height).lineWidth(0.5).strokeColor(INK.paperLine).stroke();

@@ -11,10 +11,11 @@ export interface PlanForDrawing {
   exclusions?: Array<{ kind: string; polygon?: Pt[]; at?: Pt }>;
 }
 
-/** A strip to draw on a job sheet: its corners in plan mm, its number and layer role. */
+/** A strip to draw on a job sheet: its parts' outlines in plan mm, its number, where to print it, its layer role. */
 export interface StripForDrawing {
-  corners: Pt[];
+  parts: Pt[][];
   label: string;
+  labelAt?: Pt;
   role: 'base' | 'cross';
 }
 
@@ -62,8 +63,11 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   pathOf(doc, outline);
   doc.clip();
   for (const s of opts.strips ?? []) {
-    pathOf(doc, s.corners.map(map));
-    doc.fillOpacity(s.role === 'base' ? 0.55 : 0.35).fillAndStroke(s.role === 'base' ? INK.straw : INK.teal, INK.graphiteLight);
+    for (const part of s.parts) {
+      if (part.length < 3) continue;
+      pathOf(doc, part.map(map));
+      doc.fillOpacity(s.role === 'base' ? 0.55 : 0.35).lineWidth(0.3).fillAndStroke(s.role === 'base' ? INK.straw : INK.teal, INK.graphiteLight);
+    }
   }
   doc.fillOpacity(1);
   const j = plan.joists;
@@ -92,10 +96,10 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   if (opts.strips?.length) {
     doc.fontSize(5.5).fillColor(INK.graphite);
     for (const s of opts.strips) {
-      const c = s.corners.map(map);
-      const cx = c.reduce((a, p) => a + p[0], 0) / c.length;
-      const cy = c.reduce((a, p) => a + p[1], 0) / c.length;
-      doc.text(s.label, cx - 10, cy - 3, { width: 20, align: 'center', lineBreak: false });
+      const first = s.parts[0] ?? [];
+      if (!s.labelAt && first.length === 0) continue;
+      const [cx, cy] = s.labelAt ? map(s.labelAt) : map([first.reduce((a, p) => a + p[0], 0) / first.length, first.reduce((a, p) => a + p[1], 0) / first.length]);
+      doc.text(s.label, cx - 12, cy - 3, { width: 24, align: 'center', lineBreak: false });
     }
   }
 
