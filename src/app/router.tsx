@@ -27,7 +27,7 @@ const UsersPage = lazy(() => import('./routes/users'));
 const OutboxPage = lazy(() => import('./routes/outbox'));
 const NotFoundPage = lazy(() => import('./routes/not-found'));
 
-// Placeholders for pages other engineers build: replace the import with the real page.
+// Pages other engineers own (installer, quotes, editor, payments); each is its own lazy chunk.
 const MyJobsPage = lazy(() => import('../features/job-sheet/components/my-jobs-page')); // installer engineer
 const JobSheetPage = lazy(() => import('../features/job-sheet/components/job-sheet-page')); // installer engineer
 const SchedulePage = lazy(() => import('../features/schedule/components/schedule-page')); // installer engineer

@@ -1,9 +1,13 @@
 // Signs in through the real UI as each demo role, on a desktop and a 360 px phone, and checks the
 // navigation each role gets (PRODUCT.md, People; shared/auth/policies.ts). Screenshots are kept in
 // test-output/screenshots/ for a person to look at.
+import fs from 'node:fs';
+import path from 'node:path';
+import { gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '../../shared/auth/roles';
+import { REPO_ROOT } from '../../server/config';
 import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
 import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
 
@@ -114,6 +118,16 @@ describe('foundation in a real browser', () => {
     await page.getByRole('heading', { name: 'Outbox' }).waitFor();
     await screenshot(page, 'foundation-office-outbox-1280');
     await page.close();
+  });
+
+  it("keeps the plan editor's canvas library out of the first download", async () => {
+    const html = fs.readFileSync(path.join(REPO_ROOT, 'dist', 'index.html'), 'utf8');
+    const entry = html.match(/<script type="module"[^>]*src="\/([^"]+)"/)?.[1];
+    expect(entry).toBeTruthy();
+    const code = fs.readFileSync(path.join(REPO_ROOT, 'dist', entry!));
+    expect(code.toString('utf8')).not.toMatch(/Konva/);
+    // The number is for the report, not a pass mark.
+    console.log(`[client] entry chunk ${entry}: ${(code.length / 1000).toFixed(1)} kB, ${(gzipSync(code).length / 1000).toFixed(1)} kB gzip`);
   });
 
   it('keeps an installer out of the office pages', async () => {
