@@ -52,11 +52,17 @@ export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
 export function drawLayArrows(d: DrawContext, t: DrawnTakeoff) {
   const { ctx } = d;
   if (!t.layers.length) return;
+  ctx.font = `600 11px ${MONO}`;
+  const labels = t.layers.map((layer, i) => {
+    const n = t.layers.filter((l, k) => k < i && l.role === layer.role).length + 1;
+    return layer.role === 'base' ? 'base: lay this way' : `cross ${n}: lay this way`;
+  });
+  const w = 60 + Math.max(...labels.map((l) => ctx.measureText(l).width));
   ctx.fillStyle = 'rgba(250,247,240,0.92)';
   ctx.strokeStyle = PALETTE.paperLineStrong;
   ctx.lineWidth = 1;
-  ctx.fillRect(8, 8, 150, 12 + t.layers.length * 30);
-  ctx.strokeRect(8.5, 8.5, 150, 12 + t.layers.length * 30);
+  ctx.fillRect(8, 8, w, 12 + t.layers.length * 30);
+  ctx.strokeRect(8.5, 8.5, w, 12 + t.layers.length * 30);
   t.layers.forEach((layer, i) => {
     const x = 30, y = 29 + i * 30;
     const a = (layer.layAngleDeg * Math.PI) / 180;
@@ -76,7 +82,6 @@ export function drawLayArrows(d: DrawContext, t: DrawnTakeoff) {
     ctx.fillStyle = colour;
     ctx.textAlign = 'left';
     ctx.textBaseline = 'middle';
-    const n = t.layers.filter((l, k) => k < i && l.role === layer.role).length + 1;
-    ctx.fillText(layer.role === 'base' ? 'base: lay this way' : `cross ${n}: lay this way`, x + 20, y);
+    ctx.fillText(labels[i], x + 20, y);
   });
 }

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import type { Plan } from '../../../shared/plan/plan-schema';
 import type { TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
-import { runTakeoff, type TakeoffRun } from './run-takeoff';
+import type { TakeoffRun } from './run-takeoff';
 
 /** During a drag, plans whose takeoff takes longer than this wait for the drag to end. */
 const LIVE_DURING_DRAG_MS = 40;
@@ -46,7 +46,10 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
   function send(input: { plan: Plan; products: TakeoffProduct[]; settings?: Partial<TakeoffSettings> }) {
     const id = ++seq.current;
     if (!worker.current) {
-      setRun(runTakeoff(input));
+      // Loaded only here, so the editor chunk does not carry a second copy of the engine.
+      void import('./run-takeoff').then(({ runTakeoff }) => {
+        if (id === seq.current) setRun(runTakeoff(input));
+      });
       return;
     }
     busy.current = true;

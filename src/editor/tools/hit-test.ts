@@ -35,10 +35,16 @@ export function edgeMidpoint(plan: Plan, i: number): [number, number] {
   return [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
 }
 
-export function hitEdgeMidpoint(plan: Plan, p: WorldPt, tolMm: number): number {
+/**
+ * The edge whose midpoint handle is within `tolMm` of `p`; edges shorter than `minLengthMm` have
+ * no handle (they would crowd their own corners).
+ */
+export function hitEdgeMidpoint(plan: Plan, p: WorldPt, tolMm: number, minLengthMm = 0): number {
   const n = plan.outline.length;
   if (n < 3) return -1;
   for (let i = 0; i < n; i++) {
+    const a = plan.outline[i], b = plan.outline[(i + 1) % n];
+    if (Math.hypot(b[0] - a[0], b[1] - a[1]) < minLengthMm) continue;
     const [x, y] = edgeMidpoint(plan, i);
     if (Math.hypot(p.x - x, p.y - y) <= tolMm) return i;
   }

@@ -3,7 +3,7 @@ import { pxToMm, type ScreenPt } from '../geometry/coords';
 import { edgeMidpoint, hitCorner, hitEdge, hitEdgeMidpoint } from './hit-test';
 import { createPanner } from './pan';
 import { snapPoint } from './snap';
-import { DRAG_THRESHOLD_PX, HIT_PX, type Tool, type ToolContext, type ToolPointer } from './tool';
+import { DRAG_THRESHOLD_PX, HIT_PX, MIN_EDGE_PX_FOR_MIDPOINT, type Tool, type ToolContext, type ToolPointer } from './tool';
 
 type State =
   | { name: 'idle' }
@@ -50,7 +50,7 @@ export function createOutlineTool(): Tool {
         ctx.store.setSession({ selection: { kind: 'corner', index: corner } });
         return;
       }
-      const mid = hitEdgeMidpoint(plan, e.world, tol);
+      const mid = hitEdgeMidpoint(plan, e.world, tol, pxToMm(ctx.camera(), MIN_EDGE_PX_FOR_MIDPOINT));
       if (mid >= 0) {
         ctx.store.beginGesture(`insert corner on edge ${mid + 1}`);
         ctx.store.dispatch(cmd('insert corner', insertCorner, { edge: mid, at: edgeMidpoint(plan, mid) }), { history: 'gesture' });

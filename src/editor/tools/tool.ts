@@ -37,3 +37,5 @@ export const DRAG_THRESHOLD_PX = 4;
 export const HIT_PX = 10;
 /** Grid the pointer snaps to by default, mm. */
 export const SNAP_GRID_MM = 100;
+/** Edges shorter than this on screen get no "insert corner" midpoint handle. */
+export const MIN_EDGE_PX_FOR_MIDPOINT = 30;

@@ -4,7 +4,7 @@ import { cmd, setExisting, setProducts, setTarget } from '../commands';
 import { useEditor, useEditorSelect } from './editor-context';
 import { NumberField } from './number-field';
 
-const selectClass = 'h-8 rounded border border-graphite/25 bg-white px-1 text-sm text-graphite';
+const selectClass = 'h-8 max-w-[15rem] rounded border border-graphite/25 bg-white px-1 text-sm text-graphite';
 
 /** Layers step: the existing insulation, the target (depth or U-value) and the product choices. */
 export function LayersTools({ products }: { products: TakeoffProduct[] }) {
