@@ -1,0 +1,98 @@
+// @vitest-environment happy-dom
+import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { Job } from '../../shared/api/jobs';
+import JobDetailPage from '../../src/app/routes/job-detail';
+import { demoUser, fakeApi, renderPage } from './render';
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+const JOB_ID = '44444444-4444-4444-8444-444444444444';
+const baseJob: Job = {
+  id: JOB_ID,
+  reference: 'Q-2026-0006',
+  customer: { id: 'c1', name: 'Samuel Okonjo', email: 'sam.okonjo@example.com', phone: '01632 960106' },
+  propertyAddress: { line1: '2 Heron Court', line2: '', town: 'Kelsworth', postcode: 'KW3 6NP' },
+  stage: 'accepted',
+  assignedInstaller: { id: 'i1', name: 'Ian Calder' },
+  installDate: '2027-01-18',
+  accessNotes: 'Key with the neighbour at no. 4.',
+  notes: '',
+  spaces: [{ id: 's1', name: 'Main loft', latestRevision: 3, updatedAt: '2026-11-20T10:00:00Z' }],
+  createdAt: '2026-11-01T10:00:00Z',
+  updatedAt: '2026-11-20T10:00:00Z',
+};
+
+function jobApi() {
+  let job = structuredClone(baseJob);
+  const calls = fakeApi(({ method, url, body }) => {
+    if (url.pathname === `/api/jobs/${JOB_ID}` && method === 'GET') return { body: { job } };
+    if (url.pathname === `/api/jobs/${JOB_ID}` && method === 'PATCH') {
+      job = { ...job, ...(body as Partial<Job>) };
+      return { body: { job } };
+    }
+    if (url.pathname === `/api/jobs/${JOB_ID}/events`) return { body: { events: [] } };
+    if (url.pathname === `/api/jobs/${JOB_ID}/spaces` && method === 'POST') {
+      const space = { id: 's2', name: (body as { name: string }).name, latestRevision: null, updatedAt: '2026-12-01T10:00:00Z' };
+      job = { ...job, spaces: [...job.spaces, space] };
+      return { status: 201, body: { space } };
+    }
+    return undefined;
+  });
+  return calls;
+}
+
+const render = (role: 'office' | 'estimator' | 'installer') =>
+  renderPage(<JobDetailPage />, { user: demoUser(role), path: `/jobs/${JOB_ID}`, routePath: '/jobs/:id' });
+
+describe('job detail', () => {
+  it('shows the customer, property, installer, install date and spaces with a link to each plan', async () => {
+    jobApi();
+    render('office');
+    await screen.findByRole('heading', { name: /Samuel Okonjo/ });
+    expect(screen.getByText('2 Heron Court, Kelsworth KW3 6NP')).toBeTruthy();
+    expect(screen.getByText('Ian Calder')).toBeTruthy();
+    expect(screen.getByText('18 Jan 2027')).toBeTruthy();
+    expect(screen.getByRole('link', { name: /Open plan/ }).getAttribute('href')).toBe('/spaces/s1/edit');
+  });
+
+  it('moves the job to another stage with a PATCH of the stage alone', async () => {
+    const calls = jobApi();
+    render('estimator');
+    fireEvent.change(await screen.findByLabelText('Move to'), { target: { value: 'scheduled' } });
+    await waitFor(() => expect(calls.some((c) => c.method === 'PATCH')).toBe(true));
+    expect(calls.find((c) => c.method === 'PATCH')!.body).toEqual({ stage: 'scheduled' });
+    await waitFor(() => expect(screen.getByRole('heading', { name: /Samuel Okonjo/ }).textContent).toContain('Scheduled'));
+  });
+
+  it('asks for a name before adding a space, then lists the new space', async () => {
+    const calls = jobApi();
+    render('estimator');
+    fireEvent.click(await screen.findByRole('button', { name: 'Add space' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Add' }));
+    expect(screen.getByText('name the space')).toBeTruthy();
+    expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
+    fireEvent.change(screen.getByLabelText('Name of the space'), { target: { value: 'Garage loft' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Add' }));
+    expect(await screen.findByText('Garage loft')).toBeTruthy();
+    expect(screen.getByRole('link', { name: /Draw plan/ }).getAttribute('href')).toBe('/spaces/s2/edit');
+  });
+
+  it('gives an installer no edit, stage or add-space controls', async () => {
+    jobApi();
+    render('installer');
+    await screen.findByRole('heading', { name: /Samuel Okonjo/ });
+    expect(screen.queryByRole('link', { name: 'Edit job' })).toBeNull();
+    expect(screen.queryByLabelText('Move to')).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Add space' })).toBeNull();
+  });
+
+  it('shows the not-found page for a job of another company', async () => {
+    fakeApi(() => undefined);
+    render('office');
+    expect(await screen.findByText('Nothing on this page of the notebook')).toBeTruthy();
+  });
+});
