@@ -104,7 +104,7 @@ describe('job sheet on a phone', () => {
     const unticked = again.locator('[data-testid^="tick-"][aria-pressed="false"]');
     for (let left = await unticked.count(); left > 0; left--) {
       await unticked.first().click();
-      await expect.poll(() => unticked.count()).toBe(left - 1);
+      await expect.poll(() => unticked.count(), { timeout: 15_000 }).toBe(left - 1);
     }
     await expect.poll(() => waitingCount(again), { timeout: 20_000 }).toBe('0');
     await again.locator('summary', { hasText: 'Finish the job' }).click();

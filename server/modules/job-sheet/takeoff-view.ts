@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import type { SheetCheck, SheetCut, SheetLayer, SheetRoll, SheetSpace, VanLoad } from '../../../shared/api/job-sheet';
+import type { SheetCheck, SheetCut, SheetLayer, SheetRoll, SheetSpace, SheetStrip, VanLoad } from '../../../shared/api/job-sheet';
 import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/takeoff-types';
 import { Job } from '../../db/models';
@@ -71,16 +71,23 @@ function sheetLayer(l: TakeoffLayer): SheetLayer {
     thicknessMm: Number(l.thicknessMm),
     areaM2: Number(l.areaM2),
     layDirectionDeg: (Math.atan2(l.layDirection[1], l.layDirection[0]) * 180) / Math.PI,
-    strips: l.strips.map((s) => ({
-      id: `${key}:${s.number}`,
-      number: s.number,
-      label: String(s.label),
-      layerKey: key,
-      lengthMm: Number(s.lengthMm),
-      widthMm: Number(s.widthMm),
-      polygons: stripPolygons(s).map((poly) => poly.map((p) => [Number(p[0]), Number(p[1])] as [number, number])),
-      labelAt: [Number(s.labelAt[0]), Number(s.labelAt[1])] as [number, number],
-    })),
+    strips: l.strips.map((s) => sheetStrip(key, s)),
+  };
+}
+
+
+function sheetStrip(key: string, s: TakeoffLayer['strips'][number]): SheetStrip {
+  const polygons = stripPolygons(s).map((poly) => poly.map((p) => [Number(p[0]), Number(p[1])] as [number, number]));
+  return {
+    id: `${key}:${s.number}`,
+    number: s.number,
+    label: String(s.label),
+    layerKey: key,
+    lengthMm: Number(s.lengthMm),
+    widthMm: Number(s.widthMm),
+    polygon: polygons[0] ?? [],
+    polygons,
+    labelAt: [Number(s.labelAt[0]), Number(s.labelAt[1])] as [number, number],
   };
 }
 

@@ -8,6 +8,7 @@ import { sheetKeys, sheetUrl } from '../api/keys';
 import { recordNote, recordPhoto, recordTick } from '../api/record';
 import { mergePending } from '../merge-pending';
 import { onSent, startOutbox, useOutbox } from '../offline/outbox';
+import type { OutboxItem } from '../offline/outbox-db';
 import { keepForOffline } from '../offline/register-sw';
 import { FinishPanel } from './finish-panel';
 import { NotesPanel } from './notes-panel';
@@ -27,11 +28,15 @@ export default function JobSheetPage() {
   const outbox = useOutbox();
   const qc = useQueryClient();
   const [offlineReady, setOfflineReady] = useState<'no' | 'saving' | 'yes'>('no');
+  // Sent changes stay drawn until the sheet has been fetched again, so a tick does not blink off in between.
+  const [sent, setSent] = useState<{ item: OutboxItem; at: number }[]>([]);
 
   useEffect(() => {
     startOutbox();
     const stop = onSent((item) => {
-      if (item.jobId === id) void qc.invalidateQueries({ queryKey: sheetKeys.sheet(id) });
+      if (item.jobId !== id) return;
+      setSent((list) => [...list, { item, at: Date.now() }]);
+      void qc.invalidateQueries({ queryKey: sheetKeys.sheet(id) });
     });
     return () => {
       stop();
@@ -45,7 +50,12 @@ export default function JobSheetPage() {
     void keepForOffline(['/api/auth/me', '/api/my-jobs', sheetUrl(id)]).then((kept) => setOfflineReady(kept === null ? 'no' : 'yes'));
   }, [loaded, id, offlineReady]);
 
-  const merged = useMemo(() => (sheet.data ? mergePending(sheet.data, outbox.items, { id: me.id, name: me.name }) : null), [sheet.data, outbox.items, me.id, me.name]);
+  const fetchedAt = sheet.dataUpdatedAt;
+  const merged = useMemo(() => {
+    if (!sheet.data) return null;
+    const overlay = [...sent.filter((s) => s.at > fetchedAt).map((s) => s.item), ...outbox.items];
+    return mergePending(sheet.data, overlay, { id: me.id, name: me.name });
+  }, [sheet.data, fetchedAt, sent, outbox.items, me.id, me.name]);
 
   if (sheet.isPending) return <LoadingState label="Opening the job sheet…" />;
   if (sheet.isError || !sheet.data || !merged) return <ErrorState error={sheet.error} onRetry={() => sheet.refetch()} title="The job sheet could not be opened" />;
