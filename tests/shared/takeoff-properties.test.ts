@@ -1,0 +1,134 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { planSchema, type Plan } from '../../shared/plan/plan-schema';
+import { checkPlanGeometry } from '../../shared/plan/plan-geometry-checks';
+import { computeTakeoff, type Takeoff } from '../../shared/takeoff/compute-takeoff';
+import { parseProductCatalogue } from '../../shared/takeoff/products';
+import { polygonCentroid, rotatePoint, type Vec2 } from '../../shared/geometry';
+import { jstsPolygon, jstsUnionAll } from './helpers/jsts-oracle';
+import { arbQuad, arbStarPolygon } from './helpers/arbitraries';
+
+const products = parseProductCatalogue(JSON.parse(readFileSync(join(__dirname, '../../examples/products.json'), 'utf8')));
+
+/** Random plans: a simple outline, 0–6 quadrilateral exclusions of kind `other` (no clearance), no eaves, random joists. */
+const arbPlan: fc.Arbitrary<Plan> = arbStarPolygon({ minPoints: 4, maxPoints: 16, minR: 2500, maxR: 6000 })
+  .chain((outline) => {
+    const c = polygonCentroid(outline);
+    return fc.record({
+      outline: fc.constant(outline),
+      quads: fc.array(arbQuad(c, 4000), { maxLength: 6 }),
+      angleDeg: fc.double({ min: 0, max: 180, noNaN: true }),
+      centresMm: fc.constantFrom(400, 600),
+      offsetMm: fc.integer({ min: 0, max: 599 }),
+      existingMm: fc.constantFrom(0, 50, 100),
+    });
+  })
+  .map(({ outline, quads, angleDeg, centresMm, offsetMm, existingMm }) =>
+    planSchema.parse({
+      format: 'quiltline-plan/1',
+      name: 'random',
+      outline,
+      eavesEdges: [],
+      joists: { angleDeg, centresMm, widthMm: 47, depthMm: 100, offsetMm },
+      exclusions: quads.map((polygon) => ({ kind: 'other', polygon })),
+      existing: { depthMm: existingMm, condition: existingMm ? 'good' : 'none' },
+    }),
+  )
+  .filter((plan) => checkPlanGeometry(plan).errors.length === 0);
+
+function transformPlan(plan: Plan, deg: number, d: Vec2): Plan {
+  const f = (p: readonly number[]) => {
+    const r = rotatePoint(p, deg);
+    return [r[0] + d[0], r[1] + d[1]] as [number, number];
+  };
+  const angleDeg = plan.joists.angleDeg + deg;
+  const a = (angleDeg * Math.PI) / 180;
+  // Joist centres sit at t = offset + k·centres along the normal (−sin a, cos a); a move shifts t.
+  const offsetMm = plan.joists.offsetMm + (-Math.sin(a) * d[0] + Math.cos(a) * d[1]);
+  return {
+    ...plan,
+    outline: plan.outline.map(f),
+    joists: { ...plan.joists, angleDeg, offsetMm },
+    exclusions: plan.exclusions.map((e) => (e.polygon ? { ...e, polygon: e.polygon.map(f) } : { ...e, at: f(e.at!) })),
+  };
+}
+
+const lengths = (t: Takeoff) => t.layers.map((l) => l.strips.map((s) => s.lengthMm).sort((x, y) => x - y));
+
+describe('takeoff properties on random plans (fast-check; jsts as the planar oracle)', () => {
+  it('nets the union of the exclusions out of the outline as jsts does, overlaps counted once', () => {
+    fc.assert(
+      fc.property(arbPlan, (plan) => {
+        const t = computeTakeoff(plan, { products });
+        const outline = jstsPolygon([plan.outline]);
+        const net = (plan.exclusions.length ? outline.difference(jstsUnionAll(plan.exclusions.map((e) => jstsPolygon([e.polygon!])))) : outline).getArea() / 1e6;
+        expect(t.grossAreaM2).toBeCloseTo(outline.getArea() / 1e6, 3);
+        expect(Math.abs(t.netAreaM2 - net)).toBeLessThanOrEqual(0.001);
+        expect(t.netAreaM2).toBeLessThanOrEqual(t.grossAreaM2 + 1e-9);
+        // The same exclusion twice changes nothing.
+        if (plan.exclusions.length) {
+          const twice = computeTakeoff({ ...plan, exclusions: [...plan.exclusions, plan.exclusions[0]] }, { products });
+          expect(twice.netAreaM2).toBe(t.netAreaM2);
+        }
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('gives the same areas and strips whichever way the outline winds, and wherever the plan is turned or moved', () => {
+    fc.assert(
+      fc.property(arbPlan, fc.double({ min: -180, max: 180, noNaN: true }), fc.integer({ min: -50000, max: 50000 }), fc.integer({ min: -50000, max: 50000 }), (plan, deg, dx, dy) => {
+        const t = computeTakeoff(plan, { products });
+        const moved = computeTakeoff(transformPlan(plan, deg, [dx, dy]), { products });
+        const reversed = computeTakeoff({ ...plan, outline: [...plan.outline].reverse() }, { products });
+        for (const other of [moved, reversed]) {
+          expect(Math.abs(other.grossAreaM2 - t.grossAreaM2)).toBeLessThanOrEqual(0.001);
+          expect(Math.abs(other.netAreaM2 - t.netAreaM2)).toBeLessThanOrEqual(0.001);
+          expect(Math.abs(other.layerAreaM2 - t.layerAreaM2)).toBeLessThanOrEqual(0.001);
+          expect(lengths(other)).toEqual(lengths(t));
+          expect(other.layers.map((l) => l.rollsByPacking)).toEqual(t.layers.map((l) => l.rollsByPacking));
+          expect(other.uValueAfter).toBe(t.uValueAfter);
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+
+  it('covers the layer with its strips: cross strips tile it, base strips fill the bays as jsts measures them', () => {
+    fc.assert(
+      fc.property(arbPlan, (plan) => {
+        const t = computeTakeoff(plan, { products });
+        const outline = jstsPolygon([plan.outline]);
+        const region = plan.exclusions.length ? outline.difference(jstsUnionAll(plan.exclusions.map((e) => jstsPolygon([e.polygon!])))) : outline;
+        for (const layer of t.layers) {
+          // Bound: strips may drop slivers under 1 mm² each; areas are rounded to 0.001 m².
+          const slack = 0.002 + layer.strips.length * 1e-6;
+          if (layer.role === 'cross') {
+            expect(Math.abs(layer.coveredAreaM2 - layer.areaM2)).toBeLessThanOrEqual(slack);
+            continue;
+          }
+          const { angleDeg, centresMm: c, widthMm: w, offsetMm: o } = plan.joists;
+          const a = (angleDeg * Math.PI) / 180;
+          const along: Vec2 = [Math.cos(a), Math.sin(a)];
+          const across: Vec2 = [-Math.sin(a), Math.cos(a)];
+          // The bays are disjoint: add up the loft's area inside each one.
+          const ts = plan.outline.map((p) => p[0] * across[0] + p[1] * across[1]);
+          const ss = plan.outline.map((p) => p[0] * along[0] + p[1] * along[1]);
+          const [s0, s1] = [Math.min(...ss) - 1000, Math.max(...ss) + 1000];
+          const at = (sv: number, tv: number): [number, number] => [sv * along[0] + tv * across[0], sv * along[1] + tv * across[1]];
+          let inBays = 0;
+          for (let k = Math.floor((Math.min(...ts) - o) / c) - 1; k <= Math.ceil((Math.max(...ts) - o) / c); k++) {
+            const lo = o + k * c + w / 2;
+            const hi = o + (k + 1) * c - w / 2;
+            inBays += region.intersection(jstsPolygon([[at(s0, lo), at(s1, lo), at(s1, hi), at(s0, hi)]])).getArea() / 1e6;
+          }
+          expect(Math.abs(layer.coveredAreaM2 - inBays)).toBeLessThanOrEqual(slack);
+          expect(layer.coveredAreaM2).toBeLessThanOrEqual(layer.areaM2);
+        }
+      }),
+      { numRuns: 30 },
+    );
+  });
+});
