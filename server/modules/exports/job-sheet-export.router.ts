@@ -53,7 +53,7 @@ export function jobSheetExportRouter(deps: AppDeps) {
       ].join('\n'),
       attachments: [{ filename: `job-sheet-${sheet.job.reference}.pdf`, content: pdf, contentType: 'application/pdf' }],
     });
-    await recordEvent(user.organisationId, sheet.job.id, user.id, 'job_sheet_sent', { to: row.email, installerId: installer.id });
+    await recordEvent(user.organisationId, sheet.job.id, user.id, 'job_sheet_sent', { to: row.email, installerId: installer.id, text: `Job sheet e-mailed to ${installer.name}` });
     res.json({ sent: true, to: row.email });
   });
   return r;

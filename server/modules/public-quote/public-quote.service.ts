@@ -104,7 +104,7 @@ export function createPublicQuoteService(deps: AppDeps) {
         if (n !== 1) return false;
         const from = job.stage;
         await job.update({ stage: 'accepted' }, { transaction: t });
-        await recordEvent(q.organisationId, job.id, null, 'quote_accepted', { quoteId: q.id, number: q.number, version: q.version, name: body.name, ip: meta.ip ?? null }, t);
+        await recordEvent(q.organisationId, job.id, null, 'quote_accepted', { quoteId: q.id, number: q.number, version: q.version, name: body.name, ip: meta.ip ?? null, text: `Quote ${q.number} accepted by ${body.name} through the private link` }, t);
         if (from !== 'accepted') await recordEvent(q.organisationId, job.id, null, 'stage_changed', { from, to: 'accepted', reason: `quote ${q.number} accepted by the customer` }, t);
         return true;
       });
@@ -133,7 +133,7 @@ export function createPublicQuoteService(deps: AppDeps) {
           await job.update({ stage: 'declined' }, { transaction: t });
           await recordEvent(q.organisationId, job.id, null, 'stage_changed', { from, to: 'declined', reason: `quote ${q.number} declined by the customer` }, t);
         }
-        await recordEvent(q.organisationId, job.id, null, 'quote_declined', { quoteId: q.id, number: q.number, version: q.version, reason: body.reason || null }, t);
+        await recordEvent(q.organisationId, job.id, null, 'quote_declined', { quoteId: q.id, number: q.number, version: q.version, reason: body.reason || null, text: `Quote ${q.number} declined by the customer${body.reason ? `: ${body.reason}` : ''}` }, t);
         return true;
       });
       if (!declined) throw new LinkError('used');

@@ -28,7 +28,7 @@ export async function sendRecordedMail(
   await deps.mailer.send(message);
   await JobEvent.create({
     organisationId: ctx.organisationId, jobId: ctx.jobId, userId: ctx.userId, kind: 'email_sent',
-    data: { to: message.to, subject: message.subject, purpose: ctx.purpose, quoteId: ctx.quoteId ?? null, attachments: (message.attachments ?? []).map((a) => a.filename) },
+    data: { text: `E-mail to ${message.to}: ${message.subject}`, to: message.to, subject: message.subject, purpose: ctx.purpose, quoteId: ctx.quoteId ?? null, attachments: (message.attachments ?? []).map((a) => a.filename) },
   } as never);
 }
 
@@ -88,7 +88,7 @@ export function createQuoteSendService(deps: AppDeps) {
       });
       const firstSend = q.status === 'draft';
       await Quote.update({ status: 'sent', linkNonce: nonce, sentAt: new Date() }, { where: { id: q.id } });
-      await recordEvent(actor.organisationId, job.id, actor.id, firstSend ? 'quote_sent' : 'quote_resent', { quoteId: q.id, number: q.number, version: q.version, to: customer.email, grossMinor: totals.grossMinor });
+      await recordEvent(actor.organisationId, job.id, actor.id, firstSend ? 'quote_sent' : 'quote_resent', { quoteId: q.id, number: q.number, version: q.version, to: customer.email, grossMinor: totals.grossMinor, text: `Quote ${q.number}${q.version > 1 ? ` v${q.version}` : ''} ${firstSend ? 'sent' : 'sent again'} to the customer` });
       if (['enquiry', 'surveyed'].includes(job.stage)) {
         const from = job.stage;
         await job.update({ stage: 'quoted' });

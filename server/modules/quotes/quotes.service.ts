@@ -169,7 +169,7 @@ export function createQuotesService(deps: AppDeps) {
           { transaction: t },
         );
         await QuoteLine.bulkCreate(lineRows(actor.organisationId, q.id, draft.lines) as never, { transaction: t });
-        await recordEvent(actor.organisationId, job.id, actor.id, 'quote_created', { quoteId: q.id, number, version: 1 }, t);
+        await recordEvent(actor.organisationId, job.id, actor.id, 'quote_created', { quoteId: q.id, number, version: 1, text: `Quote ${number} drafted from the takeoff` }, t);
         return q;
       });
       return quoteDto(quote);
@@ -199,7 +199,7 @@ export function createQuotesService(deps: AppDeps) {
             await QuoteLine.destroy({ where: { quoteId: q.id }, transaction: t });
             await QuoteLine.bulkCreate(lineRows(actor.organisationId, q.id, body.lines) as never, { transaction: t });
           }
-          await recordEvent(actor.organisationId, q.jobId, actor.id, 'quote_edited', { quoteId: q.id, number: q.number, version: q.version }, t);
+          await recordEvent(actor.organisationId, q.jobId, actor.id, 'quote_edited', { quoteId: q.id, number: q.number, version: q.version, text: `Quote ${q.number} edited` }, t);
           return q;
         }
         const oldLines = await linesOf(q, t);
@@ -215,7 +215,7 @@ export function createQuotesService(deps: AppDeps) {
         const lines = body.lines ?? oldLines.map((l) => ({ ...l.get({ plain: true }) }));
         await QuoteLine.bulkCreate(lineRows(actor.organisationId, next.id, lines as never) as never, { transaction: t });
         await q.update({ status: 'superseded', linkNonce: null }, { transaction: t });
-        await recordEvent(actor.organisationId, q.jobId, actor.id, 'quote_new_version', { quoteId: next.id, number: q.number, version: next.version, replaces: q.id }, t);
+        await recordEvent(actor.organisationId, q.jobId, actor.id, 'quote_new_version', { quoteId: next.id, number: q.number, version: next.version, replaces: q.id, text: `Quote ${q.number} version ${next.version} drafted; version ${q.version} kept as sent` }, t);
         return next;
       });
       return quoteDto(target);
