@@ -103,7 +103,12 @@ export default function JobSheetPage() {
 
       {s.completion && (
         <p className="mb-3 rounded-md border-2 border-teal-dark bg-teal-light/40 px-3 py-2 text-lg font-semibold">
-          Marked installed by {s.completion.by.name}, {formatDate(s.completion.at)}.
+          Marked installed by {s.completion.by.name}, {formatDate(s.completion.at)}.{' '}
+          {me.role !== 'installer' && (
+            <a className="underline" href={s.completion.handoverUrl}>
+              Handover pack (PDF)
+            </a>
+          )}
         </p>
       )}
 
