@@ -10,14 +10,16 @@ import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
 import { AppProviders } from './app/providers';
 import { createAppRouter } from './app/router';
+import { createQueryClient } from './lib/query-client';
 
-const router = createAppRouter();
+const queryClient = createQueryClient();
+const router = createAppRouter(queryClient);
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element');
 
 createRoot(root).render(
   <StrictMode>
-    <AppProviders>
+    <AppProviders queryClient={queryClient}>
       <RouterProvider router={router} />
     </AppProviders>
   </StrictMode>,
