@@ -36,10 +36,12 @@ export function drawOutline(d: DrawContext, plan: Plan, units: Units, selectedEd
     const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
     if (len * cam.zoom < 24) continue;
     const [ox, oy] = n >= 3 ? outwardNormal(ring, i) : [0, -1];
-    const x = sx(cam, (a[0] + b[0]) / 2) + ox * 14;
-    const y = sy(cam, (a[1] + b[1]) / 2) + oy * 14;
     const text = formatLength(len, units);
     const w = ctx.measureText(text).width + 8;
+    // Far enough out that the label clears the edge and its midpoint handle, whatever its slope.
+    const off = 8 + Math.abs(ox) * (w / 2) + Math.abs(oy) * 8;
+    const x = sx(cam, (a[0] + b[0]) / 2) + ox * off;
+    const y = sy(cam, (a[1] + b[1]) / 2) + oy * off;
     ctx.fillStyle = 'rgba(250,247,240,0.92)';
     ctx.fillRect(x - w / 2, y - 8, w, 16);
     ctx.fillStyle = i === selectedEdge ? PALETTE.select : PALETTE.graphite;
