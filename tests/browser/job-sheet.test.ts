@@ -73,6 +73,9 @@ describe('job sheet on a phone', () => {
     await page.getByRole('radio', { name: 'After' }).click();
     await page.locator(`#photo-${space.id}`).setInputFiles({ name: 'after.jpg', mimeType: 'image/jpeg', buffer: await rotatedJpeg() });
     await expect.poll(() => waitingCount(page)).toBe('4');
+    // The unsent photo is shown from this device (the page's CSP allows data: images, not blob:).
+    const thumb = page.locator('figure img[alt="After photo"]').first();
+    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
     await expect.poll(() => page.getByTestId('tick-ppe.dust').getAttribute('aria-pressed')).toBe('true');
     await shot(page, 'job-sheet-offline-360');
     expect(await JobTick.count({ where: { jobId: job.id } })).toBe(0);

@@ -1,6 +1,9 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { simpleParser } from 'mailparser';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { REPO_ROOT } from '../../server/config';
 import { InstallSetting } from '../../server/db/models/installer-registry';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { rotatedJpeg, scheduledJobWithTakeoff } from './job-sheet-fixtures';
@@ -100,11 +103,14 @@ describe('POST /api/jobs/:id/finish', () => {
     });
     expect(dl.status).toBe(200);
     expect(dl.headers['content-type']).toBe('application/pdf');
+    // Kept for a person to look at (pdftoppm turns it into pages).
+    fs.mkdirSync(path.join(REPO_ROOT, 'test-output'), { recursive: true });
+    fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'handover-pack-sample.pdf'), dl.body as Buffer);
     for (const pdf of [dl.body as Buffer, attachment!.content]) {
       const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
       // Areas and U-values as the takeoff computed them (one decimal for m², two for W/m²K).
       expect(text).toContain(`Area insulated: ${takeoff.netAreaM2.toFixed(1)} m²`);
-      for (const l of takeoff.layers) expect(text).toContain(`${l.thicknessMm} mm, ${l.areaM2.toFixed(1)} m²`);
+      for (const l of takeoff.layers) expect(text).toContain(`${l.thicknessMm} mm thick, ${l.areaM2.toFixed(1)} m²`);
       expect(text).toContain(`U-value before: ${takeoff.uValueBefore.toFixed(2)} W/m²K`);
       expect(text).toContain(`after: ${takeoff.uValueAfter.toFixed(2)} W/m²K`);
       expect(text).toMatch(/Keep the eaves vents clear/);

@@ -85,7 +85,7 @@ export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
       const r = layerRValueSI(l.thicknessMm, l.lambdaWmK);
       const rText = d.showRValues && r !== null ? ` · R ${r.toFixed(2)} m²K/W (R-${(r * R_SI_TO_IP).toFixed(1)} imperial)` : '';
       doc.text(
-        `• ${l.role === 'base' ? 'Between the joists' : 'Across the joists'}: ${l.productName}, ${l.thicknessMm} mm, ${l.areaM2.toFixed(1)} m², ${l.rolls} roll${l.rolls === 1 ? '' : 's'}${rText}`,
+        `• ${l.role === 'base' ? 'Between the joists' : 'Across the joists'}: ${l.productName}; ${l.thicknessMm} mm thick, ${l.areaM2.toFixed(1)} m², ${l.rolls} roll${l.rolls === 1 ? '' : 's'}${rText}`,
         { width },
       );
     }

@@ -1,16 +1,26 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useState } from 'react';
 import { PHOTO_STAGES, type JobPhoto, type PhotoStage, type SheetSpace } from '../../../../shared/api/job-sheet';
 import type { PendingPhoto } from '../merge-pending';
 
 const MAX_BYTES = 15 * 1024 * 1024;
 const STAGE_LABEL: Record<PhotoStage, string> = { before: 'Before', during: 'During', after: 'After' };
 
+/** A photo not sent yet, shown from IndexedDB. A data: URL, since the app's CSP allows data: images but not blob:. */
 function PendingThumb({ photo }: { photo: PendingPhoto }) {
-  const url = useMemo(() => URL.createObjectURL(photo.file), [photo.file]);
-  useEffect(() => () => URL.revokeObjectURL(url), [url]);
+  const [url, setUrl] = useState<string | null>(null);
+  useEffect(() => {
+    const reader = new FileReader();
+    reader.onload = () => setUrl(typeof reader.result === 'string' ? reader.result : null);
+    reader.readAsDataURL(photo.file);
+    return () => reader.abort();
+  }, [photo.file]);
   return (
     <figure className="relative">
-      <img src={url} alt={photo.caption || `${STAGE_LABEL[photo.stage]} photo`} className="h-24 w-full rounded object-cover opacity-80" />
+      {url ? (
+        <img src={url} alt={photo.caption || `${STAGE_LABEL[photo.stage]} photo`} className="h-24 w-full rounded object-cover opacity-80" />
+      ) : (
+        <div className="h-24 w-full rounded bg-paper-dark" aria-hidden />
+      )}
       <figcaption className={`text-sm font-semibold ${photo.failed ? 'text-brick-dark' : 'text-straw-dark'}`}>{photo.failed ? 'Refused' : 'Waiting to send'}</figcaption>
     </figure>
   );
