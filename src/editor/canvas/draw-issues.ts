@@ -44,13 +44,15 @@ export function drawIssues(d: DrawContext, issues: PlacedIssue[]) {
     ctx.fillText(m.severity === 'error' ? '!' : String(i + 1), x, y + 0.5);
     const text = m.message.length > 70 ? m.message.slice(0, 68) + '…' : m.message;
     const w = ctx.measureText(text).width;
+    // Beside the marker on the right, or on the left where the right would leave the view.
+    const left = x + 12 + w + 10 > d.width ? x - 12 - w - 10 : x + 12;
     ctx.fillStyle = 'rgba(255,255,255,0.95)';
-    ctx.fillRect(x + 12, y - 9, w + 10, 18);
+    ctx.fillRect(left, y - 9, w + 10, 18);
     ctx.strokeStyle = colour;
     ctx.lineWidth = 1;
-    ctx.strokeRect(x + 12, y - 9, w + 10, 18);
+    ctx.strokeRect(left, y - 9, w + 10, 18);
     ctx.fillStyle = colour;
     ctx.textAlign = 'left';
-    ctx.fillText(text, x + 17, y + 0.5);
+    ctx.fillText(text, left + 5, y + 0.5);
   });
 }

@@ -7,7 +7,7 @@ export function drawPaper(d: DrawContext) {
   const { ctx, cam, width, height } = d;
   ctx.fillStyle = PALETTE.paper;
   ctx.fillRect(0, 0, width, height);
-  const step = gridStepMm(cam, 7);
+  const step = gridStepMm(cam, 5);
   const tl = screenToWorld(cam, screen(0, 0));
   const br = screenToWorld(cam, screen(width, height));
   for (const [strong, stepMm] of [[false, step], [true, step * 10]] as const) {
