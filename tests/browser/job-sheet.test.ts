@@ -132,6 +132,9 @@ describe('job sheet on a phone', () => {
       await page.getByText(job.reference).first().waitFor();
       await page.getByRole('button', { name: 'Book' }).first().waitFor();
       await shot(page, 'schedule-360');
+      await page.setViewportSize({ width: 1280, height: 800 });
+      await page.getByRole('table').waitFor();
+      await shot(page, 'schedule-1280');
     } finally {
       await office.close();
     }
