@@ -87,8 +87,13 @@ describe('customer pays the deposit', () => {
   }, 90_000);
 
   it('the office invoices the installed job with a variation; the customer pays the balance from the private link', async () => {
-    const { job, customer } = await createJob(org, { stage: 'accepted', customerName: 'Basil Orrin' });
+    const { job, customer } = await createJob(org, { stage: 'accepted', customerName: 'Basil Orrin', assignedInstallerId: org.installer.id });
     await Customer.update({ email: 'basil.orrin@example.com' }, { where: { id: customer.id } });
+    // The installer notes a variation on site (no prices: the office prices it on the invoice).
+    await Job.update({ stage: 'scheduled' }, { where: { id: job.id } });
+    const installer = await loginAs(server.ctx.app, org.installer);
+    const note = await installer.post(`/api/jobs/${job.id}/notes`).set('Idempotency-Key', `note-${job.id}`).send({ text: 'Two more walkway boards needed beside the tank' });
+    expect(note.status).toBe(201);
     const { link } = await createAcceptedQuote(org.id, job.id, server.ctx.config.sessionSecret);
     const customerPage = await browser.newPage();
     await customerPage.goto(`${server.url}/pay/deposit/${link}`);
@@ -98,16 +103,19 @@ describe('customer pays the deposit', () => {
     await Job.update({ stage: 'installed' }, { where: { id: job.id } });
 
     const office = await browser.newPage();
+    await browser.context.clearCookies(); // the first test left the office signed in
     await signInThroughUi(office, server.url, org.office.email, org.office.password);
     await office.goto(`${server.url}/jobs/${job.id}`);
     await office.getByRole('button', { name: 'Create invoice' }).click();
+    await expect.poll(() => office.getByTestId('site-notes').textContent(), { timeout: 10_000 }).toContain('Two more walkway boards needed beside the tank');
     await office.getByRole('button', { name: 'Add a line' }).click();
     await office.getByLabel('Line 1 description').fill('Extra walkway boards');
     await office.getByLabel('Line 1 quantity').fill('2');
     await office.getByLabel('Line 1 unit price').fill('12.99');
     await office.getByLabel('Line 1 tax class').selectOption('standard');
+    await screenshot(office, 'payments-6a-create-invoice');
     await office.getByRole('button', { name: 'Create and e-mail invoice' }).click();
-    await office.waitForURL((u) => u.pathname.startsWith('/invoices/'));
+    await office.waitForURL((u) => u.pathname.startsWith('/invoices/'), { timeout: 15_000 });
     // Hand-worked: £575.76 + 2 × £12.99 + 20 % VAT (£5.20) = £606.94; less £143.94 deposit = £463.00.
     await expect.poll(() => office.getByTestId('summary-to-pay').textContent(), { timeout: 10_000 }).toBe('£463.00');
     expect(await office.getByTestId('summary-total').textContent()).toBe('£606.94');

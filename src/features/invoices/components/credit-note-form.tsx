@@ -22,7 +22,7 @@ export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
     if (parsed.lines.length === 0) return setProblem('add at least one line');
     if (!reason.trim()) return setProblem('say why the credit is given');
     setProblem(null);
-    create.mutate({ reason, lines: parsed.lines, refund: invoice.status === 'paid' && refund }, { onSuccess: (cn) => navigate(`/invoices/${cn.id}`) });
+    create.mutateAsync({ reason, lines: parsed.lines, refund: invoice.status === 'paid' && refund }).then((cn) => navigate(`/invoices/${cn.id}`), () => undefined);
   }
 
   return (

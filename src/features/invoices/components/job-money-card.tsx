@@ -8,6 +8,7 @@ import { useCreateInvoice } from '../api/create-invoice';
 import { usePaymentTimeline } from '../api/get-deposit';
 import { useInvoices } from '../api/get-invoices';
 import { usePaymentSettings } from '../api/payment-settings';
+import { useSiteNotes } from '../api/get-site-notes';
 import { InvoiceStatusBadge } from './invoice-status-badge';
 import { LineEditor, toLineInputs, type DraftLine } from './line-editor';
 
@@ -57,6 +58,7 @@ function NewInvoiceForm({ jobId }: { jobId: string }) {
   const [lines, setLines] = useState<DraftLine[]>([]);
   const [notes, setNotes] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
+  const siteNotes = useSiteNotes(jobId, open);
   if (!open) {
     return (
       <div className="mt-3">
@@ -69,11 +71,24 @@ function NewInvoiceForm({ jobId }: { jobId: string }) {
     const parsed = toLineInputs(lines, currency);
     if ('error' in parsed) return setProblem(parsed.error);
     setProblem(null);
-    create.mutate({ jobId, variations: parsed.lines, notes, send: true }, { onSuccess: (inv) => navigate(`/invoices/${inv.id}`) });
+    // mutateAsync, not mutate's onSuccess: the refetch after creating unmounts this form (the job now has an invoice).
+    create.mutateAsync({ jobId, variations: parsed.lines, notes, send: true }).then((inv) => navigate(`/invoices/${inv.id}`), () => undefined);
   }
   return (
     <form onSubmit={submit} className="mt-4 flex flex-col gap-3 border-t border-paper-line pt-3">
       <p className="text-sm text-graphite-light">The invoice takes the accepted quote's lines, adds any variations below (see the installer's site notes), takes off the deposit paid, and is e-mailed to the customer with a link to pay.</p>
+      {siteNotes.isSuccess && siteNotes.data.length > 0 && (
+        <div className="rounded-md border border-paper-line bg-paper/60 px-3 py-2 text-sm" data-testid="site-notes">
+          <p className="mb-1 font-medium">The installer's notes from site</p>
+          <ul className="list-disc pl-5">
+            {siteNotes.data.map((n) => (
+              <li key={n.id}>
+                {n.text} <span className="text-xs text-graphite-light">— {n.by.name}, {formatDateTime(n.at)}</span>
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
       <LineEditor label="Variations found on site" lines={lines} onChange={setLines} />
       <Textarea aria-label="Notes printed on the invoice" placeholder="Notes printed on the invoice (optional)" rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} />
       {(problem || create.isError) && <Alert>{asSentence(problem ?? create.error?.message ?? '')}</Alert>}
