@@ -27,16 +27,26 @@ function job(n: number, name: string, town: string, stage: JobStage): Job {
   };
 }
 
-const JOBS = [job(1, 'Amara Lindqvist', 'Hartsford', 'enquiry'), job(2, 'Bram Okafor', 'Upper Beck', 'quoted'), job(3, 'Cleo Haddad', 'Hartsford', 'scheduled')];
+const IAN = { id: '55555555-5555-4555-8555-555555555555', name: 'Ian Calder' };
+const JOBS = [
+  job(1, 'Amara Lindqvist', 'Hartsford', 'enquiry'),
+  job(2, 'Bram Okafor', 'Upper Beck', 'quoted'),
+  { ...job(3, 'Cleo Haddad', 'Hartsford', 'scheduled'), assignedInstaller: IAN, installDate: '2027-01-18' },
+];
 
 /** A fake of GET /api/jobs that filters like the server: q over name/town/reference, stage exact. */
 function jobsApi(all: Job[]) {
   return fakeApi(({ url }) => {
+    if (url.pathname === '/api/jobs/installers') return { body: { installers: [IAN] } };
     if (url.pathname !== '/api/jobs') return undefined;
     const q = url.searchParams.get('q')?.toLowerCase();
     const stage = url.searchParams.get('stage');
+    const installerId = url.searchParams.get('installerId');
     const jobs = all.filter(
-      (j) => (!q || [j.customer.name, j.propertyAddress.town, j.reference].some((s) => s.toLowerCase().includes(q))) && (!stage || j.stage === stage),
+      (j) =>
+        (!q || [j.customer.name, j.propertyAddress.town, j.reference].some((s) => s.toLowerCase().includes(q))) &&
+        (!stage || j.stage === stage) &&
+        (!installerId || j.assignedInstaller?.id === installerId),
     );
     return { body: { jobs } };
   });
@@ -81,11 +91,22 @@ describe('jobs list', () => {
     expect(lastJobsQuery(calls).get('sort')).toBe('customer');
   });
 
+  it("narrows the list to one installer's jobs", async () => {
+    const calls = jobsApi(JOBS);
+    renderPage(<JobsListPage />, { user: demoUser('office'), path: '/jobs' });
+    await screen.findByRole('table', { name: 'Jobs' });
+    await screen.findByRole('option', { name: 'Ian Calder' });
+    fireEvent.change(screen.getByLabelText('Installer'), { target: { value: IAN.id } });
+    await waitFor(() => expect(within(table()).getAllByRole('row')).toHaveLength(2));
+    expect(lastJobsQuery(calls).get('installerId')).toBe(IAN.id);
+    expect(within(table()).getByText('Cleo Haddad')).toBeTruthy();
+  });
+
   it('says when nothing matches and clears the filters on request', async () => {
     jobsApi(JOBS);
     renderPage(<JobsListPage />, { user: demoUser('office'), path: '/jobs?q=nowhere' });
     expect(await screen.findByText('No jobs match')).toBeTruthy();
-    fireEvent.click(screen.getByRole('button', { name: 'Clear search and stage' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Clear search and filters' }));
     await screen.findByRole('table', { name: 'Jobs' });
     expect((screen.getByLabelText('Search') as HTMLInputElement).value).toBe('');
   });

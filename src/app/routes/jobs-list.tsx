@@ -3,6 +3,7 @@ import { JOB_SORTS, JOB_STAGES, type JobStage } from '../../../shared/api/jobs';
 import { can } from '../../../shared/auth/policies';
 import { Button, ButtonLink, EmptyState, ErrorState, LoadingState, PageHeader, Spinner } from '../../components/ui';
 import { useCurrentUser } from '../../features/auth/use-current-user';
+import { useInstallers } from '../../features/jobs/api/get-installers';
 import { useJobs } from '../../features/jobs/api/get-jobs';
 import { JobFilters, type JobFilterValues, type JobSort } from '../../features/jobs/components/job-filters';
 import { JobsTable } from '../../features/jobs/components/jobs-table';
@@ -14,6 +15,7 @@ function readFilters(params: URLSearchParams): JobFilterValues {
   return {
     q: params.get('q') ?? '',
     stage: (JOB_STAGES as readonly string[]).includes(stage) ? (stage as JobStage) : '',
+    installerId: /^[0-9a-f-]{36}$/i.test(params.get('installer') ?? '') ? params.get('installer')! : '',
     sort: (JOB_SORTS as readonly string[]).includes(sort) ? (sort as JobSort) : 'updated',
     dir: params.get('dir') === 'asc' ? 'asc' : 'desc',
   };
@@ -25,14 +27,17 @@ export default function JobsListPage() {
   const [params, setParams] = useSearchParams();
   const filters = readFilters(params);
   const q = useDebouncedValue(filters.q.trim(), 250);
-  const jobs = useJobs({ q: q || undefined, stage: filters.stage || undefined, sort: filters.sort, dir: filters.dir });
-  const filtered = !!(filters.q.trim() || filters.stage);
+  const canFilterByInstaller = can(user, 'jobs:read-all');
+  const installers = useInstallers({ enabled: canFilterByInstaller });
+  const jobs = useJobs({ q: q || undefined, stage: filters.stage || undefined, installerId: filters.installerId || undefined, sort: filters.sort, dir: filters.dir });
+  const filtered = !!(filters.q.trim() || filters.stage || filters.installerId);
 
   function update(next: Partial<JobFilterValues>) {
     const merged = { ...filters, ...next };
     const p = new URLSearchParams();
     if (merged.q) p.set('q', merged.q);
     if (merged.stage) p.set('stage', merged.stage);
+    if (merged.installerId) p.set('installer', merged.installerId);
     if (merged.sort !== 'updated') p.set('sort', merged.sort);
     if (merged.dir !== 'desc') p.set('dir', merged.dir);
     setParams(p, { replace: true });
@@ -51,7 +56,7 @@ export default function JobsListPage() {
         subtitle={jobs.data ? `${jobs.data.length} ${jobs.data.length === 1 ? 'job' : 'jobs'}${filtered ? ' match' : ''}` : ' '}
         actions={newJob}
       />
-      <JobFilters value={filters} onChange={update} />
+      <JobFilters value={filters} onChange={update} installers={canFilterByInstaller ? (installers.data ?? []) : null} />
       {jobs.isPending ? (
         <LoadingState label="Loading jobs…" />
       ) : jobs.isError ? (
@@ -61,13 +66,14 @@ export default function JobsListPage() {
           <EmptyState
             title="No jobs match"
             action={
-              <Button variant="secondary" onClick={() => update({ q: '', stage: '' })}>
-                Clear search and stage
+              <Button variant="secondary" onClick={() => update({ q: '', stage: '', installerId: '' })}>
+                Clear search and filters
               </Button>
             }
           >
             Nothing matches {filters.q.trim() ? <>“{filters.q.trim()}”</> : 'this filter'}
-            {filters.stage ? ' at this stage' : ''}.
+            {filters.stage ? ' at this stage' : ''}
+            {filters.installerId ? ' for this installer' : ''}.
           </EmptyState>
         ) : (
           <EmptyState title="No jobs yet" action={newJob}>

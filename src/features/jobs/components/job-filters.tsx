@@ -2,7 +2,7 @@ import { JOB_SORTS, JOB_STAGES, type JobStage } from '../../../../shared/api/job
 import { Button, Field, Input, Select, STAGE_LABELS } from '../../../components/ui';
 
 export type JobSort = (typeof JOB_SORTS)[number];
-export type JobFilterValues = { q: string; stage: JobStage | ''; sort: JobSort; dir: 'asc' | 'desc' };
+export type JobFilterValues = { q: string; stage: JobStage | ''; installerId: string; sort: JobSort; dir: 'asc' | 'desc' };
 
 export const SORT_LABELS: Record<JobSort, string> = {
   updated: 'Last changed',
@@ -12,10 +12,22 @@ export const SORT_LABELS: Record<JobSort, string> = {
   installDate: 'Install date',
 };
 
-/** Search box, stage filter and sort order of the jobs list. */
-export function JobFilters({ value, onChange }: { value: JobFilterValues; onChange: (next: Partial<JobFilterValues>) => void }) {
+/** Search box, stage and installer filters and sort order of the jobs list. `installers` null hides that filter. */
+export function JobFilters({
+  value,
+  onChange,
+  installers,
+}: {
+  value: JobFilterValues;
+  onChange: (next: Partial<JobFilterValues>) => void;
+  installers: Array<{ id: string; name: string }> | null;
+}) {
   return (
-    <div className="mb-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-white/60 p-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.4fr)]">
+    <div
+      className={`mb-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-white/60 p-3 ${
+        installers ? 'sm:grid-cols-2 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1fr)_minmax(0,1.4fr)]' : 'sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.4fr)]'
+      }`}
+    >
       <Field label="Search">
         <Input
           type="search"
@@ -34,6 +46,18 @@ export function JobFilters({ value, onChange }: { value: JobFilterValues; onChan
           ))}
         </Select>
       </Field>
+      {installers && (
+        <Field label="Installer">
+          <Select value={value.installerId} onChange={(e) => onChange({ installerId: e.target.value })}>
+            <option value="">Anyone</option>
+            {installers.map((i) => (
+              <option key={i.id} value={i.id}>
+                {i.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+      )}
       <div className="flex items-end gap-2">
         <Field label="Sort by" className="flex-1">
           <Select value={value.sort} onChange={(e) => onChange({ sort: e.target.value as JobSort })}>
