@@ -96,6 +96,18 @@ describe('the customer answering', () => {
     expect((await request(ctx.app).get(`/api/public/quotes/${t}`)).body.quote.status).toBe('accepted');
   });
 
+  it('lets only one of two simultaneous acceptances through', async () => {
+    const { quote, token } = await sentQuote('cressida.race@example.com');
+    const t = encodeURIComponent(token);
+    const [a, b] = await Promise.all([
+      request(ctx.app).post(`/api/public/quotes/${t}/accept`).send({ name: 'First Tab', acceptTerms: true }),
+      request(ctx.app).post(`/api/public/quotes/${t}/accept`).send({ name: 'Second Tab', acceptTerms: true }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    const winner = a.status === 200 ? 'First Tab' : 'Second Tab';
+    expect((await Quote.findByPk(quote.id))!.acceptedName).toBe(winner);
+  });
+
   it('declines with an optional reason and tells the office', async () => {
     const { job, quote, token } = await sentQuote('cressida.decline@example.com');
     const res = await request(ctx.app).post(`/api/public/quotes/${encodeURIComponent(token)}/decline`).send({ reason: 'Going with a neighbour\'s firm' });

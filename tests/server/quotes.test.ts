@@ -173,6 +173,23 @@ describe('exports', () => {
     expect(text).toMatch(/work\s+at\s+height/);
   });
 
+  it('embeds the company logo in the PDF once one is uploaded', async () => {
+    const { job } = await quoteJob(org);
+    const office = await loginAs(ctx.app, org.office);
+    const q = (await office.post(`/api/jobs/${job.id}/quotes`).send({})).body.quote;
+    const before = await office.get(`/api/quotes/${q.id}/pdf`).buffer(true).parse(binary);
+    expect(before.body.includes('/Subtype /Image')).toBe(false);
+    // The smallest valid PNG, 1×1 pixel (signature, IHDR, IDAT, IEND), written out byte by byte.
+    const png = Buffer.from(
+      '89504e470d0a1a0a0000000d4948445200000001000000010802000000907753de0000000c4944415478da63f8ffff3f0005fe02fea7359a3b0000000049454e44ae426082',
+      'hex',
+    );
+    expect((await office.post('/api/settings/logo').attach('logo', png, { filename: 'logo.png', contentType: 'image/png' })).status).toBe(200);
+    const after = await office.get(`/api/quotes/${q.id}/pdf`).buffer(true).parse(binary);
+    expect(after.body.includes('/Subtype /Image')).toBe(true);
+    await office.delete('/api/settings/logo');
+  });
+
   it('gives an XLSX whose numbers equal the API', async () => {
     const { job } = await quoteJob(org);
     const office = await loginAs(ctx.app, org.office);
