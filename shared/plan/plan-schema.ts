@@ -7,8 +7,11 @@ export const PLAN_FORMAT = 'quiltline-plan/1' as const;
 export const pointSchema = z.tuple([z.number().finite(), z.number().finite()]);
 export type PointMm = z.infer<typeof pointSchema>;
 
+/** Kinds of area or point not to be covered; each has its own site rule and default clearance. */
 export const EXCLUSION_KINDS = ['hatch', 'tank', 'chimney', 'flue', 'boarded', 'downlight', 'other'] as const;
+/** One of `EXCLUSION_KINDS`. */
 export const exclusionKindSchema = z.enum(EXCLUSION_KINDS);
+/** A kind of exclusion. */
 export type ExclusionKind = z.infer<typeof exclusionKindSchema>;
 
 /** An area not to be covered: a polygon, or a point (`at`) for things like downlights. */
@@ -24,8 +27,10 @@ export const exclusionSchema = z
   .refine((e) => (e.polygon ? !e.at : !!e.at), {
     message: 'an exclusion has either a polygon or a point (at), not both or neither',
   });
+/** A parsed exclusion. */
 export type Exclusion = z.infer<typeof exclusionSchema>;
 
+/** The ceiling joists: direction, spacing and size, mm. */
 export const joistsSchema = z.object({
   /** Direction the joists run, degrees from the plan's x axis. */
   angleDeg: z.number().finite(),
@@ -35,21 +40,27 @@ export const joistsSchema = z.object({
   /** Perpendicular offset of the first joist centre from the plan origin, mm. */
   offsetMm: z.number().finite().default(0),
 });
+/** Parsed joists (offset defaults to 0). */
 export type Joists = z.infer<typeof joistsSchema>;
 
+/** Condition of the existing insulation; the takeoff counts only part of a poor layer. */
 export const CONDITIONS = ['good', 'compressed', 'damp', 'patchy', 'none'] as const;
+/** Existing insulation: depth (mm), condition and optional conductivity. */
 export const existingSchema = z.object({
   depthMm: z.number().min(0).max(1000),
   condition: z.enum(CONDITIONS).default('good'),
   /** Thermal conductivity of the existing insulation, W/mK; a default applies when absent. */
   lambda: z.number().positive().max(1).optional(),
 });
+/** Parsed existing insulation. */
 export type Existing = z.infer<typeof existingSchema>;
 
+/** What the new insulation must reach: a total depth (mm) or a U-value (W/m²K). */
 export const targetSchema = z.union([
   z.object({ depthMm: z.number().positive().max(1000) }).strict(),
   z.object({ uValue: z.number().positive().max(5) }).strict(),
 ]);
+/** A parsed target. */
 export type Target = z.infer<typeof targetSchema>;
 
 /** Optional background underlay: an uploaded image placed in plan space. */
@@ -68,6 +79,7 @@ export const productChoiceSchema = z.object({
   crossProductIds: z.array(z.string().max(80)).max(4).optional(),
 });
 
+/** The whole `quiltline-plan/1` file; unknown formats are refused with a clear message. */
 export const planSchema = z.object({
   format: z.literal(PLAN_FORMAT, {
     error: (issue) =>

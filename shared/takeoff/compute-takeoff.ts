@@ -71,16 +71,18 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const depthForTarget = targetU !== undefined ? depthForTargetU(insulationBuildUp(plan, settings, base), firstCross?.lambda ?? 0.044, targetU, ctx) : undefined;
   const savings = yearlySavings(before.uValue, after.uValue, m2(regions.layerAreaMm2), settings.degreeDays, settings.heatingEfficiency, settings.fuelPriceMinorPerKwh);
 
-  const countsByKind = countExclusionsByKind(plan);
+  const outside = new Set(checks.warnings.filter((w) => w.code === 'exclusion.outside-outline').map((w) => w.exclusionIndex!));
+  const countsByKind = countExclusionsByKind(plan, outside);
   const items = plan.exclusions.map((e, index) => ({
     index,
     kind: e.kind,
     ...(e.label ? { label: e.label } : {}),
     clearanceMm: regions.exclusionClearancesMm[index],
+    insideOutline: !outside.has(index),
     footprintAreaM2: r3(m2(multiPolygonArea(regions.exclusionShapes[index]))),
     polygons: regions.exclusionShapes[index].map((p) => p[0].map(pt)),
   }));
-  const boardedAreaM2 = r3(items.filter((x) => x.kind === 'boarded').reduce((t, x) => t + x.footprintAreaM2, 0));
+  const boardedAreaM2 = r3(items.filter((x) => x.kind === 'boarded' && x.insideOutline).reduce((t, x) => t + x.footprintAreaM2, 0));
   const eavesLengthMm = regions.eavesBands.reduce((t, b) => t + b.edgeLengthMm, 0);
 
   const siteChecks = siteChecksFor(plan, {
@@ -90,6 +92,7 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     boardedAreaM2,
     hasLayers: layers.length > 0,
     aboveJoists: afterLayers.reduce((t, l) => t + l.thicknessMm, 0) > plan.joists.depthMm,
+    ignored: outside,
   });
 
   const byProduct = new Map<string, Takeoff['rollsPerProduct'][number]>();

@@ -2,6 +2,7 @@ import { z } from 'zod';
 
 /** Layer roles a product may fill. */
 export const LAYER_ROLES = ['base', 'cross'] as const;
+/** `base` (between the joists) or `cross` (over them, at right angles). */
 export type LayerRole = (typeof LAYER_ROLES)[number];
 
 /**
@@ -22,6 +23,7 @@ export const takeoffProductSchema = z.object({
   /** Roles it may fill; both when absent. */
   roles: z.array(z.enum(LAYER_ROLES)).min(1).optional(),
 });
+/** A parsed roll product (see `takeoffProductSchema`). */
 export type TakeoffProduct = z.infer<typeof takeoffProductSchema>;
 
 /**

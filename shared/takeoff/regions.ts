@@ -108,9 +108,14 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excludedAreaMm2, netAreaMm2, eavesBands: eavesBands.map(({ rect: _rect, ...b }) => b), layerRegion, layerAreaMm2 };
 }
 
-/** How many exclusions of each kind a plan has (every kind present, zero when absent). */
-export function countExclusionsByKind(plan: Plan): Record<ExclusionKind, number> {
+/**
+ * How many exclusions of each kind a plan has (every kind present, zero when absent), leaving
+ * out the exclusion indices in `skip` (those lying wholly outside the outline).
+ */
+export function countExclusionsByKind(plan: Plan, skip: ReadonlySet<number> = new Set()): Record<ExclusionKind, number> {
   const out = Object.fromEntries(EXCLUSION_KINDS.map((k) => [k, 0])) as Record<ExclusionKind, number>;
-  for (const e of plan.exclusions) out[e.kind] += 1;
+  plan.exclusions.forEach((e, i) => {
+    if (!skip.has(i)) out[e.kind] += 1;
+  });
   return out;
 }

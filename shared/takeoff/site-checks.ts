@@ -20,6 +20,8 @@ export interface SiteCheckContext {
   hasLayers: boolean;
   /** New insulation rises above the joist tops. */
   aboveJoists: boolean;
+  /** Exclusions to leave out (wholly outside the outline). */
+  ignored?: ReadonlySet<number>;
 }
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
@@ -33,7 +35,7 @@ const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? o
  */
 export function siteChecksFor(plan: Plan, ctx: SiteCheckContext): SiteCheck[] {
   const out: SiteCheck[] = [];
-  const idx = (k: ExclusionKind) => plan.exclusions.flatMap((e, i) => (e.kind === k ? [i] : []));
+  const idx = (k: ExclusionKind) => plan.exclusions.flatMap((e, i) => (e.kind === k && !ctx.ignored?.has(i) ? [i] : []));
   const c = ctx.countsByKind;
   out.push({ code: 'access.work-at-height', message: 'Use a secure ladder and good light; tread only on joists or boards — the ceiling will not take your weight. Loft work is work at height (in Great Britain, the Work at Height Regulations 2005).' });
   if (ctx.hasLayers) out.push({ code: 'ppe.dust', message: 'Mineral-wool dust irritates skin, eyes and airways: wear gloves, goggles, a disposable mask and long sleeves.' });

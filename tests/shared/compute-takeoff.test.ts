@@ -3,7 +3,7 @@ import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { validatePlan } from '../../shared/plan/validate-plan';
 import { InvalidPlanError } from '../../shared/plan/plan-messages';
-import { planSchema, type Plan, type PlanInput } from '../../shared/plan/plan-schema';
+import { planSchema, type Plan } from '../../shared/plan/plan-schema';
 import { computeTakeoff, DEFAULT_TAKEOFF_SETTINGS, TAKEOFF_FORMAT, type Takeoff } from '../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../shared/takeoff/products';
 import { loftCombinedMethod } from '../../shared/takeoff/thermal';
@@ -214,4 +214,17 @@ describe('computeTakeoff on the examples (golden checks)', () => {
   });
 });
 
-export type { PlanInput };
+
+describe('exclusions outside the outline', () => {
+  it('are ignored by the counts and checks, flagged in the items and warned about', () => {
+    const plan = loadExample('rectangle.json');
+    const withOutside: Plan = { ...plan, exclusions: [...plan.exclusions, { kind: 'downlight', at: [-2000, -2000] }, { kind: 'tank', polygon: [[9000, 0], [9900, 0], [9900, 800], [9000, 800]] }] };
+    const t = computeTakeoff(withOutside, { products });
+    expect(t.exclusions.countsByKind.downlight).toBe(0);
+    expect(t.exclusions.countsByKind.tank).toBe(0);
+    expect(t.exclusions.items.map((i) => i.insideOutline)).toEqual([true, false, false]);
+    expect(t.siteChecks.map((c) => c.code)).not.toContain('downlight.covers');
+    expect(t.warnings.filter((w) => w.code === 'exclusion.outside-outline').map((w) => w.exclusionIndex)).toEqual([1, 2]);
+    expect(t.netAreaM2).toBe(computeTakeoff(plan, { products }).netAreaM2);
+  });
+});
