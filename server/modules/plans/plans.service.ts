@@ -6,7 +6,7 @@ import { InvalidPlanError } from '../../../shared/plan/plan-messages';
 import { validatePlan, type PlanMessage } from '../../../shared/plan/validate-plan';
 import { computeTakeoff, type Takeoff } from '../../../shared/takeoff/compute-takeoff';
 import type { AppDeps } from '../../deps';
-import { PlanRevision, User } from '../../db/models';
+import { User } from '../../db/models';
 import { AppError, ValidationError, type ErrorDetail } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { addPlanRevision, findSpaceForUser, getLatestRevision, getRevision, listRevisions } from '../spaces/spaces.service';
@@ -131,4 +131,3 @@ export function createPlansService(deps: AppDeps) {
 }
 
 export type PlansService = ReturnType<typeof createPlansService>;
-export { PlanRevision };
