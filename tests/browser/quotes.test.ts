@@ -104,7 +104,12 @@ describe('quotes in a real browser', () => {
     // The office sees the accepted quote.
     await page.reload();
     await expect.poll(() => page.getByTestId('quote-status').innerText()).toMatch(/accepted/i);
-  });
+    await page.goto(`${app.url}/jobs/${jobId}`);
+    await page.getByRole('heading', { name: 'Quotes' }).waitFor();
+    await expect.poll(() => page.getByTestId('quote-status').first().innerText()).toMatch(/accepted/i);
+    await page.getByText(/accepted by Esme Caldwell through the private link/).first().waitFor();
+    await screenshot(page, 'quotes-08-job-page');
+  }, 120_000);
 
   it('shows the catalogue in a sortable, filterable table in settings', async () => {
     const page = await office.newPage();
@@ -126,5 +131,5 @@ describe('quotes in a real browser', () => {
     await page.getByRole('tab', { name: 'Tax rates' }).click();
     await page.getByRole('table', { name: 'Tax rates by date' }).waitFor();
     await screenshot(page, 'quotes-07-settings-tax');
-  });
+  }, 60_000);
 });
