@@ -10,7 +10,7 @@ import { createOutlineTool } from './tools/outline-tool';
 import type { Tool, ToolContext, ToolKey } from './tools/tool';
 import { createViewTool } from './tools/view-tool';
 
-export type PointerInput = { x: number; y: number; shift?: boolean; alt?: boolean; ctrl?: boolean; button?: number };
+export type PointerInput = { x: number; y: number; shift?: boolean; alt?: boolean; ctrl?: boolean; button?: number; touch?: boolean };
 export type KeyInput = { key: string; shift?: boolean; ctrl?: boolean; alt?: boolean };
 
 export type Editor = ReturnType<typeof createEditor>;
@@ -44,6 +44,7 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}) {
       alt: !!p.alt,
       ctrl: !!p.ctrl,
       button: p.button ?? 0,
+      touch: !!p.touch,
     };
   };
 

@@ -70,6 +70,18 @@ describe('outline tool', () => {
     expect(ed.store.getState().plan).toEqual(rectPlan());
   });
 
+  it('gives a finger a larger hit target than a mouse', () => {
+    const ed = createEditor(rectPlan(), { camera });
+    // 15 px from corner 2 (8400, 5200) at 0.1 px/mm.
+    const near = { x: 840 + 15, y: 520 };
+    ed.pointerDown(near);
+    ed.pointerUp(near);
+    expect(ed.store.getState().session.selection).not.toEqual({ kind: 'corner', index: 2 });
+    ed.pointerDown({ ...near, touch: true });
+    ed.pointerUp({ ...near, touch: true });
+    expect(ed.store.getState().session.selection).toEqual({ kind: 'corner', index: 2 });
+  });
+
   it('clicking empty paper clears the selection but keeps redo', () => {
     const ed = createEditor(rectPlan(), { camera });
     drag(ed, [8400, 5200], [9000, 6000]);

@@ -34,7 +34,7 @@ export function usePointerInput(editor: Editor, wrap: RefObject<HTMLDivElement |
         if (touches.current.size > 2) return;
       }
       (e.target as Element).setPointerCapture?.(e.pointerId);
-      editor.pointerDown({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey, button: e.button });
+      editor.pointerDown({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey, button: e.button, touch: e.pointerType === 'touch' });
     },
     onPointerMove(e: React.PointerEvent) {
       const p = local(e);
@@ -51,7 +51,7 @@ export function usePointerInput(editor: Editor, wrap: RefObject<HTMLDivElement |
           return;
         }
       }
-      editor.pointerMove({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey });
+      editor.pointerMove({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey, touch: e.pointerType === 'touch' });
     },
     onPointerUp(e: React.PointerEvent) {
       const p = local(e);
@@ -62,7 +62,7 @@ export function usePointerInput(editor: Editor, wrap: RefObject<HTMLDivElement |
           return;
         }
       }
-      editor.pointerUp({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey, button: e.button });
+      editor.pointerUp({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey, button: e.button, touch: e.pointerType === 'touch' });
     },
     onPointerCancel(e: React.PointerEvent) {
       touches.current.delete(e.pointerId);

@@ -2,7 +2,7 @@ import { cmd, toggleEaves } from '../commands';
 import { pxToMm } from '../geometry/coords';
 import { hitEdge } from './hit-test';
 import { createPanner } from './pan';
-import { HIT_PX, type Tool } from './tool';
+import { hitPx, type Tool } from './tool';
 
 /** Eaves step: click an outline edge to mark or unmark it as eaves. Dragging empty paper pans. */
 export function createEavesTool(): Tool {
@@ -13,7 +13,7 @@ export function createEavesTool(): Tool {
     state: () => s.name,
     pointerDown(ctx, e) {
       const { plan } = ctx.store.getState();
-      const edge = hitEdge(plan, e.world, pxToMm(ctx.camera(), HIT_PX));
+      const edge = hitEdge(plan, e.world, pxToMm(ctx.camera(), hitPx(e)));
       if (edge) s = { name: 'pointing-edge', edge: edge.edge };
       else {
         s = { name: 'panning' };

@@ -4,7 +4,7 @@ import { pxToMm, type ScreenPt } from '../geometry/coords';
 import { exclusionBox, hitBoxHandle, hitExclusion, type BoxHandle } from './hit-test';
 import { createPanner } from './pan';
 import { snapPoint } from './snap';
-import { DRAG_THRESHOLD_PX, HIT_PX, type Tool, type ToolContext, type ToolPointer } from './tool';
+import { DRAG_THRESHOLD_PX, hitPx, type Tool, type ToolContext, type ToolPointer } from './tool';
 
 type State =
   | { name: 'idle' }
@@ -43,7 +43,7 @@ export function createExclusionsTool(): Tool {
     state: () => s.name,
     pointerDown(ctx, e) {
       const { plan, session } = ctx.store.getState();
-      const tol = pxToMm(ctx.camera(), HIT_PX);
+      const tol = pxToMm(ctx.camera(), hitPx(e));
       if (s.name === 'drawing-polygon') {
         const pts = session.draft?.points ?? [];
         const p = snap(ctx, e);

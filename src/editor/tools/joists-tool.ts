@@ -2,7 +2,7 @@ import { cmd, moveJoistOffset, setJoistsAlongEdge } from '../commands';
 import { pxToMm, type ScreenPt } from '../geometry/coords';
 import { distanceToJoistMm, hitEdge, joistNormal } from './hit-test';
 import { createPanner } from './pan';
-import { DRAG_THRESHOLD_PX, HIT_PX, type Tool } from './tool';
+import { DRAG_THRESHOLD_PX, hitPx, type Tool } from './tool';
 
 type State =
   | { name: 'idle' }
@@ -23,7 +23,7 @@ export function createJoistsTool(): Tool {
     state: () => s.name,
     pointerDown(ctx, e) {
       const { plan } = ctx.store.getState();
-      const tol = pxToMm(ctx.camera(), HIT_PX);
+      const tol = pxToMm(ctx.camera(), hitPx(e));
       const edge = hitEdge(plan, e.world, tol);
       if (edge) {
         s = { name: 'pointing-edge', edge: edge.edge };

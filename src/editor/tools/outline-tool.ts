@@ -3,7 +3,7 @@ import { pxToMm, type ScreenPt } from '../geometry/coords';
 import { edgeMidpoint, hitCorner, hitEdge, hitEdgeMidpoint } from './hit-test';
 import { createPanner } from './pan';
 import { snapPoint } from './snap';
-import { DRAG_THRESHOLD_PX, HIT_PX, MIN_EDGE_PX_FOR_MIDPOINT, type Tool, type ToolContext, type ToolPointer } from './tool';
+import { DRAG_THRESHOLD_PX, hitPx, MIN_EDGE_PX_FOR_MIDPOINT, type Tool, type ToolContext, type ToolPointer } from './tool';
 
 type State =
   | { name: 'idle' }
@@ -32,7 +32,7 @@ export function createOutlineTool(): Tool {
     state: () => s.name,
     pointerDown(ctx, e) {
       const { plan } = ctx.store.getState();
-      const tol = pxToMm(ctx.camera(), HIT_PX);
+      const tol = pxToMm(ctx.camera(), hitPx(e));
       if (s.name === 'idle' && plan.outline.length < 3) s = { name: 'drawing' };
       if (s.name === 'drawing') {
         const n = plan.outline.length;

@@ -1,7 +1,7 @@
 import type { Plan } from '../../../shared/plan/plan-schema';
 import { pxToMm, round3, snapAngle, snapToGrid, world, type WorldPt } from '../geometry/coords';
 import { hitCorner } from './hit-test';
-import { HIT_PX, SNAP_GRID_MM, type ToolContext, type ToolPointer } from './tool';
+import { hitPx, SNAP_GRID_MM, type ToolContext, type ToolPointer } from './tool';
 
 /**
  * Where a placed or dragged point lands: an existing corner nearby, else (from a previous corner)
@@ -15,7 +15,7 @@ export function snapPoint(
 ): [number, number] {
   const p = e.world;
   if (e.alt) return [Math.round(p.x), Math.round(p.y)];
-  const tol = pxToMm(ctx.camera(), HIT_PX);
+  const tol = pxToMm(ctx.camera(), hitPx(e));
   const c = hitCorner(plan, p, tol);
   if (c >= 0 && c !== opts.ignoreCorner) return [plan.outline[c][0], plan.outline[c][1]];
   let q: WorldPt;

@@ -10,6 +10,8 @@ export type ToolPointer = {
   alt: boolean;
   ctrl: boolean;
   button: number;
+  /** A finger rather than a mouse or pen: hit targets grow. */
+  touch?: boolean;
 };
 
 export type ToolKey = { key: string; shift: boolean; ctrl: boolean; alt: boolean };
@@ -33,8 +35,12 @@ export interface Tool {
 
 /** Pixels a pointer must travel before a press becomes a drag. */
 export const DRAG_THRESHOLD_PX = 4;
-/** Hit tolerance in screen pixels (fingers need more than a mouse; 10 suits both). */
+/** Hit tolerance in screen pixels for a mouse or pen; fingers get twice as much. */
 export const HIT_PX = 10;
+
+export function hitPx(e: { touch?: boolean }): number {
+  return e.touch ? HIT_PX * 2 : HIT_PX;
+}
 /** Grid the pointer snaps to by default, mm. */
 export const SNAP_GRID_MM = 100;
 /** Edges shorter than this on screen get no "insert corner" midpoint handle. */
