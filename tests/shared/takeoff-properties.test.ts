@@ -132,3 +132,41 @@ describe('takeoff properties on random plans (fast-check; jsts as the planar ora
     );
   });
 });
+
+describe('eaves bands on random plans', () => {
+  it('keeps the net area of jsts (eaves do not change it) and takes the bands out of the layer area', () => {
+    fc.assert(
+      fc.property(arbPlan, fc.array(fc.nat(), { maxLength: 6 }), fc.integer({ min: 25, max: 400 }), (plan0, picks, gap) => {
+        const n = plan0.outline.length;
+        const eavesEdges = [...new Set(picks.map((p) => p % n))];
+        const plan: Plan = { ...plan0, eavesEdges, eavesGapMm: gap };
+        const t = computeTakeoff(plan, { products });
+        const outline = jstsPolygon([plan.outline]);
+        const excl = plan.exclusions.map((e) => jstsPolygon([e.polygon!]));
+        const net = (excl.length ? outline.difference(jstsUnionAll(excl)) : outline).getArea() / 1e6;
+        expect(Math.abs(t.netAreaM2 - net)).toBeLessThanOrEqual(0.001);
+        // Inner side of each edge: shoelace sign says which way the outline winds.
+        let twice = 0;
+        for (let i = 0; i < n; i++) {
+          const a = plan.outline[i];
+          const b = plan.outline[(i + 1) % n];
+          twice += a[0] * b[1] - b[0] * a[1];
+        }
+        const rects = eavesEdges.map((i) => {
+          const a = plan.outline[i];
+          const b = plan.outline[(i + 1) % n];
+          const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+          const k = (twice > 0 ? 1 : -1) * (gap / len);
+          const nx = -(b[1] - a[1]) * k;
+          const ny = (b[0] - a[0]) * k;
+          return jstsPolygon([[a, b, [b[0] + nx, b[1] + ny], [a[0] + nx, a[1] + ny]]]);
+        });
+        const layer = (excl.length || rects.length ? outline.difference(jstsUnionAll([...excl, ...rects])) : outline).getArea() / 1e6;
+        expect(Math.abs(t.layerAreaM2 - layer)).toBeLessThanOrEqual(0.001);
+        expect(t.layerAreaM2).toBeLessThanOrEqual(t.netAreaM2 + 1e-9);
+        for (const b of t.eaves.bands) expect(b.areaM2).toBeLessThanOrEqual((b.edgeLengthMm * gap) / 1e6 + 1e-3);
+      }),
+      { numRuns: 60 },
+    );
+  });
+});
