@@ -1,6 +1,8 @@
 import { useState } from 'react';
 import { EXTRA_KINDS, EXTRA_KIND_LABELS, TAX_CLASS_LABELS, extraBodySchema, productBodySchema, taxRateBodySchema } from '../../../../shared/api/settings';
 import { ButtonLink, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
+import { can } from '../../../../shared/auth/policies';
+import { useCurrentUser } from '../../auth/use-current-user';
 import { useCompanySettings } from '../api/company-settings';
 import { CatalogueTable, type ColumnDef } from './catalogue-table';
 import { CompanySettingsForm } from './company-settings-form';
@@ -52,8 +54,12 @@ type Tab = (typeof TABS)[number][0];
 
 /** /settings (office): company details, quote terms, labour and savings inputs, catalogue and dated tax rates. */
 export default function SettingsPage() {
+  const user = useCurrentUser();
   const settings = useCompanySettings();
   const [tab, setTab] = useState<Tab>('company');
+  if (!can(user, 'settings:manage')) {
+    return <ErrorState error={new Error('Only office users can change the company settings.')} title="Settings are for the office" />;
+  }
   if (settings.isPending) return <LoadingState label="Loading the settings…" />;
   if (settings.isError) return <ErrorState error={settings.error} onRetry={() => settings.refetch()} title="The settings could not be loaded" />;
   const s = settings.data;
