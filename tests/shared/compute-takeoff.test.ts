@@ -228,3 +228,45 @@ describe('exclusions outside the outline', () => {
     expect(t.netAreaM2).toBe(computeTakeoff(plan, { products }).netAreaM2);
   });
 });
+
+describe('edge cases', () => {
+  it('copes with a loft that is boarded all over: no strips, no rolls, a boarded-area check', () => {
+    const plan = loadExample('rectangle.json');
+    const t = computeTakeoff({ ...plan, existing: { depthMm: 0, condition: 'none' }, exclusions: [{ kind: 'boarded', polygon: plan.outline }] }, { products });
+    expect(t.netAreaM2).toBe(0);
+    expect(t.layerAreaM2).toBe(0);
+    for (const l of t.layers) {
+      expect(l.strips).toEqual([]);
+      expect(l.rollsByPacking).toBe(0);
+      expect(l.rollsByArea).toBe(0);
+      expect(l.wastePct).toBe(0);
+    }
+    expect(t.siteChecks.map((c) => c.code)).toContain('boarded.raise-or-leave');
+    expect(t.savings.heatKwhPerYear).toBe(0);
+  });
+
+  it('proposes no layer when the existing insulation already meets the target', () => {
+    const plan = loadExample('rectangle.json');
+    const t = computeTakeoff({ ...plan, existing: { depthMm: 300, condition: 'good' } }, { products });
+    expect(t.layers).toEqual([]);
+    expect(t.uValueAfter).toBe(t.uValueBefore);
+    expect(t.savings.moneyMinorPerYear).toBe(0);
+    expect(t.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(['target.below-existing', 'target.already-met']));
+  });
+
+  it('says so when the catalogue cannot reach the target', () => {
+    const plan = loadExample('rectangle.json');
+    const thin = products.filter((p) => p.thicknessMm === 100);
+    const t = computeTakeoff({ ...plan, existing: { depthMm: 0, condition: 'none' }, target: { depthMm: 600 } }, { products: thin, settings: { maxCrossLayers: 2 } });
+    expect(t.warnings.map((w) => w.code)).toContain('target.not-reached');
+    expect(t.thermal.meetsTarget).toBe(false);
+  });
+
+  it('cuts a strip longer than a roll into a full roll length and the rest', () => {
+    const t = computeTakeoff(loadExample('bungalow/main-loft.json'), { products });
+    const layer = t.layers[0];
+    const long = layer.strips.find((s) => s.lengthMm > layer.rollLengthMm)!;
+    expect(long.pieces.length).toBe(Math.ceil(long.lengthMm / layer.rollLengthMm));
+    expect(long.pieces.slice(0, -1).every((p) => p.lengthMm === layer.rollLengthMm)).toBe(true);
+  });
+});
