@@ -10,6 +10,7 @@ import { Invoice } from '../../server/db/models/invoice';
 import { Job } from '../../server/db/models/job';
 import { takeNumber } from '../../server/modules/invoices/invoices.service';
 import { addDays } from '../../server/modules/invoices/invoice-totals';
+import { loadCompanySettings } from '../../server/modules/settings/settings.service';
 import { createJob, createOrgWithUsers, loginAs, type TestOrg } from '../helpers/test-app';
 import { createAcceptedQuote, startPaymentsHarness, type PaymentsHarness } from './payments-fixtures';
 
@@ -147,8 +148,12 @@ describe('invoices', () => {
       await createAcceptedQuote(fresh.id, job.id, h.ctx.config.sessionSecret);
       jobs.push(job);
     }
+    // The company's settings row and default tax rates are created on first use; create them before
+    // the burst (their first creation is not what this test is about, and is not safe to race).
+    await loadCompanySettings(fresh.id);
     // Two of the twelve are asked twice at once: one of each pair must fail and give no number away.
     const results = await Promise.all([...jobs, jobs[3], jobs[7]].map((j) => freshOffice.post('/api/invoices').send({ jobId: j.id, send: false })));
+    expect(results.map((r) => r.status).sort()).toEqual([...Array(12).fill(201), 409, 409]);
     const created = results.filter((r) => r.status === 201).map((r) => r.body.invoice.number as string);
     expect(results.filter((r) => r.status === 409)).toHaveLength(2);
     expect(created.sort()).toEqual(Array.from({ length: 12 }, (_, i) => `INV-${String(i + 1).padStart(6, '0')}`));
