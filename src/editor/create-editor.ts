@@ -19,7 +19,7 @@ export type Editor = ReturnType<typeof createEditor>;
  * The editor without any view: a store plus the tools, driven by pointer and key events in
  * screen pixels. The canvas forwards its events here; the tests drive it directly.
  */
-export function createEditor(plan: Plan, session: Partial<Session> = {}) {
+export function createEditor(plan: Plan, session: Partial<Session> = {}, opts: { readOnly?: boolean } = {}) {
   const store = createEditorStore(plan, session);
   const tools: Record<StepId | 'calibrate', Tool> = {
     outline: createOutlineTool(),
@@ -33,7 +33,8 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}) {
   let calibrating = false;
   let sized = false;
   const ctx: ToolContext = { store, camera: () => store.getState().session.camera };
-  const tool = () => (calibrating ? tools.calibrate : tools[store.getState().session.step]);
+  // Read only (installers): every step only selects and pans.
+  const tool = () => (opts.readOnly ? tools.review : calibrating ? tools.calibrate : tools[store.getState().session.step]);
 
   const toPointer = (p: PointerInput) => {
     const s = screen(p.x, p.y);
@@ -69,6 +70,7 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}) {
   function keyDown(k: KeyInput): boolean {
     const key: ToolKey = { key: k.key, shift: !!k.shift, ctrl: !!k.ctrl, alt: !!k.alt };
     const lower = k.key.toLowerCase();
+    if (opts.readOnly && key.ctrl) return false;
     if (key.ctrl && lower === 'z') {
       if (key.shift) store.redo();
       else store.undo();
@@ -113,6 +115,7 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}) {
       store.setSession({ draft: null, calibration: null });
     },
     isCalibrating: () => calibrating,
+    readOnly: !!opts.readOnly,
     toolState: () => tool().state(),
     /** Wheel: zoom about the pointer (trackpad pinch arrives as wheel + ctrl in browsers). */
     wheel(p: { x: number; y: number; deltaY: number }) {

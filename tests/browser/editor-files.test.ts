@@ -61,6 +61,25 @@ describe('plan files in the editor', () => {
     }
   });
 
+  it('opens read only for the installer assigned to the job, without prices or editing tools', async () => {
+    const browser = await launchBrowser({ viewport: { width: 1024, height: 768 } });
+    try {
+      const plan = planSchema.parse(JSON.parse(read('l-shape.json').toString()));
+      const { space } = await createJob(org, { spaceName: 'Installer loft', plan, assignedInstallerId: org.installer.id });
+      const page = await browser.newPage();
+      await signInThroughUi(page, server.url, org.installer.email, org.installer.password);
+      await page.goto(`${server.url}/spaces/${space.id}/edit`);
+      await page.getByTestId('net-area').waitFor();
+      await page.getByText('Read only', { exact: true }).waitFor();
+      expect(await page.getByTestId('save').count()).toBe(0);
+      expect(await page.getByTestId('wall-run').count()).toBe(0);
+      expect(await page.getByTestId('undo').count()).toBe(0);
+      await screenshot(page, 'editor-installer-read-only');
+    } finally {
+      await browser.close();
+    }
+  });
+
   it('fits a tablet screen in landscape', async () => {
     const browser = await launchBrowser({ viewport: { width: 1024, height: 768 } });
     try {

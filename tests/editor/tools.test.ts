@@ -171,3 +171,15 @@ describe('eaves tool and global keys', () => {
     expect(ed.store.getState().session.camera.zoom).toBeGreaterThan(cam.zoom);
   });
 });
+
+describe('read-only editor', () => {
+  it('pans and selects but never changes the plan', () => {
+    const ed = createEditor(rectPlan(), { camera }, { readOnly: true });
+    const before = ed.store.getState().plan;
+    drag(ed, [8400, 5200], [9000, 6000]);
+    ed.keyDown({ key: 'Delete' });
+    ed.keyDown({ key: 'z', ctrl: true });
+    expect(ed.store.getState().plan).toBe(before);
+    expect(ed.store.getState().session.camera).not.toEqual(camera); // the drag panned instead
+  });
+});

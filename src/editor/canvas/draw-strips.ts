@@ -48,7 +48,7 @@ export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
   });
 }
 
-/** Lay-direction arrows, one per layer, in a key at the top-left corner of the view. */
+/** Lay-direction arrows, one per layer, in a key at the bottom-left corner of the view. */
 export function drawLayArrows(d: DrawContext, t: DrawnTakeoff) {
   const { ctx } = d;
   if (!t.layers.length) return;
@@ -61,10 +61,12 @@ export function drawLayArrows(d: DrawContext, t: DrawnTakeoff) {
   ctx.fillStyle = 'rgba(250,247,240,0.92)';
   ctx.strokeStyle = PALETTE.paperLineStrong;
   ctx.lineWidth = 1;
-  ctx.fillRect(8, 8, w, 12 + t.layers.length * 30);
-  ctx.strokeRect(8.5, 8.5, w, 12 + t.layers.length * 30);
+  const h = 12 + t.layers.length * 30;
+  const top = d.height - 8 - h;
+  ctx.fillRect(8, top, w, h);
+  ctx.strokeRect(8.5, top + 0.5, w, h);
   t.layers.forEach((layer, i) => {
-    const x = 30, y = 29 + i * 30;
+    const x = 30, y = top + 21 + i * 30;
     const a = (layer.layAngleDeg * Math.PI) / 180;
     const ux = Math.cos(a), uy = Math.sin(a);
     const colour = layer.role === 'base' ? PALETTE.strawDark : PALETTE.teal;

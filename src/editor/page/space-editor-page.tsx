@@ -29,7 +29,7 @@ export default function SpaceEditorPage() {
 }
 
 function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }) {
-  const [editor] = useState(() => createEditor(data.plan, data.canWrite ? {} : { step: 'review' }));
+  const [editor] = useState(() => createEditor(data.plan, data.canWrite ? {} : { step: 'review' }, { readOnly: !data.canWrite }));
   const p = usePlanPersistence(editor, spaceId, { plan: data.plan, revision: data.revision }, data.canWrite);
   const importInput = useRef<HTMLInputElement>(null);
 

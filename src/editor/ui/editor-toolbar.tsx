@@ -13,9 +13,13 @@ export function EditorToolbar({ children }: { children?: ReactNode }) {
   return (
     <div className="flex flex-wrap items-center gap-2 border-b border-graphite/15 bg-paper-dark/60 px-3 py-1.5">
       <h1 className="mr-2 truncate font-semibold" data-testid="plan-name">{name}</h1>
-      <button type="button" className={btn} disabled={!canUndo} onClick={() => editor.undo()} title="Undo (Ctrl+Z)" data-testid="undo">↶ Undo</button>
-      <button type="button" className={btn} disabled={!canRedo} onClick={() => editor.redo()} title="Redo (Ctrl+Shift+Z)" data-testid="redo">↷ Redo</button>
-      <span className="mx-1 h-5 w-px bg-graphite/20" />
+      {!editor.readOnly && (
+        <>
+          <button type="button" className={btn} disabled={!canUndo} onClick={() => editor.undo()} title="Undo (Ctrl+Z)" data-testid="undo">↶ Undo</button>
+          <button type="button" className={btn} disabled={!canRedo} onClick={() => editor.redo()} title="Redo (Ctrl+Shift+Z)" data-testid="redo">↷ Redo</button>
+          <span className="mx-1 h-5 w-px bg-graphite/20" />
+        </>
+      )}
       <button type="button" className={btn} onClick={() => editor.zoomBy(0.8)} title="Zoom out (−)">−</button>
       <button type="button" className={btn} onClick={() => editor.zoomBy(1.25)} title="Zoom in (+)">+</button>
       <button type="button" className={btn} onClick={() => editor.fit()} title="Fit (F)" data-testid="fit">Fit</button>

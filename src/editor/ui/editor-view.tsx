@@ -52,7 +52,7 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
     <EditorContext.Provider value={editor}>
       <div className="flex h-full min-h-0 flex-col bg-paper" data-testid="plan-editor">
         <EditorToolbar>
-          <BackgroundControls onUpload={onUploadBackground} />
+          {!editor.readOnly && <BackgroundControls onUpload={onUploadBackground} />}
           {toolbar}
         </EditorToolbar>
         <div className="flex min-h-0 flex-1">
@@ -73,12 +73,13 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
         <div className="border-t border-graphite/15 bg-paper px-3 py-2">
           <StepHint />
           <div className="mt-1.5">
-            {step === 'outline' && <OutlineTools />}
-            {step === 'joists' && <JoistsTools />}
-            {step === 'exclusions' && <ExclusionsTools />}
-            {step === 'eaves' && <EavesTools />}
-            {step === 'layers' && <LayersTools products={products} />}
-            {step === 'review' && <p className="text-sm text-graphite-light">Read the takeoff on the right; go back to any step to change it.</p>}
+            {editor.readOnly && <p className="text-sm text-graphite-light">Read only: you can look around the plan and the takeoff.</p>}
+            {editor.readOnly ? null : step === 'outline' && <OutlineTools />}
+            {!editor.readOnly && step === 'joists' && <JoistsTools />}
+            {!editor.readOnly && step === 'exclusions' && <ExclusionsTools />}
+            {!editor.readOnly && step === 'eaves' && <EavesTools />}
+            {!editor.readOnly && step === 'layers' && <LayersTools products={products} />}
+            {!editor.readOnly && step === 'review' && <p className="text-sm text-graphite-light">Read the takeoff on the right; go back to any step to change it.</p>}
           </div>
         </div>
         <StepsBar />
