@@ -132,6 +132,14 @@ describe('invoices', () => {
     const changed = await office.patch(`/api/invoices/${inv.id}`).send({ variations: [VARIATION] });
     expect(changed.status).toBe(200);
     expect(changed.body.invoice).toMatchObject({ totalMinor: 60694, balanceMinor: 46300 });
+    // A credit note on an unpaid invoice lowers what is left to pay (nothing to refund), and then the
+    // invoice itself is frozen too.
+    const refundRefused = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }], refund: true });
+    expect([refundRefused.status, refundRefused.body.error.details[0].path]).toEqual([422, 'refund']);
+    const cn = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }] });
+    expect(cn.body.creditNote.totalMinor).toBe(1200); // £10.00 + 20 % VAT
+    expect((await office.get(`/api/invoices/${inv.id}`)).body.invoice).toMatchObject({ creditedMinor: 1200, balanceMinor: 46300 - 1200, status: 'issued' });
+    expect((await office.patch(`/api/invoices/${inv.id}`).send({ notes: 'x' })).body.error.code).toBe('invoice_credited');
     await Invoice.update({ issueDate: '2026-01-01', dueDate: '2026-01-15' }, { where: { id: inv.id } });
     const overdue = (await office.get('/api/invoices?status=overdue')).body.invoices;
     expect(overdue.map((i: { id: string }) => i.id)).toContain(inv.id);

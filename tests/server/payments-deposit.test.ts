@@ -166,6 +166,24 @@ describe('deposit on acceptance', () => {
     expect((await Payment.findOne({ where: { checkoutSessionId: session.id } }))!.status).toBe('paid');
   });
 
+  it('counts no money it did not ask for, and marks an expired checkout expired (signed events the real service sends)', async () => {
+    const { job, link } = await newAcceptedQuote();
+    const session = await startCheckout(link);
+    const send = (id: string, type: string, object: object) => {
+      const body = JSON.stringify({ id, object: 'event', type, data: { object: { ...session, ...object } } });
+      return webhook(body, signWebhookPayload(body, WEBHOOK_SECRET));
+    };
+    expect((await send('evt_test_short_1', 'checkout.session.completed', { status: 'complete', payment_status: 'paid', amount_total: DEPOSIT - 1, payment_intent: 'pi_short' })).status).toBe(200);
+    expect((await Payment.findOne({ where: { checkoutSessionId: session.id } }))!.status).toBe('open');
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: 'payment_mismatch' } })).toBe(1);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: 'deposit_paid' } })).toBe(0);
+    expect((await send('evt_test_expired_1', 'checkout.session.expired', { status: 'expired' })).status).toBe(200);
+    expect((await Payment.findOne({ where: { checkoutSessionId: session.id } }))!.status).toBe('expired');
+    // An event about a session we never opened is acknowledged and ignored.
+    const stray = JSON.stringify({ id: 'evt_test_stray_1', object: 'event', type: 'checkout.session.completed', data: { object: { id: 'cs_test_not_ours', payment_status: 'paid', amount_total: 1, currency: 'gbp' } } });
+    expect((await webhook(stray, signWebhookPayload(stray, WEBHOOK_SECRET))).body).toEqual({ received: true, duplicate: false });
+  });
+
   it('a cancelled checkout pays nothing and the customer can try again; the old checkout is expired', async () => {
     const { job, quote, link } = await newAcceptedQuote();
     const first = await startCheckout(link);
