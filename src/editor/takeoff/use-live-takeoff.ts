@@ -19,6 +19,7 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
   const busy = useRef(false);
   const pending = useRef<{ plan: Plan; products: TakeoffProduct[]; settings?: Partial<TakeoffSettings> } | null>(null);
   const seq = useRef(0);
+  const last = useRef<{ plan: Plan; products: TakeoffProduct[]; settings?: Partial<TakeoffSettings> } | null>(null);
 
   useEffect(() => {
     if (typeof Worker === 'undefined') return;
@@ -32,8 +33,12 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
       if (next) send(next);
     };
     w.onerror = () => {
+      // A worker that cannot start (or crashed): compute in place from now on, starting with the newest plan.
       worker.current = null;
       busy.current = false;
+      const latest = pending.current ?? last.current;
+      pending.current = null;
+      if (latest) send(latest);
     };
     return () => {
       w.terminate();
@@ -44,6 +49,7 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
   }, []);
 
   function send(input: { plan: Plan; products: TakeoffProduct[]; settings?: Partial<TakeoffSettings> }) {
+    last.current = input;
     const id = ++seq.current;
     if (!worker.current) {
       // Loaded only here, so the editor chunk does not carry a second copy of the engine.
