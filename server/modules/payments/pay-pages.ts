@@ -10,6 +10,7 @@ export function payPageCsp(checkoutOrigins: string[]): string {
     "default-src 'self'",
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data:",
+    "font-src 'self'",
     `form-action 'self' ${checkoutOrigins.join(' ')}`,
     "frame-ancestors 'none'",
     "base-uri 'self'",
@@ -22,6 +23,9 @@ export function payLayout(title: string, body: string, opts: { company?: string;
 ${opts.refreshSeconds ? `<meta http-equiv="refresh" content="${opts.refreshSeconds}">` : ''}
 <title>${escapeHtml(title)}${opts.company ? ` — ${escapeHtml(opts.company)}` : ''}</title>
 <style>
+  @font-face { font-family: Inter; font-weight: 400; font-display: swap; src: url(/pay/fonts/inter-400.woff2) format('woff2'); }
+  @font-face { font-family: Inter; font-weight: 600; font-display: swap; src: url(/pay/fonts/inter-600.woff2) format('woff2'); }
+  @font-face { font-family: Inter; font-weight: 700; font-display: swap; src: url(/pay/fonts/inter-700.woff2) format('woff2'); }
   :root { color-scheme: light; }
   body { margin: 0; font: 16px/1.55 Inter, system-ui, sans-serif; color: #33363b; background: #faf7f0;
     background-image: linear-gradient(#e7e0cf 1px, transparent 1px), linear-gradient(90deg, #e7e0cf 1px, transparent 1px); background-size: 40px 40px; }

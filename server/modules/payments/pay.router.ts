@@ -1,6 +1,7 @@
 import { linkSecret } from '../quotes/quote-send.service';
 import express, { Router, type Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
+import { createRequire } from 'node:module';
 import type { AppDeps } from '../../deps';
 import { CompanySetting } from '../../db/models/company-setting';
 import { Invoice } from '../../db/models/invoice';
@@ -33,6 +34,16 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     res.setHeader('Referrer-Policy', 'no-referrer');
     next();
   });
+
+  // The pages' own font (Inter, shipped with the app as @fontsource files; no CDN).
+  const require = createRequire(import.meta.url);
+  for (const weight of ['400', '600', '700']) {
+    const file = require.resolve(`@fontsource/inter/files/inter-latin-${weight}-normal.woff2`);
+    r.get(`/fonts/inter-${weight}.woff2`, (_req, res) => {
+      res.setHeader('Cache-Control', 'public, max-age=86400');
+      res.type('font/woff2').sendFile(file);
+    });
+  }
 
   const companyName = async (organisationId: string) => (await CompanySetting.findByPk(organisationId))?.companyName ?? '';
   const send = (res: Response, status: number, html: string) => res.status(status).type('html').send(html);
