@@ -56,11 +56,6 @@ interface Trap {
   r1: number;
 }
 
-interface Crossing {
-  m: number;
-  at0: number;
-  at1: number;
-}
 
 const EPS = 1e-7;
 
@@ -81,15 +76,22 @@ function insertionSortNumbers(a: number[]): void {
   }
 }
 
-function insertionSortCrossings(a: Crossing[]): void {
-  for (let i = 1; i < a.length; i++) {
-    const v = a[i];
+/** Sorts the first `n` crossings by `m`, moving `at0`/`at1` along (insertion sort: n is small). */
+function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n: number): void {
+  for (let i = 1; i < n; i++) {
+    const vm = m[i];
+    const v0 = at0[i];
+    const v1 = at1[i];
     let j = i - 1;
-    while (j >= 0 && a[j].m > v.m) {
-      a[j + 1] = a[j];
+    while (j >= 0 && m[j] > vm) {
+      m[j + 1] = m[j];
+      at0[j + 1] = at0[j];
+      at1[j + 1] = at1[j];
       j--;
     }
-    a[j + 1] = v;
+    m[j + 1] = vm;
+    at0[j + 1] = v0;
+    at1[j + 1] = v1;
   }
 }
 
@@ -129,7 +131,11 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
   const out: BandPiece[] = [];
   let active: Edge[] = [];
   const cuts: number[] = [];
-  const xs: Crossing[] = [];
+  // Crossings of the current sub-slab in parallel typed arrays: no object per crossing.
+  let cap = 64;
+  let xm = new Float64Array(cap);
+  let x0 = new Float64Array(cap);
+  let x1 = new Float64Array(cap);
   for (let bi = 0; bi < bands.length; bi++) {
     const lo = bands[bi].loMm;
     const hi = bands[bi].hiMm;
@@ -158,17 +164,26 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
       const y0 = ys[si];
       const y1 = ys[si + 1];
       const ym = (y0 + y1) / 2;
-      xs.length = 0;
+      if (w > cap) {
+        cap = w * 2;
+        xm = new Float64Array(cap);
+        x0 = new Float64Array(cap);
+        x1 = new Float64Array(cap);
+      }
+      let nx = 0;
       for (let k = 0; k < w; k++) {
         const e = active[k];
         if (e.ya < ym && e.yb > ym) {
           const slope = (e.xb - e.xa) / (e.yb - e.ya);
-          xs.push({ m: e.xa + slope * (ym - e.ya), at0: e.xa + slope * (Math.max(y0, e.ya) - e.ya), at1: e.xa + slope * (Math.min(y1, e.yb) - e.ya) });
+          xm[nx] = e.xa + slope * (ym - e.ya);
+          x0[nx] = e.xa + slope * (Math.max(y0, e.ya) - e.ya);
+          x1[nx] = e.xa + slope * (Math.min(y1, e.yb) - e.ya);
+          nx++;
         }
       }
-      insertionSortCrossings(xs);
-      for (let k = 0; k + 1 < xs.length; k += 2) {
-        traps.push({ y0, y1, l0: xs[k].at0, l1: xs[k].at1, r0: xs[k + 1].at0, r1: xs[k + 1].at1 });
+      sortCrossings(xm, x0, x1, nx);
+      for (let k = 0; k + 1 < nx; k += 2) {
+        traps.push({ y0, y1, l0: x0[k], l1: x1[k], r0: x0[k + 1], r1: x1[k + 1] });
       }
     }
     slabStart.push(traps.length);
