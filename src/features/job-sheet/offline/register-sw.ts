@@ -1,10 +1,12 @@
 /**
  * Registers the service worker (public/sw.js) and asks it to keep what this page needs offline:
  * the scripts, styles and fonts already loaded, plus `extra` (e.g. the job sheet's API URL).
- * Resolves with the number of files kept, or null where service workers are unavailable.
+ * Resolves with the number of files kept, or null where service workers are unavailable (and in `npm run dev`).
  */
 export async function keepForOffline(extra: string[]): Promise<number | null> {
   if (typeof navigator === 'undefined' || !('serviceWorker' in navigator)) return null;
+  // Only the built app: under the Vite dev server a cache-first worker would serve stale modules.
+  if (!import.meta.env.PROD) return null;
   await navigator.serviceWorker.register('/sw.js', { scope: '/' });
   const reg = await navigator.serviceWorker.ready;
   const worker = reg.active;
