@@ -140,6 +140,17 @@ describe('deposit on acceptance', () => {
     expect((await office.get(`/api/payments/deposits/${quote.id}`)).body.deposit.attempts).toBe(1);
   });
 
+  it('the same event delivered five times at once is applied exactly once', async () => {
+    const { job, link } = await newAcceptedQuote();
+    const session = await startCheckout(link);
+    const body = JSON.stringify({ id: 'evt_test_burst_1', object: 'event', type: 'checkout.session.completed', data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_burst' } } });
+    const sig = signWebhookPayload(body, WEBHOOK_SECRET);
+    const results = await Promise.all(Array.from({ length: 5 }, () => webhook(body, sig)));
+    expect(results.map((r) => r.status)).toEqual([200, 200, 200, 200, 200]);
+    expect(results.filter((r) => r.body.duplicate === false)).toHaveLength(1);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: 'deposit_paid' } })).toBe(1);
+  });
+
   it('refuses unsigned, wrongly signed, stale and tampered webhooks with 400 and changes nothing', async () => {
     const { job, link } = await newAcceptedQuote();
     const session = await startCheckout(link);
