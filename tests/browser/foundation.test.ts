@@ -44,7 +44,10 @@ afterAll(async () => {
 /** A new tab with no session left over from the previous test (the profile's cookies are shared). */
 async function freshPage(browser: Awaited<ReturnType<typeof launchBrowser>>): Promise<Page> {
   await browser.context.clearCookies();
-  return browser.newPage();
+  const page = await browser.newPage();
+  // Fail on the step that is stuck, well inside the test's own time limit.
+  page.setDefaultTimeout(10_000);
+  return page;
 }
 
 /** Link texts of the visible main navigation. */
@@ -117,6 +120,48 @@ describe('foundation in a real browser', () => {
     await page.goto(`${app.url}/outbox`);
     await page.getByRole('heading', { name: 'Outbox' }).waitFor();
     await screenshot(page, 'foundation-office-outbox-1280');
+    await page.close();
+  });
+
+  it('invites a colleague, who follows the e-mailed link once, sets a password and signs in', async () => {
+    const email = `nell.${Date.now().toString(36)}@demo.example.com`;
+    const page = await freshPage(desktop);
+    await signInThroughUi(page, app.url, 'office@demo.example.com', DEMO_PASSWORD);
+    await page.goto(`${app.url}/users`);
+    await page.getByRole('button', { name: 'Invite a colleague' }).click();
+    const form = page.getByRole('form', { name: 'Invite a colleague' });
+    await form.getByLabel('Name').fill('Nell Ashworth');
+    await form.getByLabel('E-mail').fill(email);
+    await form.getByLabel('Role', { exact: true }).selectOption('estimator');
+    await form.getByRole('button', { name: 'Send invitation' }).click();
+    await page.getByText(`Invitation sent to ${email}`).waitFor();
+
+    await page.goto(`${app.url}/outbox`);
+    const message = page.getByRole('listitem').filter({ hasText: `to ${email}` });
+    const link = message.getByRole('link', { name: /\/set-password\?token=/ });
+    // The newest message opens by itself; open it if something newer arrived in between.
+    await message.waitFor();
+    if ((await message.getByRole('button').getAttribute('aria-expanded')) !== 'true') await message.getByRole('button').click();
+    const href = await link.getAttribute('href');
+    expect(new URL(href!).origin).toBe(app.url);
+    await screenshot(page, 'foundation-office-outbox-invite-1280');
+    await signOut(page);
+
+    await page.goto(href!);
+    await page.getByLabel('New password').fill('a roll of straw for the loft');
+    await page.getByLabel('Repeat the password').fill('a roll of straw for the loft');
+    await page.getByRole('button', { name: 'Save password' }).click();
+    await page.getByText('Your password is set').waitFor();
+
+    // The link works once.
+    await page.goto(href!);
+    await page.getByLabel('New password').fill('another password entirely');
+    await page.getByLabel('Repeat the password').fill('another password entirely');
+    await page.getByRole('button', { name: 'Save password' }).click();
+    await expect(page.getByRole('alert').textContent()).resolves.toMatch(/already been used|expired|invalid/i);
+
+    await signInThroughUi(page, app.url, email, 'a roll of straw for the loft');
+    expectNav(await navLinks(page), ['Jobs', 'Customers'], ['Users', 'Outbox']);
     await page.close();
   });
 

@@ -11,8 +11,9 @@ export function getOutbox(signal?: AbortSignal): Promise<OutboxResponse> {
 
 export const outboxQueryOptions = () => queryOptions({ queryKey: outboxKeys.all, queryFn: ({ signal }) => getOutbox(signal) });
 
+/** The outbox page's list; it checks again every few seconds, as mail arrives after the request that sent it. */
 export function useOutbox() {
-  return useQuery(outboxQueryOptions());
+  return useQuery({ ...outboxQueryOptions(), refetchInterval: 3000 });
 }
 
 /**
