@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Layer, Shape, Stage } from 'react-konva';
 import type { Context } from 'konva/lib/Context';
 import type { Plan } from '../../../shared/plan/plan-schema';
@@ -50,6 +50,11 @@ export function PlanStage({ editor, takeoff, issues }: Props) {
   const draw = (fn: (d: DrawContext) => void) => (kctx: Context) => {
     fn({ ctx: kctx._context as CanvasRenderingContext2D, cam, width: size.width, height: size.height });
   };
+  // Same function while camera and size stay, so react-konva leaves the paper layer alone.
+  const paperFunc = useMemo(
+    () => (kctx: Context) => drawPaper({ ctx: kctx._context as CanvasRenderingContext2D, cam, width: size.width, height: size.height }),
+    [cam, size.width, size.height],
+  );
   const selEdge = session.selection?.kind === 'edge' ? session.selection.index : null;
   const selExcl = session.selection?.kind === 'exclusion' ? session.selection.index : null;
   const showStrips = session.step === 'layers' || session.step === 'review';
@@ -67,9 +72,12 @@ export function PlanStage({ editor, takeoff, issues }: Props) {
     >
       {size.width > 0 && (
         <Stage width={size.width} height={size.height} listening={false}>
+          {/* Paper and underlay change only with the camera: their own layer is not redrawn by a drag. */}
           <Layer listening={false}>
-            <Shape sceneFunc={draw(drawPaper)} perfectDrawEnabled={false} />
+            <Shape sceneFunc={paperFunc} perfectDrawEnabled={false} />
             {plan.background && <BackgroundImage background={plan.background} camera={cam} />}
+          </Layer>
+          <Layer listening={false}>
             <Shape sceneFunc={draw((d) => drawLoft(d, plan, session, takeoff, showStrips, selExcl))} perfectDrawEnabled={false} />
             <Shape sceneFunc={draw((d) => drawOutline(d, plan, session.units, selEdge))} perfectDrawEnabled={false} />
             <Shape sceneFunc={draw((d) => { drawIssues(d, issues); if (showStrips && takeoff) drawLayArrows(d, takeoff); })} perfectDrawEnabled={false} />
