@@ -6,20 +6,20 @@
  * once, so the PDF, the API and the payment service agree to the penny.
  */
 import PDFDocument from 'pdfkit';
-import { createRequire } from 'node:module';
 import type { Invoice } from '../../../shared/api/invoices';
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
+import { FONTS, INK } from '../../lib/pdf/fonts';
 
-const require = createRequire(import.meta.url);
-const FONT_REGULAR = require.resolve('@expo-google-fonts/inter/400Regular/Inter_400Regular.ttf');
-const FONT_SEMIBOLD = require.resolve('@expo-google-fonts/inter/600SemiBold/Inter_600SemiBold.ttf');
+// The app's shipped TTFs and palette, shared with the quote and job sheet PDFs.
+const FONT_REGULAR = FONTS.regular;
+const FONT_SEMIBOLD = FONTS.semibold;
 
-const GRAPHITE = '#33363b';
-const GRAPHITE_LIGHT = '#5b6068';
-const TIMBER = '#8a5a2b';
-const PAPER_LINE = '#e7e0cf';
-const BRICK = '#b0462f';
+const GRAPHITE = INK.graphite;
+const GRAPHITE_LIGHT = INK.graphiteLight;
+const TIMBER = INK.timber;
+const PAPER_LINE = INK.paperLine;
+const BRICK = INK.brick;
 
 export interface CompanyDetails {
   name: string;
