@@ -3,6 +3,7 @@ import { EXCLUSION_KINDS } from '../plan/plan-schema';
 import { circlePolygon, polygonBuffer } from '../geometry/offset';
 import { differencePolygons, intersectPolygons } from '../geometry/boolean';
 import { clipRingByConvex } from '../geometry/clip-convex';
+import { subtractShapes } from './isolated-holes';
 import { multiPolygonArea, polygonArea, polygonBounds, polygonSignedArea, ringWithPositiveArea, type MultiPolygon, type PolygonWithHoles } from '../geometry/polygon';
 import type { Vec2 } from '../geometry/vector';
 import type { TakeoffSettings } from './settings';
@@ -88,11 +89,11 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
     eavesBands.push({ edgeIndex, polygon: band, areaMm2: polygonArea(band), edgeLengthMm: len, rect });
   }
   const rects = eavesBands.filter((b) => b.rect.length).map((b) => [b.rect]);
-  // polygon-clipping's cost grows with every vertex it sweeps, and the outline and exclusions
-  // dominate: sweep them once. Layer region = outline − (exclusions ∪ bands). The net area adds
+  // polygon-clipping's cost grows with every vertex it sweeps: sweep once, and only what touches
+  // something (see subtractShapes). Layer region = outline − (exclusions ∪ bands). The net area adds
   // back the bands' part of the loft that no exclusion covers, computed from the bands and only
   // the exclusions whose bounds touch them.
-  const layerRegion = allShapes.length || rects.length ? differencePolygons(outlinePoly, [...allShapes, ...rects]) : [[outline]];
+  const layerRegion = allShapes.length || rects.length ? subtractShapes(outline, allShapes, rects.map((r) => r[0])) : [[outline]];
   const layerAreaMm2 = allShapes.length || rects.length ? multiPolygonArea(layerRegion) : grossAreaMm2;
   let netAreaMm2 = layerAreaMm2;
   if (rects.length) {
