@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { JOB_SORTS, JOB_STAGES, type JobStage } from '../../../../shared/api/jobs';
 import { Button, Field, Input, Select, STAGE_LABELS } from '../../../components/ui';
 
@@ -22,20 +23,29 @@ export function JobFilters({
   onChange: (next: Partial<JobFilterValues>) => void;
   installers: Array<{ id: string; name: string }> | null;
 }) {
+  // On a phone only the search box shows until the person asks for the rest.
+  const [open, setOpen] = useState(false);
+  const active = (value.stage ? 1 : 0) + (value.installerId ? 1 : 0);
   return (
     <div
       className={`mb-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-white/60 p-3 ${
         installers ? 'sm:grid-cols-2 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1fr)_minmax(0,1.4fr)]' : 'sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.4fr)]'
       }`}
     >
-      <Field label="Search">
-        <Input
-          type="search"
-          placeholder="Name, address, postcode or ref"
-          value={value.q}
-          onChange={(e) => onChange({ q: e.target.value })}
-        />
-      </Field>
+      <div className="flex items-end gap-2">
+        <Field label="Search" className="min-w-0 flex-1">
+          <Input
+            type="search"
+            placeholder="Name, address, postcode or ref"
+            value={value.q}
+            onChange={(e) => onChange({ q: e.target.value })}
+          />
+        </Field>
+        <Button variant="secondary" className="h-10 shrink-0 sm:hidden" aria-expanded={open} aria-controls="job-filters-more" onClick={() => setOpen((o) => !o)}>
+          Filters{active ? ` (${active})` : ''}
+        </Button>
+      </div>
+      <div id="job-filters-more" className={`${open ? 'grid' : 'hidden'} grid-cols-1 gap-3 sm:contents`}>
       <Field label="Stage">
         <Select value={value.stage} onChange={(e) => onChange({ stage: e.target.value as JobStage | '' })}>
           <option value="">All stages</option>
@@ -76,6 +86,7 @@ export function JobFilters({
         >
           {value.dir === 'asc' ? '↑ Asc' : '↓ Desc'}
         </Button>
+      </div>
       </div>
     </div>
   );
