@@ -51,6 +51,14 @@ describe('company settings', () => {
       .toEqual(expect.arrayContaining([['2023-05-01', 0], ['2027-04-01', 500]]));
   });
 
+  it('creates a new company\'s settings once even when many first requests arrive together', async () => {
+    const fresh = await createOrgWithUsers();
+    const office = await loginAs(ctx.app, fresh.office);
+    const results = await Promise.all(Array.from({ length: 8 }, (_, i) => office.get(i % 2 ? '/api/settings' : '/api/catalogue/tax-rates')));
+    expect(results.map((r) => r.status)).toEqual(Array(8).fill(200));
+    expect((await office.get('/api/catalogue/tax-rates')).body.items).toHaveLength(4);
+  });
+
   it('saves the office\'s changes and names the field it refuses', async () => {
     const office = await loginAs(ctx.app, org.office);
     const current = (await office.get('/api/settings')).body.settings;

@@ -41,14 +41,16 @@ export async function loadCompanySettings(organisationId: string): Promise<Compa
   if (existing) return existing;
   const org = await Organisation.findByPk(organisationId);
   if (!org) throw new NotFoundError('organisation');
-  const [row] = await CompanySetting.findOrCreate({
-    where: { organisationId },
-    defaults: { organisationId, ...defaultCompanySettings(org.name) } as never,
-  });
+  // Several first requests may arrive at once: INSERT … ON CONFLICT DO NOTHING (and the unique
+  // (organisation, class, valid_from) index on tax rates) makes the first creation idempotent.
+  await CompanySetting.bulkCreate([{ organisationId, ...defaultCompanySettings(org.name) } as never], { ignoreDuplicates: true });
   if ((await TaxRate.count({ where: { organisationId } })) === 0) {
-    await TaxRate.bulkCreate(DEFAULT_TAX_RATES.map((r) => ({ organisationId, taxClass: r.taxClass, rateBp: r.rateBp, validFrom: r.validFrom, label: r.label ?? '' })) as never);
+    await TaxRate.bulkCreate(
+      DEFAULT_TAX_RATES.map((r) => ({ organisationId, taxClass: r.taxClass, rateBp: r.rateBp, validFrom: r.validFrom, label: r.label ?? '' })) as never,
+      { ignoreDuplicates: true },
+    );
   }
-  return row;
+  return (await CompanySetting.findByPk(organisationId))!;
 }
 
 /**
