@@ -64,8 +64,9 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     send(res, 200, payLayout(`Deposit for quote ${quote.number}`, `
       <p>Thank you for accepting quote ${escapeHtml(quote.number)}. To book the work, please pay the deposit by card.</p>
       <div class="amount" data-testid="deposit-amount">${money(status.amountMinor, status.currency)}</div>
-      <form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay deposit by card</button></form>
-      <p class="note">You will be taken to our card payment page. The remaining balance is invoiced after the work is done.</p>`, { company }));
+      ${ctx.gateway
+        ? '<form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay deposit by card</button></form><p class="note">You will be taken to our card payment page. The remaining balance is invoiced after the work is done.</p>'
+        : '<p class="warn">Card payment is not available here at the moment: we will contact you about paying the deposit.</p>'}`, { company }));
   });
 
   r.post('/deposit/:link', async (req, res) => {
@@ -94,7 +95,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     send(res, 200, payLayout(`Invoice ${d.number}`, `
       ${d.overdue ? '<p class="warn">This invoice is overdue.</p>' : ''}
       <p>Balance to pay</p><div class="amount" data-testid="balance">${money(d.balanceMinor, d.currency)}</div>${rows}
-      <form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay by card</button>${pdf}</form>`, { company }));
+      ${ctx.gateway ? `<form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay by card</button>${pdf}</form>` : `<p class="warn">Card payment is not available here at the moment: please pay as agreed with us.</p><div class="actions">${pdf}</div>`}`, { company }));
   });
 
   r.post('/invoice/:token', async (req, res) => {
