@@ -265,12 +265,15 @@ function bandPieces(bi: number, traps: Trap[], slabStart: number[], minAreaMm2: 
   }
 }
 
-/** Outline of an unbranched run (one trapezoid per consecutive sub-slab): up the left side, down the right. */
+/**
+ * Outline of an unbranched run (one trapezoid per consecutive sub-slab): up the left side, down
+ * the right. Both ends of every side are kept: where the region steps at a sub-slab boundary (an
+ * inside corner of an L), one trapezoid's top end differs from the next one's bottom end.
+ */
 function runOutline(g: Trap[]): Vec2[] {
-  const pts: Vec2[] = [[g[0].l0, g[0].y0]];
-  for (const t of g) pts.push([t.l1, t.y1]);
-  for (let i = g.length - 1; i >= 0; i--) pts.push([g[i].r1, g[i].y1]);
-  pts.push([g[0].r0, g[0].y0]);
+  const pts: Vec2[] = [];
+  for (const t of g) pts.push([t.l0, t.y0], [t.l1, t.y1]);
+  for (let i = g.length - 1; i >= 0; i--) pts.push([g[i].r1, g[i].y1], [g[i].r0, g[i].y0]);
   return simplifyRing(pts);
 }
 

@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { clipRegionToBands, type Band, type Vec2 } from '../../shared/geometry';
+import { jstsPolygon } from './helpers/jsts-oracle';
+import { arbStarPolygon } from './helpers/arbitraries';
+
+/** Bands of a given width covering the y-range of the rings. */
+function bandsOver(rings: Vec2[][], widthMm: number): Band[] {
+  const ys = rings.flat().map((p) => p[1]);
+  const lo = Math.min(...ys);
+  const hi = Math.max(...ys);
+  const out: Band[] = [];
+  for (let y = lo; y < hi; y += widthMm) out.push({ loMm: y, hiMm: Math.min(y + widthMm, hi) });
+  return out;
+}
+
+/** Area of a piece's drawn outlines, measured by jsts (an independent planar library). */
+function outlinedAreaByJsts(polygons: Vec2[][]): number {
+  return polygons.reduce((sum, ring) => {
+    const g = jstsPolygon([ring]);
+    expect(g.isValid()).toBe(true);
+    return sum + g.getArea();
+  }, 0);
+}
+
+describe('band piece outlines', () => {
+  it('keep the inside corner of an L where a band steps from the long to the short wing', () => {
+    // An L: 5000 deep for s < 3500, only 3000 deep beyond; one band spans the step at t = 3500.
+    const l: Vec2[] = [[0, 0], [5000, 0], [5000, 3500], [3000, 3500], [3000, 9000], [0, 9000]];
+    const pieces = clipRegionToBands([l], [{ loMm: 2580, hiMm: 3720 }]);
+    expect(pieces).toHaveLength(1);
+    const [piece] = pieces;
+    // By hand: 5000 × (3500 − 2580) + 3000 × (3720 − 3500) = 4,600,000 + 660,000 mm².
+    expect(piece.areaMm2).toBeCloseTo(5_260_000, 3);
+    expect(outlinedAreaByJsts(piece.polygons)).toBeCloseTo(5_260_000, 3);
+    expect(piece.polygons[0]).toContainEqual([3000, 3500]);
+  });
+
+  it('outline exactly the area they report on random simple polygons (jsts as oracle)', () => {
+    fc.assert(
+      fc.property(arbStarPolygon(), fc.integer({ min: 150, max: 1200 }), (ring, widthMm) => {
+        for (const piece of clipRegionToBands([ring], bandsOver([ring], widthMm))) {
+          expect(Math.abs(outlinedAreaByJsts(piece.polygons) - piece.areaMm2)).toBeLessThan(1e-6 * piece.areaMm2 + 1);
+        }
+      }),
+      { numRuns: 150 },
+    );
+  });
+});
