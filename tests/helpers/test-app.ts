@@ -44,9 +44,15 @@ async function releaseSequelize() {
   await s.close();
 }
 
-/** The URL of this run's database (created and migrated by tests/helpers/global-setup.ts). */
+/**
+ * The URL of this worker's database (created and migrated by tests/helpers/global-setup.ts; one
+ * per worker, so the test files sharing it run one at a time).
+ */
 export function testDatabaseUrl(): string {
-  return inject('databaseUrl') ?? process.env.TEST_DATABASE_URL!;
+  const urls = inject('databaseUrls');
+  if (!urls?.length) return inject('databaseUrl') ?? process.env.TEST_DATABASE_URL!;
+  const worker = Math.max(1, Number(process.env.VITEST_POOL_ID ?? 1));
+  return urls[(worker - 1) % urls.length];
 }
 
 /**
