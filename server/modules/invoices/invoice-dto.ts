@@ -1,9 +1,10 @@
 import type { Invoice as InvoiceDto, InvoiceSummary } from '../../../shared/api/invoices';
 import type { Invoice } from '../../db/models/invoice';
 import type { InvoiceLine } from '../../db/models/invoice-line';
+import { todayIso } from '../../lib/dates';
 import { balanceDue, isOverdue, sumLines } from './invoice-totals';
 
-export const todayIso = (now = new Date()) => now.toISOString().slice(0, 10);
+export { todayIso };
 
 export interface InvoiceContext {
   jobReference: string;

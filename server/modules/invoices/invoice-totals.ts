@@ -64,12 +64,8 @@ export function depositFor(totalMinor: number, mode: 'none' | 'percent' | 'fixed
   return 0;
 }
 
-/** Add whole days to an ISO date (YYYY-MM-DD), in UTC. */
-export function addDays(isoDate: string, days: number): string {
-  const d = new Date(`${isoDate}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
+/** Add whole days to an ISO date (YYYY-MM-DD), in UTC (server/lib/dates.ts). */
+export { addDaysIso as addDays } from '../../lib/dates';
 
 /** An unpaid invoice is overdue from the day after its due date. */
 export function isOverdue(status: string, dueDate: string | null, today: string): boolean {

@@ -15,15 +15,9 @@ import { loadCatalogue } from '../catalogue/catalogue.service';
 import { loadCompanySettings, toSettingsDto } from '../settings/settings.service';
 import { lineRows, priceQuote, snapshotOf, toQuoteDto, type QuoteSnapshot } from './quote-dto';
 import { takeoffForSpace } from './takeoff-adapter';
+import { addDaysIso, todayIso } from '../../lib/dates';
 
-export function todayIso(now = new Date()): string {
-  return now.toISOString().slice(0, 10);
-}
-export function addDaysIso(dateIso: string, days: number): string {
-  const d = new Date(`${dateIso}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
+export { addDaysIso, todayIso };
 
 export async function findJobInOrg(actor: { organisationId: string }, jobId: string, t?: Transaction): Promise<Job> {
   const job = await Job.findOne({ where: { id: jobId, organisationId: actor.organisationId }, include: [{ model: Customer, as: 'customer' }], transaction: t });

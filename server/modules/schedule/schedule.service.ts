@@ -2,6 +2,7 @@ import { Op } from 'sequelize';
 import type { AssignResult, Capacity, InstallSettings, ScheduleJob, ScheduleWeek } from '../../../shared/api/schedule';
 import { quoteCautions } from '../../../shared/quote/cautions';
 import type { AppDeps } from '../../deps';
+import { addDaysIso as addDays } from '../../lib/dates';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { InstallSetting } from '../../db/models/installer-registry';
 import { ConflictError, fieldError, NotFoundError } from '../../lib/errors';
@@ -17,9 +18,7 @@ export function mondayOf(isoDate: string): string {
   return new Date(d.getTime() - back * DAY_MS).toISOString().slice(0, 10);
 }
 
-export function addDays(isoDate: string, n: number): string {
-  return new Date(new Date(`${isoDate}T00:00:00Z`).getTime() + n * DAY_MS).toISOString().slice(0, 10);
-}
+export { addDays };
 
 /** Whether a day's load is over the company's capacity (jobs per installer-day, or m² per installer-day). */
 export function isOverCapacity(load: { jobs: number; areaM2: number }, cap: Capacity): boolean {
