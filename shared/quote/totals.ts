@@ -51,6 +51,21 @@ export interface QuoteTotals<L extends QuoteLineInput = QuoteLineInput> {
   marginBp: number;
 }
 
+/**
+ * Net and tax summed per tax rate (basis points), highest rate first. Each bucket adds the lines'
+ * already-rounded minor units, so it is exact; used by quotes and invoices alike.
+ */
+export function groupTaxByRate(lines: readonly { rateBp: number; netMinor: number; taxMinor: number }[]): TaxBucket[] {
+  const buckets = new Map<number, TaxBucket>();
+  for (const l of lines) {
+    const b = buckets.get(l.rateBp) ?? { rateBp: l.rateBp, netMinor: 0, taxMinor: 0 };
+    b.netMinor += l.netMinor;
+    b.taxMinor += l.taxMinor;
+    buckets.set(l.rateBp, b);
+  }
+  return [...buckets.values()].sort((a, b) => b.rateBp - a.rateBp);
+}
+
 /** The rounding rule, in words for the quote and the PDF. */
 export const ROUNDING_NOTE =
   'Each line is rounded to the penny (half up), and so is the tax on each line; totals are the sums of the rounded lines.';
@@ -71,13 +86,6 @@ export function computeQuoteTotals<L extends QuoteLineInput>(
     const rateBp = taxRateOn(rates, line.taxClass, taxDateIso).rateBp;
     return { line, netMinor, costMinor, rateBp, taxMinor: applyRateBp(netMinor, rateBp) };
   });
-  const buckets = new Map<number, TaxBucket>();
-  for (const p of priced) {
-    const b = buckets.get(p.rateBp) ?? { rateBp: p.rateBp, netMinor: 0, taxMinor: 0 };
-    b.netMinor += p.netMinor;
-    b.taxMinor += p.taxMinor;
-    buckets.set(p.rateBp, b);
-  }
   const netMinor = sumMinor(priced.map((p) => p.netMinor));
   const taxMinor = sumMinor(priced.map((p) => p.taxMinor));
   const costMinor = sumMinor(priced.map((p) => p.costMinor));
@@ -85,7 +93,7 @@ export function computeQuoteTotals<L extends QuoteLineInput>(
   return {
     lines: priced,
     netMinor,
-    taxByRate: [...buckets.values()].sort((a, b) => b.rateBp - a.rateBp),
+    taxByRate: groupTaxByRate(priced),
     taxMinor,
     grossMinor: netMinor + taxMinor,
     costMinor,

@@ -7,6 +7,7 @@
  * Balance = gross − deposit already paid − credit notes issued against the invoice.
  */
 import { applyRateBp, multiplyMinor, sumMinor } from '../../../shared/quote/money';
+import { groupTaxByRate } from '../../../shared/quote/totals';
 
 export interface LineInput {
   quantity: number;
@@ -36,16 +37,9 @@ export interface Totals {
 
 /** Sum lines that already carry their amounts; tax grouped by rate, highest rate first. */
 export function sumLines(lines: readonly { netMinor: number; taxMinor: number; rateBp: number }[]): Totals {
-  const byRate = new Map<number, { rateBp: number; netMinor: number; taxMinor: number }>();
-  for (const l of lines) {
-    const g = byRate.get(l.rateBp) ?? { rateBp: l.rateBp, netMinor: 0, taxMinor: 0 };
-    g.netMinor += l.netMinor;
-    g.taxMinor += l.taxMinor;
-    byRate.set(l.rateBp, g);
-  }
   const netMinor = sumMinor(lines.map((l) => l.netMinor));
   const taxMinor = sumMinor(lines.map((l) => l.taxMinor));
-  return { netMinor, taxMinor, totalMinor: netMinor + taxMinor, taxBreakdown: [...byRate.values()].sort((a, b) => b.rateBp - a.rateBp) };
+  return { netMinor, taxMinor, totalMinor: netMinor + taxMinor, taxBreakdown: groupTaxByRate(lines) };
 }
 
 /** What is left to pay: total − deposit paid − credit notes; never below zero. */
