@@ -11,6 +11,6 @@ export async function getInvoices(query: InvoiceListQuery, signal?: AbortSignal)
 export const invoicesQueryOptions = (query: InvoiceListQuery) =>
   queryOptions({ queryKey: invoiceKeys.list(query), queryFn: ({ signal }) => getInvoices(query, signal) });
 
-export function useInvoices(query: InvoiceListQuery) {
-  return useQuery(invoicesQueryOptions(query));
+export function useInvoices(query: InvoiceListQuery, { enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...invoicesQueryOptions(query), enabled });
 }

@@ -15,7 +15,8 @@ import { LineEditor, toLineInputs, type DraftLine } from './line-editor';
 /** The job's money: deposit, invoice and payments on one card, and "Create invoice" once installed. */
 export function JobMoneyCard({ jobId, stage, canInvoice }: { jobId: string; stage: JobStage; canInvoice: boolean }) {
   const timeline = usePaymentTimeline(jobId);
-  const invoices = useInvoices({ jobId });
+  // Invoices are office-only (quotes:manage on the API); an estimator asking would get a 403.
+  const invoices = useInvoices({ jobId }, { enabled: canInvoice });
   const invoice = invoices.data?.find((i) => i.kind === 'invoice');
   return (
     <Card>
