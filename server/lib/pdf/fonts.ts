@@ -9,6 +9,7 @@ const require = createRequire(import.meta.url);
 export const FONTS = {
   regular: require.resolve('@expo-google-fonts/inter/400Regular/Inter_400Regular.ttf'),
   semibold: require.resolve('@expo-google-fonts/inter/600SemiBold/Inter_600SemiBold.ttf'),
+  bold: require.resolve('@expo-google-fonts/inter/700Bold/Inter_700Bold.ttf'),
   mono: require.resolve('@expo-google-fonts/jetbrains-mono/400Regular/JetBrainsMono_400Regular.ttf'),
 };
 

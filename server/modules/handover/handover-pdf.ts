@@ -1,10 +1,5 @@
-import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
-
-const require = createRequire(import.meta.url);
-// TTFs with full Latin coverage (the @fontsource files are subset; STACK.md, "PDF").
-const FONT_REGULAR = require.resolve('@expo-google-fonts/inter/400Regular/Inter_400Regular.ttf');
-const FONT_BOLD = require.resolve('@expo-google-fonts/inter/700Bold/Inter_700Bold.ttf');
+import { FONTS } from '../../lib/pdf/fonts';
 
 /** R_IP (h·ft²·°F/Btu) per R_SI (m²K/W); the usual conversion factor. */
 export const R_SI_TO_IP = 5.678263;
@@ -59,8 +54,8 @@ const fmt = (n: number | null, digits: number, unit = '') => (n === null ? '—'
 /** Renders the customer's handover pack as a PDF (A4, Inter), returned as one Buffer. */
 export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `Handover pack ${d.reference}`, Author: d.companyName } });
-  doc.registerFont('body', FONT_REGULAR);
-  doc.registerFont('bold', FONT_BOLD);
+  doc.registerFont('body', FONTS.regular);
+  doc.registerFont('bold', FONTS.bold);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
