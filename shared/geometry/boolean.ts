@@ -8,10 +8,19 @@ import type { Vec2 } from './vector';
  * sweep line, robust to shared edges and overlaps). Inputs may wind either way and may repeat
  * the closing point; outputs are open rings (no repeated closing point), outer rings first.
  * polygon-clipping works in the plane, so unlike turf's area/buffer nothing here is geodesic.
+ * Inputs are snapped to a micrometre grid (`BOOLEAN_GRID_MM`).
  */
 
+/** Input grid, mm: coordinates are snapped to micrometres before the sweep. */
+export const BOOLEAN_GRID_MM = 1e-3;
+
+// Sweep-line booleans are fragile when points differ by far less than anything measured
+// (polygon-clipping's open issues on loops come from such inputs); a micrometre grid removes
+// those near-coincidences and changes no area a takeoff can show.
+const snap = (x: number) => Math.round(x / BOOLEAN_GRID_MM) * BOOLEAN_GRID_MM;
+
 function toPc(polys: PolygonWithHoles[]): PcMultiPolygon {
-  return polys.filter((p) => p.length > 0 && p[0].length >= 3).map((p) => p.map((r) => r.map((q) => [q[0], q[1]] as Pair)));
+  return polys.filter((p) => p.length > 0 && p[0].length >= 3).map((p) => p.map((r) => r.map((q) => [snap(q[0]), snap(q[1])] as Pair)));
 }
 
 function fromPc(mp: PcMultiPolygon): MultiPolygon {
