@@ -1,3 +1,4 @@
+import { fileTypeFromBuffer } from 'file-type';
 import type { CompanySettings, CompanySettingsBody } from '../../../shared/api/settings';
 import { companySettingsBodySchema, extraBodySchema, productBodySchema } from '../../../shared/api/settings';
 import { Organisation } from '../../db/models';
@@ -74,10 +75,10 @@ export async function seedDemoCatalogue(organisationId: string, company?: Partia
 
 const LOGO_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg' };
 
-function sniffImage(buf: Buffer): string | null {
-  if (buf.length > 8 && buf.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))) return 'image/png';
-  if (buf.length > 3 && buf[0] === 0xff && buf[1] === 0xd8 && buf[2] === 0xff) return 'image/jpeg';
-  return null;
+/** The logo's type judged by its bytes with file-type (as photos and plan underlays are); null unless PNG or JPEG. */
+async function sniffImage(buf: Buffer): Promise<string | null> {
+  const mime = (await fileTypeFromBuffer(buf))?.mime;
+  return mime && mime in LOGO_TYPES ? mime : null;
 }
 
 export function createSettingsService(storage: Storage) {
@@ -93,7 +94,7 @@ export function createSettingsService(storage: Storage) {
     /** PNG or JPEG only (checked by content, not by name), at most 1 MB; pdfkit draws both. */
     async setLogo(actor: SessionUser, file: { buffer: Buffer } | undefined) {
       if (!file) throw new BadRequestError('attach the logo as a PNG or JPEG file in the "logo" field', 'file_missing');
-      const type = sniffImage(file.buffer);
+      const type = await sniffImage(file.buffer);
       if (!type) throw new BadRequestError('the logo must be a PNG or JPEG image', 'unsupported_type');
       const row = await loadCompanySettings(actor.organisationId);
       const key = `${actor.organisationId}/logo/logo.${LOGO_TYPES[type]}`;
