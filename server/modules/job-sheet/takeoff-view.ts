@@ -3,6 +3,7 @@ import type { SheetCheck, SheetCut, SheetLayer, SheetRoll, SheetSpace, SheetStri
 import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/takeoff-types';
 import { Job } from '../../db/models';
+import { isTakeoff } from '../plans/plans.takeoff';
 
 /**
  * The installer's view of saved takeoffs. Every field is copied by name: a takeoff also carries
@@ -22,9 +23,7 @@ export async function latestRevisionRows(spaceIds: string[]): Promise<Map<string
   return new Map(rows.map((r) => [r.space_id, r]));
 }
 
-export function isTakeoff(t: unknown): t is Takeoff {
-  return !!t && typeof t === 'object' && (t as { format?: unknown }).format === 'quiltline-takeoff/1' && Array.isArray((t as Takeoff).layers);
-}
+export { isTakeoff };
 
 export const layerKeyOf = (l: Pick<TakeoffLayer, 'role' | 'roleIndex'>) => (l.role === 'base' ? 'base' : `cross${l.roleIndex + 1}`);
 const layerLabel = (l: TakeoffLayer) => (l.role === 'base' ? 'Base layer' : `Cross layer ${l.roleIndex + 1}`);

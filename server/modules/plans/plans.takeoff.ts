@@ -2,6 +2,7 @@ import { createRequire } from 'node:module';
 import { Product } from '../../db/models/product';
 import { parseProductCatalogue, type TakeoffProduct } from '../../../shared/takeoff/products';
 import type { TakeoffSettings } from '../../../shared/takeoff/settings';
+import { TAKEOFF_FORMAT, type Takeoff } from '../../../shared/takeoff/takeoff-types';
 import { loadCompanySettings } from '../settings/settings.service';
 
 const require = createRequire(import.meta.url);
@@ -39,12 +40,22 @@ export async function takeoffInputsFor(organisationId: string, opts: { withPrice
     catalogue = 'default';
   }
   if (!opts.withPrices) products = products.map((p) => ({ ...p, priceMinor: 0 }));
-  const settings: Partial<TakeoffSettings> = {
-    // The company keeps waste as a fraction; the takeoff reads a percentage.
-    wasteAllowancePct: settingsRow.wasteAllowance * 100,
-    degreeDays: settingsRow.degreeDays,
-    fuelPriceMinorPerKwh: settingsRow.fuelPriceMinorPerKwh,
-    heatingEfficiency: settingsRow.heatingEfficiency,
+  return { products, settings: takeoffSettingsOf(settingsRow), catalogue };
+}
+
+type SettingsForTakeoff = { wasteAllowance: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
+
+/** The company's settings as the takeoff reads them (the company keeps waste as a fraction; the takeoff reads a percentage). */
+export function takeoffSettingsOf(settings: SettingsForTakeoff): Partial<TakeoffSettings> {
+  return {
+    wasteAllowancePct: settings.wasteAllowance * 100,
+    degreeDays: settings.degreeDays,
+    fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
+    heatingEfficiency: settings.heatingEfficiency,
   };
-  return { products, settings, catalogue };
+}
+
+/** Whether a value stored beside a plan revision is a takeoff of the current format (older or missing ones are not). */
+export function isTakeoff(x: unknown): x is Takeoff {
+  return !!x && typeof x === 'object' && (x as { format?: unknown }).format === TAKEOFF_FORMAT && Array.isArray((x as Takeoff).layers);
 }

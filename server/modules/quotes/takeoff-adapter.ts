@@ -1,8 +1,9 @@
 import { planSchema } from '../../../shared/plan/plan-schema';
 import type { CompanySettings, Product } from '../../../shared/api/settings';
 import type { SpaceForQuote } from '../../../shared/quote/build-lines';
-import { computeTakeoff, TAKEOFF_FORMAT, type Takeoff } from '../../../shared/takeoff/compute-takeoff';
+import { computeTakeoff, type Takeoff } from '../../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../../shared/takeoff/products';
+import { isTakeoff, takeoffSettingsOf } from '../plans/plans.takeoff';
 
 export type SpaceTakeoff =
   | {
@@ -18,19 +19,6 @@ export type SpaceTakeoff =
     }
   | { ok: false; message: string };
 
-/** The company's settings as the takeoff reads them (waste as a percentage there, a fraction here). */
-export function takeoffSettingsOf(settings: CompanySettings) {
-  return {
-    wasteAllowancePct: settings.wasteAllowance * 100,
-    degreeDays: settings.degreeDays,
-    fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
-    heatingEfficiency: settings.heatingEfficiency,
-  };
-}
-
-function isTakeoff(x: unknown): x is Takeoff {
-  return !!x && typeof x === 'object' && (x as { format?: unknown }).format === TAKEOFF_FORMAT && Array.isArray((x as Takeoff).layers);
-}
 
 /** The takeoff of a space's plan with the company's catalogue and settings; throws the plan's own messages. */
 export function computeSpaceTakeoff(planRaw: unknown, products: Product[], settings: CompanySettings): Takeoff {
