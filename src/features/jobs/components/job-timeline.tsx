@@ -15,8 +15,11 @@ export function describeEvent(e: JobEvent): string {
       return `Stage ${stageLabel(d.from)} → ${stageLabel(d.to)}`;
     case 'assigned':
       return d.to ? 'Installer assigned' : 'Installer unassigned';
-    case 'scheduled':
-      return d.to ? `Install date set to ${formatDate(String(d.to))}` : 'Install date cleared';
+    case 'scheduled': {
+      // Editing the job records `{ from, to }`; booking on the schedule records `{ from, installerId, date }`.
+      const to = d.to ?? d.date;
+      return to ? `Install date set to ${formatDate(String(to))}` : 'Install date cleared';
+    }
     case 'updated':
       return 'Details edited';
     default:
