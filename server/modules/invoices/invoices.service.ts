@@ -67,6 +67,10 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
     return Invoice.findAll({ where: { creditedInvoiceId: inv.id }, order: [['seq', 'ASC']], transaction: t });
   }
 
+  async function pdfOf(inv: Invoice): Promise<{ filename: string; pdf: Buffer }> {
+    return { filename: `${inv.number}.pdf`, pdf: await renderInvoicePdf(await dto(inv), await companyDetails(inv.organisationId)) };
+  }
+
   async function dto(inv: Invoice): Promise<InvoiceDto> {
     const [lines, job, quote, credited, creditNotes] = await Promise.all([
       InvoiceLine.findAll({ where: { invoiceId: inv.id } }),
@@ -213,9 +217,11 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
     },
 
     async pdf(actor: Pick<Actor, 'organisationId'>, id: string): Promise<{ filename: string; pdf: Buffer }> {
-      const inv = await find(actor, id);
-      return { filename: `${inv.number}.pdf`, pdf: await renderInvoicePdf(await dto(inv), await companyDetails(inv.organisationId)) };
+      return pdfOf(await find(actor, id));
     },
+
+    /** The PDF of an invoice already found (by the office's id or the customer's pay token). */
+    pdfOf,
 
     async send(actor: Pick<Actor, 'organisationId'>, id: string): Promise<InvoiceDto> {
       const inv = await find(actor, id);

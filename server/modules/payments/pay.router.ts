@@ -76,13 +76,12 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     res.redirect(303, url ?? `/pay/deposit/${encodeURIComponent(String(req.params.link))}`);
   });
 
+  // An unknown or malformed pay token is a page saying so, not an error.
+  const invoiceFromToken = (token: string) => invoices.byPayToken(token).catch(() => null);
+
   r.get('/invoice/:token', async (req, res) => {
-    let inv: Invoice;
-    try {
-      inv = await invoices.byPayToken(String(req.params.token));
-    } catch {
-      return notFound(res);
-    }
+    const inv = await invoiceFromToken(String(req.params.token));
+    if (!inv) return notFound(res);
     const d = await invoices.dto(inv);
     const company = await companyName(inv.organisationId);
     const day = (iso: string) => escapeHtml(new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }));
@@ -110,16 +109,10 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   });
 
   r.get('/invoice/:token/pdf', async (req, res) => {
-    let inv: Invoice;
-    try {
-      inv = await invoices.byPayToken(String(req.params.token));
-    } catch {
-      return notFound(res);
-    }
-    const d = await invoices.dto(inv);
-    const { renderInvoicePdf } = await import('../invoices/invoice-pdf');
-    const pdf = await renderInvoicePdf(d, await invoices.companyDetails(inv.organisationId));
-    res.type('application/pdf').setHeader('Content-Disposition', `inline; filename="${d.number}.pdf"`);
+    const inv = await invoiceFromToken(String(req.params.token));
+    if (!inv) return notFound(res);
+    const { filename, pdf } = await invoices.pdfOf(inv);
+    res.type('application/pdf').setHeader('Content-Disposition', `inline; filename="${filename}"`);
     res.send(pdf);
   });
 
