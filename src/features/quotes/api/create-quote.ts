@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Quote } from '../../../../shared/api/quotes';
 import { api } from '../../../lib/api-client';
+import { jobKeys } from '../../jobs/api/keys';
 import { quoteKeys } from './keys';
 
 /** Builds a draft from the job's saved takeoffs (empty body). */
@@ -15,6 +16,8 @@ export function useCreateQuote(jobId: string) {
     onSuccess: (q) => {
       qc.setQueryData(quoteKeys.detail(q.id), q);
       void qc.invalidateQueries({ queryKey: quoteKeys.forJob(jobId) });
+      // The server writes "Quote … drafted" into the job's history (under the job's detail key).
+      void qc.invalidateQueries({ queryKey: jobKeys.detail(jobId) });
     },
   });
 }
