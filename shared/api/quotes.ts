@@ -108,8 +108,6 @@ export type QuotePatch = z.input<typeof quotePatchSchema>;
 
 export const sendQuoteBodySchema = z.object({ message: z.string().max(2000).optional() }).default({});
 
-export const quoteParamsSchema = z.object({ id: z.uuid() });
-
 /** The customer's view through the private link (no costs, no margin). */
 export const publicQuoteSchema = z.object({
   status: quoteStatusSchema,
