@@ -19,6 +19,7 @@ import express, { type Request, type Response } from 'express';
 import { createHmac, randomBytes } from 'node:crypto';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
+import { formatMoney } from '../../../shared/quote/money';
 
 export interface FakeSession {
   id: string;
@@ -114,12 +115,6 @@ function toInt(v: unknown, param: string): number {
 function stringRecord(v: unknown): Record<string, string> {
   if (!v || typeof v !== 'object') return {};
   return Object.fromEntries(Object.entries(v as Record<string, unknown>).map(([k, x]) => [k, String(x)]));
-}
-
-function formatAmount(amountMinor: number, currency: string): string {
-  const fmt = new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() });
-  const digits = fmt.resolvedOptions().maximumFractionDigits ?? 2;
-  return fmt.format(amountMinor / 10 ** digits);
 }
 
 const escapeHtml = (s: string) =>
@@ -321,9 +316,9 @@ export function createFakePaymentService(options: FakePaymentServiceOptions): Fa
       return res.status(410).send(page('Checkout closed', `<p>This checkout is <strong>${escapeHtml(s.status)}</strong>.</p>`));
     }
     const rows = s._lines
-      .map((l) => `<tr><td>${escapeHtml(l.name)}${l.quantity > 1 ? ` × ${l.quantity}` : ''}</td><td class="num">${formatAmount(l.unitAmount * l.quantity, s.currency)}</td></tr>`)
+      .map((l) => `<tr><td>${escapeHtml(l.name)}${l.quantity > 1 ? ` × ${l.quantity}` : ''}</td><td class="num">${formatMoney(l.unitAmount * l.quantity, s.currency.toUpperCase())}</td></tr>`)
       .join('');
-    const total = formatAmount(s.amount_total, s.currency);
+    const total = formatMoney(s.amount_total, s.currency.toUpperCase());
     res.send(
       page(
         'Pay',
