@@ -19,9 +19,7 @@ export const sheetStripSchema = z.object({
   layerKey: z.string(),
   lengthMm: z.number(),
   widthMm: z.number(),
-  /** Where the strip lies, plan millimetres: the first (usually the only) part of `polygons`. */
-  polygon: z.array(pointMm),
-  /** Every part of the strip: usually one polygon, several where it forks around an obstacle. */
+  /** Where the strip lies, plan millimetres: usually one polygon, several where it forks around an obstacle. */
   polygons: z.array(z.array(pointMm)),
   /** A point inside the strip for its label, plan millimetres. */
   labelAt: pointMm,

@@ -84,7 +84,6 @@ function sheetStrip(key: string, s: TakeoffLayer['strips'][number]): SheetStrip 
     layerKey: key,
     lengthMm: Number(s.lengthMm),
     widthMm: Number(s.widthMm),
-    polygon: polygons[0] ?? [],
     polygons,
     labelAt: [Number(s.labelAt[0]), Number(s.labelAt[1])] as [number, number],
   };
