@@ -46,8 +46,9 @@ export default function QuotePage() {
     }
   }, [q, parsed]);
 
-  if (quote.isPending || !lines) return <LoadingState label="Loading the quote…" />;
+  // The error first: a failed load never fills `lines`, and would otherwise spin for ever.
   if (quote.isError) return <ErrorState error={quote.error} onRetry={() => quote.refetch()} title="The quote could not be loaded" />;
+  if (quote.isPending || !lines) return <LoadingState label="Loading the quote…" />;
   if (!q || !parsed) return null;
 
   const editable = q.status === 'draft' || (can(user, 'quotes:manage') && ['sent', 'expired', 'declined'].includes(q.status));
