@@ -90,6 +90,22 @@ describe('job detail', () => {
     expect(screen.queryByRole('button', { name: 'Add space' })).toBeNull();
   });
 
+  it('does not ask an estimator\'s browser for invoices (office-only on the API: it answered 403)', async () => {
+    const calls = jobApi();
+    render('estimator');
+    await screen.findByRole('heading', { name: /Samuel Okonjo/ });
+    await screen.findByText('Payments');
+    await new Promise((r) => setTimeout(r, 50));
+    expect(calls.filter((c) => c.url.pathname === '/api/invoices')).toHaveLength(0);
+  });
+
+  it('asks for the job\'s invoices as office', async () => {
+    const calls = jobApi();
+    render('office');
+    await screen.findByRole('heading', { name: /Samuel Okonjo/ });
+    await waitFor(() => expect(calls.some((c) => c.url.pathname === '/api/invoices' && c.url.searchParams.get('jobId') === JOB_ID)).toBe(true));
+  });
+
   it('shows the not-found page for a job of another company', async () => {
     fakeApi(() => undefined);
     render('office');
