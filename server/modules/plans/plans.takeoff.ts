@@ -20,7 +20,7 @@ export type TakeoffInputs = { products: TakeoffProduct[]; settings: Partial<Take
  * What the takeoff needs besides the plan, for one company: its active roll products (or the
  * example defaults when it has none) and its settings (degree days, fuel price, efficiency,
  * waste). The editor receives the same inputs, so its live takeoff equals the saved one.
- * `withPrices: false` zeroes prices (installers never see them).
+ * `withPrices: false` zeroes prices, the fuel price included (installers never see them).
  */
 export async function takeoffInputsFor(organisationId: string, opts: { withPrices: boolean }): Promise<TakeoffInputs> {
   const [settingsRow, rows] = await Promise.all([
@@ -40,7 +40,10 @@ export async function takeoffInputsFor(organisationId: string, opts: { withPrice
     catalogue = 'default';
   }
   if (!opts.withPrices) products = products.map((p) => ({ ...p, priceMinor: 0 }));
-  return { products, settings: takeoffSettingsOf(settingsRow), catalogue };
+  const settings = takeoffSettingsOf(settingsRow);
+  // The company's fuel price is a price too: without it the yearly saving reads in kWh only.
+  if (!opts.withPrices) settings.fuelPriceMinorPerKwh = 0;
+  return { products, settings, catalogue };
 }
 
 type SettingsForTakeoff = { wasteAllowance: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
