@@ -11,3 +11,8 @@ export function addDaysIso(dateIso: string, days: number): string {
   d.setUTCDate(d.getUTCDate() + days);
   return d.toISOString().slice(0, 10);
 }
+
+/** A date for people, e.g. "20 January 2027" (en-GB); `iso` may be a date or a full timestamp, read in UTC. */
+export function longDate(iso: string, locale = 'en-GB'): string {
+  return new Date(`${iso.slice(0, 10)}T12:00:00Z`).toLocaleDateString(locale, { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+}

@@ -2,6 +2,7 @@ import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
 import { ROUNDING_NOTE } from '../../../shared/quote/totals';
 import { bullets, ensureSpace, heading, newDocument, table } from './document';
+import { longDate } from '../dates';
 import { INK } from './fonts';
 import { drawPlan, type PlanForDrawing } from './plan-drawing';
 
@@ -27,9 +28,6 @@ export interface QuotePdfData {
 
 function qty(n: number) {
   return Number.isInteger(n) ? String(n) : n.toFixed(3).replace(/0+$/, '');
-}
-function longDate(iso: string, locale: string) {
-  return new Date(`${iso}T12:00:00Z`).toLocaleDateString(locale, { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 }
 
 /** The quote as a customer-facing PDF (A4, Inter and JetBrains Mono embedded). */

@@ -1,6 +1,7 @@
 import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Organisation, Space, User } from '../../db/models';
 import { JobCompletion, JobPhoto, JobTick } from '../../db/models/installer-registry';
+import { longDate } from '../../lib/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
@@ -48,7 +49,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
       customerName: customer?.name ?? '',
       address: [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', '),
       installerName: installer?.name ?? '',
-      installedOn: when.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }),
+      installedOn: longDate(when.toISOString()),
       spaces: out,
       showRValues: settings.handoverRValues,
       signedReceipt: settings.handoverReceipt,

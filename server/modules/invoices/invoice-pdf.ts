@@ -10,6 +10,7 @@ import type { Invoice } from '../../../shared/api/invoices';
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
 import { FONTS, INK } from '../../lib/pdf/fonts';
+import { longDate } from '../../lib/dates';
 
 // The app's shipped TTFs and palette, shared with the quote and job sheet PDFs.
 const FONT_REGULAR = FONTS.regular;
@@ -34,7 +35,7 @@ export function formatQuantity(quantity: number): string {
   return quantity.toLocaleString('en-GB', { maximumFractionDigits: 3 });
 }
 
-const formatDate = (iso: string) => new Date(`${iso.slice(0, 10)}T00:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+const formatDate = (iso: string) => longDate(iso);
 
 /** Render the invoice (or credit note) to a PDF buffer. */
 export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {
