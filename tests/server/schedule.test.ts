@@ -107,4 +107,24 @@ describe('scheduling', () => {
     const enquiry = await createJob(org, { stage: 'enquiry' });
     expect((await office.post('/api/schedule/assign').send({ jobId: enquiry.job.id, installerId: org.installer.id, date: tuesday })).body.error.code).toBe('wrong_stage');
   });
+  it('records the booking on the job history as the jobs module does: stage change, installer assigned, date set', async () => {
+    const { job } = await acceptedJob();
+    const office = await loginAs(ctx.app, org.office);
+    const thursday = addDays(nextMonday, 3);
+    const booked = await office.post('/api/schedule/assign').send({ jobId: job.id, installerId: org.installer.id, date: thursday, allowOverCapacity: true });
+    expect(booked.status).toBe(200);
+    type Ev = { kind: string; data: Record<string, unknown>; user: { id: string } | null };
+    const events = (await office.get(`/api/jobs/${job.id}/events`)).body.events as Ev[];
+    expect(events.filter((e) => e.kind === 'stage_changed')).toEqual([expect.objectContaining({ data: { from: 'accepted', to: 'scheduled' }, user: expect.objectContaining({ id: org.office.id }) })]);
+    expect(events.filter((e) => e.kind === 'assigned')).toEqual([expect.objectContaining({ data: { from: null, to: org.installer.id } })]);
+    expect(events.filter((e) => e.kind === 'scheduled')).toEqual([expect.objectContaining({ data: expect.objectContaining({ date: thursday, installerId: org.installer.id }) })]);
+
+    // Moving the booking to another day with the same installer: a new date, but no second stage or assignment line.
+    const friday = addDays(nextMonday, 4);
+    expect((await office.post('/api/schedule/assign').send({ jobId: job.id, installerId: org.installer.id, date: friday, allowOverCapacity: true })).status).toBe(200);
+    const again = (await office.get(`/api/jobs/${job.id}/events`)).body.events as Ev[];
+    expect(again.filter((e) => e.kind === 'stage_changed')).toHaveLength(1);
+    expect(again.filter((e) => e.kind === 'assigned')).toHaveLength(1);
+    expect(again.filter((e) => e.kind === 'scheduled').map((e) => e.data.date)).toEqual([thursday, friday]);
+  });
 });

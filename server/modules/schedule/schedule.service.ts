@@ -124,10 +124,12 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
       await deps.sequelize.transaction(async (t) => {
         const from = { stage: job.stage, installerId: job.assignedInstallerId, date: job.installDate };
         await job.update({ assignedInstallerId: installer.id, installDate: body.date, stage: 'scheduled' }, { transaction: t });
-        await JobEvent.create(
-          { organisationId: user.organisationId, jobId: job.id, userId: user.id, kind: 'scheduled', data: { from, installerId: installer.id, date: body.date, overCapacity: warnings.length > 0 } },
-          { transaction: t },
-        );
+        // The same event kinds and data shapes as editing the job (jobs.service update): the timeline reads them.
+        const ev = (kind: string, data: Record<string, unknown>) =>
+          JobEvent.create({ organisationId: user.organisationId, jobId: job.id, userId: user.id, kind, data }, { transaction: t });
+        if (from.stage !== 'scheduled') await ev('stage_changed', { from: from.stage, to: 'scheduled' });
+        if (from.installerId !== installer.id) await ev('assigned', { from: from.installerId, to: installer.id });
+        await ev('scheduled', { from, installerId: installer.id, date: body.date, overCapacity: warnings.length > 0 });
       });
 
       const emailed: string[] = [];
