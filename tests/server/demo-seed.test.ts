@@ -42,6 +42,19 @@ describe('demo seed', () => {
     }
   });
 
+  it('books installer and date only from the scheduled stage on (an accepted job waits on the schedule)', async () => {
+    const office = await loginAs(ctx.app, { email: 'office@demo.example.com', password: DEMO_PASSWORD });
+    const jobs = (await office.get('/api/jobs')).body.jobs as Array<{ reference: string; stage: string; assignedInstaller: { id: string } | null; installDate: string | null }>;
+    const booked = new Set(['scheduled', 'installed', 'closed']);
+    for (const j of jobs) {
+      const has = { installer: j.assignedInstaller !== null, date: j.installDate !== null };
+      expect(has, `${j.reference} (${j.stage})`).toEqual(booked.has(j.stage) ? { installer: true, date: true } : { installer: false, date: false });
+    }
+    // The schedule lists every accepted job as waiting; the installer's own list holds only booked jobs.
+    const week = (await office.get('/api/schedule')).body as { unscheduled: Array<{ reference: string }> };
+    expect(week.unscheduled.map((j) => j.reference).sort()).toEqual(jobs.filter((j) => j.stage === 'accepted').map((j) => j.reference).sort());
+  });
+
   it('takes its plans from the valid examples (the invalid one is skipped)', async () => {
     const examples = loadExamplePlans();
     expect(examples.length).toBeGreaterThan(0);

@@ -55,7 +55,7 @@ const DEMO_JOBS: DemoJob[] = [
   { customer: 'Lydia Carrow', email: 'lydia.carrow@example.com', phone: '01632 960107', line1: '40 Beacon Hill', town: 'Ashcombe', postcode: 'AB1 7QR', stage: 'scheduled', installer: 'installer2', installDate: '2027-01-20', estimator: 'estimator2', spaces: ['Main loft'] },
   { customer: 'Arthur Penhaligon', email: 'a.penhaligon@example.com', phone: '01632 960108', line1: '5 Foundry Row', town: 'Kelsworth', postcode: 'KW3 2ST', stage: 'installed', installer: 'installer', installDate: '2026-11-24', estimator: 'estimator', spaces: ['Main loft'] },
   { customer: 'Fatima Rahman', email: 'fatima.rahman@example.com', phone: '01632 960109', line1: '18 Linden Avenue', town: 'Bramley Cross', postcode: 'BC2 8UV', stage: 'closed', installer: 'installer2', installDate: '2026-10-30', estimator: 'estimator2', spaces: ['Main loft'] },
-  { customer: 'Colm Duggan', email: 'colm.duggan@example.com', phone: '01632 960110', line1: '7 Saltings Way', town: 'Ashcombe', postcode: 'AB1 9WX', stage: 'accepted', installer: 'installer', installDate: '2027-02-03', estimator: 'estimator', spaces: ['Main loft', 'Garage loft'] },
+  { customer: 'Colm Duggan', email: 'colm.duggan@example.com', phone: '01632 960110', line1: '7 Saltings Way', town: 'Ashcombe', postcode: 'AB1 9WX', stage: 'accepted', estimator: 'estimator', spaces: ['Main loft', 'Garage loft'] },
 ];
 
 const OTHER_JOBS: DemoJob[] = [
