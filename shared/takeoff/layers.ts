@@ -154,7 +154,12 @@ function sum(c: TakeoffProduct[]): number {
   return c.reduce((t, p) => t + p.thicknessMm, 0);
 }
 
-/** Narrowest lane of a combination: wider lanes mean fewer cross strips to cut and lay. */
+/**
+ * Narrowest lane of a combination, the last tie-break of the cross choice: of the needed thickness
+ * and cost, the widest lane (an unsplit roll) wins, since over the joists a full-width roll means
+ * fewer strips to cut and fewer joints (common practice). The base layer instead takes the
+ * narrowest lane that fills the bay (see `chooseLayers`).
+ */
 function minLane(c: TakeoffProduct[]): number {
   return Math.min(...c.map(productLaneWidthMm));
 }
