@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PlanRevision } from '../../server/db/models';
+import { Product } from '../../server/db/models/product';
 import { planSchema, type Plan } from '../../shared/plan/plan-schema';
 import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../shared/takeoff/products';
@@ -60,6 +61,23 @@ describe('GET /api/spaces/:id/plan', () => {
     const put = await installer.put(`/api/spaces/${space.id}/plan`).send({ plan: rect(), baseRevision: 1 });
     expect(put.status).toBe(403);
     expect(await PlanRevision.count({ where: { spaceId: space.id } })).toBe(1);
+  });
+  it('shows the installer the layers the office priced, although the installer gets no prices', async () => {
+    // Arrange: two cross rolls alike but for price; by name the dearer sorts first, so a
+    // catalogue without prices would tie on cost and take it.
+    const roll = { supplierCode: '', thicknessMm: 170, rollWidthMm: 1140, lanes: 1, rollLengthMm: 5000, coverageM2: 5.7, lambdaWmK: 0.044, unitCostMinor: 1000, taxClass: 'energy_saving' as const, roles: ['cross' as const], active: true };
+    const priced = await createOrgWithUsers(ctx);
+    await Product.create({ ...roll, organisationId: priced.id, name: 'A dear 170 mm roll', unitPriceMinor: 4000 });
+    const cheap = await Product.create({ ...roll, organisationId: priced.id, name: 'B cheap 170 mm roll', unitPriceMinor: 2000 });
+    const plan: Plan = { ...rect(), existing: { depthMm: 100, condition: 'good' }, target: { depthMm: 270 }, products: undefined };
+    const { space } = await createJob(priced, { assignedInstallerId: priced.installer.id });
+    const estimator = await loginAs(ctx.app, priced.estimator);
+    expect((await estimator.put(`/api/spaces/${space.id}/plan`).send({ plan, baseRevision: 0 })).status).toBe(201);
+    // Act
+    const res = await (await loginAs(ctx.app, priced.installer)).get(`/api/spaces/${space.id}/plan`);
+    // Assert: the installer's own computation from what it was given picks the office's roll.
+    const live = computeTakeoff(planSchema.parse(res.body.plan), { products: parseProductCatalogue(res.body.takeoffInputs.products), settings: res.body.takeoffInputs.settings });
+    expect(live.layers.filter((l) => l.role === 'cross').map((l) => l.productId)).toEqual([cheap.id]);
   });
 });
 

@@ -10,7 +10,7 @@ import { User } from '../../db/models';
 import { AppError, ValidationError, type ErrorDetail } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { addPlanRevision, findSpaceForUser, getLatestRevision, getRevision, listRevisions } from '../spaces/spaces.service';
-import { takeoffInputsFor } from './plans.takeoff';
+import { isTakeoff, takeoffInputsFor } from './plans.takeoff';
 
 export const BACKGROUND_MAX_BYTES = 8 * 1024 * 1024;
 const IMAGE_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp', 'image/gif': 'gif' };
@@ -65,9 +65,12 @@ export function createPlansService(deps: AppDeps) {
     async get(actor: SessionUser, spaceId: string) {
       const space = await findSpaceForUser(actor, spaceId);
       const latest = await getLatestRevision(space.id);
-      const inputs = await takeoffInputsFor(actor.organisationId, { withPrices: can(actor, 'prices:read') });
+      const withPrices = can(actor, 'prices:read');
+      const inputs = await takeoffInputsFor(actor.organisationId, { withPrices });
+      const plan = (latest?.plan as Plan | undefined) ?? starterPlan(space.name);
       return {
-        plan: (latest?.plan as Plan | undefined) ?? starterPlan(space.name),
+        // Without prices the engine could rank products differently; pin the saved choice instead.
+        plan: withPrices ? plan : pinSavedProducts(plan, latest?.takeoff),
         revision: latest?.revision ?? 0,
         savedAt: latest?.createdAt.toISOString() ?? null,
         space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.job.reference },
@@ -131,3 +134,15 @@ export function createPlansService(deps: AppDeps) {
 }
 
 export type PlansService = ReturnType<typeof createPlansService>;
+
+/**
+ * The plan with its automatic product choice pinned to what the saved takeoff chose, so a
+ * viewer given a catalogue without prices (installers) sees the same layers as the office.
+ * Products the estimator pinned are kept as they are.
+ */
+export function pinSavedProducts(plan: Plan, savedTakeoff: unknown): Plan {
+  if (plan.products || !isTakeoff(savedTakeoff)) return plan;
+  const baseProductId = savedTakeoff.layers.find((l) => l.role === 'base')?.productId;
+  const crossProductIds = savedTakeoff.layers.filter((l) => l.role === 'cross').map((l) => l.productId);
+  return { ...plan, products: { ...(baseProductId ? { baseProductId } : {}), ...(crossProductIds.length ? { crossProductIds } : {}) } };
+}
