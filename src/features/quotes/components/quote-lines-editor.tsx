@@ -1,13 +1,18 @@
-import type { TaxClass } from '../../../../shared/api/settings';
+import { TAX_CLASS_LABELS, type TaxClass } from '../../../../shared/api/settings';
 import { formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
 import type { PricedLine, QuoteLineInput } from '../../../../shared/quote/totals';
 import { Button, Table, TBody, Td, Th, THead, Tr } from '../../../components/ui';
 import { blankLine, type DraftLine, type LineProblem } from './draft-lines';
 
-const TAX_SHORT: Record<TaxClass, string> = { energy_saving: 'Energy-saving (installed)', standard: 'Standard' };
+/** Short names that fit the Tax column; the full name (TAX_CLASS_LABELS) goes in a title. */
+const TAX_SHORT: Record<TaxClass, string> = { energy_saving: 'Energy-saving', standard: 'Standard' };
 
-const cell = 'h-9 rounded border border-graphite/25 bg-white/90 px-2 text-sm focus:outline-2 focus:outline-teal';
+/** Tighter cell padding than the Table default so the seven columns fit the lines card at 1280 px. */
+const pad = 'px-2!';
+
+const box = 'rounded border border-graphite/25 bg-white/90 px-2 text-sm focus:outline-2 focus:outline-teal';
+const cell = `h-9 ${box}`;
 
 type Props = {
   lines: DraftLine[];
@@ -28,13 +33,18 @@ export function QuoteLinesEditor({ lines, priced, problems, currency, locale, re
       <Table aria-label="Quote lines">
         <THead>
           <Tr>
-            <Th className="min-w-[16rem]">Item</Th>
-            <Th className="text-right">Qty</Th>
-            <Th>Unit</Th>
-            <Th className="text-right">Unit price</Th>
-            <Th>Tax</Th>
-            <Th className="text-right">Amount</Th>
-            {!readOnly && <Th><span className="sr-only">Remove</span></Th>}
+            <Th className={pad}>Item</Th>
+            <Th className={`${pad} text-right`}>Qty</Th>
+            <Th className={pad}>Unit</Th>
+            <Th className={`${pad} text-right`}>Unit price</Th>
+            <Th className={pad}>Tax</Th>
+            <Th className={`${pad} text-right`}>Amount</Th>
+            {/* relative: the absolutely placed sr-only label then sits inside the scrolling box instead of widening the page at 360 px */}
+            {!readOnly && (
+              <Th className={`${pad} relative`}>
+                <span className="sr-only">Remove</span>
+              </Th>
+            )}
           </Tr>
         </THead>
         <TBody>
@@ -42,11 +52,22 @@ export function QuoteLinesEditor({ lines, priced, problems, currency, locale, re
             const p = priced?.[i];
             return (
               <Tr key={l.key} data-testid="quote-line">
-                <Td>
+                <Td className={`${pad} min-w-[12rem]`}>
                   {readOnly ? (
                     <span>{l.description}</span>
                   ) : (
-                    <input aria-label={`Line ${i + 1} description`} className={`${cell} w-full min-w-[16rem]`} value={l.description} onChange={(e) => set(l.key, { description: e.target.value })} aria-invalid={!!problem(l.key, 'description') || undefined} />
+                    // One line of text, but wrapped over as many rows as it needs (field-sizing: content) so a long description stays readable in a narrow column.
+                    <textarea
+                      aria-label={`Line ${i + 1} description`}
+                      rows={2}
+                      className={`${box} block min-h-9 w-full resize-none py-1.5 leading-snug field-sizing-content`}
+                      value={l.description}
+                      onChange={(e) => set(l.key, { description: e.target.value.replace(/[\r\n]+/g, ' ') })}
+                      onKeyDown={(e) => {
+                        if (e.key === 'Enter') e.preventDefault();
+                      }}
+                      aria-invalid={!!problem(l.key, 'description') || undefined}
+                    />
                   )}
                   <div className="mt-0.5 text-xs text-graphite-light">
                     <span className="font-mono uppercase text-timber">{l.kind}</span>
@@ -54,32 +75,32 @@ export function QuoteLinesEditor({ lines, priced, problems, currency, locale, re
                   </div>
                   {problem(l.key, 'description') && <p className="text-xs text-brick-dark">{problem(l.key, 'description')}</p>}
                 </Td>
-                <Td className="text-right">
+                <Td className={`${pad} text-right`}>
                   {readOnly ? (
                     <span className="font-mono">{l.quantityText}</span>
                   ) : (
-                    <input aria-label={`Line ${i + 1} quantity`} inputMode="decimal" className={`${cell} w-20 text-right font-mono`} value={l.quantityText} onChange={(e) => set(l.key, { quantityText: e.target.value })} aria-invalid={!!problem(l.key, 'quantity') || undefined} />
+                    <input aria-label={`Line ${i + 1} quantity`} inputMode="decimal" className={`${cell} w-16 text-right font-mono`} value={l.quantityText} onChange={(e) => set(l.key, { quantityText: e.target.value })} aria-invalid={!!problem(l.key, 'quantity') || undefined} />
                   )}
                   {problem(l.key, 'quantity') && <p className="text-xs text-brick-dark">{problem(l.key, 'quantity')}</p>}
                 </Td>
-                <Td>
-                  {readOnly ? l.unit : <input aria-label={`Line ${i + 1} unit`} className={`${cell} w-16`} value={l.unit} onChange={(e) => set(l.key, { unit: e.target.value })} />}
+                <Td className={pad}>
+                  {readOnly ? l.unit : <input aria-label={`Line ${i + 1} unit`} className={`${cell} w-14`} value={l.unit} onChange={(e) => set(l.key, { unit: e.target.value })} />}
                 </Td>
-                <Td className="text-right">
+                <Td className={`${pad} text-right`}>
                   {readOnly ? (
                     <span className="font-mono">{l.priceText}</span>
                   ) : (
-                    <input aria-label={`Line ${i + 1} unit price`} inputMode="decimal" className={`${cell} w-24 text-right font-mono`} value={l.priceText} onChange={(e) => set(l.key, { priceText: e.target.value })} aria-invalid={!!problem(l.key, 'price') || undefined} />
+                    <input aria-label={`Line ${i + 1} unit price`} inputMode="decimal" className={`${cell} w-20 text-right font-mono`} value={l.priceText} onChange={(e) => set(l.key, { priceText: e.target.value })} aria-invalid={!!problem(l.key, 'price') || undefined} />
                   )}
                   {problem(l.key, 'price') && <p className="text-xs text-brick-dark">{problem(l.key, 'price')}</p>}
                 </Td>
-                <Td>
+                <Td className={pad}>
                   {readOnly ? (
-                    <span className="text-xs">{TAX_SHORT[l.taxClass]}</span>
+                    <span className="text-xs" title={TAX_CLASS_LABELS[l.taxClass]}>{TAX_SHORT[l.taxClass]}</span>
                   ) : (
-                    <select aria-label={`Line ${i + 1} tax class`} className={`${cell} w-44`} value={l.taxClass} onChange={(e) => set(l.key, { taxClass: e.target.value as TaxClass })}>
+                    <select aria-label={`Line ${i + 1} tax class`} title={TAX_CLASS_LABELS[l.taxClass]} className={`${cell} w-36`} value={l.taxClass} onChange={(e) => set(l.key, { taxClass: e.target.value as TaxClass })}>
                       {(Object.keys(TAX_SHORT) as TaxClass[]).map((c) => (
-                        <option key={c} value={c}>
+                        <option key={c} value={c} title={TAX_CLASS_LABELS[c]}>
                           {TAX_SHORT[c]}
                         </option>
                       ))}
@@ -87,9 +108,9 @@ export function QuoteLinesEditor({ lines, priced, problems, currency, locale, re
                   )}
                   {p && <div className="mt-0.5 font-mono text-xs text-graphite-light">{formatRateBp(p.rateBp)}</div>}
                 </Td>
-                <Td className="text-right font-mono">{p ? formatMoney(p.netMinor, currency, locale) : '—'}</Td>
+                <Td className={`${pad} whitespace-nowrap text-right font-mono`}>{p ? formatMoney(p.netMinor, currency, locale) : '—'}</Td>
                 {!readOnly && (
-                  <Td>
+                  <Td className={pad}>
                     <Button variant="danger-ghost" size="sm" aria-label={`Remove line ${i + 1}`} onClick={() => onChange(lines.filter((x) => x.key !== l.key))}>
                       ✕
                     </Button>
