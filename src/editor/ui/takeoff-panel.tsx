@@ -72,7 +72,13 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
         <section>
           <h4 className="text-sm font-semibold">Rolls</h4>
           <table className="w-full text-xs">
-            <thead><tr className="text-graphite-light"><th className="text-left font-normal">Product</th><th className="font-normal">Packing</th><th className="font-normal">Thumb</th></tr></thead>
+            <thead>
+              <tr className="align-bottom leading-tight text-graphite-light">
+                <th className="pb-0.5 text-left font-normal">Product</th>
+                <th className="w-16 px-1 pb-0.5 text-center font-normal" title="Rolls counted by packing the strips into whole rolls">By packing</th>
+                <th className="w-16 px-1 pb-0.5 text-center font-normal" title="Rolls by rule of thumb: area ÷ roll area, plus waste (common practice)">Rule of thumb</th>
+              </tr>
+            </thead>
             <tbody className="font-mono">
               {t.rollsPerProduct.map((r) => (
                 <tr key={r.productId}><td className="font-sans">{r.productName}</td><td className="text-center" data-testid="rolls-packing">{r.rollsByPacking}</td><td className="text-center">{r.rollsByArea}</td></tr>
