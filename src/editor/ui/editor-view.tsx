@@ -79,7 +79,6 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
             {!editor.readOnly && step === 'exclusions' && <ExclusionsTools />}
             {!editor.readOnly && step === 'eaves' && <EavesTools />}
             {!editor.readOnly && step === 'layers' && <LayersTools products={products} />}
-            {!editor.readOnly && step === 'review' && <p className="text-sm text-graphite-light">Read the takeoff on the right; go back to any step to change it.</p>}
           </div>
         </div>
         <StepsBar />

@@ -17,7 +17,7 @@ export const STEP_HINTS: Record<StepId, string> = {
   exclusions: 'Pick a kind, then drag a rectangle (or click corners in polygon mode); downlights are a click.',
   eaves: 'Click each edge where the roof meets the wall plate; the blue band is kept clear for air.',
   layers: 'Record what is there now and the target; the strips show in straw (between joists) and teal (across).',
-  review: 'Check the takeoff, the site checks and the cautions before saving.',
+  review: 'Check the takeoff on the right, its site checks and the cautions before saving; go back to any step to change it.',
 };
 
 /** The guided steps along the bottom edge; any step can be revisited. */
