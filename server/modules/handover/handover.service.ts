@@ -1,5 +1,5 @@
 import type { AppDeps } from '../../deps';
-import { Customer, Job, JobEvent, Organisation, Space, User } from '../../db/models';
+import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { JobCompletion, JobPhoto, JobTick } from '../../db/models/installer-registry';
 import { longDate } from '../../lib/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
@@ -7,6 +7,7 @@ import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
 import { isTakeoff, latestRevisionRows, sheetChecks } from '../job-sheet/takeoff-view';
 import { loadInstallSettings } from '../schedule/schedule.service';
+import { loadCompanySettings } from '../settings/settings.service';
 import { renderHandoverPdf, type HandoverData } from './handover-pdf';
 
 const PHOTOS_PER_STAGE = 2;
@@ -15,8 +16,8 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
   const { sequelize, storage, mailer } = deps;
 
   async function handoverData(job: Job): Promise<HandoverData> {
-    const [org, customer, completion, settings] = await Promise.all([
-      Organisation.findByPk(job.organisationId),
+    const [company, customer, completion, settings] = await Promise.all([
+      loadCompanySettings(job.organisationId),
       Customer.findByPk(job.customerId),
       JobCompletion.findByPk(job.id, { include: ['user'] }),
       loadInstallSettings(job.organisationId),
@@ -44,7 +45,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
     }
     const when = completion?.completedAt ?? new Date();
     return {
-      companyName: org?.name ?? '',
+      companyName: company.companyName,
       reference: job.reference,
       customerName: customer?.name ?? '',
       address: [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', '),
