@@ -4,7 +4,9 @@ import { cn } from '../../lib/cn';
 /** A ruled table on a card that scrolls sideways on a narrow screen instead of squashing. */
 export function Table({ className, children, ...rest }: HTMLAttributes<HTMLTableElement>) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-paper-line bg-white/80 shadow-sm">
+    // `relative` keeps absolutely placed children (screen-reader-only headers) inside the scroll
+    // box; without it they widen the page on a phone.
+    <div className="relative overflow-x-auto rounded-lg border border-paper-line bg-white/80 shadow-sm">
       <table className={cn('w-full border-collapse text-sm', className)} {...rest}>
         {children}
       </table>
