@@ -12,16 +12,6 @@ import { formatRateBp } from '../../../shared/quote/tax';
 import { FONTS, INK } from '../../lib/pdf/fonts';
 import { longDate } from '../../lib/dates';
 
-// The app's shipped TTFs and palette, shared with the quote and job sheet PDFs.
-const FONT_REGULAR = FONTS.regular;
-const FONT_SEMIBOLD = FONTS.semibold;
-
-const GRAPHITE = INK.graphite;
-const GRAPHITE_LIGHT = INK.graphiteLight;
-const TIMBER = INK.timber;
-const PAPER_LINE = INK.paperLine;
-const BRICK = INK.brick;
-
 export interface CompanyDetails {
   name: string;
   addressLines: string[];
@@ -40,10 +30,10 @@ const formatDate = (iso: string) => longDate(iso);
 /** Render the invoice (or credit note) to a PDF buffer. */
 export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', margin: 50, info: { Title: `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`, Author: company.name } });
-  doc.registerFont('regular', FONT_REGULAR);
-  doc.registerFont('semibold', FONT_SEMIBOLD);
+  doc.registerFont('regular', FONTS.regular);
+  doc.registerFont('semibold', FONTS.semibold);
   // 'mono' = Inter with tabular figures, so columns of amounts line up.
-  doc.registerFont('mono', FONT_REGULAR);
+  doc.registerFont('mono', FONTS.regular);
   const TNUM = { features: ['tnum' as const] };
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
@@ -58,14 +48,14 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   const isCredit = invoice.kind === 'credit_note';
 
   // Header: company on the left, document title and number on the right.
-  doc.font('semibold').fontSize(16).fillColor(GRAPHITE).text(company.name, left, 50, { width: width / 2 });
-  doc.font('regular').fontSize(9).fillColor(GRAPHITE_LIGHT);
+  doc.font('semibold').fontSize(16).fillColor(INK.graphite).text(company.name, left, 50, { width: width / 2 });
+  doc.font('regular').fontSize(9).fillColor(INK.graphiteLight);
   for (const l of [...company.addressLines, company.email, company.phone, company.taxNumber ? `VAT no. ${company.taxNumber}` : undefined]) {
     if (l) doc.text(l, { width: width / 2 });
   }
-  doc.font('semibold').fontSize(20).fillColor(isCredit ? BRICK : TIMBER).text(isCredit ? 'Credit note' : 'Invoice', left + width / 2, 50, { width: width / 2, align: 'right', ...TNUM });
-  doc.font('mono').fontSize(11).fillColor(GRAPHITE).text(invoice.number, { width: width / 2, align: 'right', ...TNUM });
-  doc.font('regular').fontSize(9).fillColor(GRAPHITE_LIGHT);
+  doc.font('semibold').fontSize(20).fillColor(isCredit ? INK.brick : INK.timber).text(isCredit ? 'Credit note' : 'Invoice', left + width / 2, 50, { width: width / 2, align: 'right', ...TNUM });
+  doc.font('mono').fontSize(11).fillColor(INK.graphite).text(invoice.number, { width: width / 2, align: 'right', ...TNUM });
+  doc.font('regular').fontSize(9).fillColor(INK.graphiteLight);
   doc.text(`Issued ${formatDate(invoice.issueDate)}`, { width: width / 2, align: 'right', ...TNUM });
   if (!isCredit && invoice.dueDate) doc.text(`Due ${formatDate(invoice.dueDate)}`, { width: width / 2, align: 'right', ...TNUM });
   doc.text(`Job ${invoice.jobReference}`, { width: width / 2, align: 'right', ...TNUM });
@@ -74,12 +64,12 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
 
   // Bill to
   let y = Math.max(doc.y, 150) + 16;
-  doc.font('semibold').fontSize(9).fillColor(GRAPHITE_LIGHT).text('BILL TO', left, y);
-  doc.font('regular').fontSize(10).fillColor(GRAPHITE).text(invoice.customerName, left, doc.y + 2);
+  doc.font('semibold').fontSize(9).fillColor(INK.graphiteLight).text('BILL TO', left, y);
+  doc.font('regular').fontSize(10).fillColor(INK.graphite).text(invoice.customerName, left, doc.y + 2);
   for (const l of invoice.billingAddress) doc.text(l);
   if (isCredit && invoice.reason) {
-    doc.moveDown(0.6).font('semibold').fontSize(9).fillColor(GRAPHITE_LIGHT).text('REASON');
-    doc.font('regular').fontSize(10).fillColor(GRAPHITE).text(invoice.reason, { width });
+    doc.moveDown(0.6).font('semibold').fontSize(9).fillColor(INK.graphiteLight).text('REASON');
+    doc.font('regular').fontSize(10).fillColor(INK.graphite).text(invoice.reason, { width });
   }
 
   // Lines table
@@ -88,7 +78,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   const descWidth = cols.qty - left - 8;
   y = doc.y + 20;
   const header = () => {
-    doc.font('semibold').fontSize(8).fillColor(GRAPHITE_LIGHT);
+    doc.font('semibold').fontSize(8).fillColor(INK.graphiteLight);
     doc.text('DESCRIPTION', cols.desc, y);
     doc.text('QTY', cols.qty, y, { width: 40, align: 'right', ...TNUM });
     doc.text('UNIT', cols.unit, y, { width: 65, align: 'right', ...TNUM });
@@ -96,7 +86,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     doc.text('NET', cols.net, y, { width: 65, align: 'right', ...TNUM });
     doc.text('TOTAL', cols.total, y, { width: 75, align: 'right', ...TNUM });
     y += 14;
-    doc.moveTo(left, y).lineTo(right, y).lineWidth(0.8).strokeColor(GRAPHITE).stroke();
+    doc.moveTo(left, y).lineTo(right, y).lineWidth(0.8).strokeColor(INK.graphite).stroke();
     y += 6;
   };
   header();
@@ -108,7 +98,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
       y = 50;
       header();
     }
-    doc.fillColor(GRAPHITE).text(line.description, cols.desc, y, { width: descWidth });
+    doc.fillColor(INK.graphite).text(line.description, cols.desc, y, { width: descWidth });
     doc.font('mono').fontSize(9);
     doc.text(formatQuantity(line.quantity), cols.qty, y, { width: 40, align: 'right', ...TNUM });
     doc.text(money(line.unitPriceMinor), cols.unit, y, { width: 65, align: 'right', ...TNUM });
@@ -116,13 +106,13 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     doc.text(money(line.netMinor), cols.net, y, { width: 65, align: 'right', ...TNUM });
     doc.text(money(line.grossMinor), cols.total, y, { width: 75, align: 'right', ...TNUM });
     y += Math.max(descHeight, 12) + 6;
-    doc.moveTo(left, y - 3).lineTo(right, y - 3).lineWidth(0.4).strokeColor(PAPER_LINE).stroke();
+    doc.moveTo(left, y - 3).lineTo(right, y - 3).lineWidth(0.4).strokeColor(INK.paperLine).stroke();
   }
 
   // Totals
   y += 8;
   const row = (label: string, value: string, bold = false) => {
-    doc.font(bold ? 'semibold' : 'regular').fontSize(bold ? 11 : 9.5).fillColor(GRAPHITE).text(label, right - 260, y, { width: 170, align: 'right', ...TNUM });
+    doc.font(bold ? 'semibold' : 'regular').fontSize(bold ? 11 : 9.5).fillColor(INK.graphite).text(label, right - 260, y, { width: 170, align: 'right', ...TNUM });
     doc.font(bold ? 'semibold' : 'mono').fontSize(bold ? 11 : 9.5).text(value, right - 85, y, { width: 85, align: 'right', ...TNUM });
     y += bold ? 18 : 14;
   };
@@ -138,15 +128,15 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   // How to pay
   if (!isCredit && invoice.status !== 'paid' && invoice.balanceMinor > 0 && invoice.payUrl) {
     y += 12;
-    doc.font('semibold').fontSize(10).fillColor(TIMBER).text('Pay online', left, y);
-    doc.font('regular').fontSize(9).fillColor(GRAPHITE).text('Pay the balance by card at this private link:', left, doc.y + 2, { width });
-    doc.font('regular').fontSize(8.5).fillColor(GRAPHITE).text(invoice.payUrl, { width, link: invoice.payUrl, underline: false });
+    doc.font('semibold').fontSize(10).fillColor(INK.timber).text('Pay online', left, y);
+    doc.font('regular').fontSize(9).fillColor(INK.graphite).text('Pay the balance by card at this private link:', left, doc.y + 2, { width });
+    doc.font('regular').fontSize(8.5).fillColor(INK.graphite).text(invoice.payUrl, { width, link: invoice.payUrl, underline: false });
   } else if (!isCredit && invoice.status === 'paid' && invoice.paidAt) {
     y += 12;
-    doc.font('semibold').fontSize(10).fillColor(TIMBER).text(`Paid in full on ${formatDate(invoice.paidAt)}. Thank you.`, left, y);
+    doc.font('semibold').fontSize(10).fillColor(INK.timber).text(`Paid in full on ${formatDate(invoice.paidAt)}. Thank you.`, left, y);
   }
   if (invoice.notes) {
-    doc.moveDown(1).font('regular').fontSize(9).fillColor(GRAPHITE_LIGHT).text(invoice.notes, left, doc.y, { width });
+    doc.moveDown(1).font('regular').fontSize(9).fillColor(INK.graphiteLight).text(invoice.notes, left, doc.y, { width });
   }
   doc.end();
   return done;
