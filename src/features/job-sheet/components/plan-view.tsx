@@ -1,5 +1,6 @@
-import { useMemo, useRef, useState, type PointerEvent as ReactPointerEvent, type WheelEvent } from 'react';
+import { useEffect, useMemo, useRef, useState, type PointerEvent as ReactPointerEvent, type WheelEvent } from 'react';
 import type { SheetSpace } from '../../../../shared/api/job-sheet';
+import { placeStripLabels } from './strip-labels';
 
 type Pt = [number, number];
 type View = { x: number; y: number; w: number; h: number };
@@ -105,7 +106,22 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
     zoomAt(e.deltaY < 0 ? 1.2 : 1 / 1.2, toPlan(e.clientX, e.clientY, view));
   }
 
-  const font = size / 20;
+  // The drawing's size on screen, so strip numbers can be sized and thinned out for the current zoom.
+  const [screen, setScreen] = useState({ w: 360, h: 240 });
+  useEffect(() => {
+    const el = svgRef.current;
+    if (!el || typeof ResizeObserver === 'undefined') return;
+    const measure = () => {
+      const r = el.getBoundingClientRect();
+      if (r.width > 0 && r.height > 0) setScreen((old) => (old.w === r.width && old.h === r.height ? old : { w: r.width, h: r.height }));
+    };
+    measure();
+    const ro = new ResizeObserver(measure);
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+  const mmPerPx = Math.max(view.w / screen.w, view.h / screen.h);
+  const labels = useMemo(() => (layer ? placeStripLabels(layer.strips as Parameters<typeof placeStripLabels>[0], mmPerPx) : { placed: [], hidden: 0 }), [layer, mmPerPx]);
 
   return (
     <div className="relative">
@@ -153,15 +169,35 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
           )}
         </g>
         <polygon points={pointsAttr(plan.outline as Pt[])} fill="none" stroke="#33363b" strokeWidth={size / 250} strokeLinejoin="round" />
-        {layer?.strips.map((s) => {
-          const c = s.labelAt as Pt;
+        {labels.placed.map((l) => {
+          const isLaid = laid.has(l.id);
           return (
-            <text key={`n-${s.id}`} x={c[0]} y={c[1]} fontSize={Math.min(font, s.widthMm * 0.95)} textAnchor="middle" dominantBaseline="central" fontFamily="JetBrains Mono, monospace" fontWeight={700} fill={laid.has(s.id) ? '#ffffff' : '#1d1f22'}>
-              {s.label}
+            <text
+              key={`n-${l.id}`}
+              x={l.x}
+              y={l.y}
+              transform={l.rotateDeg ? `rotate(${l.rotateDeg} ${l.x} ${l.y})` : undefined}
+              fontSize={l.fontSize}
+              textAnchor="middle"
+              dominantBaseline="central"
+              fontFamily="JetBrains Mono, monospace"
+              fontWeight={700}
+              fill={isLaid ? '#ffffff' : '#1d1f22'}
+              stroke={isLaid ? '#1d1f22' : '#ffffff'}
+              strokeWidth={l.fontSize * 0.16}
+              paintOrder="stroke"
+              data-testid="strip-label"
+            >
+              {l.label}
             </text>
           );
         })}
       </svg>
+      {labels.hidden > 0 && (
+        <p className="mt-1 text-sm text-graphite-light" data-testid="labels-hidden">
+          {labels.placed.length} of {labels.placed.length + labels.hidden} strip numbers shown: zoom in to read the rest; the cut list has every strip.
+        </p>
+      )}
       <div className="mt-2 flex items-center gap-2">
         {layer && (
           <span className="mr-auto flex items-center gap-2 whitespace-nowrap text-base font-semibold" data-testid="lay-direction">
