@@ -34,7 +34,7 @@ export function AppShell({ user }: { user: Me }) {
 
   return (
     <div className="notebook-paper min-h-dvh">
-      <header className="sticky top-0 z-30 border-b border-paper-line bg-paper/95 backdrop-blur supports-[backdrop-filter]:bg-paper/80">
+      <header className="sticky top-0 z-30 border-b border-paper-line bg-paper">
         <div className="mx-auto flex h-14 max-w-6xl items-center gap-4 px-4">
           <Link to="/" aria-label="Quiltline home" className="shrink-0">
             <Logo />

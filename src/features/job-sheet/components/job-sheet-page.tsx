@@ -97,7 +97,7 @@ export default function JobSheetPage() {
         </p>
       </header>
 
-      <div className="sticky top-14 z-20 -mx-4 bg-paper/95 px-4 pt-1">
+      <div className="sticky top-14 z-20 -mx-4 bg-paper px-4 pt-1">
         <SyncStatus jobId={s.job.id} />
       </div>
 
