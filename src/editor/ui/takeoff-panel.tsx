@@ -7,6 +7,12 @@ import type { TakeoffRun } from '../takeoff/run-takeoff';
 
 const money = (minor: number) => new Intl.NumberFormat('en-GB', { style: 'currency', currency: 'GBP', maximumFractionDigits: 0 }).format(minor / 100);
 
+/** kWh always; money only when the viewer was given a fuel price (installers are not). */
+function savingText(t: Takeoff): string {
+  const kwh = `${Math.round(t.savings.fuelKwhPerYear)} kWh`;
+  return t.savings.fuelPriceMinorPerKwh > 0 ? `${kwh} · ${money(t.savings.moneyMinorPerYear)}` : kwh;
+}
+
 function Row({ label, value, testId, strong }: { label: string; value: string; testId?: string; strong?: boolean }) {
   return (
     <div className="flex justify-between gap-2 py-0.5">
@@ -94,7 +100,7 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
           <Row label="U after" value={`${t.uValueAfter.toFixed(2)} W/m²K`} testId="u-after" strong />
           {units === 'imperial' && <Row label="R before → after" value={`R-${t.rValueBeforeImperial.toFixed(0)} → R-${t.rValueAfterImperial.toFixed(0)}`} />}
           <Row label="Target" value={t.thermal.meetsTarget ? 'met' : 'not met'} />
-          <Row label="Saving a year (estimate)" value={`${Math.round(t.savings.fuelKwhPerYear)} kWh · ${money(t.savings.moneyMinorPerYear)}`} testId="saving" />
+          <Row label="Saving a year (estimate)" value={savingText(t)} testId="saving" />
         </dl>
         <p className="text-[11px] text-graphite-faint">{t.savings.note}</p>
       </section>
