@@ -38,6 +38,11 @@ export interface BandPiece {
    * inside the band (each unbranched run of trapezoids becomes one part).
    */
   polygons: Vec2[][];
+  /**
+   * A point inside the piece, frame coordinates: the middle of its largest trapezoid. Unlike the
+   * middle of the extent it never falls in a hole, outside a partly covered band or in a notch.
+   */
+  insideAt: Vec2;
 }
 
 interface Edge {
@@ -249,15 +254,24 @@ function bandPieces(bi: number, traps: Trap[], slabStart: number[], minAreaMm2: 
     let area = 0;
     let sMin = Infinity;
     let sMax = -Infinity;
+    let largest = g.traps[0];
+    let largestArea = -1;
     for (const t of g.traps) {
-      area += ((t.r0 - t.l0 + (t.r1 - t.l1)) / 2) * (t.y1 - t.y0);
+      const a = ((t.r0 - t.l0 + (t.r1 - t.l1)) / 2) * (t.y1 - t.y0);
+      area += a;
+      if (a > largestArea) {
+        largestArea = a;
+        largest = t;
+      }
       if (t.l0 < sMin) sMin = t.l0;
       if (t.l1 < sMin) sMin = t.l1;
       if (t.r0 > sMax) sMax = t.r0;
       if (t.r1 > sMax) sMax = t.r1;
     }
     if (area < minAreaMm2) continue;
-    out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons: g.runs.map(runOutline) });
+    const t = largest;
+    const insideAt: Vec2 = [(t.l0 + t.l1 + t.r0 + t.r1) / 4, (t.y0 + t.y1) / 2];
+    out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons: g.runs.map(runOutline), insideAt });
   }
   if (out.length - start > 1) {
     const mine = out.splice(start).sort(bySMin);

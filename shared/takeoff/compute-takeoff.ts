@@ -187,7 +187,6 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
     for (let i = 0; i < count; i++) {
       pieces.push({ stripNumber: number, pieceIndex: i, lengthMm: i < count - 1 ? p.rollLengthMm : r.lengthMm - (count - 1) * p.rollLengthMm });
     }
-    const c = fromFrame(lb.frame, [r.midS, r.midT]);
     return {
       number,
       label: `${prefix}${number}`,
@@ -198,7 +197,7 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
       extentMm: r1(r.extentMm),
       areaM2: r4(m2(r.areaMm2)),
       polygons: r.polygons.map((poly) => poly.map(pt)),
-      labelAt: pt(c),
+      labelAt: pt(r.insideAt),
       pieces: [],
     };
   });

@@ -17,6 +17,8 @@ export interface RawStrip {
   /** Frame coordinates of the piece's middle (s along the band, t across). */
   midS: number;
   midT: number;
+  /** A point inside the strip, plan coordinates (see `BandPiece.insideAt`), mm. */
+  insideAt: Vec2;
   /** The strip as one or more simple polygons in plan coordinates (see `BandPiece.polygons`), mm. */
   polygons: Vec2[][];
 }
@@ -92,6 +94,7 @@ export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowance
       midS: (pc.sMinMm + pc.sMaxMm) / 2,
       midT: (band.loMm + band.hiMm) / 2,
       polygons: pc.polygons.map((poly) => poly.map((q) => fromFrame(lb.frame, q))),
+      insideAt: fromFrame(lb.frame, pc.insideAt),
     };
   });
 }

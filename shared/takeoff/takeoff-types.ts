@@ -42,7 +42,7 @@ export interface TakeoffStrip {
    * union is the strip where it forks around an obstacle inside its band.
    */
   polygons: PlanPointMm[][];
-  /** Where to draw the label: the middle of the strip's extent on its band's centre line, plan mm. */
+  /** Where to draw the label: a point inside the strip (the middle of its largest trapezoid), plan mm. */
   labelAt: PlanPointMm;
   /** Cuts from the rolls (more than one when the strip is longer than a roll). */
   pieces: TakeoffStripPiece[];

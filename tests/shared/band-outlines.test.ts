@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { clipRegionToBands, type Band, type Vec2 } from '../../shared/geometry';
+import GeoJSONReader from 'jsts/org/locationtech/jts/io/GeoJSONReader.js';
 import { jstsPolygon } from './helpers/jsts-oracle';
 import { arbStarPolygon } from './helpers/arbitraries';
 
@@ -45,5 +46,28 @@ describe('band piece outlines', () => {
       }),
       { numRuns: 150 },
     );
+  });
+
+  it('give a label point strictly inside the piece, on random simple polygons (jsts as oracle)', () => {
+    const reader = new GeoJSONReader();
+    fc.assert(
+      fc.property(arbStarPolygon(), fc.integer({ min: 150, max: 1200 }), (ring, widthMm) => {
+        for (const piece of clipRegionToBands([ring], bandsOver([ring], widthMm))) {
+          if (piece.areaMm2 < 100) continue;
+          const point = reader.read({ type: 'Point', coordinates: piece.insideAt });
+          expect(piece.polygons.some((poly) => (jstsPolygon([poly]) as unknown as { intersects(g: unknown): boolean }).intersects(point))).toBe(true);
+        }
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('put the label of a piece that forks around a hole on the piece, not in the hole', () => {
+    // A 2000 × 1000 band area with a 1000 × 600 hole in the middle: the extent's middle is in the hole.
+    const outer: Vec2[] = [[0, 0], [2000, 0], [2000, 1000], [0, 1000]];
+    const hole: Vec2[] = [[500, 200], [1500, 200], [1500, 800], [500, 800]];
+    const [piece] = clipRegionToBands([outer, hole], [{ loMm: 0, hiMm: 1000 }]);
+    const [s, t] = piece.insideAt;
+    expect(s >= 500 && s <= 1500 && t > 200 && t < 800).toBe(false);
   });
 });
