@@ -3,7 +3,7 @@
 // calibrated by two points and locked. Screenshots in test-output/screenshots/editor-*.png.
 import fs from 'node:fs';
 import path from 'node:path';
-import zlib from 'node:zlib';
+import { pngImage } from '../helpers/images';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PlanRevision } from '../../server/db/models';
@@ -98,42 +98,13 @@ describe('saving the plan from two tabs', () => {
 });
 
 describe('background underlay', () => {
-  // A 40 × 20 px PNG (grey), built by hand: signature, IHDR, one IDAT of zlib-compressed rows, IEND.
-  function png(width: number, height: number): Buffer {
-    const crcTable = Array.from({ length: 256 }, (_, n) => {
-      let c = n;
-      for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-      return c >>> 0;
-    });
-    const crc = (buf: Buffer) => {
-      let c = 0xffffffff;
-      for (const b of buf) c = crcTable[(c ^ b) & 0xff] ^ (c >>> 8);
-      return (c ^ 0xffffffff) >>> 0;
-    };
-    const chunk = (type: string, data: Buffer) => {
-      const len = Buffer.alloc(4);
-      len.writeUInt32BE(data.length);
-      const td = Buffer.concat([Buffer.from(type, 'ascii'), data]);
-      const c = Buffer.alloc(4);
-      c.writeUInt32BE(crc(td));
-      return Buffer.concat([len, td, c]);
-    };
-    const ihdr = Buffer.alloc(13);
-    ihdr.writeUInt32BE(width, 0);
-    ihdr.writeUInt32BE(height, 4);
-    ihdr[8] = 8; // bit depth
-    ihdr[9] = 0; // greyscale
-    const rows = Buffer.concat(Array.from({ length: height }, () => Buffer.concat([Buffer.from([0]), Buffer.alloc(width, 120)])));
-    return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', zlib.deflateSync(rows)), chunk('IEND', Buffer.alloc(0))]);
-  }
-
   it('uploads an image, calibrates it by two points and a typed distance, and locks it', async () => {
     const { space } = await createJob(org, { plan: rect(), spaceName: 'Traced loft' });
     const page = await open(space.id);
     // The camera was fitted to the plan at this canvas size when the page opened.
     const first = (await page.getByTestId('plan-canvas').boundingBox())!;
     const zoom = fitCamera(rect().outline, Math.floor(first.width), Math.floor(first.height)).zoom;
-    await page.getByTestId('background-file').setInputFiles({ name: 'drawing.png', mimeType: 'image/png', buffer: png(400, 200) });
+    await page.getByTestId('background-file').setInputFiles({ name: 'drawing.png', mimeType: 'image/png', buffer: await pngImage(400, 200) });
     await page.getByRole('button', { name: 'Calibrate' }).waitFor();
     await page.getByRole('button', { name: 'Calibrate' }).click();
     const box = (await page.getByTestId('plan-canvas').boundingBox())!;

@@ -1,6 +1,6 @@
 // Company settings and catalogue API: office edits, estimators read, installers and other companies kept out.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { deflateSync } from 'node:zlib';
+import { pngImage } from '../helpers/images';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { binary } from './quotes-fixtures';
 
@@ -14,31 +14,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await ctx?.close();
 });
-
-/** A valid 1×1 PNG built by hand (signature, IHDR, IDAT, IEND with their CRCs). */
-function tinyPng(): Buffer {
-  const crcTable = Array.from({ length: 256 }, (_, n) => {
-    let c = n;
-    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-    return c >>> 0;
-  });
-  const crc = (buf: Buffer) => {
-    let c = 0xffffffff;
-    for (const b of buf) c = crcTable[(c ^ b) & 0xff] ^ (c >>> 8);
-    return (c ^ 0xffffffff) >>> 0;
-  };
-  const chunk = (type: string, data: Buffer) => {
-    const len = Buffer.alloc(4);
-    len.writeUInt32BE(data.length);
-    const td = Buffer.concat([Buffer.from(type, 'ascii'), data]);
-    const c = Buffer.alloc(4);
-    c.writeUInt32BE(crc(td));
-    return Buffer.concat([len, td, c]);
-  };
-  const ihdr = Buffer.from([0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0]);
-  const idat = deflateSync(Buffer.from([0, 0x2f, 0x7f, 0x7a]));
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', idat), chunk('IEND', Buffer.alloc(0))]);
-}
 
 describe('company settings', () => {
   it('starts a new company with defaults and the UK dated tax rates (VAT Notice 708/6)', async () => {
@@ -86,7 +61,7 @@ describe('company settings', () => {
     const refused = await office.post('/api/settings/logo').attach('logo', Buffer.from('not an image'), { filename: 'logo.png', contentType: 'image/png' });
     expect(refused.status).toBe(400);
     expect(refused.body.error.code).toBe('unsupported_type');
-    const png = tinyPng();
+    const png = await pngImage(1, 1);
     const ok = await office.post('/api/settings/logo').attach('logo', png, { filename: 'logo.png', contentType: 'image/png' });
     expect(ok.status).toBe(200);
     expect(ok.body.settings.hasLogo).toBe(true);
