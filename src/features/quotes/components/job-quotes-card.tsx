@@ -1,6 +1,6 @@
 import { useNavigate } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/quote/money';
-import { Alert, Button, Card, CardTitle, EmptyState, Spinner } from '../../../components/ui';
+import { Alert, Button, Card, CardTitle, EmptyState, Spinner, formatDate } from '../../../components/ui';
 import { useCreateQuote } from '../api/create-quote';
 import { useJobQuotes } from '../api/get-job-quotes';
 import { QuoteStatusBadge } from './quote-status-badge';
@@ -38,7 +38,7 @@ export function JobQuotesCard({ jobId }: { jobId: string }) {
               </button>
               <QuoteStatusBadge status={q.status} />
               <span className="font-mono text-sm">{formatMoney(q.grossMinor, q.currency)}</span>
-              <span className="text-xs text-graphite-light">valid until {q.validUntil}</span>
+              <span className="text-xs text-graphite-light">valid until {formatDate(q.validUntil)}</span>
             </li>
           ))}
         </ul>

@@ -3,7 +3,7 @@ import { useParams } from 'react-router-dom';
 import type { PublicQuote } from '../../../../shared/api/quotes';
 import { formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
-import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea } from '../../../components/ui';
+import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea, formatDate } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { publicQuotePdfUrl, useAnswerQuote, usePublicQuote } from '../api/public-quote';
 import { DepositAfterAccept } from '../../invoices/components/deposit-after-accept'; // payments engineer
@@ -45,7 +45,7 @@ function QuoteView({ quote: q, token }: { quote: PublicQuote; token: string }) {
       <header className="flex flex-col gap-1">
         <div className="font-mono text-xs uppercase tracking-wider text-timber">
           Quote {q.number}
-          {q.version > 1 ? ` v${q.version}` : ''} · valid until {q.validUntil}
+          {q.version > 1 ? ` v${q.version}` : ''} · valid until {formatDate(q.validUntil)}
         </div>
         <h1 className="text-2xl font-semibold text-graphite">{q.company.name}</h1>
         <p className="text-sm text-graphite-light">
@@ -116,7 +116,7 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
   if (q.status === 'accepted') {
     return (
       <>
-        <Alert tone="success">Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${new Date(q.acceptedAt).toLocaleDateString(q.locale)}` : ''}. We will be in touch to agree the install date.</Alert>
+        <Alert tone="success">Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${formatDate(q.acceptedAt)}` : ''}. We will be in touch to agree the install date.</Alert>
         {/* payments engineer: when a deposit is due, straight on to pay it after accepting; a button when coming back later */}
         <DepositAfterAccept link={token} redirect={answer.isSuccess} />
       </>

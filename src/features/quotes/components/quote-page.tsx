@@ -2,7 +2,7 @@ import { useEffect, useMemo, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { can } from '../../../../shared/auth/policies';
 import { computeQuoteTotals } from '../../../../shared/quote/totals';
-import { Alert, Button, Card, CardTitle, ErrorState, Field, Input, LoadingState, PageHeader, Textarea, formatDateTime } from '../../../components/ui';
+import { Alert, Button, Card, CardTitle, ErrorState, Field, Input, LoadingState, PageHeader, Textarea, formatDate, formatDateTime } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { useCurrentUser } from '../../auth/use-current-user';
 import { useQuote } from '../api/get-quote';
@@ -82,7 +82,7 @@ export default function QuotePage() {
             <QuoteStatusBadge status={q.status} />
           </span>
         }
-        subtitle={`Issued ${q.issueDate} · valid until ${q.validUntil}${q.sentAt ? ` · sent ${formatDateTime(q.sentAt)}` : ''}`}
+        subtitle={`Issued ${formatDate(q.issueDate)} · valid until ${formatDate(q.validUntil)}${q.sentAt ? ` · sent ${formatDateTime(q.sentAt)}` : ''}`}
         actions={
           <>
             <a className="rounded-md border border-graphite/25 bg-white/70 px-3 py-2 text-sm" href={`/api/quotes/${q.id}/pdf`} target="_blank" rel="noreferrer">
