@@ -3,7 +3,6 @@ import { InvalidPlanError } from '../plan/plan-messages';
 import { checkPlanGeometry } from '../plan/plan-geometry-checks';
 import { multiPolygonArea, polygonCentroid, type MultiPolygon } from '../geometry/polygon';
 import { vecDot, type Vec2 } from '../geometry/vector';
-import { fromFrame } from '../geometry/transform';
 import { computePlanRegions, countExclusionsByKind } from './regions';
 import { chooseLayers, existingInsulation, insulationBuildUp, thermalContext, type LayerChoice } from './layers';
 import { cutStrips, layerBands, layingOrder } from './strips';
