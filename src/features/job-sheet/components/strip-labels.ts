@@ -1,4 +1,4 @@
-import { booleanPointInPolygon, centerOfMass } from '@turf/turf';
+import { polygonArea, polygonCentroid, polygonContainsPoint } from '../../../../shared/geometry/polygon';
 
 type Pt = [number, number];
 
@@ -39,23 +39,6 @@ function boxCorners(c: Pt, w: number, h: number, deg: number): Pt[] {
   return [[-w / 2, -h / 2], [w / 2, -h / 2], [w / 2, h / 2], [-w / 2, h / 2]].map(([x, y]) => [c[0] + x * cos - y * sin, c[1] + x * sin + y * cos] as Pt);
 }
 
-const ringOf = (poly: Pt[]): Pt[] => {
-  const first = poly[0];
-  const last = poly[poly.length - 1];
-  return first[0] === last[0] && first[1] === last[1] ? poly : [...poly, first];
-};
-
-/** Plane area of a ring (shoelace); turf's area() is geodesic, for longitude/latitude, not millimetres. */
-function planeArea(poly: Pt[]): number {
-  let a = 0;
-  for (let i = 0; i < poly.length; i++) {
-    const p = poly[i];
-    const q = poly[(i + 1) % poly.length];
-    a += p[0] * q[1] - q[0] * p[1];
-  }
-  return Math.abs(a) / 2;
-}
-
 type Box = { x0: number; y0: number; x1: number; y1: number };
 const bounds = (pts: Pt[]): Box => ({
   x0: Math.min(...pts.map((p) => p[0])),
@@ -79,13 +62,12 @@ export function placeStripLabels(strips: LabelStrip[], mmPerPx: number): { place
   for (const s of strips) {
     const polys = s.polygons.filter((p) => p.length >= 3);
     if (!polys.length) continue;
-    const rings = polys.map((p) => ({ type: 'Polygon' as const, coordinates: [ringOf(p)] }));
-    const byArea = polys.map((p, i) => ({ i, a: planeArea(p) })).sort((x, y) => y.a - x.a);
+    const byArea = polys.map((p, i) => ({ i, a: polygonArea(p) })).sort((x, y) => y.a - x.a);
     const main = polys[byArea[0].i];
     // Where to try: the strip's own label point, then the middle of each piece, largest first (a strip
     // cut in pieces by a hatch or a seam may have its label point on a cut, or even inside the hatch).
-    const anchors: Pt[] = [s.labelAt, ...byArea.map(({ i }) => centerOfMass(rings[i]).geometry.coordinates as Pt)];
-    const inStrip = (c: Pt) => rings.some((g) => booleanPointInPolygon(c, g));
+    const anchors: Pt[] = [s.labelAt, ...byArea.map(({ i }) => polygonCentroid(polys[i]) as Pt)];
+    const inStrip = (c: Pt) => polys.some((g) => polygonContainsPoint(g, c));
     let done = false;
     // Largest readable size first, level before turned along the strip.
     for (let px = LABEL_MAX_PX; px >= LABEL_MIN_PX && !done; px -= 1) {
