@@ -83,13 +83,23 @@ describe('job sheet on a phone', () => {
     // Closing and reopening the app offline loses nothing.
     await page.close();
     const again = await browser.newPage();
+    // Chromium 150 never tells a page opened offline that signal came back: make this page deaf to
+    // 'online' so the test shows that sending does not hang on that one event.
+    await again.addInitScript(() => {
+      const add = window.addEventListener.bind(window);
+      window.addEventListener = ((type: string, ...rest: [EventListenerOrEventListenerObject, AddEventListenerOptions?]) => {
+        if (type !== 'online') add(type, ...rest);
+      }) as typeof window.addEventListener;
+    });
     await again.goto(`${server.url}/jobs/${job.id}/sheet`);
     await again.getByRole('heading', { name: 'Main loft' }).waitFor();
     await expect.poll(() => waitingCount(again)).toBe('4');
     expect(await again.getByTestId('notes-list').textContent()).toContain('Two downlights had no covers');
 
+    // Signal back: the page may never hear 'online' (opened offline), so the outbox's own back-off
+    // (at most 8 s between tries, RETRY_MAX_MS) or focus sends it; wait well past one full step.
     await browser.context.setOffline(false);
-    await expect.poll(() => waitingCount(again), { timeout: 20_000 }).toBe('0');
+    await expect.poll(() => waitingCount(again), { timeout: 45_000 }).toBe('0');
 
     const ticks = await JobTick.findAll({ where: { jobId: job.id } });
     expect(ticks.map((t) => `${t.kind} ${t.ref} ${t.done} ${t.spaceId === space.id}`).sort()).toEqual(['check downlight.covers true true', 'check ppe.dust true true']);

@@ -73,11 +73,19 @@ export async function startPaymentsHarness(): Promise<PaymentsHarness> {
  */
 export const QUOTE_GROSS_MINOR = 57576;
 
+/** The pricing date the hand-worked total above depends on (the dated tax rates); kept fixed on purpose. */
+const PRICED_ON = '2026-12-01';
+
+/** A date `days` after today (UTC), so the quote is still valid whenever the tests run. */
+function isoDaysFromToday(days: number): string {
+  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+}
+
 export async function createAcceptedQuote(organisationId: string, jobId: string, secret: string, opts: { status?: 'accepted' | 'sent'; number?: string } = {}) {
   const nonce = randomBytes(16).toString('base64url');
   const quote = await Quote.create({
     organisationId, jobId, number: opts.number ?? `Q-T${randomBytes(3).toString('hex')}`, version: 1, status: opts.status ?? 'accepted', currency: 'GBP', locale: 'en-GB',
-    issueDate: '2026-12-01', validUntil: '2026-12-31', notes: '', snapshot: { taxRates: UK_DEFAULT_TAX_RATES }, linkNonce: nonce,
+    issueDate: PRICED_ON, validUntil: isoDaysFromToday(30), notes: '', snapshot: { taxRates: UK_DEFAULT_TAX_RATES }, linkNonce: nonce,
     sentAt: new Date(), acceptedAt: opts.status === 'sent' ? null : new Date(), acceptedName: opts.status === 'sent' ? null : 'Ada Fenwick', declinedAt: null, declineReason: null, createdById: null,
   } as never);
   const lines = [

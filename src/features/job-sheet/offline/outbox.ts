@@ -80,9 +80,11 @@ export function flush(): Promise<void> {
           res = await send(item);
         } catch {
           set({ online: false, lastError: 'No connection: waiting to send.' });
+          scheduleRetry();
           return;
         }
         if (res.ok) {
+          retryDelayMs = RETRY_FIRST_MS;
           const data = await res.json().catch(() => null);
           await deleteItem(item.key);
           for (const l of sentListeners) l(item, data);
@@ -90,6 +92,7 @@ export function flush(): Promise<void> {
         } else if (res.status >= 500 || res.status === 408 || res.status === 429 || res.status === 401) {
           // The server or the session is not ready: keep it and try again later (after signing in).
           set({ lastError: res.status === 401 ? 'Sign in again to send your changes.' : 'The server is busy: waiting to send.' });
+          scheduleRetry();
           return;
         } else {
           const err = (await res.json().catch(() => null)) as { error?: { message?: string } } | null;
@@ -106,18 +109,53 @@ export function flush(): Promise<void> {
   return flushing;
 }
 
+/**
+ * Back-off between tries after a failed send: 1 s, doubling, at most 8 s. The browser's `online`
+ * event is not enough on its own: a page opened while offline may never receive it (seen in
+ * Chromium 150), so sending must not wait for that one event.
+ */
+export const RETRY_FIRST_MS = 1_000;
+export const RETRY_MAX_MS = 8_000;
+let retryDelayMs = RETRY_FIRST_MS;
+let retryTimer: ReturnType<typeof setTimeout> | null = null;
+
+function scheduleRetry() {
+  if (retryTimer || typeof window === 'undefined') return;
+  const delay = retryDelayMs;
+  retryDelayMs = Math.min(retryDelayMs * 2, RETRY_MAX_MS);
+  retryTimer = setTimeout(() => {
+    retryTimer = null;
+    if (snapshot.items.some((i) => i.status === 'waiting')) void flush();
+  }, delay);
+}
+
+/** Try now (signal came back, the app came to the front): restarts the back-off from its shortest step. */
+function retryNow() {
+  retryDelayMs = RETRY_FIRST_MS;
+  if (retryTimer) clearTimeout(retryTimer);
+  retryTimer = null;
+  if (snapshot.items.some((i) => i.status === 'waiting')) void flush();
+}
+
 let started = false;
 
-/** Loads the outbox and sends it whenever the connection comes back (and every 30 s while anything waits). */
+/**
+ * Loads the outbox and sends it: at once, whenever the connection comes back, the page becomes
+ * visible or gets focus, after a failed send on a short back-off, and every 30 s while anything waits.
+ */
 export function startOutbox() {
   if (started || typeof window === 'undefined') return;
   started = true;
   void reload().then(() => flush());
   window.addEventListener('online', () => {
     set({ online: true });
-    void flush();
+    retryNow();
   });
   window.addEventListener('offline', () => set({ online: false }));
+  window.addEventListener('focus', retryNow);
+  document.addEventListener('visibilitychange', () => {
+    if (document.visibilityState === 'visible') retryNow();
+  });
   setInterval(() => {
     if (snapshot.items.some((i) => i.status === 'waiting')) void flush();
   }, 30_000);
