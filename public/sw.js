@@ -7,12 +7,7 @@ const SHELL = `quiltline-shell-${VERSION}`;
 const DATA = `quiltline-data-${VERSION}`;
 
 // API reads worth keeping for offline use: who is signed in, the installer's list, job sheets, photo thumbnails.
-const API_KEEP = [
-  /^\/api\/auth\/me$/,
-  /^\/api\/my-jobs$/,
-  /^\/api\/jobs\/[0-9a-f-]{36}(\/job-sheet)?$/,
-  /^\/api\/photos\/[0-9a-f-]{36}\/thumb$/,
-];
+const API_KEEP = [/^\/api\/auth\/me$/, /^\/api\/my-jobs$/, /^\/api\/jobs\/[0-9a-f-]{36}(\/job-sheet)?$/, /^\/api\/photos\/[0-9a-f-]{36}\/thumb$/];
 
 self.addEventListener('install', (event) => {
   event.waitUntil(

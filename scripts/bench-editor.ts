@@ -51,7 +51,10 @@ async function buildHarness(): Promise<string> {
   const dir = path.join(ROOT, 'test-output', 'bench-editor');
   fs.mkdirSync(dir, { recursive: true });
   const htmlFile = path.join(dir, 'index.html');
-  fs.writeFileSync(htmlFile, '<!doctype html><html><head><meta charset="utf-8"><title>editor bench</title></head><body><div id="root"></div><script type="module" src="/src/editor/bench/harness.tsx"></script></body></html>\n');
+  fs.writeFileSync(
+    htmlFile,
+    '<!doctype html><html><head><meta charset="utf-8"><title>editor bench</title></head><body><div id="root"></div><script type="module" src="/src/editor/bench/harness.tsx"></script></body></html>\n',
+  );
   const outDir = path.join(dir, 'dist');
   await build({ root: ROOT, logLevel: 'warn', build: { outDir, emptyOutDir: true, rollupOptions: { input: htmlFile } } });
   return path.join(outDir, 'test-output', 'bench-editor');
@@ -68,10 +71,12 @@ function serve(dir: string, assetsRoot: string): Promise<{ url: string; close():
       res.writeHead(200, { 'Content-Type': types[path.extname(file)] ?? 'application/octet-stream' }).end(data);
     });
   });
-  return new Promise((resolve) => server.listen(0, '127.0.0.1', () => {
-    const { port } = server.address() as { port: number };
-    resolve({ url: `http://127.0.0.1:${port}/`, close: () => server.close() });
-  }));
+  return new Promise((resolve) =>
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as { port: number };
+      resolve({ url: `http://127.0.0.1:${port}/`, close: () => server.close() });
+    }),
+  );
 }
 
 const pct = (xs: number[], p: number) => {
@@ -88,12 +93,23 @@ async function frameTimes() {
     executablePath: CHROMIUM,
     headless: true,
     viewport: { width: 1366, height: 900 },
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-dev-shm-usage'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--disable-dev-shm-usage',
+    ],
   });
   try {
     const page = await ctx.newPage();
     const plan = stressPlan();
-    await page.addInitScript((p) => { (window as unknown as { __BENCH_PLAN__: unknown }).__BENCH_PLAN__ = p; }, plan);
+    await page.addInitScript((p) => {
+      (window as unknown as { __BENCH_PLAN__: unknown }).__BENCH_PLAN__ = p;
+    }, plan);
     await page.goto(srv.url);
     await page.getByTestId('plan-canvas').waitFor();
     await page.getByTestId('net-area').waitFor({ timeout: 60_000 });
@@ -129,11 +145,20 @@ async function frameTimes() {
     const moved = await page.evaluate(() => window.__benchEditor!.store.getState().undoStack.length);
     const deltas = frames.slice(1).map((t, i) => t - frames[i]);
     await page.screenshot({ path: path.join(ROOT, 'test-output', 'screenshots', 'bench-editor-stress.png') });
-    console.log(`\nCorner drag on the stress plan (${plan.outline.length} points, ${plan.exclusions?.length} exclusions), ${MOVES} mouse moves in ${dragMs} ms, ${deltas.length} frames, ${moved} undo entry:`);
-    console.log(`  frame time p50 ${pct(deltas, 50).toFixed(1)} ms, p95 ${pct(deltas, 95).toFixed(1)} ms, p99 ${pct(deltas, 99).toFixed(1)} ms, max ${Math.max(...deltas).toFixed(1)} ms`);
+    console.log(
+      `\nCorner drag on the stress plan (${plan.outline.length} points, ${plan.exclusions?.length} exclusions), ${MOVES} mouse moves in ${dragMs} ms, ${deltas.length} frames, ${moved} undo entry:`,
+    );
+    console.log(
+      `  frame time p50 ${pct(deltas, 50).toFixed(1)} ms, p95 ${pct(deltas, 95).toFixed(1)} ms, p99 ${pct(deltas, 99).toFixed(1)} ms, max ${Math.max(...deltas).toFixed(1)} ms`,
+    );
     console.log(`  goal p95 < 20 ms: ${pct(deltas, 95) < 20 ? 'met' : 'NOT met'}`);
     // Frame times on a shared machine mean little when other work holds the CPUs: say how busy it was.
-    console.log(`  machine: ${os.cpus().length} CPUs, load average ${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} (1/5/15 min)`);
+    console.log(
+      `  machine: ${os.cpus().length} CPUs, load average ${os
+        .loadavg()
+        .map((l) => l.toFixed(1))
+        .join(' / ')} (1/5/15 min)`,
+    );
   } finally {
     await ctx.close();
     fs.rmSync(profile, { recursive: true, force: true });

@@ -56,7 +56,11 @@ for (const file of listJson(examples).sort()) {
   const plan: Plan = v.plan;
   const t = computeTakeoff(plan, { products });
   const strips = t.layers.reduce((n, l) => n + l.strips.length, 0);
-  rows.push({ name: relative(examples, file), detail: `${plan.outline.length} pts, ${plan.exclusions.length} excl, ${t.grossAreaM2.toFixed(0)} m², ${strips} strips`, r: measure(() => computeTakeoff(plan, { products }), RUNS, 50) });
+  rows.push({
+    name: relative(examples, file),
+    detail: `${plan.outline.length} pts, ${plan.exclusions.length} excl, ${t.grossAreaM2.toFixed(0)} m², ${strips} strips`,
+    r: measure(() => computeTakeoff(plan, { products }), RUNS, 50),
+  });
 }
 const stressInput = stressPlan();
 const sv = validatePlan(stressInput);
@@ -70,8 +74,15 @@ rows.push({
 });
 rows.push({ name: 'stress validatePlan', detail: 'zod parse + geometry checks', r: measure(() => validatePlan(stressInput), stressRuns, 10) });
 
-const typical = rows.filter((x) => !x.name.startsWith('stress')).map((x) => x.r.median).sort((a, b) => a - b);
-console.log(`takeoff benchmark — node ${process.version}, load average ${loadavg().map((x) => x.toFixed(1)).join(' ')}, ${RUNS} runs per example, ${stressRuns} for the stress plan`);
+const typical = rows
+  .filter((x) => !x.name.startsWith('stress'))
+  .map((x) => x.r.median)
+  .sort((a, b) => a - b);
+console.log(
+  `takeoff benchmark — node ${process.version}, load average ${loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ')}, ${RUNS} runs per example, ${stressRuns} for the stress plan`,
+);
 console.log(`${'plan'.padEnd(34)}${'median ms'.padStart(10)}${'p90 ms'.padStart(9)}${'cpu ms'.padStart(9)}  detail`);
 for (const { name, detail, r } of rows) {
   console.log(`${name.padEnd(34)}${r.median.toFixed(3).padStart(10)}${r.p90.toFixed(3).padStart(9)}${r.cpu.toFixed(3).padStart(9)}  ${detail}`);

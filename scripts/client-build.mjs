@@ -57,7 +57,10 @@ export function buildClient({ force = false, log = (m) => process.stderr.write(`
   const tmp = path.join(REPO_ROOT, 'node_modules', '.cache', `quiltline-build-${process.pid}`);
   fs.rmSync(tmp, { recursive: true, force: true });
   try {
-    const r = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn', '--outDir', tmp, '--emptyOutDir'], { cwd: REPO_ROOT, stdio: 'inherit' });
+    const r = spawnSync(path.join(REPO_ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn', '--outDir', tmp, '--emptyOutDir'], {
+      cwd: REPO_ROOT,
+      stdio: 'inherit',
+    });
     if (r.status !== 0) throw new Error(`vite build failed (exit ${r.status})`);
     const indexHtml = path.join(tmp, 'index.html');
     copyTree(tmp, dist, (src) => src === indexHtml);

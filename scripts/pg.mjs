@@ -168,8 +168,16 @@ function initCluster(binDir, cfg) {
   log(`creating a new cluster in ${cfg.dataDir} (initdb, first run only)`);
   ensureDirFor(cfg.dataDir, 0o700);
   const r = runPg(binDir, 'initdb', [
-    '-D', cfg.dataDir, '-U', SUPERUSER, '--auth-local=trust', '--auth-host=scram-sha-256',
-    '-E', 'UTF8', '--no-locale', '--no-instructions',
+    '-D',
+    cfg.dataDir,
+    '-U',
+    SUPERUSER,
+    '--auth-local=trust',
+    '--auth-host=scram-sha-256',
+    '-E',
+    'UTF8',
+    '--no-locale',
+    '--no-instructions',
   ]);
   if (r.status !== 0) throw new Error(`initdb failed:\n${r.stderr || r.stdout}`);
   // Settings of our own go in a file the main config includes, so they can be rewritten later.
@@ -284,7 +292,7 @@ export function stopPg(cfg = pgConfig(), binDir = findPgBinDir()) {
 
 /** Number of client connections other than our own (used to decide whether a shared cluster may stop). */
 export function otherConnections(opts = {}) {
-  return Number(psql('SELECT count(*) FROM pg_stat_activity WHERE backend_type = \'client backend\' AND pid <> pg_backend_pid()', opts));
+  return Number(psql("SELECT count(*) FROM pg_stat_activity WHERE backend_type = 'client backend' AND pid <> pg_backend_pid()", opts));
 }
 
 export const CHROMIUM_PATH = '/usr/bin/chromium';

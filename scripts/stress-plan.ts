@@ -34,7 +34,15 @@ export function stressPlan(seed = 7, points = 400, exclusions = 100): PlanInput 
     } else {
       const w = kind === 'flue' ? 150 : 400 + Math.round(rand() * 900);
       const h = kind === 'flue' ? 150 : 400 + Math.round(rand() * 700);
-      ex!.push({ kind, polygon: [[cx, cy], [cx + w, cy], [cx + w, cy + h], [cx, cy + h]] });
+      ex!.push({
+        kind,
+        polygon: [
+          [cx, cy],
+          [cx + w, cy],
+          [cx + w, cy + h],
+          [cx, cy + h],
+        ],
+      });
     }
   }
   return {

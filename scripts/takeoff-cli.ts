@@ -72,23 +72,36 @@ const fmt = (x: number, d = 2) => x.toFixed(d);
 export function formatTakeoffText(t: Takeoff): string {
   const out: string[] = [];
   out.push(`${t.planName}  (${t.format})`);
-  out.push(`Areas      gross ${fmt(t.grossAreaM2)} m², net ${fmt(t.netAreaM2)} m², new layers ${fmt(t.layerAreaM2)} m² (exclusions ${fmt(t.excludedAreaM2)} m², eaves band ${fmt(t.eavesBandAreaM2)} m²)`);
+  out.push(
+    `Areas      gross ${fmt(t.grossAreaM2)} m², net ${fmt(t.netAreaM2)} m², new layers ${fmt(t.layerAreaM2)} m² (exclusions ${fmt(t.excludedAreaM2)} m², eaves band ${fmt(t.eavesBandAreaM2)} m²)`,
+  );
   const target = 'depthMm' in t.target ? `${t.target.depthMm} mm` : `U ${t.target.uValue} W/m²K`;
   out.push(`Existing   ${t.existing.depthMm} mm (${t.existing.condition}, counts as ${t.existing.effectiveDepthMm} mm); target ${target}`);
   if (!t.layers.length) out.push('Layers     none needed');
   for (const l of t.layers) {
-    out.push(`Layer      ${l.role}${l.role === 'cross' ? ` ${l.roleIndex + 1}` : ''}: ${l.productName} [${l.productId}], ${l.thicknessMm} mm, ${fmt(l.areaM2)} m², lay along (${l.layDirection.join(', ')})`);
+    out.push(
+      `Layer      ${l.role}${l.role === 'cross' ? ` ${l.roleIndex + 1}` : ''}: ${l.productName} [${l.productId}], ${l.thicknessMm} mm, ${fmt(l.areaM2)} m², lay along (${l.layDirection.join(', ')})`,
+    );
     const groups = new Map<number, number>();
     for (const s of l.strips) groups.set(s.lengthMm, (groups.get(s.lengthMm) ?? 0) + 1);
-    const list = [...groups].sort((a, b) => b[0] - a[0]).map(([len, n]) => `${n} × ${len}`).join(', ');
+    const list = [...groups]
+      .sort((a, b) => b[0] - a[0])
+      .map(([len, n]) => `${n} × ${len}`)
+      .join(', ');
     out.push(`  strips   ${l.strips.length} strips ${l.laneWidthMm} mm wide (bands ${l.bandWidthMm} mm): ${list} mm`);
     const reusable = l.packing.offcuts.filter((o) => o.reusable).length;
-    out.push(`  rolls    ${l.rollsByPacking} by packing (${l.packing.lanesUsed} lanes of ${l.rollLengthMm} mm, ${l.lanesPerRoll} per roll; waste ${fmt(l.wastePct, 1)}%, ${reusable} reusable offcuts), ${l.rollsByArea} by area (+${t.wasteAllowancePct}%)`);
+    out.push(
+      `  rolls    ${l.rollsByPacking} by packing (${l.packing.lanesUsed} lanes of ${l.rollLengthMm} mm, ${l.lanesPerRoll} per roll; waste ${fmt(l.wastePct, 1)}%, ${reusable} reusable offcuts), ${l.rollsByArea} by area (+${t.wasteAllowancePct}%)`,
+    );
   }
   if (t.rollsPerProduct.length) out.push(`Rolls      ${t.rollsPerProduct.map((r) => `${r.rollsByPacking} × ${r.productId}`).join(', ')}`);
-  out.push(`U-value    before ${fmt(t.uValueBefore, 3)} W/m²K (R-${fmt(t.rValueBeforeImperial, 1)} imperial), after ${fmt(t.uValueAfter, 3)} W/m²K (R-${fmt(t.rValueAfterImperial, 1)} imperial); RdSAP S9 for the same depths ${t.thermal.before.rdsapU} → ${t.thermal.after.rdsapU}`);
+  out.push(
+    `U-value    before ${fmt(t.uValueBefore, 3)} W/m²K (R-${fmt(t.rValueBeforeImperial, 1)} imperial), after ${fmt(t.uValueAfter, 3)} W/m²K (R-${fmt(t.rValueAfterImperial, 1)} imperial); RdSAP S9 for the same depths ${t.thermal.before.rdsapU} → ${t.thermal.after.rdsapU}`,
+  );
   const s = t.savings;
-  out.push(`Saving     about ${Math.round(s.heatKwhPerYear)} kWh of heat, ${Math.round(s.fuelKwhPerYear)} kWh of fuel a year ≈ ${(s.moneyMinorPerYear / 100).toFixed(2)} a year at ${s.fuelPriceMinorPerKwh} minor units/kWh (estimate)`);
+  out.push(
+    `Saving     about ${Math.round(s.heatKwhPerYear)} kWh of heat, ${Math.round(s.fuelKwhPerYear)} kWh of fuel a year ≈ ${(s.moneyMinorPerYear / 100).toFixed(2)} a year at ${s.fuelPriceMinorPerKwh} minor units/kWh (estimate)`,
+  );
   out.push('Site checks');
   for (const c of t.siteChecks) out.push(`  [${c.code}] ${c.message}`);
   if (t.warnings.length) {

@@ -5,9 +5,7 @@
  * failed assertion but still counts as one failure; so does a non-zero vitest exit with no failure.
  */
 export function summarise(report, vitestExitCode = 0) {
-  const brokenFiles = (report.testResults ?? []).filter(
-    (f) => f.status === 'failed' && !(f.assertionResults ?? []).some((a) => a.status === 'failed'),
-  );
+  const brokenFiles = (report.testResults ?? []).filter((f) => f.status === 'failed' && !(f.assertionResults ?? []).some((a) => a.status === 'failed'));
   let failed = (report.numFailedTests ?? 0) + brokenFiles.length;
   const unexplainedExit = failed === 0 && vitestExitCode !== 0;
   if (unexplainedExit) failed = 1;

@@ -53,8 +53,7 @@ export class FakeSmtp implements Outbox {
             .then((parsed) => {
               const text = parsed.text ?? '';
               const html = typeof parsed.html === 'string' ? parsed.html : '';
-              const addr = (a: typeof parsed.from | typeof parsed.to) =>
-                (Array.isArray(a) ? a.map((x) => x.text).join(', ') : (a?.text ?? ''));
+              const addr = (a: typeof parsed.from | typeof parsed.to) => (Array.isArray(a) ? a.map((x) => x.text).join(', ') : (a?.text ?? ''));
               this.store.push({
                 id: this.nextId++,
                 receivedAt: new Date().toISOString(),

@@ -14,5 +14,8 @@ export const apiErrorSchema = z.object({
 });
 export type ApiError = z.infer<typeof apiErrorSchema>;
 
-export const emailSchema = z.email({ error: 'enter a valid e-mail address' }).max(254).transform((s) => s.toLowerCase());
+export const emailSchema = z
+  .email({ error: 'enter a valid e-mail address' })
+  .max(254)
+  .transform((s) => s.toLowerCase());
 export const passwordSchema = z.string().min(10, { error: 'use at least 10 characters' }).max(200);

@@ -18,8 +18,10 @@ export const paymentSettingsBodySchema = z
     paymentTermsDays: z.number().int().min(0).max(365, { error: 'at most 365 days' }),
   })
   .superRefine((v, ctx) => {
-    if (v.depositMode === 'percent' && v.depositPercentBp == null) ctx.addIssue({ code: 'custom', path: ['depositPercentBp'], message: 'enter the deposit percentage' });
-    if (v.depositMode === 'fixed' && v.depositFixedMinor == null) ctx.addIssue({ code: 'custom', path: ['depositFixedMinor'], message: 'enter the deposit amount' });
+    if (v.depositMode === 'percent' && v.depositPercentBp == null)
+      ctx.addIssue({ code: 'custom', path: ['depositPercentBp'], message: 'enter the deposit percentage' });
+    if (v.depositMode === 'fixed' && v.depositFixedMinor == null)
+      ctx.addIssue({ code: 'custom', path: ['depositFixedMinor'], message: 'enter the deposit amount' });
   });
 export type PaymentSettingsBody = z.input<typeof paymentSettingsBodySchema>;
 

@@ -90,9 +90,18 @@ export const quoteSchema = z.object({
 });
 export type Quote = z.infer<typeof quoteSchema>;
 
-export const quoteSummarySchema = quoteSchema.pick({
-  id: true, number: true, version: true, status: true, currency: true, issueDate: true, validUntil: true, sentAt: true,
-}).extend({ grossMinor: z.number().int() });
+export const quoteSummarySchema = quoteSchema
+  .pick({
+    id: true,
+    number: true,
+    version: true,
+    status: true,
+    currency: true,
+    issueDate: true,
+    validUntil: true,
+    sentAt: true,
+  })
+  .extend({ grossMinor: z.number().int() });
 export type QuoteSummary = z.infer<typeof quoteSummarySchema>;
 
 /** POST /api/jobs/:id/quotes — empty body builds from the saved takeoffs. */
@@ -120,7 +129,16 @@ export const publicQuoteSchema = z.object({
   locale: z.string(),
   issueDate: z.string(),
   validUntil: z.string(),
-  lines: z.array(z.object({ description: z.string(), quantity: z.number(), unit: z.string(), unitPriceMinor: z.number().int(), netMinor: z.number().int(), rateBp: z.number().int() })),
+  lines: z.array(
+    z.object({
+      description: z.string(),
+      quantity: z.number(),
+      unit: z.string(),
+      unitPriceMinor: z.number().int(),
+      netMinor: z.number().int(),
+      rateBp: z.number().int(),
+    }),
+  ),
   totals: quoteTotalsSchema.pick({ netMinor: true, taxByRate: true, taxMinor: true, grossMinor: true }),
   saving: quoteSavingSchema.nullable(),
   cautions: z.array(z.string()),

@@ -46,7 +46,11 @@ export const currencySchema = z
   .regex(/^[A-Z]{3}$/, { error: 'use a three-letter currency code such as GBP' });
 
 const minor = (what: string) =>
-  z.number({ error: `enter ${what}` }).int({ error: `${what} must be a whole number of minor units` }).min(0).max(1_000_000_000);
+  z
+    .number({ error: `enter ${what}` })
+    .int({ error: `${what} must be a whole number of minor units` })
+    .min(0)
+    .max(1_000_000_000);
 
 /** A roll product in the company catalogue. Lengths in mm, prices in minor units per roll. */
 export const productBodySchema = z.object({
@@ -63,7 +67,10 @@ export const productBodySchema = z.object({
   unitCostMinor: minor('the unit cost').default(0),
   taxClass: taxClassSchema.default('energy_saving'),
   /** Layer roles the product may be used for. */
-  roles: z.array(z.enum(['base', 'cross'])).min(1, { error: 'choose at least one layer role' }).default(['base', 'cross']),
+  roles: z
+    .array(z.enum(['base', 'cross']))
+    .min(1, { error: 'choose at least one layer role' })
+    .default(['base', 'cross']),
   active: z.boolean().default(true),
 });
 export type ProductBody = z.input<typeof productBodySchema>;

@@ -21,7 +21,5 @@ export const inviteUserBodySchema = z.object({
 });
 export type InviteUserBody = z.infer<typeof inviteUserBodySchema>;
 
-export const updateUserBodySchema = z
-  .object({ name: z.string().trim().min(1).max(120), role: roleSchema, active: z.boolean() })
-  .partial();
+export const updateUserBodySchema = z.object({ name: z.string().trim().min(1).max(120), role: roleSchema, active: z.boolean() }).partial();
 export type UpdateUserBody = z.infer<typeof updateUserBodySchema>;

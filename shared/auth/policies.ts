@@ -18,12 +18,20 @@ export type Action =
 
 const GRANTS: Record<Role, ReadonlySet<Action>> = {
   office: new Set<Action>([
-    'users:manage', 'customers:read', 'customers:write', 'jobs:read-all', 'jobs:write', 'jobs:assign',
-    'plans:write', 'prices:read', 'settings:manage', 'quotes:draft', 'quotes:manage', 'outbox:read',
+    'users:manage',
+    'customers:read',
+    'customers:write',
+    'jobs:read-all',
+    'jobs:write',
+    'jobs:assign',
+    'plans:write',
+    'prices:read',
+    'settings:manage',
+    'quotes:draft',
+    'quotes:manage',
+    'outbox:read',
   ]),
-  estimator: new Set<Action>([
-    'customers:read', 'customers:write', 'jobs:read-all', 'jobs:write', 'plans:write', 'prices:read', 'quotes:draft',
-  ]),
+  estimator: new Set<Action>(['customers:read', 'customers:write', 'jobs:read-all', 'jobs:write', 'plans:write', 'prices:read', 'quotes:draft']),
   // Installers see only jobs assigned to them and never prices (PRODUCT.md, People).
   installer: new Set<Action>(['jobsheet:work']),
 };

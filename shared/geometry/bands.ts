@@ -61,7 +61,6 @@ interface Trap {
   r1: number;
 }
 
-
 const EPS = 1e-7;
 
 // Comparators and helpers live at module level: hot loops must not create closures (a bundler's

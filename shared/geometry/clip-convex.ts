@@ -27,7 +27,7 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
       const sp = side(p);
       const sq = side(q);
       if (sp >= 0) out.push(p);
-      if ((sp >= 0) !== (sq >= 0)) {
+      if (sp >= 0 !== sq >= 0) {
         const t = sp / (sp - sq);
         out.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
       }

@@ -45,7 +45,14 @@ export function polygonBuffer(ring: Ring, distanceMm: number): MultiPolygon {
     if (len === 0) continue;
     const nx = (-dy / len) * distanceMm;
     const ny = (dx / len) * distanceMm;
-    parts.push([[[a[0] + nx, a[1] + ny], [b[0] + nx, b[1] + ny], [b[0] - nx, b[1] - ny], [a[0] - nx, a[1] - ny]]]);
+    parts.push([
+      [
+        [a[0] + nx, a[1] + ny],
+        [b[0] + nx, b[1] + ny],
+        [b[0] - nx, b[1] - ny],
+        [a[0] - nx, a[1] - ny],
+      ],
+    ]);
     parts.push([circlePolygon(a, distanceMm)]);
   }
   return unionPolygons(parts);

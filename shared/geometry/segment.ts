@@ -6,13 +6,7 @@ import type { Ring } from './polygon';
  * overlaps), or `null` when they do not touch. Touching at an end point counts. `epsMm` is the
  * tolerance for "touching", in mm. Classic parametric test (e.g. O'Rourke, Computational Geometry in C, §7).
  */
-export function segmentIntersection(
-  a1: readonly number[],
-  a2: readonly number[],
-  b1: readonly number[],
-  b2: readonly number[],
-  epsMm = 1e-9,
-): Vec2 | null {
+export function segmentIntersection(a1: readonly number[], a2: readonly number[], b1: readonly number[], b2: readonly number[], epsMm = 1e-9): Vec2 | null {
   const rx = a2[0] - a1[0];
   const ry = a2[1] - a1[1];
   const sx = b2[0] - b1[0];

@@ -58,32 +58,57 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
     const span = Math.max(b.maxX - b.minX, b.maxY - b.minY);
     const area = polygonArea(outline);
     if (span > MAX_SPAN_MM) {
-      errors.push({ code: 'outline.too-large', message: `the outline spans ${(span / 1000).toFixed(1)} m; lengths are in millimetres and a loft is under ${MAX_SPAN_MM / 1000} m`, path: 'outline' });
+      errors.push({
+        code: 'outline.too-large',
+        message: `the outline spans ${(span / 1000).toFixed(1)} m; lengths are in millimetres and a loft is under ${MAX_SPAN_MM / 1000} m`,
+        path: 'outline',
+      });
     } else if (area < MIN_AREA_MM2 && zeroEdges === 0 && crossings.length === 0) {
       // A crossed outline's shoelace area means nothing: the crossing is the message then.
-      errors.push({ code: 'outline.too-small', message: `the outline encloses ${(area / 1e6).toFixed(3)} m²; lengths are in millimetres and a loft is at least ${MIN_AREA_MM2 / 1e6} m²`, path: 'outline' });
+      errors.push({
+        code: 'outline.too-small',
+        message: `the outline encloses ${(area / 1e6).toFixed(3)} m²; lengths are in millimetres and a loft is at least ${MIN_AREA_MM2 / 1e6} m²`,
+        path: 'outline',
+      });
     }
     outlineUsable = errors.length === 0;
   }
 
   const j = plan.joists;
   if (j.centresMm <= j.widthMm) {
-    errors.push({ code: 'joists.centres-not-above-width', message: `joist centres (${j.centresMm} mm) must be greater than the joist width (${j.widthMm} mm), or there is no bay between them`, path: 'joists.centresMm' });
+    errors.push({
+      code: 'joists.centres-not-above-width',
+      message: `joist centres (${j.centresMm} mm) must be greater than the joist width (${j.widthMm} mm), or there is no bay between them`,
+      path: 'joists.centresMm',
+    });
   } else if (j.centresMm < 250 || j.centresMm > 1200) {
-    warnings.push({ code: 'joists.unusual-centres', message: `joist centres of ${j.centresMm} mm are unusual (400 and 600 mm are common): check the measurement`, path: 'joists.centresMm' });
+    warnings.push({
+      code: 'joists.unusual-centres',
+      message: `joist centres of ${j.centresMm} mm are unusual (400 and 600 mm are common): check the measurement`,
+      path: 'joists.centresMm',
+    });
   }
 
   const seen = new Set<number>();
   plan.eavesEdges.forEach((e, k) => {
     if (e >= n) {
-      errors.push({ code: 'eaves.edge-out-of-range', message: `eaves edge ${e} does not exist: the outline has edges 0 to ${Math.max(0, n - 1)}`, path: `eavesEdges.${k}`, edgeIndex: e });
+      errors.push({
+        code: 'eaves.edge-out-of-range',
+        message: `eaves edge ${e} does not exist: the outline has edges 0 to ${Math.max(0, n - 1)}`,
+        path: `eavesEdges.${k}`,
+        edgeIndex: e,
+      });
     } else if (seen.has(e)) {
       warnings.push({ code: 'eaves.duplicate-edge', message: `edge ${e} is marked as eaves twice`, path: `eavesEdges.${k}`, edgeIndex: e });
     }
     seen.add(e);
   });
   if (plan.eavesEdges.length && plan.eavesGapMm < 25) {
-    warnings.push({ code: 'eaves.gap-narrow', message: `an eaves gap of ${plan.eavesGapMm} mm is below the 25 mm continuous gap BS 5250 asks for at low pitches (50 mm is usual): check the roof's ventilation`, path: 'eavesGapMm' });
+    warnings.push({
+      code: 'eaves.gap-narrow',
+      message: `an eaves gap of ${plan.eavesGapMm} mm is below the 25 mm continuous gap BS 5250 asks for at low pitches (50 mm is usual): check the roof's ventilation`,
+      path: 'eavesGapMm',
+    });
   }
 
   const outlineEdges = outlineUsable ? edgeBoxes(outline) : [];
@@ -93,11 +118,26 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
       const poly = ex.polygon;
       for (let i = 0; i < poly.length; i++) {
         if (ringEdgeLength(poly, i) < MIN_EDGE_MM) {
-          errors.push({ code: 'exclusion.zero-length-edge', message: `${label}: edge ${i} has no length`, path: `exclusions.${xi}.polygon.${(i + 1) % poly.length}`, exclusionIndex: xi, edgeIndex: i, at: [poly[i][0], poly[i][1]] });
+          errors.push({
+            code: 'exclusion.zero-length-edge',
+            message: `${label}: edge ${i} has no length`,
+            path: `exclusions.${xi}.polygon.${(i + 1) % poly.length}`,
+            exclusionIndex: xi,
+            edgeIndex: i,
+            at: [poly[i][0], poly[i][1]],
+          });
         }
       }
       for (const c of findRingSelfIntersections(poly, 3)) {
-        errors.push({ code: 'exclusion.self-intersection', message: `${label} crosses itself: its edges ${c.edgeIndex} and ${c.otherEdgeIndex} meet at ${fmtPt(c.at)}`, path: `exclusions.${xi}.polygon`, exclusionIndex: xi, edgeIndex: c.edgeIndex, otherEdgeIndex: c.otherEdgeIndex, at: c.at });
+        errors.push({
+          code: 'exclusion.self-intersection',
+          message: `${label} crosses itself: its edges ${c.edgeIndex} and ${c.otherEdgeIndex} meet at ${fmtPt(c.at)}`,
+          path: `exclusions.${xi}.polygon`,
+          exclusionIndex: xi,
+          edgeIndex: c.edgeIndex,
+          otherEdgeIndex: c.otherEdgeIndex,
+          at: c.at,
+        });
       }
       if (polygonArea(poly) < 1) {
         errors.push({ code: 'exclusion.zero-area', message: `${label} encloses no area`, path: `exclusions.${xi}.polygon`, exclusionIndex: xi });
@@ -107,17 +147,37 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
     const place = exclusionPlacement(ex.polygon ?? [ex.at!], outline, outlineEdges);
     const at: [number, number] = ex.at ? [ex.at[0], ex.at[1]] : [ex.polygon![0][0], ex.polygon![0][1]];
     if (place === 'outside') {
-      warnings.push({ code: 'exclusion.outside-outline', message: `${label} lies wholly outside the outline and is ignored`, path: `exclusions.${xi}`, exclusionIndex: xi, at });
+      warnings.push({
+        code: 'exclusion.outside-outline',
+        message: `${label} lies wholly outside the outline and is ignored`,
+        path: `exclusions.${xi}`,
+        exclusionIndex: xi,
+        at,
+      });
     } else if (place === 'partly') {
-      warnings.push({ code: 'exclusion.partly-outside', message: `${label} lies partly outside the outline; only the part inside counts`, path: `exclusions.${xi}`, exclusionIndex: xi, at });
+      warnings.push({
+        code: 'exclusion.partly-outside',
+        message: `${label} lies partly outside the outline; only the part inside counts`,
+        path: `exclusions.${xi}`,
+        exclusionIndex: xi,
+        at,
+      });
     }
   });
 
   if ('depthMm' in plan.target && plan.existing.depthMm >= plan.target.depthMm && plan.existing.condition === 'good') {
-    warnings.push({ code: 'target.below-existing', message: `the existing ${plan.existing.depthMm} mm already reaches the ${plan.target.depthMm} mm target`, path: 'target.depthMm' });
+    warnings.push({
+      code: 'target.below-existing',
+      message: `the existing ${plan.existing.depthMm} mm already reaches the ${plan.target.depthMm} mm target`,
+      path: 'target.depthMm',
+    });
   }
   if (outlineUsable && !plan.exclusions.some((e) => e.kind === 'hatch')) {
-    warnings.push({ code: 'hatch.missing', message: 'no hatch is marked: strips are numbered towards the middle of the loft instead of towards the way out', path: 'exclusions' });
+    warnings.push({
+      code: 'hatch.missing',
+      message: 'no hatch is marked: strips are numbered towards the middle of the loft instead of towards the way out',
+      path: 'exclusions',
+    });
   }
   return { errors, warnings };
 }

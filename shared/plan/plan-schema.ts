@@ -82,8 +82,7 @@ export const productChoiceSchema = z.object({
 /** The whole `quiltline-plan/1` file; unknown formats are refused with a clear message. */
 export const planSchema = z.object({
   format: z.literal(PLAN_FORMAT, {
-    error: (issue) =>
-      `unknown plan format ${JSON.stringify(issue.input)}: this version reads "${PLAN_FORMAT}"`,
+    error: (issue) => `unknown plan format ${JSON.stringify(issue.input)}: this version reads "${PLAN_FORMAT}"`,
   }),
   name: z.string().min(1).max(120),
   outline: z.array(pointSchema),

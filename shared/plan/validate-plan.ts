@@ -6,9 +6,7 @@ import { checkPlanGeometry } from './plan-geometry-checks';
 export type { PlanMessage } from './plan-messages';
 
 /** The outcome of `validatePlan`: a parsed plan with warnings, or the errors that stop it. */
-export type ValidatePlanResult =
-  | { ok: true; plan: Plan; warnings: PlanMessage[] }
-  | { ok: false; errors: PlanMessage[]; warnings: PlanMessage[] };
+export type ValidatePlanResult = { ok: true; plan: Plan; warnings: PlanMessage[] } | { ok: false; errors: PlanMessage[]; warnings: PlanMessage[] };
 
 /**
  * Validates anything claiming to be a `quiltline-plan/1` plan: first the format (an unknown

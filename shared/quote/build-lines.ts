@@ -53,8 +53,8 @@ const ROLE_TEXT: Record<LayerForQuote['role'], string> = {
 
 /** Rounds hours up to whole `minutes`; exact for the usual 15 minutes (0.25 h). */
 function roundUpHours(hours: number, minutes: number): number {
-  const steps = Math.ceil(Number((hours * 60 / minutes).toFixed(9)));
-  return Math.round(steps * minutes / 60 * 1000) / 1000;
+  const steps = Math.ceil(Number(((hours * 60) / minutes).toFixed(9)));
+  return Math.round(((steps * minutes) / 60) * 1000) / 1000;
 }
 
 function fmt(n: number, digits = 2): string {
@@ -132,7 +132,11 @@ export function buildQuoteLines(
     ['walkway_board', tanks * r.walkwayBoardsPerTank, `${r.walkwayBoardsPerTank} per tank, spanning several joists`],
     ['downlight_cover', count('downlight'), 'one fire-rated cover per downlight'],
     ['eaves_tray', trays, 'one per rafter space along the eaves'],
-    ['board_leg', boardedM2 > 0 ? Math.ceil(Number((boardedM2 * r.boardLegsPerM2).toFixed(6))) : 0, `${fmt(r.boardLegsPerM2)} per m² of boarded area (${fmt(boardedM2)} m²)`],
+    [
+      'board_leg',
+      boardedM2 > 0 ? Math.ceil(Number((boardedM2 * r.boardLegsPerM2).toFixed(6))) : 0,
+      `${fmt(r.boardLegsPerM2)} per m² of boarded area (${fmt(boardedM2)} m²)`,
+    ],
     ['disposal', r.disposalPerJob, 'offcuts and packaging'],
   ];
   let extraMinutes = 0;
@@ -175,8 +179,13 @@ export function buildQuoteLines(
       taxClass: lab.taxClass,
     });
   };
-  if (areaByRole.base > 0) labourLine(`Labour: lay base layer between the joists, ${fmt(areaByRole.base)} m² at ${fmt(lab.baseM2PerHour)} m²/h`, areaByRole.base / lab.baseM2PerHour);
-  if (areaByRole.cross > 0) labourLine(`Labour: lay cross layer over the joists, ${fmt(areaByRole.cross)} m² at ${fmt(lab.crossM2PerHour)} m²/h`, areaByRole.cross / lab.crossM2PerHour);
+  if (areaByRole.base > 0)
+    labourLine(`Labour: lay base layer between the joists, ${fmt(areaByRole.base)} m² at ${fmt(lab.baseM2PerHour)} m²/h`, areaByRole.base / lab.baseM2PerHour);
+  if (areaByRole.cross > 0)
+    labourLine(
+      `Labour: lay cross layer over the joists, ${fmt(areaByRole.cross)} m² at ${fmt(lab.crossM2PerHour)} m²/h`,
+      areaByRole.cross / lab.crossM2PerHour,
+    );
   if (extraMinutes > 0) labourLine('Labour: fit extras (kits, jackets, covers, trays, boards)', extraMinutes / 60);
   if (lab.minimumChargeMinor > 0 && labourMinor < lab.minimumChargeMinor && lines.length > 0) {
     lines.push({

@@ -14,7 +14,7 @@ const ALWAYS: string[] = [
   'Mineral-wool fibres irritate skin, eyes and airways: installers wear gloves, goggles and a disposable mask, and the loft is left clean.',
   'Electrical cables are lifted to lie over the insulation, not buried in it; a qualified electrician should check any damaged wiring.',
   'The ventilation gap at the eaves is kept open so the roof space stays dry.',
-  'This work follows local building regulations and the product makers\' instructions; where they say otherwise, they prevail.',
+  "This work follows local building regulations and the product makers' instructions; where they say otherwise, they prevail.",
 ];
 
 const BY_KIND: Partial<Record<ExclusionKind, string>> = {

@@ -67,19 +67,14 @@ export function groupTaxByRate(lines: readonly { rateBp: number; netMinor: numbe
 }
 
 /** The rounding rule, in words for the quote and the PDF. */
-export const ROUNDING_NOTE =
-  'Each line is rounded to the penny (half up), and so is the tax on each line; totals are the sums of the rounded lines.';
+export const ROUNDING_NOTE = 'Each line is rounded to the penny (half up), and so is the tax on each line; totals are the sums of the rounded lines.';
 
 /**
  * Prices a quote's lines: per line net = quantity × unit price, tax = net × the class's rate on
  * `taxDateIso` — each rounded half-up once, per line — then totals as exact integer sums.
  * Throws when a line's class has no rate on that date.
  */
-export function computeQuoteTotals<L extends QuoteLineInput>(
-  lines: readonly L[],
-  rates: readonly DatedTaxRate[],
-  taxDateIso: string,
-): QuoteTotals<L> {
+export function computeQuoteTotals<L extends QuoteLineInput>(lines: readonly L[], rates: readonly DatedTaxRate[], taxDateIso: string): QuoteTotals<L> {
   const priced = lines.map((line) => {
     const netMinor = multiplyMinor(line.quantity, line.unitPriceMinor);
     const costMinor = multiplyMinor(line.quantity, line.unitCostMinor);

@@ -46,7 +46,9 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const settings = resolveSettings(options.settings);
   const checks = checkPlanGeometry(plan);
   if (checks.errors.length) throw new InvalidPlanError(checks.errors);
-  const warnings: Takeoff['warnings'] = checks.warnings.map(({ code, message, edgeIndex, exclusionIndex, pointIndex }) => strip({ code, message, edgeIndex, exclusionIndex, pointIndex }));
+  const warnings: Takeoff['warnings'] = checks.warnings.map(({ code, message, edgeIndex, exclusionIndex, pointIndex }) =>
+    strip({ code, message, edgeIndex, exclusionIndex, pointIndex }),
+  );
 
   const regions = computePlanRegions(plan, settings);
   const layerPlan = chooseLayers(plan, options.products, settings);
@@ -67,8 +69,16 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const targetU = 'uValue' in plan.target ? plan.target.uValue : undefined;
   const firstCross = layerPlan.layers.find((l) => l.role === 'cross')?.product;
   const base = layerPlan.layers.filter((l) => l.role === 'base');
-  const depthForTarget = targetU !== undefined ? depthForTargetU(insulationBuildUp(plan, settings, base), firstCross?.lambda ?? 0.044, targetU, ctx) : undefined;
-  const savings = yearlySavings(before.uValue, after.uValue, m2(regions.layerAreaMm2), settings.degreeDays, settings.heatingEfficiency, settings.fuelPriceMinorPerKwh);
+  const depthForTarget =
+    targetU !== undefined ? depthForTargetU(insulationBuildUp(plan, settings, base), firstCross?.lambda ?? 0.044, targetU, ctx) : undefined;
+  const savings = yearlySavings(
+    before.uValue,
+    after.uValue,
+    m2(regions.layerAreaMm2),
+    settings.degreeDays,
+    settings.heatingEfficiency,
+    settings.fuelPriceMinorPerKwh,
+  );
 
   const outside = new Set(checks.warnings.filter((w) => w.code === 'exclusion.outside-outline').map((w) => w.exclusionIndex!));
   const countsByKind = countExclusionsByKind(plan, outside);
@@ -112,7 +122,12 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     eavesBandAreaM2: r3(m2(regions.netAreaMm2 - regions.layerAreaMm2)),
     layerAreaM2: r3(m2(regions.layerAreaMm2)),
     wasteAllowancePct: settings.wasteAllowancePct,
-    existing: { depthMm: plan.existing.depthMm, condition: plan.existing.condition, effectiveDepthMm: r1(layerPlan.existingEffectiveMm), baseNeeded: layerPlan.baseNeeded },
+    existing: {
+      depthMm: plan.existing.depthMm,
+      condition: plan.existing.condition,
+      effectiveDepthMm: r1(layerPlan.existingEffectiveMm),
+      baseNeeded: layerPlan.baseNeeded,
+    },
     target: plan.target,
     layers,
     rollsPerProduct: [...byProduct.values()],
@@ -125,7 +140,10 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
       after,
       method: 'BS EN ISO 6946 combined method; Rsi 0.10, Rse 0.04, roof space resistance added to Rse; joists bridge the insulation below their tops',
       ...(targetU !== undefined ? { targetUValue: targetU, depthForTargetUMm: depthForTarget } : {}),
-      meetsTarget: targetU !== undefined ? after.uValue <= targetU + 1e-9 : afterLayers.reduce((t, l) => t + l.thicknessMm, 0) >= (plan.target as { depthMm: number }).depthMm - 1e-9,
+      meetsTarget:
+        targetU !== undefined
+          ? after.uValue <= targetU + 1e-9
+          : afterLayers.reduce((t, l) => t + l.thicknessMm, 0) >= (plan.target as { depthMm: number }).depthMm - 1e-9,
     },
     savings: {
       areaM2: r3(savings.areaM2),
@@ -142,7 +160,12 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     eaves: {
       gapMm: plan.eavesGapMm,
       totalLengthMm: r1(eavesLengthMm),
-      bands: regions.eavesBands.map((b) => ({ edgeIndex: b.edgeIndex, edgeLengthMm: r1(b.edgeLengthMm), areaM2: r3(m2(b.areaMm2)), polygon: b.polygon.map(pt) })),
+      bands: regions.eavesBands.map((b) => ({
+        edgeIndex: b.edgeIndex,
+        edgeLengthMm: r1(b.edgeLengthMm),
+        areaM2: r3(m2(b.areaMm2)),
+        polygon: b.polygon.map(pt),
+      })),
     },
     siteChecks,
     warnings,
@@ -169,7 +192,15 @@ function thermalState(layers: InsulationLayer[], ctx: LoftThermalContext): Takeo
   };
 }
 
-function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regionAreaMm2: number, reference: Vec2, outlineCentre: Vec2, s: TakeoffSettings): TakeoffLayer {
+function buildLayer(
+  plan: Plan,
+  choice: LayerChoice,
+  region: MultiPolygon,
+  regionAreaMm2: number,
+  reference: Vec2,
+  outlineCentre: Vec2,
+  s: TakeoffSettings,
+): TakeoffLayer {
   const p = choice.product;
   const laneWidthMm = productLaneWidthMm(p);
   const stagger = choice.role === 'cross' ? (choice.roleIndex * laneWidthMm) / 2 : 0;
@@ -203,7 +234,13 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
   const packing = packPieces(pieces, { rollLengthMm: p.rollLengthMm, lanesPerRoll: p.lanesPerRoll, minOffcutMm: s.minOffcutMm });
   for (const lane of packing.lanes) {
     for (const cut of lane.cuts) {
-      strips[cut.stripNumber - 1].pieces.push({ pieceIndex: cut.pieceIndex, lengthMm: r1(cut.lengthMm), roll: lane.roll, lane: lane.lane, offsetMm: r1(cut.offsetMm) });
+      strips[cut.stripNumber - 1].pieces.push({
+        pieceIndex: cut.pieceIndex,
+        lengthMm: r1(cut.lengthMm),
+        roll: lane.roll,
+        lane: lane.lane,
+        offsetMm: r1(cut.offsetMm),
+      });
     }
   }
   for (const st of strips) st.pieces.sort((a, b) => a.pieceIndex - b.pieceIndex);
@@ -239,7 +276,13 @@ function buildLayer(plan: Plan, choice: LayerChoice, region: MultiPolygon, regio
       method: packing.method,
       lanesUsed: packing.lanesUsed,
       lanesLowerBound: packing.lanesLowerBound,
-      lanes: packing.lanes.map((l) => ({ roll: l.roll, lane: l.lane, usedMm: r1(l.usedMm), leftoverMm: r1(l.leftoverMm), cuts: l.cuts.map((c) => ({ stripNumber: c.stripNumber, pieceIndex: c.pieceIndex, lengthMm: r1(c.lengthMm), offsetMm: r1(c.offsetMm) })) })),
+      lanes: packing.lanes.map((l) => ({
+        roll: l.roll,
+        lane: l.lane,
+        usedMm: r1(l.usedMm),
+        leftoverMm: r1(l.leftoverMm),
+        cuts: l.cuts.map((c) => ({ stripNumber: c.stripNumber, pieceIndex: c.pieceIndex, lengthMm: r1(c.lengthMm), offsetMm: r1(c.offsetMm) })),
+      })),
       offcuts: packing.offcuts.map((o) => ({ ...o, lengthMm: r1(o.lengthMm) })),
     },
     priceMinor: packing.rolls * p.priceMinor,

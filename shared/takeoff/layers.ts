@@ -84,7 +84,10 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
     const fitting = candidates.filter((p) => productLaneWidthMm(p) >= bay);
     const pool = fitting.length ? fitting : candidates;
     if (candidates.length && !fitting.length) {
-      warnings.push({ code: 'base.lane-narrow', message: `no base product has a lane of at least the ${round1(bay)} mm bay; the widest lane is used and will leave gaps` });
+      warnings.push({
+        code: 'base.lane-narrow',
+        message: `no base product has a lane of at least the ${round1(bay)} mm bay; the widest lane is used and will leave gaps`,
+      });
     }
     base = pool.slice().sort((a, b) => {
       const la = productLaneWidthMm(a);
@@ -121,10 +124,16 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
       if (ok.length) chosen = pickBest(ok, (c) => [c.length, sum(c) - need, c.reduce((t, p) => t + costPerM2(p), 0), -minLane(c)]);
       else if (combos.length) {
         chosen = pickBest(combos, (c) => [-sum(c), c.length]);
-        warnings.push({ code: 'target.not-reached', message: `the catalogue reaches ${Math.round(belowMm + sum(chosen))} mm at most with ${s.maxCrossLayers} cross layers; the target is ${plan.target.depthMm} mm` });
+        warnings.push({
+          code: 'target.not-reached',
+          message: `the catalogue reaches ${Math.round(belowMm + sum(chosen))} mm at most with ${s.maxCrossLayers} cross layers; the target is ${plan.target.depthMm} mm`,
+        });
       }
     } else if (!layers.length) {
-      warnings.push({ code: 'target.already-met', message: `the existing ${Math.round(existingEffectiveMm)} mm already meets the ${plan.target.depthMm} mm target; no new layer is needed` });
+      warnings.push({
+        code: 'target.already-met',
+        message: `the existing ${Math.round(existingEffectiveMm)} mm already meets the ${plan.target.depthMm} mm target; no new layer is needed`,
+      });
     }
   } else {
     const target = plan.target.uValue;

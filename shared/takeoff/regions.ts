@@ -4,7 +4,15 @@ import { circlePolygon, polygonBuffer } from '../geometry/offset';
 import { differencePolygons, intersectPolygons } from '../geometry/boolean';
 import { clipRingByConvex } from '../geometry/clip-convex';
 import { subtractShapes } from './isolated-holes';
-import { multiPolygonArea, polygonArea, polygonBounds, polygonSignedArea, ringWithPositiveArea, type MultiPolygon, type PolygonWithHoles } from '../geometry/polygon';
+import {
+  multiPolygonArea,
+  polygonArea,
+  polygonBounds,
+  polygonSignedArea,
+  ringWithPositiveArea,
+  type MultiPolygon,
+  type PolygonWithHoles,
+} from '../geometry/polygon';
 import type { Vec2 } from '../geometry/vector';
 import type { TakeoffSettings } from './settings';
 
@@ -93,7 +101,14 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   // something (see subtractShapes). Layer region = outline − (exclusions ∪ bands). The net area adds
   // back the bands' part of the loft that no exclusion covers, computed from the bands and only
   // the exclusions whose bounds touch them.
-  const layerRegion = allShapes.length || rects.length ? subtractShapes(outline, allShapes, rects.map((r) => r[0])) : [[outline]];
+  const layerRegion =
+    allShapes.length || rects.length
+      ? subtractShapes(
+          outline,
+          allShapes,
+          rects.map((r) => r[0]),
+        )
+      : [[outline]];
   const layerAreaMm2 = allShapes.length || rects.length ? multiPolygonArea(layerRegion) : grossAreaMm2;
   let netAreaMm2 = layerAreaMm2;
   if (rects.length) {
@@ -106,7 +121,17 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
     netAreaMm2 += multiPolygonArea(near.length ? differencePolygons(bandsInLoft, near) : bandsInLoft);
   }
   const excludedAreaMm2 = grossAreaMm2 - netAreaMm2;
-  return { outline, grossAreaMm2, exclusionShapes, exclusionClearancesMm, excludedAreaMm2, netAreaMm2, eavesBands: eavesBands.map(({ rect: _rect, ...b }) => b), layerRegion, layerAreaMm2 };
+  return {
+    outline,
+    grossAreaMm2,
+    exclusionShapes,
+    exclusionClearancesMm,
+    excludedAreaMm2,
+    netAreaMm2,
+    eavesBands: eavesBands.map(({ rect: _rect, ...b }) => b),
+    layerRegion,
+    layerAreaMm2,
+  };
 }
 
 /**

@@ -18,7 +18,14 @@ export interface SavingsEstimate {
  * It ignores solar and internal gains and partial heating: present it as an estimate. A negative
  * ΔU is treated as no saving.
  */
-export function yearlySavings(uBefore: number, uAfter: number, areaM2: number, degreeDays: number, heatingEfficiency: number, fuelPriceMinorPerKwh: number): SavingsEstimate {
+export function yearlySavings(
+  uBefore: number,
+  uAfter: number,
+  areaM2: number,
+  degreeDays: number,
+  heatingEfficiency: number,
+  fuelPriceMinorPerKwh: number,
+): SavingsEstimate {
   const deltaU = Math.max(0, uBefore - uAfter);
   const heatKwhPerYear = (deltaU * areaM2 * degreeDays * 24) / 1000;
   const fuelKwhPerYear = heatingEfficiency > 0 ? heatKwhPerYear / heatingEfficiency : 0;

@@ -138,12 +138,30 @@ export interface Takeoff {
     /** Extra depth of the first cross product (or 0.040 W/mK wool) over the existing layer that reaches the target U, mm. */
     depthForTargetUMm?: number | null;
   };
-  savings: { areaM2: number; deltaU: number; heatKwhPerYear: number; fuelKwhPerYear: number; moneyMinorPerYear: number; degreeDays: number; heatingEfficiency: number; fuelPriceMinorPerKwh: number; note: string };
+  savings: {
+    areaM2: number;
+    deltaU: number;
+    heatKwhPerYear: number;
+    fuelKwhPerYear: number;
+    moneyMinorPerYear: number;
+    degreeDays: number;
+    heatingEfficiency: number;
+    fuelPriceMinorPerKwh: number;
+    note: string;
+  };
   exclusions: {
     /** Exclusions per kind inside the outline (downlight covers, tank jackets, hatch kits…). */
     countsByKind: Record<ExclusionKind, number>;
     /** Each exclusion with its clearance and footprint (clearance included, plan mm); `insideOutline` false when it lies wholly outside and is ignored. */
-    items: { index: number; kind: ExclusionKind; label?: string; clearanceMm: number; insideOutline: boolean; footprintAreaM2: number; polygons: PlanPointMm[][] }[];
+    items: {
+      index: number;
+      kind: ExclusionKind;
+      label?: string;
+      clearanceMm: number;
+      insideOutline: boolean;
+      footprintAreaM2: number;
+      polygons: PlanPointMm[][];
+    }[];
     boardedAreaM2: number;
   };
   eaves: { gapMm: number; totalLengthMm: number; bands: { edgeIndex: number; edgeLengthMm: number; areaM2: number; polygon: PlanPointMm[] }[] };

@@ -140,8 +140,19 @@ export function depthForTargetU(insulation: InsulationLayer[], lambda: number, t
  * insulation thickness at joists, slates or tiles. Rows are [mm, U].
  */
 export const RDSAP_S9_ROOF_U: ReadonlyArray<readonly [number, number]> = Object.freeze([
-  [0, 2.3], [12, 1.5], [25, 1.0], [50, 0.68], [75, 0.5], [100, 0.4], [150, 0.3],
-  [200, 0.21], [250, 0.17], [270, 0.16], [300, 0.14], [350, 0.12], [400, 0.11],
+  [0, 2.3],
+  [12, 1.5],
+  [25, 1.0],
+  [50, 0.68],
+  [75, 0.5],
+  [100, 0.4],
+  [150, 0.3],
+  [200, 0.21],
+  [250, 0.17],
+  [270, 0.16],
+  [300, 0.14],
+  [350, 0.12],
+  [400, 0.11],
 ] as const);
 
 /**

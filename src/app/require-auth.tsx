@@ -11,7 +11,12 @@ import { CurrentUserContext, useCurrentUser } from '../features/auth/use-current
 export function RequireAuth() {
   const me = useMe();
   const location = useLocation();
-  if (me.isPending) return <div className="notebook-paper min-h-dvh"><LoadingState label="Opening Quiltline…" /></div>;
+  if (me.isPending)
+    return (
+      <div className="notebook-paper min-h-dvh">
+        <LoadingState label="Opening Quiltline…" />
+      </div>
+    );
   if (me.isError)
     return (
       <div className="notebook-paper min-h-dvh p-6">

@@ -94,11 +94,7 @@ export function createRoutes(queryClient?: QueryClient): RouteObject[] {
   return [
     {
       errorElement: <RouteErrorPage />,
-      children: [
-        ...publicRoutes,
-        { path: '/', element: <RequireAuth />, children: signedInRoutes(queryClient) },
-        { path: '*', element: page(NotFoundPage) },
-      ],
+      children: [...publicRoutes, { path: '/', element: <RequireAuth />, children: signedInRoutes(queryClient) }, { path: '*', element: page(NotFoundPage) }],
     },
   ];
 }

@@ -86,9 +86,18 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}, opts: {
       setStep(STEPS[Number(k.key) - 1]);
       return true;
     }
-    if (lower === 'f') { fit(); return true; }
-    if (k.key === '+' || k.key === '=') { zoomBy(1.25); return true; }
-    if (k.key === '-') { zoomBy(0.8); return true; }
+    if (lower === 'f') {
+      fit();
+      return true;
+    }
+    if (k.key === '+' || k.key === '=') {
+      zoomBy(1.25);
+      return true;
+    }
+    if (k.key === '-') {
+      zoomBy(0.8);
+      return true;
+    }
     if (k.key === '?') {
       store.setSession((s) => ({ helpOpen: !s.helpOpen }));
       return true;

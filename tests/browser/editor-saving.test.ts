@@ -49,8 +49,7 @@ async function saved(page: Page, rev: number) {
   await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe(`Saved · rev ${rev}`);
 }
 
-const revisionPlan = async (spaceId: string, revision: number) =>
-  planSchema.parse((await PlanRevision.findOne({ where: { spaceId, revision } }))!.plan);
+const revisionPlan = async (spaceId: string, revision: number) => planSchema.parse((await PlanRevision.findOne({ where: { spaceId, revision } }))!.plan);
 
 describe('saving the plan from two tabs', () => {
   it('shows the conflict, keeps mine as a new revision, and loads theirs with mine one undo away', { timeout: 90_000 }, async () => {

@@ -59,7 +59,14 @@ async function typeLoft(page: Page) {
   await page.getByTestId('step-exclusions').click();
   await page.getByTestId('kind-tank').click();
   await page.keyboard.press('f'); // fit to this step's canvas size, which toPage assumes
-  const outline: [number, number][] = [[0, 0], [6000, 0], [6000, 3000], [3500, 3000], [3500, 5000], [0, 5000]];
+  const outline: [number, number][] = [
+    [0, 0],
+    [6000, 0],
+    [6000, 3000],
+    [3500, 3000],
+    [3500, 5000],
+    [0, 5000],
+  ];
   await dragOnCanvas(page, await toPage(page, outline, [1000, 1000]), await toPage(page, outline, [2200, 1900]));
   // Joists at 600 mm centres, running along the x axis.
   await page.getByTestId('step-joists').click();
@@ -89,8 +96,25 @@ describe('plan editor in a browser', () => {
     const res = await page.request.get(`${server.url}/api/spaces/${space.id}/plan`);
     const body = await res.json();
     const plan = planSchema.parse(body.plan);
-    expect(plan.outline).toEqual([[0, 0], [6000, 0], [6000, 3000], [3500, 3000], [3500, 5000], [0, 5000]]);
-    expect(plan.exclusions).toEqual([{ kind: 'tank', polygon: [[1000, 1000], [2200, 1000], [2200, 1900], [1000, 1900]] }]);
+    expect(plan.outline).toEqual([
+      [0, 0],
+      [6000, 0],
+      [6000, 3000],
+      [3500, 3000],
+      [3500, 5000],
+      [0, 5000],
+    ]);
+    expect(plan.exclusions).toEqual([
+      {
+        kind: 'tank',
+        polygon: [
+          [1000, 1000],
+          [2200, 1000],
+          [2200, 1900],
+          [1000, 1900],
+        ],
+      },
+    ]);
     expect(plan.joists).toMatchObject({ angleDeg: 0, centresMm: 600 });
     // The engine on the saved plan, with the same catalogue and settings the page was given.
     const t = computeTakeoff(plan, { products: parseProductCatalogue(body.takeoffInputs.products), settings: body.takeoffInputs.settings });
@@ -113,7 +137,10 @@ describe('plan editor in a browser', () => {
     await typeLoft(page);
     const edited = await draftPlan(page, space.id);
     expect(edited?.exclusions).toHaveLength(1);
-    await page.getByTestId('plan-canvas').click({ position: { x: 5, y: 5 } }).catch(() => undefined);
+    await page
+      .getByTestId('plan-canvas')
+      .click({ position: { x: 5, y: 5 } })
+      .catch(() => undefined);
 
     // typed walls, tank, centres, angle: four steps back to the empty starting plan.
     for (let i = 0; i < 4; i++) await page.keyboard.press('Control+z');

@@ -47,7 +47,10 @@ describe('job sheet on a phone', () => {
     await page.getByRole('heading', { name: 'Today' }).waitFor();
     await shot(page, 'installer-my-jobs-360');
 
-    await page.getByRole('link', { name: /Testbury/ }).first().click();
+    await page
+      .getByRole('link', { name: /Testbury/ })
+      .first()
+      .click();
     await page.waitForURL(`**/jobs/${job.id}/sheet`);
     await page.getByText('Saved on this device: opens without signal.').waitFor({ timeout: 20_000 });
     await page.getByRole('img', { name: /Plan of Main loft/ }).waitFor();
@@ -60,7 +63,14 @@ describe('job sheet on a phone', () => {
 
     // No signal: the page itself cannot reach the server, yet the sheet reloads from the service worker.
     await browser.context.setOffline(true);
-    expect(await page.evaluate(() => fetch('/api/health').then(() => 'reached', () => 'unreachable'))).toBe('unreachable');
+    expect(
+      await page.evaluate(() =>
+        fetch('/api/health').then(
+          () => 'reached',
+          () => 'unreachable',
+        ),
+      ),
+    ).toBe('unreachable');
     await page.reload();
     await page.getByRole('heading', { name: 'Main loft' }).waitFor();
 
@@ -102,7 +112,10 @@ describe('job sheet on a phone', () => {
     await expect.poll(() => waitingCount(again), { timeout: 45_000 }).toBe('0');
 
     const ticks = await JobTick.findAll({ where: { jobId: job.id } });
-    expect(ticks.map((t) => `${t.kind} ${t.ref} ${t.done} ${t.spaceId === space.id}`).sort()).toEqual(['check downlight.covers true true', 'check ppe.dust true true']);
+    expect(ticks.map((t) => `${t.kind} ${t.ref} ${t.done} ${t.spaceId === space.id}`).sort()).toEqual([
+      'check downlight.covers true true',
+      'check ppe.dust true true',
+    ]);
     const notes = await JobNote.findAll({ where: { jobId: job.id } });
     expect(notes.map((n) => n.text)).toEqual(['Two downlights had no covers; fitted from the van.']);
     expect(await JobPhoto.count({ where: { jobId: job.id, stage: 'after' } })).toBe(1);

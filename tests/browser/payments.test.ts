@@ -79,7 +79,9 @@ describe('customer pays the deposit', () => {
     const office = await browser.newPage();
     await signInThroughUi(office, server.url, org.office.email, org.office.password);
     await office.goto(`${server.url}/jobs/${job.id}`);
-    await expect.poll(() => office.getByTestId('money-timeline').textContent(), { timeout: 30_000 }).toContain(`Deposit of £143.94 paid for quote ${quote.number}`);
+    await expect
+      .poll(() => office.getByTestId('money-timeline').textContent(), { timeout: 30_000 })
+      .toContain(`Deposit of £143.94 paid for quote ${quote.number}`);
     await screenshot(office, 'payments-5-office-job');
     await office.goto(`${server.url}/jobs/${job.id}/quotes/${quote.id}`);
     await office.getByTestId('deposit-status').waitFor({ timeout: 45_000 });
@@ -93,7 +95,10 @@ describe('customer pays the deposit', () => {
     // The installer notes a variation on site (no prices: the office prices it on the invoice).
     await Job.update({ stage: 'scheduled' }, { where: { id: job.id } });
     const installer = await loginAs(server.ctx.app, org.installer);
-    const note = await installer.post(`/api/jobs/${job.id}/notes`).set('Idempotency-Key', `note-${job.id}`).send({ text: 'Two more walkway boards needed beside the tank' });
+    const note = await installer
+      .post(`/api/jobs/${job.id}/notes`)
+      .set('Idempotency-Key', `note-${job.id}`)
+      .send({ text: 'Two more walkway boards needed beside the tank' });
     expect(note.status).toBe(201);
     const { link } = await createAcceptedQuote(org.id, job.id, server.ctx.config.sessionSecret);
     const customerPage = await browser.newPage();

@@ -107,7 +107,10 @@ describe('quotes in a real browser', () => {
     await page.goto(`${app.url}/jobs/${jobId}`);
     await page.getByRole('heading', { name: 'Quotes' }).waitFor();
     await expect.poll(() => page.getByTestId('quote-status').first().innerText()).toMatch(/accepted/i);
-    await page.getByText(/accepted by Esme Caldwell through the private link/).first().waitFor();
+    await page
+      .getByText(/accepted by Esme Caldwell through the private link/)
+      .first()
+      .waitFor();
     await screenshot(page, 'quotes-08-job-page');
   }, 120_000);
 

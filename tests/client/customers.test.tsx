@@ -73,7 +73,11 @@ describe('customers page', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Add customer' }));
     await waitFor(() => expect(screen.queryByRole('form', { name: 'New customer' })).toBeNull());
     expect(await screen.findByText('Mei Lin Hartley')).toBeTruthy();
-    expect(calls.find((c) => c.method === 'POST')!.body).toMatchObject({ name: 'Mei Lin Hartley', email: 'meilin.hartley@example.com', address: { town: 'Bramley Cross' } });
+    expect(calls.find((c) => c.method === 'POST')!.body).toMatchObject({
+      name: 'Mei Lin Hartley',
+      email: 'meilin.hartley@example.com',
+      address: { town: 'Bramley Cross' },
+    });
   });
 
   it('edits a customer in place', async () => {
@@ -86,7 +90,9 @@ describe('customers page', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Save customer' }));
     await waitFor(() => expect(calls.some((c) => c.method === 'PATCH' && c.url.pathname === '/api/customers/c2')).toBe(true));
     await waitFor(() => expect(screen.queryByRole('form', { name: 'Edit customer' })).toBeNull());
-    const row = within(screen.getByRole('table', { name: 'Customers' })).getByText('Gideon Pell').closest('tr')!;
+    const row = within(screen.getByRole('table', { name: 'Customers' }))
+      .getByText('Gideon Pell')
+      .closest('tr')!;
     expect(row.textContent).toContain('01632 960102');
   });
 

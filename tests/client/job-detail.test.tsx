@@ -90,7 +90,7 @@ describe('job detail', () => {
     expect(screen.queryByRole('button', { name: 'Add space' })).toBeNull();
   });
 
-  it('does not ask an estimator\'s browser for invoices (office-only on the API: it answered 403)', async () => {
+  it("does not ask an estimator's browser for invoices (office-only on the API: it answered 403)", async () => {
     const calls = jobApi();
     render('estimator');
     await screen.findByRole('heading', { name: /Samuel Okonjo/ });
@@ -99,7 +99,7 @@ describe('job detail', () => {
     expect(calls.filter((c) => c.url.pathname === '/api/invoices')).toHaveLength(0);
   });
 
-  it('asks for the job\'s invoices as office', async () => {
+  it("asks for the job's invoices as office", async () => {
     const calls = jobApi();
     render('office');
     await screen.findByRole('heading', { name: /Samuel Okonjo/ });

@@ -10,7 +10,19 @@ function betweenJoists(n: number, lengthMm = 5200): LabelStrip[] {
   return Array.from({ length: n }, (_, i) => {
     const x0 = i * 400 + 47;
     const x1 = x0 + 353;
-    return { id: `s${i + 1}`, label: `B${i + 1}`, polygons: [[[x0, 0], [x1, 0], [x1, lengthMm], [x0, lengthMm]] as Pt[]], labelAt: [(x0 + x1) / 2, lengthMm / 2] as Pt };
+    return {
+      id: `s${i + 1}`,
+      label: `B${i + 1}`,
+      polygons: [
+        [
+          [x0, 0],
+          [x1, 0],
+          [x1, lengthMm],
+          [x0, lengthMm],
+        ] as Pt[],
+      ],
+      labelAt: [(x0 + x1) / 2, lengthMm / 2] as Pt,
+    };
   });
 }
 
@@ -19,7 +31,12 @@ function minimalBox(l: PlacedLabel): Pt[] {
   const w = l.label.length * 0.6 * l.fontSize;
   const h = l.fontSize;
   const r = (l.rotateDeg * Math.PI) / 180;
-  return [[-w / 2, -h / 2], [w / 2, -h / 2], [w / 2, h / 2], [-w / 2, h / 2]].map(([x, y]) => [l.x + x * Math.cos(r) - y * Math.sin(r), l.y + x * Math.sin(r) + y * Math.cos(r)] as Pt);
+  return [
+    [-w / 2, -h / 2],
+    [w / 2, -h / 2],
+    [w / 2, h / 2],
+    [-w / 2, h / 2],
+  ].map(([x, y]) => [l.x + x * Math.cos(r) - y * Math.sin(r), l.y + x * Math.sin(r) + y * Math.cos(r)] as Pt);
 }
 
 describe('strip numbers on the job sheet plan', () => {
@@ -61,23 +78,72 @@ describe('strip numbers on the job sheet plan', () => {
   });
 
   it('never lets two numbers touch, even where strips overlap (a forked strip over another): the second moves to the middle of its strip', async () => {
-    const a: LabelStrip = { id: 'a', label: 'C1.7', polygons: [[[0, 0], [1200, 0], [1200, 4000], [0, 4000]]], labelAt: [600, 2000] };
-    const b: LabelStrip = { id: 'b', label: 'C1.8', polygons: [[[0, 1900], [1200, 1900], [1200, 6000], [0, 6000]]], labelAt: [600, 2050] };
+    const a: LabelStrip = {
+      id: 'a',
+      label: 'C1.7',
+      polygons: [
+        [
+          [0, 0],
+          [1200, 0],
+          [1200, 4000],
+          [0, 4000],
+        ],
+      ],
+      labelAt: [600, 2000],
+    };
+    const b: LabelStrip = {
+      id: 'b',
+      label: 'C1.8',
+      polygons: [
+        [
+          [0, 1900],
+          [1200, 1900],
+          [1200, 6000],
+          [0, 6000],
+        ],
+      ],
+      labelAt: [600, 2050],
+    };
     const { placed, hidden } = placeStripLabels([a, b], 10);
     expect(hidden).toBe(0);
-    expect(placed.map((l) => [l.id, l.x, l.y])).toEqual([['a', 600, 2000], ['b', 600, 3950]]); // 3950: centre of the 1900..6000 strip
+    expect(placed.map((l) => [l.id, l.x, l.y])).toEqual([
+      ['a', 600, 2000],
+      ['b', 600, 3950],
+    ]); // 3950: centre of the 1900..6000 strip
     const ys = placed.map((l) => minimalBox(l).map((p) => p[1]));
     expect(Math.max(...ys[0])).toBeLessThan(Math.min(...ys[1]));
     // With nowhere else to go on its strip, it is left out rather than drawn over the other.
-    const c: LabelStrip = { id: 'c', label: 'C1.9', polygons: [[[0, 1990], [1200, 1990], [1200, 2010], [0, 2010]]], labelAt: [600, 2000] };
+    const c: LabelStrip = {
+      id: 'c',
+      label: 'C1.9',
+      polygons: [
+        [
+          [0, 1990],
+          [1200, 1990],
+          [1200, 2010],
+          [0, 2010],
+        ],
+      ],
+      labelAt: [600, 2000],
+    };
     expect(placeStripLabels([a, c], 1)).toMatchObject({ hidden: 1, placed: [{ id: 'a' }] });
   });
 
   it('finds a place for a number whose label point fell on a hatch cut out of its strip', () => {
     // A 1200 mm strip along x, with a 600 × 700 hatch cut out around its label point (plan units mm).
     const pieces: Pt[][] = [
-      [[0, 0], [3600, 0], [3600, 1200], [0, 1200]],
-      [[4200, 0], [9000, 0], [9000, 1200], [4200, 1200]],
+      [
+        [0, 0],
+        [3600, 0],
+        [3600, 1200],
+        [0, 1200],
+      ],
+      [
+        [4200, 0],
+        [9000, 0],
+        [9000, 1200],
+        [4200, 1200],
+      ],
     ];
     const { placed } = placeStripLabels([{ id: 'h', label: 'C1.7', polygons: pieces, labelAt: [3900, 600] }], 20);
     expect(placed).toHaveLength(1);

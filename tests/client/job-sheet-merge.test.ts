@@ -8,14 +8,33 @@ const me = { id: 'u1', name: 'Sam Ridley' };
 
 function sheet(): JobSheet {
   const space = (id: string, name: string) => ({
-    id, name, revision: 1, plan: null, netAreaM2: 20, uValueBefore: 0.4, uValueAfter: 0.16, layers: [], rolls: [], problem: null,
+    id,
+    name,
+    revision: 1,
+    plan: null,
+    netAreaM2: 20,
+    uValueBefore: 0.4,
+    uValueAfter: 0.16,
+    layers: [],
+    rolls: [],
+    problem: null,
     checks: [
       { code: 'ppe.dust', title: 'PPE worn', detail: '' },
       { code: 'downlight.covers', title: 'Downlight covers fitted', detail: '' },
     ],
   });
   return {
-    job: { id: 'j1', reference: 'Q-1', stage: 'scheduled', installDate: '2027-01-04', propertyAddress: { line1: '1 Lane', line2: '', town: 'Mill', postcode: 'M1' }, accessNotes: '', notes: '', customer: { name: 'Ada', phone: '' }, installer: me },
+    job: {
+      id: 'j1',
+      reference: 'Q-1',
+      stage: 'scheduled',
+      installDate: '2027-01-04',
+      propertyAddress: { line1: '1 Lane', line2: '', town: 'Mill', postcode: 'M1' },
+      accessNotes: '',
+      notes: '',
+      customer: { name: 'Ada', phone: '' },
+      installer: me,
+    },
     spaces: [space('s1', 'Main loft'), space('s2', 'Garage loft')],
     vanLoad: { rolls: [], extras: [] },
     cautions: [],
@@ -26,7 +45,16 @@ function sheet(): JobSheet {
   };
 }
 
-const item = (over: Partial<OutboxItem>): OutboxItem => ({ key: Math.random().toString(36).slice(2), jobId: 'j1', kind: 'tick', url: '', body: {}, createdAt: '2027-01-04T11:00:00Z', status: 'waiting', ...over });
+const item = (over: Partial<OutboxItem>): OutboxItem => ({
+  key: Math.random().toString(36).slice(2),
+  jobId: 'j1',
+  kind: 'tick',
+  url: '',
+  body: {},
+  createdAt: '2027-01-04T11:00:00Z',
+  status: 'waiting',
+  ...over,
+});
 
 describe('the sheet with unsent changes laid over it', () => {
   it('shows a waiting untick over the server tick, and adds waiting notes and photos', () => {
@@ -69,8 +97,19 @@ describe('what stops finishing', () => {
 
 describe("the installer's list", () => {
   it("puts today's jobs first, then the coming ones by date, then earlier ones newest first", () => {
-    const job = (id: string, installDate: string | null) => ({ id, reference: id, stage: 'scheduled' as const, installDate, customerName: '', propertyAddress: { line1: '', line2: '', town: '', postcode: '' }, spaceCount: 1 });
-    const g = groupMyJobs([job('a', '2027-01-02'), job('b', '2027-01-10'), job('c', '2027-01-05'), job('d', '2027-01-04'), job('e', '2026-12-30'), job('f', null)], '2027-01-05');
+    const job = (id: string, installDate: string | null) => ({
+      id,
+      reference: id,
+      stage: 'scheduled' as const,
+      installDate,
+      customerName: '',
+      propertyAddress: { line1: '', line2: '', town: '', postcode: '' },
+      spaceCount: 1,
+    });
+    const g = groupMyJobs(
+      [job('a', '2027-01-02'), job('b', '2027-01-10'), job('c', '2027-01-05'), job('d', '2027-01-04'), job('e', '2026-12-30'), job('f', null)],
+      '2027-01-05',
+    );
     expect(g.today.map((j) => j.id)).toEqual(['c']);
     expect(g.upcoming.map((j) => j.id)).toEqual(['b', 'f']);
     expect(g.earlier.map((j) => j.id)).toEqual(['d', 'a', 'e']);

@@ -13,7 +13,7 @@ const JOB_ID = '44444444-4444-4444-8444-444444444444';
 const QUOTE_ID = '55555555-5555-4555-8555-555555555555';
 
 describe('quote page when the quote cannot be loaded', () => {
-  it('says so (a 404: unknown or another company\'s quote) instead of loading for ever', async () => {
+  it("says so (a 404: unknown or another company's quote) instead of loading for ever", async () => {
     fakeApi(() => ({ status: 404, body: { error: { code: 'not_found', message: 'quote not found' } } }));
     renderPage(<QuotePage />, { user: demoUser('office'), path: `/jobs/${JOB_ID}/quotes/${QUOTE_ID}`, routePath: '/jobs/:id/quotes/:quoteId' });
     expect(await screen.findByText('The quote could not be loaded')).toBeTruthy();

@@ -40,7 +40,10 @@ function renderShell(role: Role | null, opts: { outbox?: boolean } = {}) {
   return { ...r, calls };
 }
 
-const navLabels = () => within(screen.getAllByRole('navigation', { name: 'Main' })[0]).getAllByRole('link').map((a) => a.textContent);
+const navLabels = () =>
+  within(screen.getAllByRole('navigation', { name: 'Main' })[0])
+    .getAllByRole('link')
+    .map((a) => a.textContent);
 
 describe('role-aware navigation', () => {
   it.each(Object.entries(EXPECTED) as [Role, { has: string[]; not: string[] }][])('gives %s its own links and none of the others', async (role, expected) => {
@@ -73,7 +76,9 @@ describe('role-aware navigation', () => {
 
   it('sends the person to sign in again when the session has expired mid-visit', async () => {
     fakeApi(({ url }) =>
-      url.pathname === '/api/jobs' ? { status: 401, body: { error: { code: 'unauthenticated', message: 'sign in first' } } } : { body: { enabled: true, messages: [] } },
+      url.pathname === '/api/jobs'
+        ? { status: 401, body: { error: { code: 'unauthenticated', message: 'sign in first' } } }
+        : { body: { enabled: true, messages: [] } },
     );
     const routes = [
       { path: '/sign-in', element: <p>sign-in page</p> },
@@ -101,7 +106,12 @@ describe('role-aware navigation', () => {
     fireEvent.click(toggle);
     expect(toggle.getAttribute('aria-expanded')).toBe('true');
     const menu = document.getElementById('phone-menu')!;
-    expectNav(within(menu).getAllByRole('link').map((a) => a.textContent), EXPECTED.estimator);
+    expectNav(
+      within(menu)
+        .getAllByRole('link')
+        .map((a) => a.textContent),
+      EXPECTED.estimator,
+    );
   });
 
   it('starts installers on their own list and everyone else on jobs', () => {

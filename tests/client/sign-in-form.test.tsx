@@ -55,7 +55,10 @@ describe('sign-in form', () => {
   });
 
   it('puts a field error from the server next to the field it names', async () => {
-    fakeApi(() => ({ status: 422, body: { error: { code: 'validation_failed', message: 'email: too long', details: [{ path: 'email', message: 'this address is blocked' }] } } }));
+    fakeApi(() => ({
+      status: 422,
+      body: { error: { code: 'validation_failed', message: 'email: too long', details: [{ path: 'email', message: 'this address is blocked' }] } },
+    }));
     renderPage(<SignInForm onSignedIn={() => {}} />, { user: null });
     fill('E-mail', 'office@demo.example.com');
     fill('Password', 'quiltline-demo');

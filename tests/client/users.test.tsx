@@ -28,7 +28,11 @@ function usersApi() {
     if (url.pathname === '/api/users' && method === 'GET') return { body: { users: USERS } };
     if (url.pathname === '/api/users' && method === 'POST') {
       const b = body as { email: string };
-      if (b.email === 'taken@demo.example.com') return { status: 409, body: { error: { code: 'conflict', message: 'taken', details: [{ path: 'email', message: 'someone already uses this address' }] } } };
+      if (b.email === 'taken@demo.example.com')
+        return {
+          status: 409,
+          body: { error: { code: 'conflict', message: 'taken', details: [{ path: 'email', message: 'someone already uses this address' }] } },
+        };
       return { status: 201, body: { user: user('u-9', 'New Person', 'estimator', { hasPassword: false }) } };
     }
     const m = url.pathname.match(/^\/api\/users\/([^/]+)(\/resend-invite)?$/);

@@ -1,9 +1,32 @@
 import { describe, expect, it } from 'vitest';
 import {
-  addCorner, addExclusion, calibrateBackground, closeOutlineFromRun, cmd, deleteCorner, deleteExclusion, insertCorner,
-  moveCorner, moveExclusion, moveJoistOffset, replacePlan, resizeExclusion, setBackground, setEavesGap, setEdgeLength,
-  setExclusionKind, setExclusionLabel, setExisting, setJoists, setJoistsAlongEdge, setOutline, setPlanName, setProducts,
-  setTarget, toggleEaves, type PlanCommand,
+  addCorner,
+  addExclusion,
+  calibrateBackground,
+  closeOutlineFromRun,
+  cmd,
+  deleteCorner,
+  deleteExclusion,
+  insertCorner,
+  moveCorner,
+  moveExclusion,
+  moveJoistOffset,
+  replacePlan,
+  resizeExclusion,
+  setBackground,
+  setEavesGap,
+  setEdgeLength,
+  setExclusionKind,
+  setExclusionLabel,
+  setExisting,
+  setJoists,
+  setJoistsAlongEdge,
+  setOutline,
+  setPlanName,
+  setProducts,
+  setTarget,
+  toggleEaves,
+  type PlanCommand,
 } from '../../src/editor/commands';
 import { createEditorStore } from '../../src/editor/store/editor-store';
 import { planSchema, type Plan } from '../../shared/plan/plan-schema';
@@ -19,11 +42,35 @@ const cases: [string, PlanCommand, (p: Plan) => Plan][] = [
   ['deleteCorner', cmd('x', deleteCorner, { index: 1 }), (p) => p],
   ['setEdgeLength', cmd('x', setEdgeLength, { edge: 0, lengthMm: 9000 }), (p) => p],
   ['closeOutlineFromRun', cmd('x', closeOutlineFromRun, { text: '4200 R 3600 D 4200 L' }), (p) => p],
-  ['setOutline', cmd('x', setOutline, { outline: [[0, 0], [1000, 0], [0, 1000]] }), (p) => p],
+  [
+    'setOutline',
+    cmd('x', setOutline, {
+      outline: [
+        [0, 0],
+        [1000, 0],
+        [0, 1000],
+      ],
+    }),
+    (p) => p,
+  ],
   ['setJoists', cmd('x', setJoists, { centresMm: 600 }), (p) => p],
   ['setJoistsAlongEdge', cmd('x', setJoistsAlongEdge, { edge: 0 }), (p) => p],
   ['moveJoistOffset', cmd('x', moveJoistOffset, { offsetMm: 120 }), (p) => p],
-  ['addExclusion', cmd('x', addExclusion, { exclusion: { kind: 'hatch', polygon: [[3000, 3000], [3600, 3000], [3600, 3900], [3000, 3900]] } }), (p) => p],
+  [
+    'addExclusion',
+    cmd('x', addExclusion, {
+      exclusion: {
+        kind: 'hatch',
+        polygon: [
+          [3000, 3000],
+          [3600, 3000],
+          [3600, 3900],
+          [3000, 3900],
+        ],
+      },
+    }),
+    (p) => p,
+  ],
   ['moveExclusion', cmd('x', moveExclusion, { index: 0, dx: 100, dy: -50 }), (p) => p],
   ['resizeExclusion', cmd('x', resizeExclusion, { index: 0, box: { minX: 400, minY: 400, maxX: 2000, maxY: 1500 } }), (p) => p],
   ['setExclusionLabel', cmd('x', setExclusionLabel, { index: 0, label: 'header tank' }), (p) => p],
@@ -37,7 +84,22 @@ const cases: [string, PlanCommand, (p: Plan) => Plan][] = [
   ['setBackground', cmd('x', setBackground, { background: { opacity: 0.8, locked: true } }), withBg],
   ['calibrateBackground', cmd('x', calibrateBackground, { a: [0, 0], b: [1000, 0], realMm: 2000 }), withBg],
   ['setPlanName', cmd('x', setPlanName, { name: 'Garage loft' }), (p) => p],
-  ['replacePlan', cmd('x', replacePlan, { plan: { format: 'quiltline-plan/1', name: 'Other', outline: [[0, 0], [1, 0], [0, 1]], joists: { angleDeg: 0, centresMm: 600, widthMm: 47, depthMm: 100 } } }), (p) => p],
+  [
+    'replacePlan',
+    cmd('x', replacePlan, {
+      plan: {
+        format: 'quiltline-plan/1',
+        name: 'Other',
+        outline: [
+          [0, 0],
+          [1, 0],
+          [0, 1],
+        ],
+        joists: { angleDeg: 0, centresMm: 600, widthMm: 47, depthMm: 100 },
+      },
+    }),
+    (p) => p,
+  ],
 ];
 
 describe('plan commands', () => {
@@ -64,10 +126,18 @@ describe('plan commands', () => {
 
   it('deleteCorner merges the two edges at the corner and renumbers the eaves', () => {
     const p = deleteCorner(rectPlan(), { index: 2 }); // edges 1 and 2 merge into edge 1
-    expect(p.outline).toEqual([[0, 0], [8400, 0], [0, 5200]]);
+    expect(p.outline).toEqual([
+      [0, 0],
+      [8400, 0],
+      [0, 5200],
+    ]);
     expect(p.eavesEdges).toEqual([0]);
     const q = deleteCorner(rectPlan(), { index: 0 }); // edges 3 and 0 merge into the new last edge
-    expect(q.outline).toEqual([[8400, 0], [8400, 5200], [0, 5200]]);
+    expect(q.outline).toEqual([
+      [8400, 0],
+      [8400, 5200],
+      [0, 5200],
+    ]);
     expect(q.eavesEdges).toEqual([1]);
   });
 
@@ -93,7 +163,12 @@ describe('plan commands', () => {
 
   it('resizeExclusion keeps rectangles rectangular', () => {
     const p = resizeExclusion(rectPlan(), { index: 0, box: { minX: 0, minY: 0, maxX: 600, maxY: 300 } });
-    expect(p.exclusions[0].polygon).toEqual([[0, 0], [600, 0], [600, 300], [0, 300]]);
+    expect(p.exclusions[0].polygon).toEqual([
+      [0, 0],
+      [600, 0],
+      [600, 300],
+      [0, 300],
+    ]);
     expect(() => resizeExclusion(rectPlan(), { index: 1, box: { minX: 0, minY: 0, maxX: 600, maxY: 300 } })).toThrow(/point/);
   });
 

@@ -20,7 +20,17 @@ describe('world and screen coordinates', () => {
   });
 
   it('fits a plan inside the viewport with its centre in the middle', () => {
-    const c = fitCamera([[0, 0], [8000, 0], [8000, 4000], [0, 4000]], 1000, 600, 50);
+    const c = fitCamera(
+      [
+        [0, 0],
+        [8000, 0],
+        [8000, 4000],
+        [0, 4000],
+      ],
+      1000,
+      600,
+      50,
+    );
     expect(c.zoom).toBeCloseTo(900 / 8000, 9);
     const centre = worldToScreen(c, world(4000, 2000));
     expect(centre.x).toBeCloseTo(500, 6);

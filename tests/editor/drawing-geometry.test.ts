@@ -9,9 +9,19 @@ import { rectPlan } from './fixtures';
 
 // jsts (the JavaScript port of JTS) as an independent planar oracle for the clipped joist lines.
 const reader = new GeoJSONReader();
-const L: [number, number][] = [[0, 0], [6000, 0], [6000, 3000], [3500, 3000], [3500, 5000], [0, 5000]];
+const L: [number, number][] = [
+  [0, 0],
+  [6000, 0],
+  [6000, 3000],
+  [3500, 3000],
+  [3500, 5000],
+  [0, 5000],
+];
 const lengthInside = (ring: [number, number][], a: [number, number], b: [number, number]) =>
-  reader.read({ type: 'Polygon', coordinates: [[...ring, ring[0]]] }).intersection(reader.read({ type: 'LineString', coordinates: [a, b] })).getLength();
+  reader
+    .read({ type: 'Polygon', coordinates: [[...ring, ring[0]]] })
+    .intersection(reader.read({ type: 'LineString', coordinates: [a, b] }))
+    .getLength();
 
 describe('joist lines drawn across the outline', () => {
   it('clips each line to the L-shaped outline exactly as jsts does', () => {
@@ -39,7 +49,12 @@ describe('joist lines drawn across the outline', () => {
     const ys = [...new Set(segs.map(([p]) => Math.round(p[1])))].sort((a, b) => a - b);
     expect(ys).toEqual([100, 700, 1300, 1900, 2500, 3100, 3700, 4300, 4900]);
     // Below y = 3000 the L is 3500 wide, above it 6000 wide.
-    expect(segs.find(([p]) => Math.round(p[1]) === 3700)!.map((p) => p[0]).sort((a, b) => a - b)).toEqual([0, 3500]);
+    expect(
+      segs
+        .find(([p]) => Math.round(p[1]) === 3700)!
+        .map((p) => p[0])
+        .sort((a, b) => a - b),
+    ).toEqual([0, 3500]);
   });
 
   it('finds the outward normal whichever way the outline winds', () => {

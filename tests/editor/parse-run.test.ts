@@ -4,13 +4,25 @@ import { parseRun } from '../../src/editor/commands';
 describe('typed runs of walls', () => {
   it('reads an L-shaped loft from words and closes it exactly', () => {
     const r = parseRun('6000 right, 3000 down, 2500 left, 2000 down, 3500 left, 5000 up');
-    expect(r.points).toEqual([[0, 0], [6000, 0], [6000, 3000], [3500, 3000], [3500, 5000], [0, 5000]]);
+    expect(r.points).toEqual([
+      [0, 0],
+      [6000, 0],
+      [6000, 3000],
+      [3500, 3000],
+      [3500, 5000],
+      [0, 5000],
+    ]);
     expect(r.closure).toEqual({ kind: 'closed', errorMm: 0 });
   });
 
   it('reads letters and units, and adds the closing wall when one is left out', () => {
     const r = parseRun('4.2m R 360cm D 4200 L');
-    expect(r.points).toEqual([[0, 0], [4200, 0], [4200, 3600], [0, 3600]]);
+    expect(r.points).toEqual([
+      [0, 0],
+      [4200, 0],
+      [4200, 3600],
+      [0, 3600],
+    ]);
     expect(r.closure).toEqual({ kind: 'implied', lengthMm: 3600, angleDeg: 270 });
   });
 

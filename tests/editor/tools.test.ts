@@ -19,7 +19,12 @@ function drag(ed: ReturnType<typeof createEditor>, from: [number, number], to: [
 describe('outline tool', () => {
   it('draws a rectangle by clicking corners, snapping to the grid, and closes on the first corner', () => {
     const ed = createEditor(emptyPlan(), { camera });
-    for (const p of [[10, 20], [6020, -30], [5990, 4010], [0, 3990]] as [number, number][]) {
+    for (const p of [
+      [10, 20],
+      [6020, -30],
+      [5990, 4010],
+      [0, 3990],
+    ] as [number, number][]) {
       ed.pointerDown(at(...p));
       ed.pointerUp(at(...p));
     }
@@ -27,7 +32,12 @@ describe('outline tool', () => {
     ed.pointerDown(at(5, 5));
     ed.pointerUp(at(5, 5));
     expect(ed.toolState()).toBe('idle');
-    expect(ed.store.getState().plan.outline).toEqual([[0, 0], [6000, 0], [6000, 4000], [0, 4000]]);
+    expect(ed.store.getState().plan.outline).toEqual([
+      [0, 0],
+      [6000, 0],
+      [6000, 4000],
+      [0, 4000],
+    ]);
     // Each corner was its own step.
     ed.keyDown({ key: 'z', ctrl: true });
     expect(ed.store.getState().plan.outline).toHaveLength(3);
@@ -60,7 +70,13 @@ describe('outline tool', () => {
     const ed = createEditor(rectPlan(), { camera });
     drag(ed, [4200, 0], [4200, -1000]);
     const { plan } = ed.store.getState();
-    expect(plan.outline).toEqual([[0, 0], [4200, -1000], [8400, 0], [8400, 5200], [0, 5200]]);
+    expect(plan.outline).toEqual([
+      [0, 0],
+      [4200, -1000],
+      [8400, 0],
+      [8400, 5200],
+      [0, 5200],
+    ]);
     expect(ed.store.getState().undoStack).toHaveLength(1);
     ed.keyDown({ key: 'Delete' });
     expect(ed.store.getState().plan.outline).toHaveLength(4);
@@ -117,7 +133,15 @@ describe('exclusions tool', () => {
     drag(ed, [3000, 3000], [3600, 3900]);
     let ex = ed.store.getState().plan.exclusions;
     expect(ex).toHaveLength(3);
-    expect(ex[2]).toEqual({ kind: 'hatch', polygon: [[3000, 3000], [3600, 3000], [3600, 3900], [3000, 3900]] });
+    expect(ex[2]).toEqual({
+      kind: 'hatch',
+      polygon: [
+        [3000, 3000],
+        [3600, 3000],
+        [3600, 3900],
+        [3000, 3900],
+      ],
+    });
     expect(ed.store.getState().session.selection).toEqual({ kind: 'exclusion', index: 2 });
 
     drag(ed, [3300, 3400], [4300, 3400]);
@@ -140,12 +164,23 @@ describe('exclusions tool', () => {
     expect(ed.store.getState().plan.exclusions[2]).toEqual({ kind: 'downlight', at: [6000, 1000] });
 
     ed.store.setSession({ exclusionKind: 'chimney', exclusionShape: 'polygon', selection: null });
-    for (const p of [[6000, 3000], [7000, 3000], [6500, 4000]] as [number, number][]) {
+    for (const p of [
+      [6000, 3000],
+      [7000, 3000],
+      [6500, 4000],
+    ] as [number, number][]) {
       ed.pointerDown(at(...p));
       ed.pointerUp(at(...p));
     }
     ed.keyDown({ key: 'Enter' });
-    expect(ed.store.getState().plan.exclusions[3]).toEqual({ kind: 'chimney', polygon: [[6000, 3000], [7000, 3000], [6500, 4000]] });
+    expect(ed.store.getState().plan.exclusions[3]).toEqual({
+      kind: 'chimney',
+      polygon: [
+        [6000, 3000],
+        [7000, 3000],
+        [6500, 4000],
+      ],
+    });
   });
 });
 

@@ -106,7 +106,11 @@ export interface TestOrg {
 let passwordHash: string | undefined;
 
 /** A user in an organisation, with a unique e-mail so test files never collide. */
-export async function createUser(organisationId: string, role: Role, opts: { name?: string; active?: boolean; password?: string | null } = {}): Promise<TestUser> {
+export async function createUser(
+  organisationId: string,
+  role: Role,
+  opts: { name?: string; active?: boolean; password?: string | null } = {},
+): Promise<TestUser> {
   const tag = randomUUID().slice(0, 8);
   const password = opts.password === undefined ? TEST_PASSWORD : opts.password;
   passwordHash ??= await bcrypt.hash(TEST_PASSWORD, 4);

@@ -32,7 +32,11 @@ describe('demo seed', () => {
 
   it('spreads about ten jobs over every stage, some for each installer, each with a space and a plan', async () => {
     const office = await loginAs(ctx.app, { email: 'office@demo.example.com', password: DEMO_PASSWORD });
-    const jobs = (await office.get('/api/jobs')).body.jobs as Array<{ stage: string; assignedInstaller: { name: string } | null; spaces: Array<{ latestRevision: number | null }> }>;
+    const jobs = (await office.get('/api/jobs')).body.jobs as Array<{
+      stage: string;
+      assignedInstaller: { name: string } | null;
+      spaces: Array<{ latestRevision: number | null }>;
+    }>;
     expect(jobs.length).toBeGreaterThanOrEqual(10);
     expect(new Set(jobs.map((j) => j.stage))).toEqual(new Set(JOB_STAGES));
     expect(new Set(jobs.map((j) => j.assignedInstaller?.name).filter(Boolean)).size).toBe(2);
@@ -44,7 +48,12 @@ describe('demo seed', () => {
 
   it('books installer and date only from the scheduled stage on (an accepted job waits on the schedule)', async () => {
     const office = await loginAs(ctx.app, { email: 'office@demo.example.com', password: DEMO_PASSWORD });
-    const jobs = (await office.get('/api/jobs')).body.jobs as Array<{ reference: string; stage: string; assignedInstaller: { id: string } | null; installDate: string | null }>;
+    const jobs = (await office.get('/api/jobs')).body.jobs as Array<{
+      reference: string;
+      stage: string;
+      assignedInstaller: { id: string } | null;
+      installDate: string | null;
+    }>;
     const booked = new Set(['scheduled', 'installed', 'closed']);
     for (const j of jobs) {
       const has = { installer: j.assignedInstaller !== null, date: j.installDate !== null };
@@ -52,7 +61,12 @@ describe('demo seed', () => {
     }
     // The schedule lists every accepted job as waiting; the installer's own list holds only booked jobs.
     const week = (await office.get('/api/schedule')).body as { unscheduled: Array<{ reference: string }> };
-    expect(week.unscheduled.map((j) => j.reference).sort()).toEqual(jobs.filter((j) => j.stage === 'accepted').map((j) => j.reference).sort());
+    expect(week.unscheduled.map((j) => j.reference).sort()).toEqual(
+      jobs
+        .filter((j) => j.stage === 'accepted')
+        .map((j) => j.reference)
+        .sort(),
+    );
   });
 
   it('takes its plans from the valid examples (the invalid one is skipped)', async () => {

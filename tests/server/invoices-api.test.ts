@@ -51,14 +51,31 @@ describe('invoices', () => {
     const inv = res.body.invoice;
     // Quote: 28200 + 24700 at 0 %, 3897 + 779 VAT at 20 % = 57576. Variation: 2 × 1299 = 2598, VAT 519.6 → 520.
     // Total 57576 + 3118 = 60694; less deposit 14394 → balance 46300.
-    expect(inv).toMatchObject({ kind: 'invoice', status: 'issued', quoteReference: quote.number, netMinor: 28200 + 24700 + 3897 + 2598, taxMinor: 779 + 520, totalMinor: 60694, depositMinor: 14394, balanceMinor: 46300, overdue: false, currency: 'GBP' });
+    expect(inv).toMatchObject({
+      kind: 'invoice',
+      status: 'issued',
+      quoteReference: quote.number,
+      netMinor: 28200 + 24700 + 3897 + 2598,
+      taxMinor: 779 + 520,
+      totalMinor: 60694,
+      depositMinor: 14394,
+      balanceMinor: 46300,
+      overdue: false,
+      currency: 'GBP',
+    });
     expect(inv.number).toMatch(/^INV-\d{6}$/);
     expect(inv.issueDate).toBe(today());
     expect(inv.dueDate).toBe(addDays(today(), 14));
     expect(inv.lines.map((l: { source: string; netMinor: number; taxMinor: number; rateBp: number }) => [l.source, l.netMinor, l.taxMinor, l.rateBp])).toEqual([
-      ['quote', 28200, 0, 0], ['quote', 24700, 0, 0], ['quote', 3897, 779, 2000], ['variation', 2598, 520, 2000],
+      ['quote', 28200, 0, 0],
+      ['quote', 24700, 0, 0],
+      ['quote', 3897, 779, 2000],
+      ['variation', 2598, 520, 2000],
     ]);
-    expect(inv.taxBreakdown).toEqual([{ rateBp: 2000, netMinor: 6495, taxMinor: 1299 }, { rateBp: 0, netMinor: 52900, taxMinor: 0 }]);
+    expect(inv.taxBreakdown).toEqual([
+      { rateBp: 2000, netMinor: 6495, taxMinor: 1299 },
+      { rateBp: 0, netMinor: 52900, taxMinor: 0 },
+    ]);
 
     // E-mailed to the customer with the PDF and the private pay link; the PDF agrees to the penny.
     const mail = await h.ctx.outbox.waitFor((m) => m.subject.startsWith(`Invoice ${inv.number}`));
@@ -92,16 +109,26 @@ describe('invoices', () => {
     expect((await request(h.ctx.app).get(`/pay/invoice/${token}`)).text).toContain('This invoice is paid');
 
     // The correction is a credit note, refunded to the card through the SDK.
-    const cn = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({ reason: 'One board was not fitted', lines: [{ description: 'Walkway board not fitted', quantity: 1, unitPriceMinor: 1299, taxClass: 'standard' }], refund: true });
+    const cn = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({
+      reason: 'One board was not fitted',
+      lines: [{ description: 'Walkway board not fitted', quantity: 1, unitPriceMinor: 1299, taxClass: 'standard' }],
+      refund: true,
+    });
     expect(cn.status).toBe(201);
     // 1299 + 20 % (259.8 → 260) = 1559.
     expect(cn.body.creditNote).toMatchObject({ kind: 'credit_note', totalMinor: 1559, creditedInvoiceNumber: inv.number });
     expect(cn.body.creditNote.number).toMatch(/^CN-\d{6}$/);
     const refund = h.fake.refunds.at(-1)!;
     expect(refund).toMatchObject({ amount: 1559, payment_intent: h.fake.sessions.get(session.id)!.payment_intent });
-    expect((await office.get(`/api/invoices/${inv.id}`)).body.invoice).toMatchObject({ creditedMinor: 1559, status: 'paid', creditNotes: [expect.objectContaining({ number: cn.body.creditNote.number })] });
+    expect((await office.get(`/api/invoices/${inv.id}`)).body.invoice).toMatchObject({
+      creditedMinor: 1559,
+      status: 'paid',
+      creditNotes: [expect.objectContaining({ number: cn.body.creditNote.number })],
+    });
     // More than what is left to credit is refused.
-    const tooMuch = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({ reason: 'x', lines: [{ description: 'all', quantity: 1, unitPriceMinor: 60000, taxClass: 'standard' }] });
+    const tooMuch = await office
+      .post(`/api/invoices/${inv.id}/credit-notes`)
+      .send({ reason: 'x', lines: [{ description: 'all', quantity: 1, unitPriceMinor: 60000, taxClass: 'standard' }] });
     expect(tooMuch.status).toBe(422);
   });
 
@@ -134,9 +161,13 @@ describe('invoices', () => {
     expect(changed.body.invoice).toMatchObject({ totalMinor: 60694, balanceMinor: 46300 });
     // A credit note on an unpaid invoice lowers what is left to pay (nothing to refund), and then the
     // invoice itself is frozen too.
-    const refundRefused = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }], refund: true });
+    const refundRefused = await office
+      .post(`/api/invoices/${inv.id}/credit-notes`)
+      .send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }], refund: true });
     expect([refundRefused.status, refundRefused.body.error.details[0].path]).toEqual([422, 'refund']);
-    const cn = await office.post(`/api/invoices/${inv.id}/credit-notes`).send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }] });
+    const cn = await office
+      .post(`/api/invoices/${inv.id}/credit-notes`)
+      .send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }] });
     expect(cn.body.creditNote.totalMinor).toBe(1200); // £10.00 + 20 % VAT
     expect((await office.get(`/api/invoices/${inv.id}`)).body.invoice).toMatchObject({ creditedMinor: 1200, balanceMinor: 46300 - 1200, status: 'issued' });
     expect((await office.patch(`/api/invoices/${inv.id}`).send({ notes: 'x' })).body.error.code).toBe('invoice_credited');
@@ -166,10 +197,12 @@ describe('invoices', () => {
     expect(results.filter((r) => r.status === 409)).toHaveLength(2);
     expect(created.sort()).toEqual(Array.from({ length: 12 }, (_, i) => `INV-${String(i + 1).padStart(6, '0')}`));
     // A rolled-back transaction gives its number back.
-    await h.ctx.deps.sequelize.transaction(async (t) => {
-      expect(await takeNumber(h.ctx.deps, fresh.id, 'INV', t)).toBe(13);
-      throw new Error('rolled back');
-    }).catch(() => undefined);
+    await h.ctx.deps.sequelize
+      .transaction(async (t) => {
+        expect(await takeNumber(h.ctx.deps, fresh.id, 'INV', t)).toBe(13);
+        throw new Error('rolled back');
+      })
+      .catch(() => undefined);
     await h.ctx.deps.sequelize.transaction(async (t) => expect(await takeNumber(h.ctx.deps, fresh.id, 'INV', t)).toBe(13));
   });
 });

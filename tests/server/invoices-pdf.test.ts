@@ -22,24 +22,61 @@ function sampleInvoice(over: Partial<Invoice> = {}): Invoice {
     ['Łódź-pattern hatch seal kit', 1, 1850, 2000, 'variation'],
   ] as const;
   const lines = raw.map(([description, q, u, r, source], i) => ({
-    id: `l${i}`, position: i, description, quantity: q, unit: 'each', unitPriceMinor: u, taxClass: r ? 'standard' : 'energy_saving', rateBp: r, source,
+    id: `l${i}`,
+    position: i,
+    description,
+    quantity: q,
+    unit: 'each',
+    unitPriceMinor: u,
+    taxClass: r ? 'standard' : 'energy_saving',
+    rateBp: r,
+    source,
     ...lineAmounts({ quantity: q, unitPriceMinor: u, rateBp: r }),
   }));
   const t = sumLines(lines);
   const deposit = 10000;
   return {
-    id: 'i1', kind: 'invoice', number: 'INV-000017', jobId: 'j1', jobReference: 'J-0031', customerName: 'Mrs Ada Fenwick',
-    status: 'issued', overdue: false, issueDate: '2027-01-20', dueDate: '2027-02-03', currency: 'GBP',
-    totalMinor: t.totalMinor, balanceMinor: balanceDue(t.totalMinor, deposit, 0), paidAt: null,
-    quoteId: 'q1', quoteReference: 'Q-0042', creditedInvoiceId: null, creditedInvoiceNumber: null,
-    customerEmail: 'ada@example.com', billingAddress: ['14 Wren Close', 'Harrowby', 'HB4 7QL'],
-    lines, netMinor: t.netMinor, taxMinor: t.taxMinor, taxBreakdown: t.taxBreakdown,
-    depositMinor: deposit, creditedMinor: 0, notes: 'Thank you for your business.', reason: '', creditNotes: [],
-    sentAt: null, payUrl: 'http://127.0.0.1:3000/q/invoice/abc123', ...over,
+    id: 'i1',
+    kind: 'invoice',
+    number: 'INV-000017',
+    jobId: 'j1',
+    jobReference: 'J-0031',
+    customerName: 'Mrs Ada Fenwick',
+    status: 'issued',
+    overdue: false,
+    issueDate: '2027-01-20',
+    dueDate: '2027-02-03',
+    currency: 'GBP',
+    totalMinor: t.totalMinor,
+    balanceMinor: balanceDue(t.totalMinor, deposit, 0),
+    paidAt: null,
+    quoteId: 'q1',
+    quoteReference: 'Q-0042',
+    creditedInvoiceId: null,
+    creditedInvoiceNumber: null,
+    customerEmail: 'ada@example.com',
+    billingAddress: ['14 Wren Close', 'Harrowby', 'HB4 7QL'],
+    lines,
+    netMinor: t.netMinor,
+    taxMinor: t.taxMinor,
+    taxBreakdown: t.taxBreakdown,
+    depositMinor: deposit,
+    creditedMinor: 0,
+    notes: 'Thank you for your business.',
+    reason: '',
+    creditNotes: [],
+    sentAt: null,
+    payUrl: 'http://127.0.0.1:3000/q/invoice/abc123',
+    ...over,
   };
 }
 
-const company = { name: 'Fenbank Loft Insulation Ltd', addressLines: ['Unit 3, Mill Yard', 'Harrowby HB1 2AA'], email: 'office@fenbank.example.com', taxNumber: 'GB 123 4567 89' };
+const company = {
+  name: 'Fenbank Loft Insulation Ltd',
+  addressLines: ['Unit 3, Mill Yard', 'Harrowby HB1 2AA'],
+  email: 'office@fenbank.example.com',
+  taxNumber: 'GB 123 4567 89',
+};
 
 describe('invoice PDF', () => {
   it('prints number, dates, every line, VAT by rate, deposit and balance to the penny, and the pay link', async () => {
@@ -51,12 +88,30 @@ describe('invoice PDF', () => {
     expect(buf.subarray(0, 5).toString()).toBe('%PDF-');
     const text = await pdfText(buf);
     for (const s of [
-      'Invoice', 'INV-000017', 'Fenbank Loft Insulation Ltd', 'Mrs Ada Fenwick', '14 Wren Close',
-      'Issued 20 January 2027', 'Due 3 February 2027', 'Quote Q-0042', 'Job J-0031',
-      'Walkway boards (variation on site)', 'Łódź-pattern hatch seal kit',
-      '£282.00', '£247.00', '£38.97', '£46.76', // line totals: 282.00 + 0; 247.00 + 49.40 = 296.40 shown as gross below
-      '£296.40', '£586.47', 'VAT at 20% on £304.47', '£60.89', '£647.36', '−£100.00', '£547.36',
-      'Balance due', 'http://127.0.0.1:3000/q/invoice/abc123',
+      'Invoice',
+      'INV-000017',
+      'Fenbank Loft Insulation Ltd',
+      'Mrs Ada Fenwick',
+      '14 Wren Close',
+      'Issued 20 January 2027',
+      'Due 3 February 2027',
+      'Quote Q-0042',
+      'Job J-0031',
+      'Walkway boards (variation on site)',
+      'Łódź-pattern hatch seal kit',
+      '£282.00',
+      '£247.00',
+      '£38.97',
+      '£46.76', // line totals: 282.00 + 0; 247.00 + 49.40 = 296.40 shown as gross below
+      '£296.40',
+      '£586.47',
+      'VAT at 20% on £304.47',
+      '£60.89',
+      '£647.36',
+      '−£100.00',
+      '£547.36',
+      'Balance due',
+      'http://127.0.0.1:3000/q/invoice/abc123',
     ]) {
       expect(text, s).toContain(s);
     }
@@ -69,7 +124,12 @@ describe('invoice PDF', () => {
   });
 
   it('a credit note is titled as such, names the invoice it credits and the reason', async () => {
-    const text = await pdfText(await renderInvoicePdf(sampleInvoice({ kind: 'credit_note', number: 'CN-000002', creditedInvoiceNumber: 'INV-000017', reason: 'Walkway boards not fitted' }), company));
+    const text = await pdfText(
+      await renderInvoicePdf(
+        sampleInvoice({ kind: 'credit_note', number: 'CN-000002', creditedInvoiceNumber: 'INV-000017', reason: 'Walkway boards not fitted' }),
+        company,
+      ),
+    );
     expect(text).toContain('Credit note');
     expect(text).toContain('CN-000002');
     expect(text).toContain('Credits invoice INV-000017');

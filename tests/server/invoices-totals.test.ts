@@ -28,12 +28,26 @@ describe('one invoice line', () => {
   it('prices a line exactly as the quote does (same money helpers, same tax date)', () => {
     // 1 May 2027: installed energy-saving materials 5 %, other items 20 % (HMRC VAT Notice 708/6).
     const lines = [
-      { kind: 'material' as const, description: 'roll', quantity: 13, unit: 'roll', unitPriceMinor: 2899, unitCostMinor: 0, taxClass: 'energy_saving' as const },
+      {
+        kind: 'material' as const,
+        description: 'roll',
+        quantity: 13,
+        unit: 'roll',
+        unitPriceMinor: 2899,
+        unitCostMinor: 0,
+        taxClass: 'energy_saving' as const,
+      },
       { kind: 'extra' as const, description: 'boards', quantity: 2.345, unit: 'm', unitPriceMinor: 199, unitCostMinor: 0, taxClass: 'standard' as const },
     ];
     const q = computeQuoteTotals(lines, UK_DEFAULT_TAX_RATES, '2027-05-01');
-    const mine = q.lines.map((p) => ({ ...lineAmounts({ quantity: p.line.quantity, unitPriceMinor: p.line.unitPriceMinor, rateBp: p.rateBp }), rateBp: p.rateBp }));
-    expect(mine.map((m) => [m.netMinor, m.taxMinor])).toEqual([[37687, 1884], [467, 93]]); // 13 × 2899 = 37687, 5 % = 1884.35 → 1884; 2.345 × 199 = 466.655 → 467, 20 % = 93.4 → 93
+    const mine = q.lines.map((p) => ({
+      ...lineAmounts({ quantity: p.line.quantity, unitPriceMinor: p.line.unitPriceMinor, rateBp: p.rateBp }),
+      rateBp: p.rateBp,
+    }));
+    expect(mine.map((m) => [m.netMinor, m.taxMinor])).toEqual([
+      [37687, 1884],
+      [467, 93],
+    ]); // 13 × 2899 = 37687, 5 % = 1884.35 → 1884; 2.345 × 199 = 466.655 → 467, 20 % = 93.4 → 93
     expect(sumLines(mine).totalMinor).toBe(q.grossMinor);
   });
 });

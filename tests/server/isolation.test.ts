@@ -62,7 +62,9 @@ describe('another company', () => {
   });
 
   it('cannot be linked: a job for their customer or their installer is refused, naming the field', async () => {
-    const badCustomer = await office.post('/api/jobs').send({ customerId: theirJob.customer.id, propertyAddress: { line1: '1 A St', town: 'B', postcode: 'C1 1CC' } });
+    const badCustomer = await office
+      .post('/api/jobs')
+      .send({ customerId: theirJob.customer.id, propertyAddress: { line1: '1 A St', town: 'B', postcode: 'C1 1CC' } });
     expect(badCustomer.status).toBe(422);
     expect(badCustomer.body.error.details[0].path).toBe('customerId');
     const ourJob = await createJob(ours);

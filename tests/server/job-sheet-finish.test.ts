@@ -43,7 +43,11 @@ async function tickAll(agent: Agent, jobId: string, except: string[] = []) {
 }
 
 async function addPhoto(agent: Agent, jobId: string, spaceId: string, stage: string) {
-  const r = await agent.post(`/api/jobs/${jobId}/photos`).field('spaceId', spaceId).field('stage', stage).attach('photo', await rotatedJpeg(), 'p.jpg');
+  const r = await agent
+    .post(`/api/jobs/${jobId}/photos`)
+    .field('spaceId', spaceId)
+    .field('stage', stage)
+    .attach('photo', await rotatedJpeg(), 'p.jpg');
   expect(r.status).toBe(201);
 }
 
@@ -77,7 +81,9 @@ describe('POST /api/jobs/:id/finish', () => {
     await addPhoto(agent, job.id, space.id, 'before');
     await addPhoto(agent, job.id, space.id, 'after');
     ctx.outbox.clear();
-    const res = await agent.post(`/api/jobs/${job.id}/finish`).send({ reasons: { [`${space.id}:boarded.raise-or-leave`]: 'Customer keeps the boards as they are' } });
+    const res = await agent
+      .post(`/api/jobs/${job.id}/finish`)
+      .send({ reasons: { [`${space.id}:boarded.raise-or-leave`]: 'Customer keeps the boards as they are' } });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ stage: 'installed', emailed: true, warnings: [] });
 
@@ -96,11 +102,14 @@ describe('POST /api/jobs/:id/finish', () => {
     const attachment = parsed.attachments.find((a) => a.contentType === 'application/pdf');
     expect(attachment).toBeDefined();
 
-    const dl = await office.get(`/api/jobs/${job.id}/handover.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const dl = await office
+      .get(`/api/jobs/${job.id}/handover.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(dl.status).toBe(200);
     expect(dl.headers['content-type']).toBe('application/pdf');
     // Kept for a person to look at (pdftoppm turns it into pages).

@@ -19,12 +19,18 @@ export function exampleProducts() {
 }
 
 /** A job assigned to the org's installer, scheduled for `installDate`, whose one space has the example plan and its takeoff. */
-export async function scheduledJobWithTakeoff(org: TestOrg, opts: { installDate?: string; customerEmail?: string; planFile?: string; installerId?: string } = {}) {
+export async function scheduledJobWithTakeoff(
+  org: TestOrg,
+  opts: { installDate?: string; customerEmail?: string; planFile?: string; installerId?: string } = {},
+) {
   const plan = examplePlan(opts.planFile);
   const takeoff = computeTakeoff(plan, { products: exampleProducts() });
   const made = await createJob(org, { stage: 'scheduled', assignedInstallerId: opts.installerId ?? org.installer.id, plan });
   await PlanRevision.update({ takeoff: JSON.parse(JSON.stringify(takeoff)) }, { where: { spaceId: made.space.id } });
-  await Job.update({ installDate: opts.installDate ?? new Date().toISOString().slice(0, 10), accessNotes: 'Key with neighbour at no. 10' }, { where: { id: made.job.id } });
+  await Job.update(
+    { installDate: opts.installDate ?? new Date().toISOString().slice(0, 10), accessNotes: 'Key with neighbour at no. 10' },
+    { where: { id: made.job.id } },
+  );
   if (opts.customerEmail) await made.customer.update({ email: opts.customerEmail });
   return { ...made, takeoff, plan };
 }
@@ -43,11 +49,17 @@ export function priceKeyPaths(value: unknown, at = '$'): string[] {
 
 /** A small JPEG whose EXIF says "rotate 90° clockwise" (orientation 6): 400 × 200 stored, 200 × 400 upright. */
 export function rotatedJpeg(): Promise<Buffer> {
-  return sharp({ create: { width: 400, height: 200, channels: 3, background: '#c8a050' } }).jpeg().withMetadata({ orientation: 6 }).toBuffer();
+  return sharp({ create: { width: 400, height: 200, channels: 3, background: '#c8a050' } })
+    .jpeg()
+    .withMetadata({ orientation: 6 })
+    .toBuffer();
 }
 
 /** Files under a folder, recursively (to prove that a refused upload stored nothing). */
 export function filesUnder(dir: string): string[] {
   if (!fs.existsSync(dir)) return [];
-  return fs.readdirSync(dir, { recursive: true, withFileTypes: true }).filter((d) => d.isFile()).map((d) => path.join(d.parentPath, d.name));
+  return fs
+    .readdirSync(dir, { recursive: true, withFileTypes: true })
+    .filter((d) => d.isFile())
+    .map((d) => path.join(d.parentPath, d.name));
 }

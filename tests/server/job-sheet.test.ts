@@ -68,7 +68,9 @@ describe('installer access', () => {
     const packed = takeoff.layers.reduce((n, l) => n + l.rollsByPacking, 0);
     expect(sheet.vanLoad.rolls.reduce((n: number, r: { count: number }) => n + r.count, 0)).toBe(packed);
     expect(sheet.vanLoad.extras.find((x: { label: string }) => /downlight/i.test(x.label)).quantity).toBe(5);
-    expect(s.checks.map((c: { code: string }) => c.code)).toEqual(expect.arrayContaining(['tank.no-insulation-beneath', 'downlight.covers', 'eaves.ventilation-gap']));
+    expect(s.checks.map((c: { code: string }) => c.code)).toEqual(
+      expect.arrayContaining(['tank.no-insulation-beneath', 'downlight.covers', 'eaves.ventilation-gap']),
+    );
     expect(sheet.cautions.join(' ')).toMatch(/local building regulations/i);
     // The takeoff itself carries prices; the sheet built from it must not.
     expect(priceKeyPaths(takeoff).length).toBeGreaterThan(0);
@@ -91,7 +93,10 @@ describe('ticks and notes', () => {
     expect(await JobTick.count({ where: { jobId: job.id } })).toBe(1);
 
     // Unticking is a new request with a new key; the one row changes.
-    const off = await agent.post(`/api/jobs/${job.id}/ticks`).set('Idempotency-Key', 'tick-key-0002').send({ ...body, done: false });
+    const off = await agent
+      .post(`/api/jobs/${job.id}/ticks`)
+      .set('Idempotency-Key', 'tick-key-0002')
+      .send({ ...body, done: false });
     expect(off.body.tick.done).toBe(false);
     expect(await JobTick.count({ where: { jobId: job.id } })).toBe(1);
 
@@ -109,7 +114,10 @@ describe('ticks and notes', () => {
     expect((await agent.post(`/api/jobs/${job.id}/ticks`).send({ kind: 'strip-cut', spaceId: space.id, ref: cut.id, done: true })).status).toBe(200);
     expect((await agent.post(`/api/jobs/${job.id}/ticks`).send({ kind: 'strip-laid', spaceId: space.id, ref: cut.stripId, done: true })).status).toBe(200);
     const after = seen('job-sheet', await agent.get(`/api/jobs/${job.id}/job-sheet`)).body.sheet;
-    expect(after.ticks.map((t: { kind: string; ref: string; done: boolean }) => `${t.kind} ${t.ref} ${t.done}`).sort()).toEqual([`strip-cut ${cut.id} true`, `strip-laid ${cut.stripId} true`]);
+    expect(after.ticks.map((t: { kind: string; ref: string; done: boolean }) => `${t.kind} ${t.ref} ${t.done}`).sort()).toEqual([
+      `strip-cut ${cut.id} true`,
+      `strip-laid ${cut.stripId} true`,
+    ]);
   });
 
   it('refuses a tick for a space of another job, a reason on a strip, and an estimator', async () => {
@@ -120,7 +128,9 @@ describe('ticks and notes', () => {
     expect(wrongSpace.status).toBe(422);
     expect(wrongSpace.body.error.details[0].path).toBe('spaceId');
     const estimator = await loginAs(ctx.app, org.estimator);
-    expect((await estimator.post(`/api/jobs/${job.id}/ticks`).send({ kind: 'check', spaceId: elsewhere.space.id, ref: 'ppe.dust', done: true })).status).toBe(403);
+    expect((await estimator.post(`/api/jobs/${job.id}/ticks`).send({ kind: 'check', spaceId: elsewhere.space.id, ref: 'ppe.dust', done: true })).status).toBe(
+      403,
+    );
     const bad = await agent.post(`/api/jobs/${job.id}/ticks`).send({ kind: 'sideways', spaceId: elsewhere.space.id, ref: 'x', done: true });
     expect(bad.status).toBe(422);
   });

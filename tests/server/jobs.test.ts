@@ -26,7 +26,9 @@ describe('creating jobs', () => {
   it('numbers them per company and year: Q-YYYY-0001, Q-YYYY-0002 ...', async () => {
     const year = new Date().getUTCFullYear();
     const a = await estimator.post('/api/jobs').send({ customerId: customers['Agnes Birch'], propertyAddress: address('3 Birch Walk', 'FW1 3BW') });
-    const b = await estimator.post('/api/jobs').send({ customerId: customers['Zeno Quill'], propertyAddress: address('9 Quill Street', 'FW9 9QS'), stage: 'surveyed' });
+    const b = await estimator
+      .post('/api/jobs')
+      .send({ customerId: customers['Zeno Quill'], propertyAddress: address('9 Quill Street', 'FW9 9QS'), stage: 'surveyed' });
     expect(a.status).toBe(201);
     expect(a.body.job.reference).toBe(`Q-${year}-0001`);
     expect(b.body.job.reference).toBe(`Q-${year}-0002`);
@@ -40,7 +42,13 @@ describe('creating jobs', () => {
   });
 
   it('lets only the office assign an installer and a date', async () => {
-    const body = { customerId: customers['Maud Fairweather'], propertyAddress: address('12 Fair Lane', 'FW2 2FL'), stage: 'scheduled', assignedInstallerId: org.installer.id, installDate: '2027-03-01' };
+    const body = {
+      customerId: customers['Maud Fairweather'],
+      propertyAddress: address('12 Fair Lane', 'FW2 2FL'),
+      stage: 'scheduled',
+      assignedInstallerId: org.installer.id,
+      installDate: '2027-03-01',
+    };
     expect((await estimator.post('/api/jobs').send(body)).status).toBe(403);
     const res = await office.post('/api/jobs').send(body);
     expect(res.status).toBe(201);
@@ -49,7 +57,9 @@ describe('creating jobs', () => {
   });
 
   it('refuses assigning someone who is not an installer', async () => {
-    const res = await office.post('/api/jobs').send({ customerId: customers['Maud Fairweather'], propertyAddress: address('1 X', 'FW1'), assignedInstallerId: org.estimator.id });
+    const res = await office
+      .post('/api/jobs')
+      .send({ customerId: customers['Maud Fairweather'], propertyAddress: address('1 X', 'FW1'), assignedInstallerId: org.estimator.id });
     expect(res.status).toBe(422);
     expect(res.body.error.details[0].path).toBe('assignedInstallerId');
   });
@@ -89,7 +99,9 @@ describe('listing jobs', () => {
 
 describe('changing a job', () => {
   it('changes only the fields sent and records the timeline', async () => {
-    const created = await estimator.post('/api/jobs').send({ customerId: customers['Agnes Birch'], propertyAddress: address('5 Timeline Row', 'FW5 5TR'), notes: 'keep me' });
+    const created = await estimator
+      .post('/api/jobs')
+      .send({ customerId: customers['Agnes Birch'], propertyAddress: address('5 Timeline Row', 'FW5 5TR'), notes: 'keep me' });
     const id = created.body.job.id;
     const moved = await estimator.patch(`/api/jobs/${id}`).send({ stage: 'surveyed' });
     expect(moved.status).toBe(200);

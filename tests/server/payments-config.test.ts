@@ -4,7 +4,12 @@ import { LOCAL_SECRET_KEY, LOCAL_WEBHOOK_SECRET, paymentsConfigFromEnv } from '.
 
 describe('payments configuration', () => {
   it('uses the real service with both keys and no API URL', () => {
-    expect(paymentsConfigFromEnv({ STRIPE_SECRET_KEY: 'sk_live_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' }, true)).toEqual({ secretKey: 'sk_live_x', webhookSecret: 'whsec_x', apiUrl: undefined, provider: 'service' });
+    expect(paymentsConfigFromEnv({ STRIPE_SECRET_KEY: 'sk_live_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' }, true)).toEqual({
+      secretKey: 'sk_live_x',
+      webhookSecret: 'whsec_x',
+      apiUrl: undefined,
+      provider: 'service',
+    });
   });
 
   it('refuses one key without the other, naming both', () => {
@@ -13,7 +18,12 @@ describe('payments configuration', () => {
   });
 
   it('needs no keys for the demo: the local stand-in on 127.0.0.1:12111 with local test keys', () => {
-    expect(paymentsConfigFromEnv({}, false)).toEqual({ secretKey: LOCAL_SECRET_KEY, webhookSecret: LOCAL_WEBHOOK_SECRET, apiUrl: 'http://127.0.0.1:12111', provider: 'local' });
+    expect(paymentsConfigFromEnv({}, false)).toEqual({
+      secretKey: LOCAL_SECRET_KEY,
+      webhookSecret: LOCAL_WEBHOOK_SECRET,
+      apiUrl: 'http://127.0.0.1:12111',
+      provider: 'local',
+    });
     expect(paymentsConfigFromEnv({ PAYMENTS_API_URL: 'http://127.0.0.1:12199' }, false)?.apiUrl).toBe('http://127.0.0.1:12199');
   });
 

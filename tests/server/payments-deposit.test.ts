@@ -51,7 +51,10 @@ async function startCheckout(link: string) {
 describe('deposit on acceptance', () => {
   it('stores the office deposit settings and reads them back with the company currency', async () => {
     const res = await office.get('/api/payments/settings');
-    expect(res.body).toMatchObject({ settings: { depositMode: 'percent', depositPercentBp: 2500, depositFixedMinor: null, paymentTermsDays: 14, currency: 'GBP' }, enabled: true });
+    expect(res.body).toMatchObject({
+      settings: { depositMode: 'percent', depositPercentBp: 2500, depositFixedMinor: null, paymentTermsDays: 14, currency: 'GBP' },
+      enabled: true,
+    });
     const bad = await office.put('/api/payments/settings').send({ depositMode: 'fixed', paymentTermsDays: 14 });
     expect(bad.status).toBe(422);
     expect(bad.body.error.details[0]).toMatchObject({ path: 'depositFixedMinor', message: 'enter the deposit amount' });
@@ -66,8 +69,19 @@ describe('deposit on acceptance', () => {
     expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toMatchObject({ state: 'due', payUrl: null });
     const accepted = await request(h.ctx.app).post(`/api/public/quotes/${link}/accept`).send({ name: 'Ada Fenwick', acceptTerms: true });
     expect(accepted.status).toBe(200);
-    expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toEqual({ state: 'due', amountMinor: DEPOSIT, currency: 'GBP', paidAt: null, payUrl: `/pay/deposit/${link}` });
-    expect((await office.get(`/api/payments/deposits/${quote.id}`)).body.deposit).toMatchObject({ state: 'due', amountMinor: DEPOSIT, currency: 'GBP', paidAt: null });
+    expect((await request(h.ctx.app).get(`/api/payments/public/deposit/${link}`)).body.deposit).toEqual({
+      state: 'due',
+      amountMinor: DEPOSIT,
+      currency: 'GBP',
+      paidAt: null,
+      payUrl: `/pay/deposit/${link}`,
+    });
+    expect((await office.get(`/api/payments/deposits/${quote.id}`)).body.deposit).toMatchObject({
+      state: 'due',
+      amountMinor: DEPOSIT,
+      currency: 'GBP',
+      paidAt: null,
+    });
     const page = await request(h.ctx.app).get(`/pay/deposit/${link}`);
     expect(page.status).toBe(200);
     expect(page.text).toContain('£143.94');
@@ -94,7 +108,12 @@ describe('deposit on acceptance', () => {
     expect(Date.now() - Date.parse(dep.paidAt)).toBeLessThan(60_000);
     const events = (await office.get(`/api/jobs/${job.id}/events`)).body.events.filter((e: { kind: string }) => e.kind === 'deposit_paid');
     expect(events).toHaveLength(1);
-    expect(events[0].data).toMatchObject({ amountMinor: DEPOSIT, currency: 'GBP', quoteNumber: quote.number, paymentText: `Deposit of £143.94 paid for quote ${quote.number}` });
+    expect(events[0].data).toMatchObject({
+      amountMinor: DEPOSIT,
+      currency: 'GBP',
+      quoteNumber: quote.number,
+      paymentText: `Deposit of £143.94 paid for quote ${quote.number}`,
+    });
     const timeline = (await office.get(`/api/payments/jobs/${job.id}/timeline`)).body.entries;
     expect(timeline).toEqual([expect.objectContaining({ kind: 'deposit-paid', amountMinor: DEPOSIT })]);
     const mail = await h.ctx.outbox.waitFor((m) => m.subject.startsWith('Deposit paid'));
@@ -143,7 +162,12 @@ describe('deposit on acceptance', () => {
   it('the same event delivered five times at once is applied exactly once', async () => {
     const { job, link } = await newAcceptedQuote();
     const session = await startCheckout(link);
-    const body = JSON.stringify({ id: 'evt_test_burst_1', object: 'event', type: 'checkout.session.completed', data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_burst' } } });
+    const body = JSON.stringify({
+      id: 'evt_test_burst_1',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_burst' } },
+    });
     const sig = signWebhookPayload(body, WEBHOOK_SECRET);
     const results = await Promise.all(Array.from({ length: 5 }, () => webhook(body, sig)));
     expect(results.map((r) => r.status)).toEqual([200, 200, 200, 200, 200]);
@@ -154,7 +178,12 @@ describe('deposit on acceptance', () => {
   it('refuses unsigned, wrongly signed, stale and tampered webhooks with 400 and changes nothing', async () => {
     const { job, link } = await newAcceptedQuote();
     const session = await startCheckout(link);
-    const event = { id: 'evt_test_forged_1', object: 'event', type: 'checkout.session.completed', data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_forged' } } };
+    const event = {
+      id: 'evt_test_forged_1',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { ...session, status: 'complete', payment_status: 'paid', payment_intent: 'pi_forged' } },
+    };
     const body = JSON.stringify(event);
     const eventsBefore = await PaymentEvent.count();
     const cases: Array<[string, string | undefined]> = [
@@ -184,14 +213,28 @@ describe('deposit on acceptance', () => {
       const body = JSON.stringify({ id, object: 'event', type, data: { object: { ...session, ...object } } });
       return webhook(body, signWebhookPayload(body, WEBHOOK_SECRET));
     };
-    expect((await send('evt_test_short_1', 'checkout.session.completed', { status: 'complete', payment_status: 'paid', amount_total: DEPOSIT - 1, payment_intent: 'pi_short' })).status).toBe(200);
+    expect(
+      (
+        await send('evt_test_short_1', 'checkout.session.completed', {
+          status: 'complete',
+          payment_status: 'paid',
+          amount_total: DEPOSIT - 1,
+          payment_intent: 'pi_short',
+        })
+      ).status,
+    ).toBe(200);
     expect((await Payment.findOne({ where: { checkoutSessionId: session.id } }))!.status).toBe('open');
     expect(await JobEvent.count({ where: { jobId: job.id, kind: 'payment_mismatch' } })).toBe(1);
     expect(await JobEvent.count({ where: { jobId: job.id, kind: 'deposit_paid' } })).toBe(0);
     expect((await send('evt_test_expired_1', 'checkout.session.expired', { status: 'expired' })).status).toBe(200);
     expect((await Payment.findOne({ where: { checkoutSessionId: session.id } }))!.status).toBe('expired');
     // An event about a session we never opened is acknowledged and ignored.
-    const stray = JSON.stringify({ id: 'evt_test_stray_1', object: 'event', type: 'checkout.session.completed', data: { object: { id: 'cs_test_not_ours', payment_status: 'paid', amount_total: 1, currency: 'gbp' } } });
+    const stray = JSON.stringify({
+      id: 'evt_test_stray_1',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { id: 'cs_test_not_ours', payment_status: 'paid', amount_total: 1, currency: 'gbp' } },
+    });
     expect((await webhook(stray, signWebhookPayload(stray, WEBHOOK_SECRET))).body).toEqual({ received: true, duplicate: false });
   });
 

@@ -57,7 +57,11 @@ export async function startPaymentsHarness(): Promise<PaymentsHarness> {
       await new Promise((r) => server.close(r));
       await fakeHandle.close();
       await ctx.close();
-      for (const [k, v] of [['STRIPE_SECRET_KEY', saved.k], ['STRIPE_WEBHOOK_SECRET', saved.w], ['PAYMENTS_API_URL', saved.u]] as const) {
+      for (const [k, v] of [
+        ['STRIPE_SECRET_KEY', saved.k],
+        ['STRIPE_WEBHOOK_SECRET', saved.w],
+        ['PAYMENTS_API_URL', saved.u],
+      ] as const) {
         if (v === undefined) delete process.env[k];
         else process.env[k] = v;
       }
@@ -84,16 +88,43 @@ function isoDaysFromToday(days: number): string {
 export async function createAcceptedQuote(organisationId: string, jobId: string, secret: string, opts: { status?: 'accepted' | 'sent'; number?: string } = {}) {
   const nonce = randomBytes(16).toString('base64url');
   const quote = await Quote.create({
-    organisationId, jobId, number: opts.number ?? `Q-T${randomBytes(3).toString('hex')}`, version: 1, status: opts.status ?? 'accepted', currency: 'GBP', locale: 'en-GB',
-    issueDate: PRICED_ON, validUntil: isoDaysFromToday(30), notes: '', snapshot: { taxRates: UK_DEFAULT_TAX_RATES }, linkNonce: nonce,
-    sentAt: new Date(), acceptedAt: opts.status === 'sent' ? null : new Date(), acceptedName: opts.status === 'sent' ? null : 'Ada Fenwick', declinedAt: null, declineReason: null, createdById: null,
+    organisationId,
+    jobId,
+    number: opts.number ?? `Q-T${randomBytes(3).toString('hex')}`,
+    version: 1,
+    status: opts.status ?? 'accepted',
+    currency: 'GBP',
+    locale: 'en-GB',
+    issueDate: PRICED_ON,
+    validUntil: isoDaysFromToday(30),
+    notes: '',
+    snapshot: { taxRates: UK_DEFAULT_TAX_RATES },
+    linkNonce: nonce,
+    sentAt: new Date(),
+    acceptedAt: opts.status === 'sent' ? null : new Date(),
+    acceptedName: opts.status === 'sent' ? null : 'Ada Fenwick',
+    declinedAt: null,
+    declineReason: null,
+    createdById: null,
   } as never);
   const lines = [
     { kind: 'material', description: 'Mineral-wool roll 200 mm', quantity: 12, unit: 'roll', unitPriceMinor: 2350, taxClass: 'energy_saving' },
     { kind: 'labour', description: 'Labour, two layers', quantity: 6.5, unit: 'h', unitPriceMinor: 3800, taxClass: 'energy_saving' },
     { kind: 'extra', description: 'Walkway board', quantity: 3, unit: 'each', unitPriceMinor: 1299, taxClass: 'standard' },
   ];
-  await QuoteLine.bulkCreate(lines.map((l, i) => ({ ...l, organisationId, quoteId: quote.id, position: i + 1, unitCostMinor: 0, productId: null, extraKind: null, altQuantity: null, note: '' })) as never);
+  await QuoteLine.bulkCreate(
+    lines.map((l, i) => ({
+      ...l,
+      organisationId,
+      quoteId: quote.id,
+      position: i + 1,
+      unitCostMinor: 0,
+      productId: null,
+      extraKind: null,
+      altQuantity: null,
+      note: '',
+    })) as never,
+  );
   const link = signQuoteLink({ quoteId: quote.id, nonce, exp: Math.floor(Date.now() / 1000) + 30 * 86400 }, secret);
   return { quote, link };
 }

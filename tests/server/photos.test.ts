@@ -101,13 +101,25 @@ describe('POST /api/jobs/:id/photos', () => {
   it("keeps another installer's and another company's photos out of reach", async () => {
     const { job, space } = await scheduledJobWithTakeoff(org);
     const agent = await loginAs(ctx.app, org.installer);
-    const res = await agent.post(`/api/jobs/${job.id}/photos`).field('spaceId', space.id).field('stage', 'during').attach('photo', await rotatedJpeg(), 'a.jpg');
+    const res = await agent
+      .post(`/api/jobs/${job.id}/photos`)
+      .field('spaceId', space.id)
+      .field('stage', 'during')
+      .attach('photo', await rotatedJpeg(), 'a.jpg');
     expect(res.status).toBe(201);
     const otherOrg = await createOrgWithUsers(ctx);
     const stranger = await loginAs(ctx.app, otherOrg.office);
     expect((await stranger.get(res.body.photo.url)).status).toBe(404);
     const stranger2 = await loginAs(ctx.app, otherOrg.installer);
-    expect((await stranger2.post(`/api/jobs/${job.id}/photos`).field('spaceId', space.id).field('stage', 'during').attach('photo', await rotatedJpeg(), 'a.jpg')).status).toBe(404);
+    expect(
+      (
+        await stranger2
+          .post(`/api/jobs/${job.id}/photos`)
+          .field('spaceId', space.id)
+          .field('stage', 'during')
+          .attach('photo', await rotatedJpeg(), 'a.jpg')
+      ).status,
+    ).toBe(404);
     const office = await loginAs(ctx.app, org.office);
     expect((await office.get(res.body.photo.thumbUrl)).status).toBe(200);
   });

@@ -65,7 +65,19 @@ describe('GET /api/spaces/:id/plan', () => {
   it('shows the installer the layers the office priced, although the installer gets no prices', async () => {
     // Arrange: two cross rolls alike but for price; by name the dearer sorts first, so a
     // catalogue without prices would tie on cost and take it.
-    const roll = { supplierCode: '', thicknessMm: 170, rollWidthMm: 1140, lanes: 1, rollLengthMm: 5000, coverageM2: 5.7, lambdaWmK: 0.044, unitCostMinor: 1000, taxClass: 'energy_saving' as const, roles: ['cross' as const], active: true };
+    const roll = {
+      supplierCode: '',
+      thicknessMm: 170,
+      rollWidthMm: 1140,
+      lanes: 1,
+      rollLengthMm: 5000,
+      coverageM2: 5.7,
+      lambdaWmK: 0.044,
+      unitCostMinor: 1000,
+      taxClass: 'energy_saving' as const,
+      roles: ['cross' as const],
+      active: true,
+    };
     const priced = await createOrgWithUsers(ctx);
     await Product.create({ ...roll, organisationId: priced.id, name: 'A dear 170 mm roll', unitPriceMinor: 4000 });
     const cheap = await Product.create({ ...roll, organisationId: priced.id, name: 'B cheap 170 mm roll', unitPriceMinor: 2000 });
@@ -76,7 +88,10 @@ describe('GET /api/spaces/:id/plan', () => {
     // Act
     const res = await (await loginAs(ctx.app, priced.installer)).get(`/api/spaces/${space.id}/plan`);
     // Assert: the installer's own computation from what it was given picks the office's roll.
-    const live = computeTakeoff(planSchema.parse(res.body.plan), { products: parseProductCatalogue(res.body.takeoffInputs.products), settings: res.body.takeoffInputs.settings });
+    const live = computeTakeoff(planSchema.parse(res.body.plan), {
+      products: parseProductCatalogue(res.body.takeoffInputs.products),
+      settings: res.body.takeoffInputs.settings,
+    });
     expect(live.layers.filter((l) => l.role === 'cross').map((l) => l.productId)).toEqual([cheap.id]);
   });
 });
@@ -110,8 +125,28 @@ describe('PUT /api/spaces/:id/plan', () => {
   });
 
   it.each([
-    ['a self-crossing outline', { outline: [[0, 0], [4000, 3000], [4000, 0], [0, 3000]] }, /cross/i],
-    ['two corners', { outline: [[0, 0], [4000, 0]] }, /3|three/i],
+    [
+      'a self-crossing outline',
+      {
+        outline: [
+          [0, 0],
+          [4000, 3000],
+          [4000, 0],
+          [0, 3000],
+        ],
+      },
+      /cross/i,
+    ],
+    [
+      'two corners',
+      {
+        outline: [
+          [0, 0],
+          [4000, 0],
+        ],
+      },
+      /3|three/i,
+    ],
     ['an unknown format', { format: 'other-plan/9' }, /unknown plan format/],
   ])('refuses %s with 422 and the engine messages, writing nothing', async (_name, patch, msg) => {
     const { space } = await createJob(org, { plan: lShape() });

@@ -51,7 +51,10 @@ describe('sending a quote', () => {
     expect(pub.body.quote.totals.grossMinor).toBe(quote.totals.grossMinor);
     expect(pub.body.quote.customerName).toBe('Cressida Vane');
     expect(JSON.stringify(pub.body)).not.toMatch(/costMinor|marginMinor/); // no costs for customers
-    const pubPdf = await request(ctx.app).get(`/api/public/quotes/${encodeURIComponent(token)}/pdf`).buffer(true).parse(binary);
+    const pubPdf = await request(ctx.app)
+      .get(`/api/public/quotes/${encodeURIComponent(token)}/pdf`)
+      .buffer(true)
+      .parse(binary);
     expect(pubPdf.status).toBe(200);
     expect(pubPdf.body.subarray(0, 5).toString()).toBe('%PDF-');
 
@@ -110,7 +113,9 @@ describe('the customer answering', () => {
 
   it('declines with an optional reason and tells the office', async () => {
     const { job, quote, token } = await sentQuote('cressida.decline@example.com');
-    const res = await request(ctx.app).post(`/api/public/quotes/${encodeURIComponent(token)}/decline`).send({ reason: 'Going with a neighbour\'s firm' });
+    const res = await request(ctx.app)
+      .post(`/api/public/quotes/${encodeURIComponent(token)}/decline`)
+      .send({ reason: "Going with a neighbour's firm" });
     expect(res.status).toBe(200);
     expect(res.body.quote.status).toBe('declined');
     expect((await Job.findByPk(job.id))!.stage).toBe('declined');
@@ -123,7 +128,9 @@ describe('the customer answering', () => {
     const row = (await Quote.findByPk(quote.id))!;
     // Same quote and nonce, signed with the server's secret, but expired yesterday.
     const stale = signQuoteLink({ quoteId: quote.id, nonce: row.linkNonce!, exp: Math.floor(Date.now() / 1000) - 86_400 }, ctx.config.sessionSecret);
-    const res = await request(ctx.app).post(`/api/public/quotes/${encodeURIComponent(stale)}/accept`).send({ name: 'Cressida Vane', acceptTerms: true });
+    const res = await request(ctx.app)
+      .post(`/api/public/quotes/${encodeURIComponent(stale)}/accept`)
+      .send({ name: 'Cressida Vane', acceptTerms: true });
     expect(res.status).toBe(410);
     expect(res.body.error.code).toBe('link_expired');
     expect((await Quote.findByPk(quote.id))!.status).toBe('sent');
@@ -139,10 +146,16 @@ describe('the customer answering', () => {
     const { quote, token } = await sentQuote('cressida.tampered@example.com');
     const [payload, sig] = token.split('.');
     const flipped = `${payload}.${sig.slice(0, -2)}${sig.endsWith('AA') ? 'BB' : 'AA'}`;
-    const otherPayload = Buffer.from(Buffer.from(payload, 'base64url').toString().replace(/.$/, (c) => (c === '1' ? '2' : '1'))).toString('base64url');
+    const otherPayload = Buffer.from(
+      Buffer.from(payload, 'base64url')
+        .toString()
+        .replace(/.$/, (c) => (c === '1' ? '2' : '1')),
+    ).toString('base64url');
     const forged = signQuoteLink({ quoteId: quote.id, nonce: 'guessed', exp: endOfDayEpochSec('2099-01-01') }, 'not-the-server-secret');
     for (const bad of [flipped, `${otherPayload}.${sig}`, forged, 'nonsense-token-value']) {
-      const res = await request(ctx.app).post(`/api/public/quotes/${encodeURIComponent(bad)}/accept`).send({ name: 'Mallory', acceptTerms: true });
+      const res = await request(ctx.app)
+        .post(`/api/public/quotes/${encodeURIComponent(bad)}/accept`)
+        .send({ name: 'Mallory', acceptTerms: true });
       expect(res.status, bad).toBe(404);
       expect(res.body.error.code).toBe('link_invalid');
     }
@@ -160,7 +173,9 @@ describe('the customer answering', () => {
     expect(old.body.quote.status).toBe('superseded');
     expect(old.body.quote.totals.grossMinor).toBe(quote.totals.grossMinor);
     expect(old.body.quote.versions.map((v: { version: number }) => v.version)).toEqual([1, 2]);
-    const res = await request(ctx.app).post(`/api/public/quotes/${encodeURIComponent(token)}/accept`).send({ name: 'Cressida Vane', acceptTerms: true });
+    const res = await request(ctx.app)
+      .post(`/api/public/quotes/${encodeURIComponent(token)}/accept`)
+      .send({ name: 'Cressida Vane', acceptTerms: true });
     expect(res.status).toBe(410);
     expect(res.body.error.code).toBe('link_replaced');
   });

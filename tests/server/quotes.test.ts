@@ -42,8 +42,9 @@ describe('building a quote from a job', () => {
       const g = byProduct.get(l.productId) ?? { packing: 0, area: 0 };
       byProduct.set(l.productId, { packing: g.packing + l.rollsByPacking, area: g.area + l.rollsByArea });
     }
-    expect(materials.map((l: { productId: string; quantity: number; altQuantity: number }) => [l.productId, l.quantity, l.altQuantity]))
-      .toEqual([...byProduct].map(([id, g]) => [id, g.packing, g.area]));
+    expect(materials.map((l: { productId: string; quantity: number; altQuantity: number }) => [l.productId, l.quantity, l.altQuantity])).toEqual(
+      [...byProduct].map(([id, g]) => [id, g.packing, g.area]),
+    );
 
     // The plan has one tank, one hatch and downlights: the matching extras are there.
     const extras = q.lines.filter((l: { kind: string }) => l.kind === 'extra').map((l: { extraKind: string; quantity: number }) => [l.extraKind, l.quantity]);
@@ -101,7 +102,10 @@ describe('building a quote from a job', () => {
     expect(q.lines.map((l: { netMinor: number }) => l.netMinor)).toEqual([29988, 467, 2535]);
     expect(q.totals).toMatchObject({
       netMinor: 32990,
-      taxByRate: [{ rateBp: 2000, netMinor: 3002, taxMinor: 600 }, { rateBp: 500, netMinor: 29988, taxMinor: 1499 }],
+      taxByRate: [
+        { rateBp: 2000, netMinor: 3002, taxMinor: 600 },
+        { rateBp: 500, netMinor: 29988, taxMinor: 1499 },
+      ],
       taxMinor: 2099,
       grossMinor: 35089,
       costMinor: 12 * 1600 + 3 * 400,
@@ -223,7 +227,10 @@ describe('exports', () => {
     const q = (await office.post(`/api/jobs/${job.id}/quotes`).send({})).body.quote;
     const res = await office.get(`/api/quotes/${q.id}/csv`);
     expect(res.status).toBe(200);
-    const rows = res.text.replace(/^\uFEFF/, '').trim().split('\r\n');
+    const rows = res.text
+      .replace(/^\uFEFF/, '')
+      .trim()
+      .split('\r\n');
     expect(rows.filter((r) => r.startsWith('line,'))).toHaveLength(q.lines.length);
     const total = rows.find((r) => r.includes(',Total,'))!;
     expect(total).toContain((q.totals.grossMinor / 100).toFixed(2));

@@ -32,7 +32,10 @@ afterAll(async () => ctx?.close());
 type Call = { name: string; run: (agent: ReturnType<typeof request.agent> | ReturnType<typeof request>) => Promise<request.Response> };
 const calls: Record<string, Call> = {
   listUsers: { name: 'GET /api/users', run: (a) => a.get('/api/users') },
-  inviteUser: { name: 'POST /api/users', run: (a) => a.post('/api/users').send({ email: `matrix-${Math.random().toString(36).slice(2)}@test.example.com`, name: 'New Person', role: 'estimator' }) },
+  inviteUser: {
+    name: 'POST /api/users',
+    run: (a) => a.post('/api/users').send({ email: `matrix-${Math.random().toString(36).slice(2)}@test.example.com`, name: 'New Person', role: 'estimator' }),
+  },
   listCustomers: { name: 'GET /api/customers', run: (a) => a.get('/api/customers') },
   createCustomer: { name: 'POST /api/customers', run: (a) => a.post('/api/customers').send(newCustomer()) },
   listJobs: { name: 'GET /api/jobs', run: (a) => a.get('/api/jobs') },
@@ -101,8 +104,7 @@ describe('installers', () => {
 
   it('never receive a price-like field in job responses', async () => {
     const priceKey = /(price|cost|total|minor|amount|vat|margin)/i;
-    const keysOf = (v: unknown): string[] =>
-      v && typeof v === 'object' ? Object.entries(v).flatMap(([k, x]) => [k, ...keysOf(x)]) : [];
+    const keysOf = (v: unknown): string[] => (v && typeof v === 'object' ? Object.entries(v).flatMap(([k, x]) => [k, ...keysOf(x)]) : []);
     for (const res of [await agents.installer!.get('/api/jobs'), await agents.installer!.get(`/api/jobs/${assignedJobId}`)]) {
       expect(res.status).toBe(200);
       expect(keysOf(res.body).filter((k) => priceKey.test(k))).toEqual([]);

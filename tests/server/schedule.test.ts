@@ -21,7 +21,10 @@ afterAll(async () => {
 async function acceptedJob(customerEmail = '') {
   const plan = examplePlan();
   const made = await createJob(org, { stage: 'accepted', plan });
-  await PlanRevision.update({ takeoff: JSON.parse(JSON.stringify(computeTakeoff(plan, { products: exampleProducts() }))) }, { where: { spaceId: made.space.id } });
+  await PlanRevision.update(
+    { takeoff: JSON.parse(JSON.stringify(computeTakeoff(plan, { products: exampleProducts() }))) },
+    { where: { spaceId: made.space.id } },
+  );
   if (customerEmail) await made.customer.update({ email: customerEmail });
   return made;
 }
@@ -68,7 +71,10 @@ describe('scheduling', () => {
     const after = await office.get('/api/schedule').query({ weekStart: nextMonday });
     const booked = after.body.jobs.find((j: { id: string }) => j.id === job.id);
     expect(booked).toMatchObject({ installDate: tuesday, installerId: org.installer.id });
-    expect(after.body.loads.find((l: { installerId: string; date: string }) => l.installerId === org.installer.id && l.date === tuesday)).toMatchObject({ jobs: 1, overCapacity: false });
+    expect(after.body.loads.find((l: { installerId: string; date: string }) => l.installerId === org.installer.id && l.date === tuesday)).toMatchObject({
+      jobs: 1,
+      overCapacity: false,
+    });
 
     const installer = await loginAs(ctx.app, org.installer);
     expect((await installer.get('/api/my-jobs')).body.jobs.map((j: { id: string }) => j.id)).toContain(job.id);
@@ -82,11 +88,16 @@ describe('scheduling', () => {
     expect(refused.body.error.code).toBe('over_capacity');
     expect(refused.body.error.message).toMatch(/would have 2 jobs/);
 
-    const forced = await office.post('/api/schedule/assign').send({ jobId: second.job.id, installerId: org.installer.id, date: tuesday, allowOverCapacity: true });
+    const forced = await office
+      .post('/api/schedule/assign')
+      .send({ jobId: second.job.id, installerId: org.installer.id, date: tuesday, allowOverCapacity: true });
     expect(forced.status).toBe(200);
     expect(forced.body.warnings.join(' ')).toMatch(/would have 2 jobs/);
     const week = await office.get('/api/schedule').query({ weekStart: nextMonday });
-    expect(week.body.loads.find((l: { date: string; installerId: string }) => l.date === tuesday && l.installerId === org.installer.id)).toMatchObject({ jobs: 2, overCapacity: true });
+    expect(week.body.loads.find((l: { date: string; installerId: string }) => l.date === tuesday && l.installerId === org.installer.id)).toMatchObject({
+      jobs: 2,
+      overCapacity: true,
+    });
   });
 
   it('follows the capacity setting, and only the office books', async () => {
@@ -105,7 +116,9 @@ describe('scheduling', () => {
     expect((await office.post('/api/schedule/assign').send({ jobId: fourth.job.id, installerId: org.office.id, date: tuesday })).status).toBe(422);
     expect((await office.post('/api/schedule/assign').send({ jobId: fourth.job.id, installerId: org.installer.id, date: '2020-01-01' })).status).toBe(422);
     const enquiry = await createJob(org, { stage: 'enquiry' });
-    expect((await office.post('/api/schedule/assign').send({ jobId: enquiry.job.id, installerId: org.installer.id, date: tuesday })).body.error.code).toBe('wrong_stage');
+    expect((await office.post('/api/schedule/assign').send({ jobId: enquiry.job.id, installerId: org.installer.id, date: tuesday })).body.error.code).toBe(
+      'wrong_stage',
+    );
   });
   it('records the booking on the job history as the jobs module does: stage change, installer assigned, date set', async () => {
     const { job } = await acceptedJob();
@@ -115,13 +128,19 @@ describe('scheduling', () => {
     expect(booked.status).toBe(200);
     type Ev = { kind: string; data: Record<string, unknown>; user: { id: string } | null };
     const events = (await office.get(`/api/jobs/${job.id}/events`)).body.events as Ev[];
-    expect(events.filter((e) => e.kind === 'stage_changed')).toEqual([expect.objectContaining({ data: { from: 'accepted', to: 'scheduled' }, user: expect.objectContaining({ id: org.office.id }) })]);
+    expect(events.filter((e) => e.kind === 'stage_changed')).toEqual([
+      expect.objectContaining({ data: { from: 'accepted', to: 'scheduled' }, user: expect.objectContaining({ id: org.office.id }) }),
+    ]);
     expect(events.filter((e) => e.kind === 'assigned')).toEqual([expect.objectContaining({ data: { from: null, to: org.installer.id } })]);
-    expect(events.filter((e) => e.kind === 'scheduled')).toEqual([expect.objectContaining({ data: expect.objectContaining({ date: thursday, installerId: org.installer.id }) })]);
+    expect(events.filter((e) => e.kind === 'scheduled')).toEqual([
+      expect.objectContaining({ data: expect.objectContaining({ date: thursday, installerId: org.installer.id }) }),
+    ]);
 
     // Moving the booking to another day with the same installer: a new date, but no second stage or assignment line.
     const friday = addDays(nextMonday, 4);
-    expect((await office.post('/api/schedule/assign').send({ jobId: job.id, installerId: org.installer.id, date: friday, allowOverCapacity: true })).status).toBe(200);
+    expect(
+      (await office.post('/api/schedule/assign').send({ jobId: job.id, installerId: org.installer.id, date: friday, allowOverCapacity: true })).status,
+    ).toBe(200);
     const again = (await office.get(`/api/jobs/${job.id}/events`)).body.events as Ev[];
     expect(again.filter((e) => e.kind === 'stage_changed')).toHaveLength(1);
     expect(again.filter((e) => e.kind === 'assigned')).toHaveLength(1);

@@ -22,11 +22,17 @@ describe('company settings', () => {
     expect(res.status).toBe(200);
     expect(res.body.settings).toMatchObject({ currency: 'GBP', validityDays: 30, degreeDays: 2462, hasLogo: false });
     const rates = (await office.get('/api/catalogue/tax-rates')).body.items;
-    expect(rates.filter((r: { taxClass: string }) => r.taxClass === 'energy_saving').map((r: { rateBp: number; validFrom: string }) => [r.validFrom, r.rateBp]))
-      .toEqual(expect.arrayContaining([['2023-05-01', 0], ['2027-04-01', 500]]));
+    expect(
+      rates.filter((r: { taxClass: string }) => r.taxClass === 'energy_saving').map((r: { rateBp: number; validFrom: string }) => [r.validFrom, r.rateBp]),
+    ).toEqual(
+      expect.arrayContaining([
+        ['2023-05-01', 0],
+        ['2027-04-01', 500],
+      ]),
+    );
   });
 
-  it('creates a new company\'s settings once even when many first requests arrive together', async () => {
+  it("creates a new company's settings once even when many first requests arrive together", async () => {
     const fresh = await createOrgWithUsers();
     const office = await loginAs(ctx.app, fresh.office);
     const results = await Promise.all(Array.from({ length: 8 }, (_, i) => office.get(i % 2 ? '/api/settings' : '/api/catalogue/tax-rates')));
@@ -34,7 +40,7 @@ describe('company settings', () => {
     expect((await office.get('/api/catalogue/tax-rates')).body.items).toHaveLength(4);
   });
 
-  it('saves the office\'s changes and names the field it refuses', async () => {
+  it("saves the office's changes and names the field it refuses", async () => {
     const office = await loginAs(ctx.app, org.office);
     const current = (await office.get('/api/settings')).body.settings;
     const { hasLogo: _ignored, ...body } = current;
@@ -72,7 +78,16 @@ describe('company settings', () => {
 });
 
 describe('catalogue', () => {
-  const product = { name: 'Test roll 100 mm', thicknessMm: 100, rollWidthMm: 1200, lanes: 2, rollLengthMm: 7000, coverageM2: 8.4, lambdaWmK: 0.04, unitPriceMinor: 2299 };
+  const product = {
+    name: 'Test roll 100 mm',
+    thicknessMm: 100,
+    rollWidthMm: 1200,
+    lanes: 2,
+    rollLengthMm: 7000,
+    coverageM2: 8.4,
+    lambdaWmK: 0.04,
+    unitPriceMinor: 2299,
+  };
 
   it('creates, edits and deletes a product, scoped to the company', async () => {
     const office = await loginAs(ctx.app, org.office);

@@ -13,7 +13,12 @@ let estimator: Awaited<ReturnType<typeof loginAs>>;
 const plan = {
   format: 'quiltline-plan/1',
   name: 'Garage loft',
-  outline: [[0, 0], [4000, 0], [4000, 3000], [0, 3000]],
+  outline: [
+    [0, 0],
+    [4000, 0],
+    [4000, 3000],
+    [0, 3000],
+  ],
   joists: { angleDeg: 90, centresMm: 400, widthMm: 47, depthMm: 100 },
 };
 
@@ -50,7 +55,15 @@ describe('spaces', () => {
 
   it('refuses a plan whose outline crosses itself (geometry check), naming the plan', async () => {
     const { job } = await createJob(org);
-    const crossed = { ...plan, outline: [[0, 0], [4000, 3000], [4000, 0], [0, 3000]] };
+    const crossed = {
+      ...plan,
+      outline: [
+        [0, 0],
+        [4000, 3000],
+        [4000, 0],
+        [0, 3000],
+      ],
+    };
     const res = await estimator.post(`/api/jobs/${job.id}/spaces`).send({ name: 'Crossed', plan: crossed });
     expect(res.status).toBe(422);
     expect(res.body.error.details[0].path).toMatch(/^plan/);
@@ -78,7 +91,14 @@ describe('spaces', () => {
 describe('plan revisions (service used by the plans module)', () => {
   it('appends revisions 1, 2, 3 and keeps every earlier one unchanged', async () => {
     const { space } = await createJob(org);
-    const actor = { id: org.estimator.id, email: org.estimator.email, name: org.estimator.name, role: 'estimator' as const, organisationId: org.id, organisationName: org.name };
+    const actor = {
+      id: org.estimator.id,
+      email: org.estimator.email,
+      name: org.estimator.name,
+      role: 'estimator' as const,
+      organisationId: org.id,
+      organisationName: org.name,
+    };
     const seq = PlanRevision.sequelize!;
     const p1 = parsePlanOr422(plan);
     await addPlanRevision(seq, actor, space.id, p1, { baseRevision: 0 });
@@ -95,15 +115,32 @@ describe('plan revisions (service used by the plans module)', () => {
 
   it('refuses a save based on a stale revision (409)', async () => {
     const { space } = await createJob(org);
-    const actor = { id: org.office.id, email: org.office.email, name: org.office.name, role: 'office' as const, organisationId: org.id, organisationName: org.name };
+    const actor = {
+      id: org.office.id,
+      email: org.office.email,
+      name: org.office.name,
+      role: 'office' as const,
+      organisationId: org.id,
+      organisationName: org.name,
+    };
     const seq = PlanRevision.sequelize!;
     await addPlanRevision(seq, actor, space.id, parsePlanOr422(plan), { baseRevision: 0 });
-    await expect(addPlanRevision(seq, actor, space.id, parsePlanOr422(plan), { baseRevision: 0 })).rejects.toMatchObject({ status: 409, code: 'revision_conflict' });
+    await expect(addPlanRevision(seq, actor, space.id, parsePlanOr422(plan), { baseRevision: 0 })).rejects.toMatchObject({
+      status: 409,
+      code: 'revision_conflict',
+    });
   });
 
   it('gives concurrent saves distinct revision numbers', async () => {
     const { space } = await createJob(org);
-    const actor = { id: org.office.id, email: org.office.email, name: org.office.name, role: 'office' as const, organisationId: org.id, organisationName: org.name };
+    const actor = {
+      id: org.office.id,
+      email: org.office.email,
+      name: org.office.name,
+      role: 'office' as const,
+      organisationId: org.id,
+      organisationName: org.name,
+    };
     const seq = PlanRevision.sequelize!;
     await Promise.all([1, 2, 3, 4].map(() => addPlanRevision(seq, actor, space.id, parsePlanOr422(plan))));
     const revs = (await PlanRevision.findAll({ where: { spaceId: space.id } })).map((r) => r.revision).sort();
@@ -113,13 +150,16 @@ describe('plan revisions (service used by the plans module)', () => {
 
 it('the example plans the seed uses exist and parse (examples/)', () => {
   const dir = path.resolve(__dirname, '../../examples');
-  const valid = fs.readdirSync(dir).filter((f) => f.endsWith('.json')).filter((f) => {
-    try {
-      parsePlanOr422(JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')));
-      return true;
-    } catch {
-      return false;
-    }
-  });
+  const valid = fs
+    .readdirSync(dir)
+    .filter((f) => f.endsWith('.json'))
+    .filter((f) => {
+      try {
+        parsePlanOr422(JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')));
+        return true;
+      } catch {
+        return false;
+      }
+    });
   expect(valid.length).toBeGreaterThan(0);
 });

@@ -4,12 +4,20 @@ import { summarise } from '../../scripts/test-summary.mjs';
 
 describe('test summary', () => {
   it('counts passed and failed tests', () => {
-    const r = summarise({ numPassedTests: 7, numFailedTests: 2, testResults: [{ name: 'a', status: 'failed', assertionResults: [{ status: 'failed' }, { status: 'passed' }] }] });
+    const r = summarise({
+      numPassedTests: 7,
+      numFailedTests: 2,
+      testResults: [{ name: 'a', status: 'failed', assertionResults: [{ status: 'failed' }, { status: 'passed' }] }],
+    });
     expect(r).toMatchObject({ passed: 7, failed: 2 });
   });
 
   it('counts a file that failed to load as a failure', () => {
-    const r = summarise({ numPassedTests: 3, numFailedTests: 0, testResults: [{ name: 'broken.test.ts', status: 'failed', message: 'Cannot find module', assertionResults: [] }] });
+    const r = summarise({
+      numPassedTests: 3,
+      numFailedTests: 0,
+      testResults: [{ name: 'broken.test.ts', status: 'failed', message: 'Cannot find module', assertionResults: [] }],
+    });
     expect(r.failed).toBe(1);
     expect(r.brokenFiles.map((f) => f.name)).toEqual(['broken.test.ts']);
   });

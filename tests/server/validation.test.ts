@@ -61,7 +61,9 @@ describe('validation errors', () => {
   });
 
   it('trim text and keep untouched fields on a patch', async () => {
-    const created = await office.post('/api/customers').send({ name: '  Ada Lovell  ', email: 'ada@example.com', phone: '01632 960999', address: { line1: '1 Lane', town: 'T', postcode: 'P1 1PP' } });
+    const created = await office
+      .post('/api/customers')
+      .send({ name: '  Ada Lovell  ', email: 'ada@example.com', phone: '01632 960999', address: { line1: '1 Lane', town: 'T', postcode: 'P1 1PP' } });
     expect(created.status).toBe(201);
     expect(created.body.customer.name).toBe('Ada Lovell');
     const patched = await office.patch(`/api/customers/${created.body.customer.id}`).send({ name: 'Ada Lovell-Price' });

@@ -27,7 +27,14 @@ function outlinedAreaByJsts(polygons: Vec2[][]): number {
 describe('band piece outlines', () => {
   it('keep the inside corner of an L where a band steps from the long to the short wing', () => {
     // An L: 5000 deep for s < 3500, only 3000 deep beyond; one band spans the step at t = 3500.
-    const l: Vec2[] = [[0, 0], [5000, 0], [5000, 3500], [3000, 3500], [3000, 9000], [0, 9000]];
+    const l: Vec2[] = [
+      [0, 0],
+      [5000, 0],
+      [5000, 3500],
+      [3000, 3500],
+      [3000, 9000],
+      [0, 9000],
+    ];
     const pieces = clipRegionToBands([l], [{ loMm: 2580, hiMm: 3720 }]);
     expect(pieces).toHaveLength(1);
     const [piece] = pieces;
@@ -64,8 +71,18 @@ describe('band piece outlines', () => {
 
   it('put the label of a piece that forks around a hole on the piece, not in the hole', () => {
     // A 2000 × 1000 band area with a 1000 × 600 hole in the middle: the extent's middle is in the hole.
-    const outer: Vec2[] = [[0, 0], [2000, 0], [2000, 1000], [0, 1000]];
-    const hole: Vec2[] = [[500, 200], [1500, 200], [1500, 800], [500, 800]];
+    const outer: Vec2[] = [
+      [0, 0],
+      [2000, 0],
+      [2000, 1000],
+      [0, 1000],
+    ];
+    const hole: Vec2[] = [
+      [500, 200],
+      [1500, 200],
+      [1500, 800],
+      [500, 800],
+    ];
     const [piece] = clipRegionToBands([outer, hole], [{ loMm: 0, hiMm: 1000 }]);
     const [s, t] = piece.insideAt;
     expect(s >= 500 && s <= 1500 && t > 200 && t < 800).toBe(false);

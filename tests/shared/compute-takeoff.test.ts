@@ -21,7 +21,13 @@ function loadExample(name: string): Plan {
 }
 
 function listJson(dir: string): string[] {
-  return readdirSync(dir).flatMap((n) => (statSync(join(dir, n)).isDirectory() ? listJson(join(dir, n)) : n.endsWith('.json') && n !== 'products.json' && !n.includes('invalid') ? [join(dir, n)] : []));
+  return readdirSync(dir).flatMap((n) =>
+    statSync(join(dir, n)).isDirectory()
+      ? listJson(join(dir, n))
+      : n.endsWith('.json') && n !== 'products.json' && !n.includes('invalid')
+        ? [join(dir, n)]
+        : [],
+  );
 }
 const exampleNames = listJson(examples).map((f) => f.slice(examples.length + 1));
 
@@ -30,7 +36,14 @@ function jstsNetAreaM2(plan: Plan): number {
   const s = DEFAULT_TAKEOFF_SETTINGS;
   const shapes: JstsGeometry[] = plan.exclusions.map((e) => {
     const c = e.clearanceMm ?? s.clearanceMmByKind[e.kind];
-    if (e.at) return jstsPolygon([[[e.at[0], e.at[1]], [e.at[0] + 1e-3, e.at[1]], [e.at[0], e.at[1] + 1e-3]]]).buffer(s.pointFootprintRadiusMm + c, 16);
+    if (e.at)
+      return jstsPolygon([
+        [
+          [e.at[0], e.at[1]],
+          [e.at[0] + 1e-3, e.at[1]],
+          [e.at[0], e.at[1] + 1e-3],
+        ],
+      ]).buffer(s.pointFootprintRadiusMm + c, 16);
     const g = jstsPolygon([e.polygon!]);
     return c > 0 ? g.buffer(c, 16) : g;
   });
@@ -80,7 +93,9 @@ describe('computeTakeoff on the examples (golden checks)', () => {
         expect(s.lengthMm).toBeGreaterThanOrEqual(s.extentMm);
         expect(s.lengthMm - s.extentMm).toBeLessThan(DEFAULT_TAKEOFF_SETTINGS.cuttingAllowanceMm + 0.1);
         expect(s.pieces.reduce((t2, p) => t2 + p.lengthMm, 0)).toBeCloseTo(s.lengthMm, 6);
-        expect(s.pieces.every((p) => p.lengthMm <= layer.rollLengthMm && p.roll >= 1 && p.roll <= layer.rollsByPacking && p.lane <= layer.lanesPerRoll)).toBe(true);
+        expect(s.pieces.every((p) => p.lengthMm <= layer.rollLengthMm && p.roll >= 1 && p.roll <= layer.rollsByPacking && p.lane <= layer.lanesPerRoll)).toBe(
+          true,
+        );
         // The rectangle cut from the roll covers the piece of loft it fills.
         expect(s.areaM2).toBeLessThanOrEqual((s.lengthMm * s.bandWidthMm) / 1e6 + 1e-4);
       }
@@ -94,21 +109,49 @@ describe('computeTakeoff on the examples (golden checks)', () => {
         ...(t.existing.effectiveDepthMm > 0 ? [{ thicknessMm: t.existing.effectiveDepthMm, lambda: 0.044 }] : []),
         ...t.layers.map((l) => ({ thicknessMm: l.thicknessMm, lambda: l.lambda })),
       ],
-      { joistCentresMm: plan.joists.centresMm, joistWidthMm: plan.joists.widthMm, joistDepthMm: plan.joists.depthMm, rsi: 0.1, rse: 0.04, roofSpaceResistance: 0.2, ceilingBoardMm: 12.5, ceilingBoardLambda: 0.21, timberLambda: 0.13 },
+      {
+        joistCentresMm: plan.joists.centresMm,
+        joistWidthMm: plan.joists.widthMm,
+        joistDepthMm: plan.joists.depthMm,
+        rsi: 0.1,
+        rse: 0.04,
+        roofSpaceResistance: 0.2,
+        ceilingBoardMm: 12.5,
+        ceilingBoardLambda: 0.21,
+        timberLambda: 0.13,
+      },
     );
     expect(t.uValueAfter).toBeCloseTo(rebuilt.uValue, 4);
     expect(t.uValueAfter).toBeLessThan(t.uValueBefore);
     expect(t.savings.heatKwhPerYear).toBeCloseTo(((t.uValueBefore - t.uValueAfter) * t.layerAreaM2 * 2462 * 24) / 1000, 0);
-    expect(t.siteChecks.map((c) => c.code)).toEqual(expect.arrayContaining(['access.work-at-height', 'cables.over-insulation', 'eaves.ventilation-gap', 'local-regulations']));
+    expect(t.siteChecks.map((c) => c.code)).toEqual(
+      expect.arrayContaining(['access.work-at-height', 'cables.over-insulation', 'eaves.ventilation-gap', 'local-regulations']),
+    );
   });
 
   it('carries the fields of the JSON contract, named exactly', () => {
     const t = computeTakeoff(loadExample('l-shape.json'), { products }) as unknown as Record<string, unknown>;
-    for (const k of ['format', 'grossAreaM2', 'netAreaM2', 'wasteAllowancePct', 'layers', 'uValueBefore', 'uValueAfter', 'siteChecks', 'warnings']) expect(t).toHaveProperty(k);
+    for (const k of ['format', 'grossAreaM2', 'netAreaM2', 'wasteAllowancePct', 'layers', 'uValueBefore', 'uValueAfter', 'siteChecks', 'warnings'])
+      expect(t).toHaveProperty(k);
     const layer = (t.layers as Record<string, unknown>[])[0];
-    for (const k of ['role', 'productId', 'thicknessMm', 'areaM2', 'rollLengthMm', 'laneWidthMm', 'lanesPerRoll', 'coverageM2PerRoll', 'strips', 'rollsByPacking', 'rollsByArea', 'wastePct']) expect(layer).toHaveProperty(k);
+    for (const k of [
+      'role',
+      'productId',
+      'thicknessMm',
+      'areaM2',
+      'rollLengthMm',
+      'laneWidthMm',
+      'lanesPerRoll',
+      'coverageM2PerRoll',
+      'strips',
+      'rollsByPacking',
+      'rollsByArea',
+      'wastePct',
+    ])
+      expect(layer).toHaveProperty(k);
     expect((layer.strips as Record<string, unknown>[])[0]).toEqual(expect.objectContaining({ lengthMm: expect.any(Number), widthMm: expect.any(Number) }));
-    for (const c of t.siteChecks as Record<string, unknown>[]) expect(c).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
+    for (const c of t.siteChecks as Record<string, unknown>[])
+      expect(c).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
   });
 
   it('counts exclusions by kind and raises their site checks (tank, hatch, downlights, boards, flue)', () => {
@@ -163,10 +206,13 @@ describe('computeTakeoff on the examples (golden checks)', () => {
     const t = computeTakeoff(loadExample('eaves-two-sides.json'), { products });
     expect(t.eaves.bands).toHaveLength(2);
     expect(t.eaves.totalLengthMm).toBe(20400);
-    for (const layer of t.layers) for (const s of layer.strips) for (const poly of s.polygons) for (const p of poly) {
-      expect(p[1]).toBeGreaterThanOrEqual(50 - 0.1);
-      expect(p[1]).toBeLessThanOrEqual(6400 - 50 + 0.1);
-    }
+    for (const layer of t.layers)
+      for (const s of layer.strips)
+        for (const poly of s.polygons)
+          for (const p of poly) {
+            expect(p[1]).toBeGreaterThanOrEqual(50 - 0.1);
+            expect(p[1]).toBeLessThanOrEqual(6400 - 50 + 0.1);
+          }
   });
 
   it('uses products pinned in the plan and warns about unknown ones', () => {
@@ -187,12 +233,59 @@ describe('computeTakeoff on the examples (golden checks)', () => {
   });
 
   it('reads a catalogue saved with the company API field names', () => {
-    const api = [{ id: 'x', name: 'Roll', thicknessMm: 100, rollWidthMm: 1140, lanes: 3, rollLengthMm: 8300, coverageM2: 9.46, lambdaWmK: 0.044, unitPriceMinor: 2450, supplierCode: '', active: true }, { id: 'old', name: 'Old', thicknessMm: 100, rollWidthMm: 1140, lanes: 1, rollLengthMm: 8300, coverageM2: 9.46, lambdaWmK: 0.044, unitPriceMinor: 1, active: false }];
-    expect(parseProductCatalogue(api)).toEqual([{ id: 'x', name: 'Roll', thicknessMm: 100, rollWidthMm: 1140, lanesPerRoll: 3, rollLengthMm: 8300, coverageM2PerRoll: 9.46, lambda: 0.044, priceMinor: 2450 }]);
+    const api = [
+      {
+        id: 'x',
+        name: 'Roll',
+        thicknessMm: 100,
+        rollWidthMm: 1140,
+        lanes: 3,
+        rollLengthMm: 8300,
+        coverageM2: 9.46,
+        lambdaWmK: 0.044,
+        unitPriceMinor: 2450,
+        supplierCode: '',
+        active: true,
+      },
+      {
+        id: 'old',
+        name: 'Old',
+        thicknessMm: 100,
+        rollWidthMm: 1140,
+        lanes: 1,
+        rollLengthMm: 8300,
+        coverageM2: 9.46,
+        lambdaWmK: 0.044,
+        unitPriceMinor: 1,
+        active: false,
+      },
+    ];
+    expect(parseProductCatalogue(api)).toEqual([
+      {
+        id: 'x',
+        name: 'Roll',
+        thicknessMm: 100,
+        rollWidthMm: 1140,
+        lanesPerRoll: 3,
+        rollLengthMm: 8300,
+        coverageM2PerRoll: 9.46,
+        lambda: 0.044,
+        priceMinor: 2450,
+      },
+    ]);
   });
 
   it('throws the plan messages for a plan that fails the geometric checks', () => {
-    const bad = planSchema.parse({ ...JSON.parse(readFileSync(join(examples, 'rectangle.json'), 'utf8')), outline: [[0, 0], [6000, 0], [0, 4000], [6000, 4000]], eavesEdges: [] });
+    const bad = planSchema.parse({
+      ...JSON.parse(readFileSync(join(examples, 'rectangle.json'), 'utf8')),
+      outline: [
+        [0, 0],
+        [6000, 0],
+        [0, 4000],
+        [6000, 4000],
+      ],
+      eavesEdges: [],
+    });
     expect(() => computeTakeoff(bad, { products })).toThrow(InvalidPlanError);
     try {
       computeTakeoff(bad, { products });
@@ -214,11 +307,25 @@ describe('computeTakeoff on the examples (golden checks)', () => {
   });
 });
 
-
 describe('exclusions outside the outline', () => {
   it('are ignored by the counts and checks, flagged in the items and warned about', () => {
     const plan = loadExample('rectangle.json');
-    const withOutside: Plan = { ...plan, exclusions: [...plan.exclusions, { kind: 'downlight', at: [-2000, -2000] }, { kind: 'tank', polygon: [[9000, 0], [9900, 0], [9900, 800], [9000, 800]] }] };
+    const withOutside: Plan = {
+      ...plan,
+      exclusions: [
+        ...plan.exclusions,
+        { kind: 'downlight', at: [-2000, -2000] },
+        {
+          kind: 'tank',
+          polygon: [
+            [9000, 0],
+            [9900, 0],
+            [9900, 800],
+            [9000, 800],
+          ],
+        },
+      ],
+    };
     const t = computeTakeoff(withOutside, { products });
     expect(t.exclusions.countsByKind.downlight).toBe(0);
     expect(t.exclusions.countsByKind.tank).toBe(0);
@@ -257,7 +364,10 @@ describe('edge cases', () => {
   it('says so when the catalogue cannot reach the target', () => {
     const plan = loadExample('rectangle.json');
     const thin = products.filter((p) => p.thicknessMm === 100);
-    const t = computeTakeoff({ ...plan, existing: { depthMm: 0, condition: 'none' }, target: { depthMm: 600 } }, { products: thin, settings: { maxCrossLayers: 2 } });
+    const t = computeTakeoff(
+      { ...plan, existing: { depthMm: 0, condition: 'none' }, target: { depthMm: 600 } },
+      { products: thin, settings: { maxCrossLayers: 2 } },
+    );
     expect(t.warnings.map((w) => w.code)).toContain('target.not-reached');
     expect(t.thermal.meetsTarget).toBe(false);
   });

@@ -23,14 +23,34 @@ import {
 import { jstsPolygon } from './helpers/jsts-oracle';
 import { arbStarPolygon } from './helpers/arbitraries';
 
-const square: Vec2[] = [[0, 0], [1000, 0], [1000, 1000], [0, 1000]];
-const lShape: Vec2[] = [[0, 0], [9000, 0], [9000, 3600], [4200, 3600], [4200, 6800], [0, 6800]];
+const square: Vec2[] = [
+  [0, 0],
+  [1000, 0],
+  [1000, 1000],
+  [0, 1000],
+];
+const lShape: Vec2[] = [
+  [0, 0],
+  [9000, 0],
+  [9000, 3600],
+  [4200, 3600],
+  [4200, 6800],
+  [0, 6800],
+];
 
 describe('polygon area', () => {
   it.each([
     ['unit square 1 m', square, 1e6],
     ['L-shape of the l-shape example (by hand: 9.0×3.6 + 4.2×3.2)', lShape, 9000 * 3600 + 4200 * 3200],
-    ['right triangle', [[0, 0], [3000, 0], [0, 4000]] as Vec2[], 6e6],
+    [
+      'right triangle',
+      [
+        [0, 0],
+        [3000, 0],
+        [0, 4000],
+      ] as Vec2[],
+      6e6,
+    ],
   ])('gives the area of the %s whichever way the outline winds', (_name, ring, expected) => {
     expect(polygonArea(ring)).toBeCloseTo(expected, 6);
     expect(polygonArea([...ring].reverse())).toBeCloseTo(expected, 6);
@@ -38,8 +58,19 @@ describe('polygon area', () => {
   });
 
   it('gives 0 for fewer than three points and for collinear points', () => {
-    expect(polygonArea([[0, 0], [10, 0]])).toBe(0);
-    expect(polygonArea([[0, 0], [10, 0], [20, 0]])).toBe(0);
+    expect(
+      polygonArea([
+        [0, 0],
+        [10, 0],
+      ]),
+    ).toBe(0);
+    expect(
+      polygonArea([
+        [0, 0],
+        [10, 0],
+        [20, 0],
+      ]),
+    ).toBe(0);
   });
 
   it('matches jsts on random simple polygons (jsts: independent planar oracle)', () => {
@@ -90,7 +121,12 @@ describe('segment intersection', () => {
   });
 
   it('names the crossing edges of a bow-tie outline', () => {
-    const bowTie: Vec2[] = [[0, 0], [6000, 0], [0, 4000], [6000, 4000]];
+    const bowTie: Vec2[] = [
+      [0, 0],
+      [6000, 0],
+      [0, 4000],
+      [6000, 4000],
+    ];
     const crossings = findRingSelfIntersections(bowTie);
     expect(crossings).toHaveLength(1);
     expect(crossings[0]).toMatchObject({ edgeIndex: 1, otherEdgeIndex: 3 });
@@ -100,7 +136,15 @@ describe('segment intersection', () => {
 
   it('finds nothing wrong with simple outlines, including ones with collinear points', () => {
     expect(findRingSelfIntersections(lShape)).toEqual([]);
-    expect(findRingSelfIntersections([[0, 0], [500, 0], [1000, 0], [1000, 1000], [0, 1000]])).toEqual([]);
+    expect(
+      findRingSelfIntersections([
+        [0, 0],
+        [500, 0],
+        [1000, 0],
+        [1000, 1000],
+        [0, 1000],
+      ]),
+    ).toEqual([]);
     fc.assert(
       fc.property(arbStarPolygon(), (ring) => {
         expect(findRingSelfIntersections(ring)).toEqual([]);
@@ -110,7 +154,13 @@ describe('segment intersection', () => {
   });
 
   it('reports an edge that doubles back along its neighbour', () => {
-    const spike: Vec2[] = [[0, 0], [1000, 0], [1000, 1000], [1000, 500], [0, 1000]];
+    const spike: Vec2[] = [
+      [0, 0],
+      [1000, 0],
+      [1000, 1000],
+      [1000, 500],
+      [0, 1000],
+    ];
     expect(findRingSelfIntersections(spike).length).toBeGreaterThan(0);
   });
 });
@@ -133,7 +183,14 @@ describe('offsets and clipping', () => {
   });
 
   it('takes the convex hull of points', () => {
-    const hull = convexHull([[0, 0], [10, 0], [5, 5], [10, 10], [0, 10], [3, 3]]);
+    const hull = convexHull([
+      [0, 0],
+      [10, 0],
+      [5, 5],
+      [10, 10],
+      [0, 10],
+      [3, 3],
+    ]);
     expect(polygonArea(hull)).toBe(100);
     expect(hull).toHaveLength(4);
   });
@@ -141,9 +198,16 @@ describe('offsets and clipping', () => {
   it('clips any ring by a convex ring with the same area as jsts intersection', () => {
     fc.assert(
       fc.property(arbStarPolygon(), fc.integer({ min: -5000, max: 5000 }), fc.integer({ min: -5000, max: 5000 }), (ring, x, y) => {
-        const clip: Vec2[] = [[x, y], [x + 4000, y + 500], [x + 3500, y + 3000], [x - 200, y + 2500]];
+        const clip: Vec2[] = [
+          [x, y],
+          [x + 4000, y + 500],
+          [x + 3500, y + 3000],
+          [x - 200, y + 2500],
+        ];
         const ours = polygonArea(clipRingByConvex(ring, clip));
-        const theirs = jstsPolygon([ring]).intersection(jstsPolygon([clip])).getArea();
+        const theirs = jstsPolygon([ring])
+          .intersection(jstsPolygon([clip]))
+          .getArea();
         expect(ours).toBeCloseTo(theirs, 1);
       }),
       { numRuns: 150 },
@@ -151,8 +215,18 @@ describe('offsets and clipping', () => {
   });
 
   it('unions, subtracts and intersects like jsts', () => {
-    const a: Vec2[] = [[0, 0], [3000, 0], [3000, 3000], [0, 3000]];
-    const b: Vec2[] = [[1000, 1000], [4000, 1000], [4000, 2000], [1000, 2000]];
+    const a: Vec2[] = [
+      [0, 0],
+      [3000, 0],
+      [3000, 3000],
+      [0, 3000],
+    ];
+    const b: Vec2[] = [
+      [1000, 1000],
+      [4000, 1000],
+      [4000, 2000],
+      [1000, 2000],
+    ];
     const ja = jstsPolygon([a]);
     const jb = jstsPolygon([b]);
     expect(multiPolygonArea(unionPolygons([[a], [b]]))).toBeCloseTo(ja.union(jb).getArea(), 6);

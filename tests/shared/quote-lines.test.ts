@@ -6,11 +6,31 @@ import { UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 import { quoteCautions } from '../../shared/quote/cautions';
 
 const product = (id: string, name: string, unitPriceMinor: number): Product => ({
-  id, name, supplierCode: '', thicknessMm: 100, rollWidthMm: 1140, lanes: 1, rollLengthMm: 8000, coverageM2: 9.12,
-  lambdaWmK: 0.044, unitPriceMinor, unitCostMinor: 0, taxClass: 'energy_saving', roles: ['base', 'cross'], active: true,
+  id,
+  name,
+  supplierCode: '',
+  thicknessMm: 100,
+  rollWidthMm: 1140,
+  lanes: 1,
+  rollLengthMm: 8000,
+  coverageM2: 9.12,
+  lambdaWmK: 0.044,
+  unitPriceMinor,
+  unitCostMinor: 0,
+  taxClass: 'energy_saving',
+  roles: ['base', 'cross'],
+  active: true,
 });
 const extra = (kind: ExtraKind, unitPriceMinor: number, minutesPerUnit: number, taxClass: Extra['taxClass'], unit: Extra['unit'] = 'each'): Extra => ({
-  id: kind, kind, name: kind, unit, unitPriceMinor, unitCostMinor: 0, minutesPerUnit, taxClass, active: true,
+  id: kind,
+  kind,
+  name: kind,
+  unit,
+  unitPriceMinor,
+  unitCostMinor: 0,
+  minutesPerUnit,
+  taxClass,
+  active: true,
 });
 
 const CATALOGUE = {
@@ -28,7 +48,16 @@ const CATALOGUE = {
 };
 const SETTINGS: QuoteBuildSettings = {
   rollCountMethod: 'packing',
-  labour: { baseM2PerHour: 12, crossM2PerHour: 15, hourlyRateMinor: 3000, hourlyCostMinor: 1800, crewSize: 2, minimumChargeMinor: 15000, roundUpMinutes: 15, taxClass: 'energy_saving' },
+  labour: {
+    baseM2PerHour: 12,
+    crossM2PerHour: 15,
+    hourlyRateMinor: 3000,
+    hourlyCostMinor: 1800,
+    crewSize: 2,
+    minimumChargeMinor: 15000,
+    roundUpMinutes: 15,
+    taxClass: 'energy_saving',
+  },
   extraRules: { pipeLaggingMPerTank: 3, walkwayBoardsPerTank: 3, boardLegsPerM2: 4, disposalPerJob: 1, eavesTrays: true },
 };
 const MAIN: SpaceForQuote = {
@@ -65,9 +94,19 @@ describe('building quote lines from takeoffs', () => {
     const built = buildQuoteLines([MAIN, GARAGE], CATALOGUE, SETTINGS);
     expect(built.warnings).toEqual([]);
     const byKind = (k: string) => built.lines.filter((l) => l.kind === k);
-    expect(byKind('material').map((l) => [l.productId, l.quantity, l.altQuantity])).toEqual([['p100', 12, 10], ['p170', 6, 6]]);
+    expect(byKind('material').map((l) => [l.productId, l.quantity, l.altQuantity])).toEqual([
+      ['p100', 12, 10],
+      ['p170', 6, 6],
+    ]);
     expect(byKind('extra').map((l) => [l.extraKind, l.quantity])).toEqual([
-      ['hatch_kit', 1], ['tank_jacket', 1], ['pipe_lagging', 3], ['walkway_board', 3], ['downlight_cover', 3], ['eaves_tray', 42], ['board_leg', 10], ['disposal', 1],
+      ['hatch_kit', 1],
+      ['tank_jacket', 1],
+      ['pipe_lagging', 3],
+      ['walkway_board', 3],
+      ['downlight_cover', 3],
+      ['eaves_tray', 42],
+      ['board_leg', 10],
+      ['disposal', 1],
     ]);
     expect(byKind('labour').map((l) => l.quantity)).toEqual([4.25, 3, 3.75]);
     expect(byKind('charge')).toEqual([]);
@@ -82,7 +121,10 @@ describe('building quote lines from takeoffs', () => {
   it('prices by the rule of thumb when the company chooses it, keeping the packing count beside', () => {
     const built = buildQuoteLines([MAIN, GARAGE], CATALOGUE, { ...SETTINGS, rollCountMethod: 'area' });
     const m = built.lines.filter((l) => l.kind === 'material');
-    expect(m.map((l) => [l.quantity, l.altQuantity])).toEqual([[10, 12], [6, 6]]);
+    expect(m.map((l) => [l.quantity, l.altQuantity])).toEqual([
+      [10, 12],
+      [6, 6],
+    ]);
   });
 
   it('tops a small job up to the minimum charge', () => {
@@ -96,7 +138,11 @@ describe('building quote lines from takeoffs', () => {
   });
 
   it('warns instead of guessing when the catalogue lacks a product or an extra', () => {
-    const built = buildQuoteLines([{ ...MAIN, layers: [{ role: 'base', productId: 'gone', productName: 'Old roll', areaM2: 5, rollsByPacking: 1, rollsByArea: 1 }] }], { products: [], extras: [] }, SETTINGS);
+    const built = buildQuoteLines(
+      [{ ...MAIN, layers: [{ role: 'base', productId: 'gone', productName: 'Old roll', areaM2: 5, rollsByPacking: 1, rollsByArea: 1 }] }],
+      { products: [], extras: [] },
+      SETTINGS,
+    );
     expect(built.warnings.join('\n')).toMatch(/Old roll is not in the catalogue/);
     expect(built.warnings.join('\n')).toMatch(/no active hatch kit/);
     expect(built.lines[0]).toMatchObject({ kind: 'material', unitPriceMinor: 0, quantity: 1 });

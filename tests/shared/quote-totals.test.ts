@@ -3,7 +3,11 @@ import { computeQuoteTotals, paybackYears, type QuoteLineInput } from '../../sha
 import { UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 
 const line = (p: Partial<QuoteLineInput> & Pick<QuoteLineInput, 'quantity' | 'unitPriceMinor' | 'taxClass'>): QuoteLineInput => ({
-  kind: 'custom', description: 'x', unit: 'each', unitCostMinor: 0, ...p,
+  kind: 'custom',
+  description: 'x',
+  unit: 'each',
+  unitCostMinor: 0,
+  ...p,
 });
 
 // A hand-worked quote (all amounts in pence):

@@ -53,7 +53,9 @@ describe('packing strips into roll lanes', () => {
 
   it('bay method with 5.3 m rolls: the leaflet says 96 / 5.3 → 19 rolls, which is our lower bound; cutting whole pieces takes more', () => {
     // Each 8 m bay becomes a 5.3 m piece and a 2.7 m piece; two 2.7 m pieces do not fit one 5.3 m roll.
-    const lengths = Array(12).fill(0).flatMap(() => [5300, 2700]);
+    const lengths = Array(12)
+      .fill(0)
+      .flatMap(() => [5300, 2700]);
     const p = packPieces(pieces(lengths), { rollLengthMm: 5300, lanesPerRoll: 1, minOffcutMm: 500 });
     expect(p.lanesLowerBound).toBe(19);
     expect(p.rolls).toBe(exactMinLanes(lengths, 5300));
@@ -86,21 +88,28 @@ describe('packing strips into roll lanes', () => {
 
   it('puts every piece in exactly one lane, never past the lane end', () => {
     fc.assert(
-      fc.property(fc.array(fc.integer({ min: 1, max: 160 }).map((x) => x * 50), { minLength: 1, maxLength: 60 }), fc.integer({ min: 1, max: 3 }), (lengths, lanes) => {
-        const p = packPieces(pieces(lengths), { rollLengthMm: 8000, lanesPerRoll: lanes, minOffcutMm: 500 });
-        const placed = p.lanes.flatMap((l) => l.cuts.map((c) => c.stripNumber)).sort((a, b) => a - b);
-        expect(placed).toEqual(lengths.map((_, i) => i + 1));
-        for (const l of p.lanes) {
-          expect(l.usedMm).toBeLessThanOrEqual(8000);
-          let at = 0;
-          for (const c of l.cuts) {
-            expect(c.offsetMm).toBe(at);
-            at += c.lengthMm;
+      fc.property(
+        fc.array(
+          fc.integer({ min: 1, max: 160 }).map((x) => x * 50),
+          { minLength: 1, maxLength: 60 },
+        ),
+        fc.integer({ min: 1, max: 3 }),
+        (lengths, lanes) => {
+          const p = packPieces(pieces(lengths), { rollLengthMm: 8000, lanesPerRoll: lanes, minOffcutMm: 500 });
+          const placed = p.lanes.flatMap((l) => l.cuts.map((c) => c.stripNumber)).sort((a, b) => a - b);
+          expect(placed).toEqual(lengths.map((_, i) => i + 1));
+          for (const l of p.lanes) {
+            expect(l.usedMm).toBeLessThanOrEqual(8000);
+            let at = 0;
+            for (const c of l.cuts) {
+              expect(c.offsetMm).toBe(at);
+              at += c.lengthMm;
+            }
           }
-        }
-        expect(p.lanesUsed).toBeGreaterThanOrEqual(p.lanesLowerBound);
-        expect(p.rolls).toBe(Math.ceil(p.lanesUsed / lanes));
-      }),
+          expect(p.lanesUsed).toBeGreaterThanOrEqual(p.lanesLowerBound);
+          expect(p.rolls).toBe(Math.ceil(p.lanesUsed / lanes));
+        },
+      ),
       { numRuns: 200 },
     );
   });
@@ -119,7 +128,7 @@ describe('exact search on small instances (cutting stock, Gilmore and Gomory 196
   it('measures the gap of the heuristic packing against the optimum on small strip sets', () => {
     // Seeded random cut lists like a loft's: 6–14 strips of 0.3–8 m in 50 mm steps, 8.3 m rolls.
     let seed = 20261201;
-    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const rand = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
     let instances = 0;
     let extraLanes = 0;
     let worst = 0;

@@ -9,14 +9,26 @@ import { parseProductCatalogue } from '../../shared/takeoff/products';
 const dir = path.join(__dirname, '..', '..', 'examples');
 const read = (f: string) => JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8'));
 const products = parseProductCatalogue(read('products.json'));
-const plans = ['rectangle.json', 'l-shape.json', 't-shape-chimney.json', 'tank-hatch-downlights.json', 'angled-walls.json', 'eaves-two-sides.json', 'bungalow/main-loft.json', 'bungalow/garage-loft.json'];
+const plans = [
+  'rectangle.json',
+  'l-shape.json',
+  't-shape-chimney.json',
+  'tank-hatch-downlights.json',
+  'angled-walls.json',
+  'eaves-two-sides.json',
+  'bungalow/main-loft.json',
+  'bungalow/garage-loft.json',
+];
 
 describe('strip label points', () => {
   it.each(plans)('lie on their own strip in %s (so the job sheet can number every strip)', (file) => {
     const takeoff = computeTakeoff(planSchema.parse(read(file)), { products });
     for (const layer of takeoff.layers) {
       for (const strip of layer.strips) {
-        expect(strip.polygons.some((poly) => polygonContainsPoint(poly, strip.labelAt)), `${strip.label} at ${strip.labelAt}`).toBe(true);
+        expect(
+          strip.polygons.some((poly) => polygonContainsPoint(poly, strip.labelAt)),
+          `${strip.label} at ${strip.labelAt}`,
+        ).toBe(true);
       }
     }
   });

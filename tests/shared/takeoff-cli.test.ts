@@ -31,7 +31,22 @@ describe('takeoff CLI', () => {
   it('takes another product file', () => {
     const dir = mkdtempSync(join(tmpdir(), 'ql-cli-'));
     const file = join(dir, 'products.json');
-    writeFileSync(file, JSON.stringify([{ id: 'only', name: 'Only roll', thicknessMm: 200, rollWidthMm: 1200, lanesPerRoll: 1, rollLengthMm: 4000, coverageM2PerRoll: 4.8, lambda: 0.04, priceMinor: 3000 }]));
+    writeFileSync(
+      file,
+      JSON.stringify([
+        {
+          id: 'only',
+          name: 'Only roll',
+          thicknessMm: 200,
+          rollWidthMm: 1200,
+          lanesPerRoll: 1,
+          rollLengthMm: 4000,
+          coverageM2PerRoll: 4.8,
+          lambda: 0.04,
+          priceMinor: 3000,
+        },
+      ]),
+    );
     const r = run('examples/rectangle.json', '--products', file, '--format', 'json');
     expect(r.code).toBe(0);
     expect(JSON.parse(r.stdout).layers.map((l: { productId: string }) => l.productId)).toEqual(['only']);
@@ -39,9 +54,17 @@ describe('takeoff CLI', () => {
 
   it.each([
     ['a missing file', ['examples/nope.json'], /^takeoff: cannot read plan file examples\/nope\.json: no such file\n$/],
-    ['the deliberately invalid example', ['examples/invalid-crossed-outline.json'], /^takeoff: examples\/invalid-crossed-outline\.json is not a valid plan: .*edge 3 has no length.*\(and 3 more problems\)\n$/],
+    [
+      'the deliberately invalid example',
+      ['examples/invalid-crossed-outline.json'],
+      /^takeoff: examples\/invalid-crossed-outline\.json is not a valid plan: .*edge 3 has no length.*\(and 3 more problems\)\n$/,
+    ],
     ['a file that is not a plan', ['package.json'], /^takeoff: package\.json is not a valid plan: the file has no "format"/],
-    ['a bad product file', ['examples/rectangle.json', '--products', 'examples/rectangle.json'], /^takeoff: product file examples\/rectangle\.json is not a product catalogue/],
+    [
+      'a bad product file',
+      ['examples/rectangle.json', '--products', 'examples/rectangle.json'],
+      /^takeoff: product file examples\/rectangle\.json is not a product catalogue/,
+    ],
     ['an unknown format option', ['examples/rectangle.json', '--format', 'xml'], /^takeoff: --format must be text or json, not "xml"\n$/],
     ['no plan at all', [], /^takeoff: usage: /],
   ])('exits 2 with one clear line for %s', (_n, args, pattern) => {

@@ -63,7 +63,8 @@ describe('takeoff properties on random plans (fast-check; jsts as the planar ora
       fc.property(arbPlan, (plan) => {
         const t = computeTakeoff(plan, { products });
         const outline = jstsPolygon([plan.outline]);
-        const net = (plan.exclusions.length ? outline.difference(jstsUnionAll(plan.exclusions.map((e) => jstsPolygon([e.polygon!])))) : outline).getArea() / 1e6;
+        const net =
+          (plan.exclusions.length ? outline.difference(jstsUnionAll(plan.exclusions.map((e) => jstsPolygon([e.polygon!])))) : outline).getArea() / 1e6;
         expect(t.grossAreaM2).toBeCloseTo(outline.getArea() / 1e6, 3);
         expect(Math.abs(t.netAreaM2 - net)).toBeLessThanOrEqual(0.001);
         expect(t.netAreaM2).toBeLessThanOrEqual(t.grossAreaM2 + 1e-9);
@@ -79,19 +80,25 @@ describe('takeoff properties on random plans (fast-check; jsts as the planar ora
 
   it('gives the same areas and strips whichever way the outline winds, and wherever the plan is turned or moved', () => {
     fc.assert(
-      fc.property(arbPlan, fc.double({ min: -180, max: 180, noNaN: true }), fc.integer({ min: -50000, max: 50000 }), fc.integer({ min: -50000, max: 50000 }), (plan, deg, dx, dy) => {
-        const t = computeTakeoff(plan, { products });
-        const moved = computeTakeoff(transformPlan(plan, deg, [dx, dy]), { products });
-        const reversed = computeTakeoff({ ...plan, outline: [...plan.outline].reverse() }, { products });
-        for (const other of [moved, reversed]) {
-          expect(Math.abs(other.grossAreaM2 - t.grossAreaM2)).toBeLessThanOrEqual(0.001);
-          expect(Math.abs(other.netAreaM2 - t.netAreaM2)).toBeLessThanOrEqual(0.001);
-          expect(Math.abs(other.layerAreaM2 - t.layerAreaM2)).toBeLessThanOrEqual(0.001);
-          expect(lengths(other)).toEqual(lengths(t));
-          expect(other.layers.map((l) => l.rollsByPacking)).toEqual(t.layers.map((l) => l.rollsByPacking));
-          expect(other.uValueAfter).toBe(t.uValueAfter);
-        }
-      }),
+      fc.property(
+        arbPlan,
+        fc.double({ min: -180, max: 180, noNaN: true }),
+        fc.integer({ min: -50000, max: 50000 }),
+        fc.integer({ min: -50000, max: 50000 }),
+        (plan, deg, dx, dy) => {
+          const t = computeTakeoff(plan, { products });
+          const moved = computeTakeoff(transformPlan(plan, deg, [dx, dy]), { products });
+          const reversed = computeTakeoff({ ...plan, outline: [...plan.outline].reverse() }, { products });
+          for (const other of [moved, reversed]) {
+            expect(Math.abs(other.grossAreaM2 - t.grossAreaM2)).toBeLessThanOrEqual(0.001);
+            expect(Math.abs(other.netAreaM2 - t.netAreaM2)).toBeLessThanOrEqual(0.001);
+            expect(Math.abs(other.layerAreaM2 - t.layerAreaM2)).toBeLessThanOrEqual(0.001);
+            expect(lengths(other)).toEqual(lengths(t));
+            expect(other.layers.map((l) => l.rollsByPacking)).toEqual(t.layers.map((l) => l.rollsByPacking));
+            expect(other.uValueAfter).toBe(t.uValueAfter);
+          }
+        },
+      ),
       { numRuns: 40 },
     );
   });

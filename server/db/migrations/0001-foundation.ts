@@ -135,7 +135,18 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
 };
 
 export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
-  for (const t of ['session', 'job_events', 'auth_tokens', 'plan_revisions', 'spaces', 'jobs', 'job_reference_counters', 'customers', 'users', 'organisations']) {
+  for (const t of [
+    'session',
+    'job_events',
+    'auth_tokens',
+    'plan_revisions',
+    'spaces',
+    'jobs',
+    'job_reference_counters',
+    'customers',
+    'users',
+    'organisations',
+  ]) {
     await qi.dropTable(t);
   }
 };

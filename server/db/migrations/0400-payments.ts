@@ -62,7 +62,9 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   // One invoice per job; credit notes correct it.
   await qi.sequelize.query(`CREATE UNIQUE INDEX invoices_one_per_job_uq ON invoices (job_id) WHERE kind = 'invoice'`);
   await qi.addIndex('invoices', ['organisation_id', 'status']);
-  await qi.sequelize.query(`ALTER TABLE invoices ADD CONSTRAINT invoices_kind_chk CHECK (kind IN ('invoice','credit_note')), ADD CONSTRAINT invoices_status_chk CHECK (status IN ('issued','paid'))`);
+  await qi.sequelize.query(
+    `ALTER TABLE invoices ADD CONSTRAINT invoices_kind_chk CHECK (kind IN ('invoice','credit_note')), ADD CONSTRAINT invoices_status_chk CHECK (status IN ('issued','paid'))`,
+  );
 
   await qi.createTable('invoice_lines', {
     id,

@@ -46,32 +46,182 @@ type DemoJob = {
 };
 
 const DEMO_JOBS: DemoJob[] = [
-  { customer: 'Harriet Quayle', email: 'harriet.quayle@example.com', phone: '01632 960101', line1: '14 Wrenfield Road', town: 'Ashcombe', postcode: 'AB1 2CD', stage: 'enquiry', estimator: 'estimator', spaces: ['Main loft'], notes: 'Asked about topping up after a cold winter.' },
-  { customer: 'Gideon Pell', email: 'g.pell@example.com', phone: '01632 960102', line1: '3 Tanner Close', town: 'Ashcombe', postcode: 'AB1 4EF', stage: 'surveyed', estimator: 'estimator', spaces: ['Main loft', 'Garage loft'], accessNotes: 'Hatch on the landing; ladder in the garage.' },
-  { customer: 'Mei Lin Hartley', email: 'meilin.hartley@example.com', phone: '01632 960103', line1: '27 Orchard Rise', town: 'Bramley Cross', postcode: 'BC2 3GH', stage: 'quoted', estimator: 'estimator2', spaces: ['Main loft'] },
-  { customer: 'Rowan & Jo Achebe', email: 'rowan.achebe@example.com', phone: '01632 960104', line1: '9 Millpond Lane', town: 'Bramley Cross', postcode: 'BC2 5JK', stage: 'declined', estimator: 'estimator2', spaces: ['Main loft'], notes: 'Declined for now; revisit in spring.' },
-  { customer: 'Bernadette Fox', email: 'b.fox@example.com', phone: '01632 960105', line1: '61 Chapel Street', town: 'Kelsworth', postcode: 'KW3 1LM', stage: 'accepted', estimator: 'estimator', spaces: ['Main loft', 'Extension'] },
-  { customer: 'Samuel Okonjo', email: 'sam.okonjo@example.com', phone: '01632 960106', line1: '2 Heron Court', town: 'Kelsworth', postcode: 'KW3 6NP', stage: 'scheduled', installer: 'installer', installDate: '2027-01-18', estimator: 'estimator', spaces: ['Main loft'], accessNotes: 'Key with the neighbour at no. 4. Dog on site.' },
-  { customer: 'Lydia Carrow', email: 'lydia.carrow@example.com', phone: '01632 960107', line1: '40 Beacon Hill', town: 'Ashcombe', postcode: 'AB1 7QR', stage: 'scheduled', installer: 'installer2', installDate: '2027-01-20', estimator: 'estimator2', spaces: ['Main loft'] },
-  { customer: 'Arthur Penhaligon', email: 'a.penhaligon@example.com', phone: '01632 960108', line1: '5 Foundry Row', town: 'Kelsworth', postcode: 'KW3 2ST', stage: 'installed', installer: 'installer', installDate: '2026-11-24', estimator: 'estimator', spaces: ['Main loft'] },
-  { customer: 'Fatima Rahman', email: 'fatima.rahman@example.com', phone: '01632 960109', line1: '18 Linden Avenue', town: 'Bramley Cross', postcode: 'BC2 8UV', stage: 'closed', installer: 'installer2', installDate: '2026-10-30', estimator: 'estimator2', spaces: ['Main loft'] },
-  { customer: 'Colm Duggan', email: 'colm.duggan@example.com', phone: '01632 960110', line1: '7 Saltings Way', town: 'Ashcombe', postcode: 'AB1 9WX', stage: 'accepted', estimator: 'estimator', spaces: ['Main loft', 'Garage loft'] },
+  {
+    customer: 'Harriet Quayle',
+    email: 'harriet.quayle@example.com',
+    phone: '01632 960101',
+    line1: '14 Wrenfield Road',
+    town: 'Ashcombe',
+    postcode: 'AB1 2CD',
+    stage: 'enquiry',
+    estimator: 'estimator',
+    spaces: ['Main loft'],
+    notes: 'Asked about topping up after a cold winter.',
+  },
+  {
+    customer: 'Gideon Pell',
+    email: 'g.pell@example.com',
+    phone: '01632 960102',
+    line1: '3 Tanner Close',
+    town: 'Ashcombe',
+    postcode: 'AB1 4EF',
+    stage: 'surveyed',
+    estimator: 'estimator',
+    spaces: ['Main loft', 'Garage loft'],
+    accessNotes: 'Hatch on the landing; ladder in the garage.',
+  },
+  {
+    customer: 'Mei Lin Hartley',
+    email: 'meilin.hartley@example.com',
+    phone: '01632 960103',
+    line1: '27 Orchard Rise',
+    town: 'Bramley Cross',
+    postcode: 'BC2 3GH',
+    stage: 'quoted',
+    estimator: 'estimator2',
+    spaces: ['Main loft'],
+  },
+  {
+    customer: 'Rowan & Jo Achebe',
+    email: 'rowan.achebe@example.com',
+    phone: '01632 960104',
+    line1: '9 Millpond Lane',
+    town: 'Bramley Cross',
+    postcode: 'BC2 5JK',
+    stage: 'declined',
+    estimator: 'estimator2',
+    spaces: ['Main loft'],
+    notes: 'Declined for now; revisit in spring.',
+  },
+  {
+    customer: 'Bernadette Fox',
+    email: 'b.fox@example.com',
+    phone: '01632 960105',
+    line1: '61 Chapel Street',
+    town: 'Kelsworth',
+    postcode: 'KW3 1LM',
+    stage: 'accepted',
+    estimator: 'estimator',
+    spaces: ['Main loft', 'Extension'],
+  },
+  {
+    customer: 'Samuel Okonjo',
+    email: 'sam.okonjo@example.com',
+    phone: '01632 960106',
+    line1: '2 Heron Court',
+    town: 'Kelsworth',
+    postcode: 'KW3 6NP',
+    stage: 'scheduled',
+    installer: 'installer',
+    installDate: '2027-01-18',
+    estimator: 'estimator',
+    spaces: ['Main loft'],
+    accessNotes: 'Key with the neighbour at no. 4. Dog on site.',
+  },
+  {
+    customer: 'Lydia Carrow',
+    email: 'lydia.carrow@example.com',
+    phone: '01632 960107',
+    line1: '40 Beacon Hill',
+    town: 'Ashcombe',
+    postcode: 'AB1 7QR',
+    stage: 'scheduled',
+    installer: 'installer2',
+    installDate: '2027-01-20',
+    estimator: 'estimator2',
+    spaces: ['Main loft'],
+  },
+  {
+    customer: 'Arthur Penhaligon',
+    email: 'a.penhaligon@example.com',
+    phone: '01632 960108',
+    line1: '5 Foundry Row',
+    town: 'Kelsworth',
+    postcode: 'KW3 2ST',
+    stage: 'installed',
+    installer: 'installer',
+    installDate: '2026-11-24',
+    estimator: 'estimator',
+    spaces: ['Main loft'],
+  },
+  {
+    customer: 'Fatima Rahman',
+    email: 'fatima.rahman@example.com',
+    phone: '01632 960109',
+    line1: '18 Linden Avenue',
+    town: 'Bramley Cross',
+    postcode: 'BC2 8UV',
+    stage: 'closed',
+    installer: 'installer2',
+    installDate: '2026-10-30',
+    estimator: 'estimator2',
+    spaces: ['Main loft'],
+  },
+  {
+    customer: 'Colm Duggan',
+    email: 'colm.duggan@example.com',
+    phone: '01632 960110',
+    line1: '7 Saltings Way',
+    town: 'Ashcombe',
+    postcode: 'AB1 9WX',
+    stage: 'accepted',
+    estimator: 'estimator',
+    spaces: ['Main loft', 'Garage loft'],
+  },
 ];
 
 const OTHER_JOBS: DemoJob[] = [
-  { customer: 'Imogen Thorne', email: 'imogen.thorne@example.com', phone: '01632 960201', line1: '12 Quarry Bank', town: 'Northgate', postcode: 'NG9 1AA', stage: 'surveyed', estimator: 'estimator', spaces: ['Main loft'] },
-  { customer: 'Pádraig Walsh', email: 'p.walsh@example.com', phone: '01632 960202', line1: '33 Ferry Road', town: 'Northgate', postcode: 'NG9 2BB', stage: 'scheduled', installer: 'installer', installDate: '2027-01-22', estimator: 'estimator', spaces: ['Main loft'] },
+  {
+    customer: 'Imogen Thorne',
+    email: 'imogen.thorne@example.com',
+    phone: '01632 960201',
+    line1: '12 Quarry Bank',
+    town: 'Northgate',
+    postcode: 'NG9 1AA',
+    stage: 'surveyed',
+    estimator: 'estimator',
+    spaces: ['Main loft'],
+  },
+  {
+    customer: 'Pádraig Walsh',
+    email: 'p.walsh@example.com',
+    phone: '01632 960202',
+    line1: '33 Ferry Road',
+    town: 'Northgate',
+    postcode: 'NG9 2BB',
+    stage: 'scheduled',
+    installer: 'installer',
+    installDate: '2027-01-22',
+    estimator: 'estimator',
+    spaces: ['Main loft'],
+  },
 ];
 
 /** Used only when examples/ holds no valid plan yet: a plain rectangle like PRODUCT.md's sample. */
 const FALLBACK_PLAN: unknown = {
   format: 'quiltline-plan/1',
   name: 'Main loft',
-  outline: [[0, 0], [8400, 0], [8400, 5200], [0, 5200]],
+  outline: [
+    [0, 0],
+    [8400, 0],
+    [8400, 5200],
+    [0, 5200],
+  ],
   eavesEdges: [0, 2],
   eavesGapMm: 50,
   joists: { angleDeg: 90, centresMm: 400, widthMm: 47, depthMm: 100, offsetMm: 0 },
-  exclusions: [{ kind: 'hatch', label: 'loft hatch', polygon: [[3800, 4300], [4500, 4300], [4500, 5000], [3800, 5000]] }],
+  exclusions: [
+    {
+      kind: 'hatch',
+      label: 'loft hatch',
+      polygon: [
+        [3800, 4300],
+        [4500, 4300],
+        [4500, 5000],
+        [3800, 5000],
+      ],
+    },
+  ],
   existing: { depthMm: 100, condition: 'good' },
   target: { depthMm: 270 },
 };
@@ -80,7 +230,10 @@ const FALLBACK_PLAN: unknown = {
 export function loadExamplePlans(dir = path.join(REPO_ROOT, 'examples')): Array<{ file: string; plan: Plan }> {
   if (!fs.existsSync(dir)) return [];
   const out: Array<{ file: string; plan: Plan }> = [];
-  for (const file of fs.readdirSync(dir).filter((f) => f.endsWith('.json')).sort()) {
+  for (const file of fs
+    .readdirSync(dir)
+    .filter((f) => f.endsWith('.json'))
+    .sort()) {
     try {
       const r = validatePlan(JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
       if (r.ok) out.push({ file, plan: r.plan });
@@ -102,7 +255,16 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
     let planIndex = 0;
     for (const j of jobs) {
       const customer = await Customer.create(
-        { organisationId: org.id, name: j.customer, email: j.email, phone: j.phone, addressLine1: j.line1, addressLine2: '', town: j.town, postcode: j.postcode },
+        {
+          organisationId: org.id,
+          name: j.customer,
+          email: j.email,
+          phone: j.phone,
+          addressLine1: j.line1,
+          addressLine2: '',
+          town: j.town,
+          postcode: j.postcode,
+        },
         { transaction },
       );
       const author = byKey.get(j.estimator) ?? null;
@@ -124,15 +286,35 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
         },
         { transaction },
       );
-      await JobEvent.create({ organisationId: org.id, jobId: job.id, userId: author?.id ?? null, kind: 'created', data: { reference: job.reference, stage: 'enquiry', demo: true } }, { transaction });
+      await JobEvent.create(
+        {
+          organisationId: org.id,
+          jobId: job.id,
+          userId: author?.id ?? null,
+          kind: 'created',
+          data: { reference: job.reference, stage: 'enquiry', demo: true },
+        },
+        { transaction },
+      );
       if (j.stage !== 'enquiry') {
-        await JobEvent.create({ organisationId: org.id, jobId: job.id, userId: author?.id ?? null, kind: 'stage_changed', data: { from: 'enquiry', to: j.stage } }, { transaction });
+        await JobEvent.create(
+          { organisationId: org.id, jobId: job.id, userId: author?.id ?? null, kind: 'stage_changed', data: { from: 'enquiry', to: j.stage } },
+          { transaction },
+        );
       }
       for (const [position, spaceName] of j.spaces.entries()) {
         const space = await Space.create({ organisationId: org.id, jobId: job.id, name: spaceName, position }, { transaction });
         const plan = plans[planIndex++ % plans.length];
         await PlanRevision.create(
-          { organisationId: org.id, spaceId: space.id, revision: 1, plan: { ...plan, name: spaceName }, takeoff: null, authorId: author?.id ?? null, note: 'demo plan' },
+          {
+            organisationId: org.id,
+            spaceId: space.id,
+            revision: 1,
+            plan: { ...plan, name: spaceName },
+            takeoff: null,
+            authorId: author?.id ?? null,
+            note: 'demo plan',
+          },
           { transaction },
         );
       }

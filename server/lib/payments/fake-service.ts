@@ -95,7 +95,12 @@ export function signWebhookPayload(payload: string, secret: string, timestamp = 
 }
 
 class ApiError extends Error {
-  constructor(readonly status: number, message: string, readonly param?: string, readonly code?: string) {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly param?: string,
+    readonly code?: string,
+  ) {
     super(message);
   }
 }
@@ -117,8 +122,7 @@ function stringRecord(v: unknown): Record<string, string> {
   return Object.fromEntries(Object.entries(v as Record<string, unknown>).map(([k, x]) => [k, String(x)]));
 }
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** The public view of a session: what the SDK receives. */
 function sessionBody(s: FakeSession) {
@@ -255,7 +259,9 @@ export function createFakePaymentService(options: FakePaymentServiceOptions): Fa
     res.json(refund);
   });
 
-  api.use((req, res) => sendError(res, new ApiError(404, `Unrecognized request URL (${req.method}: ${req.originalUrl}). The local stand-in does not cover it.`)));
+  api.use((req, res) =>
+    sendError(res, new ApiError(404, `Unrecognized request URL (${req.method}: ${req.originalUrl}). The local stand-in does not cover it.`)),
+  );
   api.use((err: unknown, _req: Request, res: Response, _next: express.NextFunction) => {
     void _next;
     if (err instanceof ApiError) return sendError(res, err);
@@ -316,7 +322,10 @@ export function createFakePaymentService(options: FakePaymentServiceOptions): Fa
       return res.status(410).send(page('Checkout closed', `<p>This checkout is <strong>${escapeHtml(s.status)}</strong>.</p>`));
     }
     const rows = s._lines
-      .map((l) => `<tr><td>${escapeHtml(l.name)}${l.quantity > 1 ? ` × ${l.quantity}` : ''}</td><td class="num">${formatMoney(l.unitAmount * l.quantity, s.currency.toUpperCase())}</td></tr>`)
+      .map(
+        (l) =>
+          `<tr><td>${escapeHtml(l.name)}${l.quantity > 1 ? ` × ${l.quantity}` : ''}</td><td class="num">${formatMoney(l.unitAmount * l.quantity, s.currency.toUpperCase())}</td></tr>`,
+      )
       .join('');
     const total = formatMoney(s.amount_total, s.currency.toUpperCase());
     res.send(
@@ -363,7 +372,11 @@ export function createFakePaymentService(options: FakePaymentServiceOptions): Fa
           resolve({
             url: baseUrl,
             port: actual,
-            close: () => new Promise<void>((r) => { server.closeAllConnections(); server.close(() => r()); }),
+            close: () =>
+              new Promise<void>((r) => {
+                server.closeAllConnections();
+                server.close(() => r());
+              }),
           });
         });
       });

@@ -89,11 +89,14 @@ export function createPaymentsGateway(config: PaymentsConfig): PaymentsGateway {
   const stripe = new Stripe(config.secretKey, sdkOptions(config.apiUrl));
   return {
     async createCheckout(req) {
-      if (!Number.isInteger(req.amountMinor) || req.amountMinor < 1) throw new Error(`payments: amount must be a positive integer of minor units, got ${req.amountMinor}`);
+      if (!Number.isInteger(req.amountMinor) || req.amountMinor < 1)
+        throw new Error(`payments: amount must be a positive integer of minor units, got ${req.amountMinor}`);
       const session = await stripe.checkout.sessions.create(
         {
           mode: 'payment',
-          line_items: [{ quantity: 1, price_data: { currency: req.currency.toLowerCase(), unit_amount: req.amountMinor, product_data: { name: req.description } } }],
+          line_items: [
+            { quantity: 1, price_data: { currency: req.currency.toLowerCase(), unit_amount: req.amountMinor, product_data: { name: req.description } } },
+          ],
           client_reference_id: req.reference,
           metadata: req.metadata,
           success_url: req.successUrl,

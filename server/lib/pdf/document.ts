@@ -25,7 +25,10 @@ export function newDocument(title: string) {
         const bottom = doc.page.height - 30;
         const oldBottom = doc.page.margins.bottom;
         doc.page.margins.bottom = 0;
-        doc.font('ui').fontSize(7.5).fillColor(INK.graphiteLight)
+        doc
+          .font('ui')
+          .fontSize(7.5)
+          .fillColor(INK.graphiteLight)
           .text(`${footer} · page ${i - range.start + 1} of ${range.count}`, 48, bottom, { width: doc.page.width - 96, align: 'center', lineBreak: false });
         doc.page.margins.bottom = oldBottom;
       }
@@ -70,7 +73,12 @@ export function heading(doc: PDFKit.PDFDocument, text: string) {
   doc.moveDown(0.6);
   doc.font('ui-bold').fontSize(12).fillColor(INK.graphite).text(text, doc.page.margins.left);
   const y = doc.y + 2;
-  doc.moveTo(doc.page.margins.left, y).lineTo(doc.page.width - doc.page.margins.right, y).lineWidth(0.6).strokeColor(INK.paperLine).stroke();
+  doc
+    .moveTo(doc.page.margins.left, y)
+    .lineTo(doc.page.width - doc.page.margins.right, y)
+    .lineWidth(0.6)
+    .strokeColor(INK.paperLine)
+    .stroke();
   doc.moveDown(0.5);
   doc.font('ui').fontSize(9.5).fillColor(INK.graphite);
 }
@@ -104,7 +112,12 @@ export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[]
       x += c.width;
     }
     doc.y = y + 14;
-    doc.moveTo(left, doc.y - 2).lineTo(left + columns.reduce((a, c) => a + c.width, 0), doc.y - 2).lineWidth(0.6).strokeColor(INK.graphiteLight).stroke();
+    doc
+      .moveTo(left, doc.y - 2)
+      .lineTo(left + columns.reduce((a, c) => a + c.width, 0), doc.y - 2)
+      .lineWidth(0.6)
+      .strokeColor(INK.graphiteLight)
+      .stroke();
   };
   ensureSpace(doc, 40);
   drawHeader();
@@ -123,7 +136,11 @@ export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[]
     let x = left;
     row.forEach((cell, i) => {
       const c = columns[i];
-      doc.font(c.mono ? 'mono' : bold ? 'ui-bold' : 'ui').fontSize(9).fillColor(INK.graphite).text(cell, x + 2, y + 2, { width: c.width - 4, align: c.align ?? 'left' });
+      doc
+        .font(c.mono ? 'mono' : bold ? 'ui-bold' : 'ui')
+        .fontSize(9)
+        .fillColor(INK.graphite)
+        .text(cell, x + 2, y + 2, { width: c.width - 4, align: c.align ?? 'left' });
       x += c.width;
     });
     doc.y = y + h;

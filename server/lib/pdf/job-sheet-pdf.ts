@@ -33,9 +33,16 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
   const a = sheet.job.propertyAddress;
 
   doc.font('ui-bold').fontSize(18).fillColor(INK.timber).text('Job sheet', left, doc.y);
-  doc.font('mono').fontSize(10).fillColor(INK.graphite).text(`${sheet.job.reference} · install ${sheet.job.installDate ?? 'date to be agreed'}`);
+  doc
+    .font('mono')
+    .fontSize(10)
+    .fillColor(INK.graphite)
+    .text(`${sheet.job.reference} · install ${sheet.job.installDate ?? 'date to be agreed'}`);
   doc.font('ui').fontSize(10).text([a.line1, a.line2, a.town, a.postcode].filter(Boolean).join(', '));
-  doc.fontSize(9.5).fillColor(INK.graphiteLight).text(`Customer: ${sheet.job.customer.name}${sheet.job.customer.phone ? ` · ${sheet.job.customer.phone}` : ''}`);
+  doc
+    .fontSize(9.5)
+    .fillColor(INK.graphiteLight)
+    .text(`Customer: ${sheet.job.customer.name}${sheet.job.customer.phone ? ` · ${sheet.job.customer.phone}` : ''}`);
   doc.text(`Installer: ${sheet.job.installer?.name ?? 'not assigned yet'} · ${companyName}`);
   if (sheet.job.accessNotes) doc.fillColor(INK.graphite).text(`Access: ${sheet.job.accessNotes}`, { width });
   if (sheet.job.notes) doc.fillColor(INK.graphite).text(`Notes: ${sheet.job.notes}`, { width });
@@ -57,14 +64,25 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
       continue;
     }
     if (space.plan) {
-      const strips: StripForDrawing[] = space.layers.flatMap((l) => l.strips.map((s) => ({ parts: s.polygons as Array<Array<[number, number]>>, labelAt: s.labelAt as [number, number], label: s.label, role: l.role })));
+      const strips: StripForDrawing[] = space.layers.flatMap((l) =>
+        l.strips.map((s) => ({ parts: s.polygons as Array<Array<[number, number]>>, labelAt: s.labelAt as [number, number], label: s.label, role: l.role })),
+      );
       const boxY = doc.y + 6;
       const box = { x: left, y: boxY, width, height: 300 };
       doc.rect(box.x, box.y, box.width, box.height).lineWidth(0.5).strokeColor(INK.paperLine).stroke();
       drawPlan(doc, space.plan as PlanForDrawing, box, { strips, showArrow: true });
       doc.y = boxY + box.height + 6;
       doc.x = left;
-      doc.font('ui').fontSize(7.5).fillColor(INK.graphiteLight).text('Straw: base strips between the joists. Teal: cross strips. Numbers are the laying order (from the eaves inward, finishing at the hatch). Red hatching: do not cover. Blue: eaves, keep the ventilation gap. Arrow: base lay direction.', left, doc.y, { width });
+      doc
+        .font('ui')
+        .fontSize(7.5)
+        .fillColor(INK.graphiteLight)
+        .text(
+          'Straw: base strips between the joists. Teal: cross strips. Numbers are the laying order (from the eaves inward, finishing at the hatch). Red hatching: do not cover. Blue: eaves, keep the ventilation gap. Arrow: base lay direction.',
+          left,
+          doc.y,
+          { width },
+        );
     }
     heading(doc, 'Layers');
     table(
@@ -76,7 +94,13 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
         { header: 'Area', width: 60, align: 'right', mono: true },
         { header: 'Lay direction', width: 90, align: 'right', mono: true },
       ],
-      space.layers.map((l) => [l.label, l.productName, mm(l.thicknessMm), `${l.areaM2.toFixed(1)} m²`, `${Math.round(l.layDirectionDeg)}° (${l.strips.length} strips)`]),
+      space.layers.map((l) => [
+        l.label,
+        l.productName,
+        mm(l.thicknessMm),
+        `${l.areaM2.toFixed(1)} m²`,
+        `${Math.round(l.layDirectionDeg)}° (${l.strips.length} strips)`,
+      ]),
     );
     heading(doc, 'Cut list, by roll');
     table(
@@ -93,9 +117,21 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
     for (const c of space.checks) {
       ensureSpace(doc, 30);
       const y = doc.y;
-      doc.rect(left, y + 1, 9, 9).lineWidth(0.8).strokeColor(INK.graphite).stroke();
-      doc.font('ui-bold').fontSize(9.5).fillColor(INK.graphite).text(c.title, left + 16, y, { width: width - 16 });
-      doc.font('ui').fontSize(8.5).fillColor(INK.graphiteLight).text(c.detail, left + 16, doc.y, { width: width - 16 });
+      doc
+        .rect(left, y + 1, 9, 9)
+        .lineWidth(0.8)
+        .strokeColor(INK.graphite)
+        .stroke();
+      doc
+        .font('ui-bold')
+        .fontSize(9.5)
+        .fillColor(INK.graphite)
+        .text(c.title, left + 16, y, { width: width - 16 });
+      doc
+        .font('ui')
+        .fontSize(8.5)
+        .fillColor(INK.graphiteLight)
+        .text(c.detail, left + 16, doc.y, { width: width - 16 });
       doc.moveDown(0.3);
     }
   }

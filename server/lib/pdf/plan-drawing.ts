@@ -30,8 +30,12 @@ export interface PlanBox {
 export function fitTransform(outline: Pt[], box: PlanBox, paddingPt = 6) {
   const xs = outline.map((p) => p[0]);
   const ys = outline.map((p) => p[1]);
-  const minX = Math.min(...xs), maxX = Math.max(...xs), minY = Math.min(...ys), maxY = Math.max(...ys);
-  const w = Math.max(maxX - minX, 1), h = Math.max(maxY - minY, 1);
+  const minX = Math.min(...xs),
+    maxX = Math.max(...xs),
+    minY = Math.min(...ys),
+    maxY = Math.max(...ys);
+  const w = Math.max(maxX - minX, 1),
+    h = Math.max(maxY - minY, 1);
   const scale = Math.min((box.width - 2 * paddingPt) / w, (box.height - 2 * paddingPt) / h);
   const ox = box.x + (box.width - w * scale) / 2;
   const oy = box.y + (box.height - h * scale) / 2;
@@ -66,7 +70,10 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
     for (const part of s.parts) {
       if (part.length < 3) continue;
       pathOf(doc, part.map(map));
-      doc.fillOpacity(s.role === 'base' ? 0.55 : 0.35).lineWidth(0.3).fillAndStroke(s.role === 'base' ? INK.straw : INK.teal, INK.graphiteLight);
+      doc
+        .fillOpacity(s.role === 'base' ? 0.55 : 0.35)
+        .lineWidth(0.3)
+        .fillAndStroke(s.role === 'base' ? INK.straw : INK.teal, INK.graphiteLight);
     }
   }
   doc.fillOpacity(1);
@@ -75,13 +82,19 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
     const a = (j.angleDeg * Math.PI) / 180;
     const d: Pt = [Math.cos(a), Math.sin(a)];
     const n: Pt = [-Math.sin(a), Math.cos(a)];
-    const corners: Pt[] = [[bbox.minX, bbox.minY], [bbox.maxX, bbox.minY], [bbox.maxX, bbox.maxY], [bbox.minX, bbox.maxY]];
+    const corners: Pt[] = [
+      [bbox.minX, bbox.minY],
+      [bbox.maxX, bbox.minY],
+      [bbox.maxX, bbox.maxY],
+      [bbox.minX, bbox.maxY],
+    ];
     const pn = corners.map((c) => c[0] * n[0] + c[1] * n[1]);
     const pd = corners.map((c) => c[0] * d[0] + c[1] * d[1]);
     const off = j.offsetMm ?? 0;
     const kMin = Math.ceil((Math.min(...pn) - off) / j.centresMm);
     const kMax = Math.floor((Math.max(...pn) - off) / j.centresMm);
-    const t0 = Math.min(...pd), t1 = Math.max(...pd);
+    const t0 = Math.min(...pd),
+      t1 = Math.max(...pd);
     doc.lineWidth(0.4).strokeColor(INK.timber);
     for (let k = kMin; k <= kMax && k - kMin < 2000; k += 1) {
       const c = off + k * j.centresMm;
@@ -98,7 +111,9 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
     for (const s of opts.strips) {
       const first = s.parts[0] ?? [];
       if (!s.labelAt && first.length === 0) continue;
-      const [cx, cy] = s.labelAt ? map(s.labelAt) : map([first.reduce((a, p) => a + p[0], 0) / first.length, first.reduce((a, p) => a + p[1], 0) / first.length]);
+      const [cx, cy] = s.labelAt
+        ? map(s.labelAt)
+        : map([first.reduce((a, p) => a + p[0], 0) / first.length, first.reduce((a, p) => a + p[1], 0) / first.length]);
       doc.text(s.label, cx - 12, cy - 3, { width: 24, align: 'center', lineBreak: false });
     }
   }
@@ -114,10 +129,18 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
       doc.save();
       pathOf(doc, pts);
       doc.clip();
-      const xs = pts.map((p) => p[0]), ys = pts.map((p) => p[1]);
-      const x0 = Math.min(...xs), x1 = Math.max(...xs), y0 = Math.min(...ys), y1 = Math.max(...ys);
+      const xs = pts.map((p) => p[0]),
+        ys = pts.map((p) => p[1]);
+      const x0 = Math.min(...xs),
+        x1 = Math.max(...xs),
+        y0 = Math.min(...ys),
+        y1 = Math.max(...ys);
       doc.lineWidth(0.5).strokeColor(INK.brick);
-      for (let s = x0 - (y1 - y0); s < x1; s += 4) doc.moveTo(s, y1).lineTo(s + (y1 - y0), y0).stroke();
+      for (let s = x0 - (y1 - y0); s < x1; s += 4)
+        doc
+          .moveTo(s, y1)
+          .lineTo(s + (y1 - y0), y0)
+          .stroke();
       doc.restore();
       pathOf(doc, pts);
       doc.lineWidth(0.8).strokeColor(INK.brick).stroke();
@@ -130,7 +153,8 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   // Eaves edges.
   doc.lineWidth(3).strokeColor(INK.sky);
   for (const i of plan.eavesEdges ?? []) {
-    const a = outline[i], b = outline[(i + 1) % outline.length];
+    const a = outline[i],
+      b = outline[(i + 1) % outline.length];
     if (a && b) doc.moveTo(a[0], a[1]).lineTo(b[0], b[1]).stroke();
   }
 
@@ -140,11 +164,20 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   if (opts.showArrow && j) {
     // Lay direction of the base layer: along the joists.
     const a = (j.angleDeg * Math.PI) / 180;
-    const cx = box.x + box.width - 22, cy = box.y + 16, r = 12;
-    const dx = Math.cos(a) * r, dy = Math.sin(a) * r;
-    doc.lineWidth(1).strokeColor(INK.graphite).moveTo(cx - dx, cy - dy).lineTo(cx + dx, cy + dy).stroke();
+    const cx = box.x + box.width - 22,
+      cy = box.y + 16,
+      r = 12;
+    const dx = Math.cos(a) * r,
+      dy = Math.sin(a) * r;
+    doc
+      .lineWidth(1)
+      .strokeColor(INK.graphite)
+      .moveTo(cx - dx, cy - dy)
+      .lineTo(cx + dx, cy + dy)
+      .stroke();
     const ha = Math.atan2(dy, dx);
-    doc.moveTo(cx + dx, cy + dy)
+    doc
+      .moveTo(cx + dx, cy + dy)
       .lineTo(cx + dx - 4 * Math.cos(ha - 0.5), cy + dy - 4 * Math.sin(ha - 0.5))
       .lineTo(cx + dx - 4 * Math.cos(ha + 0.5), cy + dy - 4 * Math.sin(ha + 0.5))
       .closePath()

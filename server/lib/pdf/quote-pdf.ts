@@ -47,30 +47,49 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
       // A logo pdfkit cannot read is left out rather than failing the quote.
     }
   }
-  doc.font('ui-bold').fontSize(15).fillColor(INK.graphite).text(d.company.name, left, top, { width: width * 0.55 });
+  doc
+    .font('ui-bold')
+    .fontSize(15)
+    .fillColor(INK.graphite)
+    .text(d.company.name, left, top, { width: width * 0.55 });
   doc.font('ui').fontSize(9).fillColor(INK.graphiteLight);
-  for (const l of [...d.company.addressLines, d.company.email, d.company.phone, d.company.taxNumber ? `VAT/tax no. ${d.company.taxNumber}` : ''].filter(Boolean)) {
+  for (const l of [...d.company.addressLines, d.company.email, d.company.phone, d.company.taxNumber ? `VAT/tax no. ${d.company.taxNumber}` : ''].filter(
+    Boolean,
+  )) {
     doc.text(l, left, doc.y, { width: width * 0.55 });
   }
   const leftBottom = doc.y;
   const rx = left + width * 0.6;
-  doc.font('ui-bold').fontSize(20).fillColor(INK.timber).text('Quote', rx, doc.page.margins.top, { width: width * 0.4, align: 'right' });
+  doc
+    .font('ui-bold')
+    .fontSize(20)
+    .fillColor(INK.timber)
+    .text('Quote', rx, doc.page.margins.top, { width: width * 0.4, align: 'right' });
   doc.font('mono').fontSize(9).fillColor(INK.graphite);
   for (const l of [
     `${d.quote.number}${d.quote.version > 1 ? ` v${d.quote.version}` : ''}`,
     `Job ${d.quote.jobReference}`,
     `Issued ${d.quote.issueDate}`,
     `Valid until ${d.quote.validUntil}`,
-  ]) doc.text(l, rx, doc.y, { width: width * 0.4, align: 'right' });
+  ])
+    doc.text(l, rx, doc.y, { width: width * 0.4, align: 'right' });
   doc.y = Math.max(leftBottom, doc.y) + 14;
 
   // Customer and property.
   const y0 = doc.y;
   doc.font('ui-bold').fontSize(9).fillColor(INK.graphiteLight).text('FOR', left, y0);
-  doc.font('ui').fontSize(10).fillColor(INK.graphite).text(d.customer.name, left, doc.y, { width: width / 2 - 10 });
+  doc
+    .font('ui')
+    .fontSize(10)
+    .fillColor(INK.graphite)
+    .text(d.customer.name, left, doc.y, { width: width / 2 - 10 });
   for (const l of [d.customer.email, d.customer.phone].filter(Boolean)) doc.fontSize(9).text(l, left, doc.y, { width: width / 2 - 10 });
   const yl = doc.y;
-  doc.font('ui-bold').fontSize(9).fillColor(INK.graphiteLight).text('PROPERTY', left + width / 2, y0);
+  doc
+    .font('ui-bold')
+    .fontSize(9)
+    .fillColor(INK.graphiteLight)
+    .text('PROPERTY', left + width / 2, y0);
   doc.font('ui').fontSize(10).fillColor(INK.graphite);
   for (const l of d.propertyAddressLines) doc.text(l, left + width / 2, doc.y, { width: width / 2 });
   doc.y = Math.max(yl, doc.y) + 6;
@@ -79,7 +98,8 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
   // Plans.
   if (d.spaces.length) {
     heading(doc, 'The loft');
-    const boxW = (width - 12) / 2, boxH = 150;
+    const boxW = (width - 12) / 2,
+      boxH = 150;
     for (let i = 0; i < d.spaces.length; i += 2) {
       ensureSpace(doc, boxH + 60);
       const rowY = doc.y;
@@ -89,7 +109,11 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
         const bx = left + k * (boxW + 12);
         doc.rect(bx, rowY, boxW, boxH).lineWidth(0.5).strokeColor(INK.paperLine).stroke();
         drawPlan(doc, s.plan as PlanForDrawing, { x: bx, y: rowY, width: boxW, height: boxH });
-        doc.font('ui-bold').fontSize(9.5).fillColor(INK.graphite).text(s.name, bx, rowY + boxH + 4, { width: boxW });
+        doc
+          .font('ui-bold')
+          .fontSize(9.5)
+          .fillColor(INK.graphite)
+          .text(s.name, bx, rowY + boxH + 4, { width: boxW });
         const facts = [
           s.netAreaM2 !== null ? `${s.netAreaM2.toFixed(1)} m² to insulate` : '',
           s.uBefore !== null && s.uAfter !== null ? `U-value ${s.uBefore.toFixed(2)} → ${s.uAfter.toFixed(2)} W/m²K` : '',
@@ -101,8 +125,16 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
       doc.y = maxY + 8;
       doc.x = left;
     }
-    doc.font('ui').fontSize(7.5).fillColor(INK.graphiteLight)
-      .text('Timber lines: joists. Red hatching: areas not covered (tank, hatch, boarded, clearances). Blue: the eaves, where the ventilation gap is kept.', left, doc.y, { width });
+    doc
+      .font('ui')
+      .fontSize(7.5)
+      .fillColor(INK.graphiteLight)
+      .text(
+        'Timber lines: joists. Red hatching: areas not covered (tank, hatch, boarded, clearances). Blue: the eaves, where the ventilation gap is kept.',
+        left,
+        doc.y,
+        { width },
+      );
   }
 
   // Lines.
@@ -114,15 +146,31 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     { header: 'VAT', width: 45, align: 'right' as const, mono: true },
     { header: 'Amount', width: 80, align: 'right' as const, mono: true },
   ];
-  table(doc, cols, d.lines.map((l) => [l.description, `${qty(l.quantity)} ${l.unit}`, money(l.unitPriceMinor), formatRateBp(l.rateBp), money(l.netMinor)]));
+  table(
+    doc,
+    cols,
+    d.lines.map((l) => [l.description, `${qty(l.quantity)} ${l.unit}`, money(l.unitPriceMinor), formatRateBp(l.rateBp), money(l.netMinor)]),
+  );
   doc.moveDown(0.4);
   const totalRows: string[][] = [['Total before VAT', '', '', '', money(d.totals.netMinor)]];
   for (const b of d.totals.taxByRate) totalRows.push([`VAT at ${formatRateBp(b.rateBp)} on ${money(b.netMinor)}`, '', '', '', money(b.taxMinor)]);
   totalRows.push(['Total to pay', '', '', '', money(d.totals.grossMinor)]);
-  table(doc, cols.map((c) => ({ ...c, header: '' })), totalRows, { boldLastRows: 1 });
-  doc.font('ui').fontSize(7.5).fillColor(INK.graphiteLight).text(`${ROUNDING_NOTE} VAT at the rates in force on ${longDate(d.quote.issueDate, d.quote.locale)}.`, left, doc.y + 2, { width });
+  table(
+    doc,
+    cols.map((c) => ({ ...c, header: '' })),
+    totalRows,
+    { boldLastRows: 1 },
+  );
+  doc
+    .font('ui')
+    .fontSize(7.5)
+    .fillColor(INK.graphiteLight)
+    .text(`${ROUNDING_NOTE} VAT at the rates in force on ${longDate(d.quote.issueDate, d.quote.locale)}.`, left, doc.y + 2, { width });
   if (d.siteHours > 0) {
-    doc.fontSize(9).fillColor(INK.graphite).text(`About ${d.siteHours} hours on site for a crew of ${d.crewSize}.`, left, doc.y + 4, { width });
+    doc
+      .fontSize(9)
+      .fillColor(INK.graphite)
+      .text(`About ${d.siteHours} hours on site for a crew of ${d.crewSize}.`, left, doc.y + 4, { width });
   }
   if (d.notes) doc.fontSize(9).text(d.notes, left, doc.y + 4, { width });
 
@@ -131,12 +179,19 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     doc.text(
       `About ${Math.round(d.saving.kwhPerYear).toLocaleString(d.quote.locale)} kWh of heating fuel a year, worth about ${money(d.saving.minorPerYear)} a year at today's prices` +
         (d.saving.paybackYears !== null ? `: the work pays for itself in about ${d.saving.paybackYears} years.` : '.'),
-      left, doc.y, { width },
+      left,
+      doc.y,
+      { width },
     );
-    doc.fontSize(7.5).fillColor(INK.graphiteLight).text(
-      'An estimate from the change in U-value, the area, a standard year\'s heating degree days and your heating system\'s efficiency; real savings depend on how the home is heated and used.',
-      left, doc.y + 2, { width },
-    );
+    doc
+      .fontSize(7.5)
+      .fillColor(INK.graphiteLight)
+      .text(
+        "An estimate from the change in U-value, the area, a standard year's heating degree days and your heating system's efficiency; real savings depend on how the home is heated and used.",
+        left,
+        doc.y + 2,
+        { width },
+      );
     doc.fillColor(INK.graphite);
   }
 
@@ -146,19 +201,37 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
   bullets(doc, d.customerBeforeInstall);
   if (d.terms.trim()) {
     heading(doc, 'Terms');
-    bullets(doc, d.terms.split(/\n+/).map((t) => t.trim()).filter(Boolean));
+    bullets(
+      doc,
+      d.terms
+        .split(/\n+/)
+        .map((t) => t.trim())
+        .filter(Boolean),
+    );
   }
 
   heading(doc, 'How to accept');
   ensureSpace(doc, 60);
   if (d.acceptUrl) {
     doc.text('Open your private link, check the quote, type your name and press Accept. You can also decline there and tell us why.', left, doc.y, { width });
-    doc.font('mono').fontSize(8).fillColor(INK.teal).text(d.acceptUrl, left, doc.y + 4, { width, link: d.acceptUrl, underline: true });
+    doc
+      .font('mono')
+      .fontSize(8)
+      .fillColor(INK.teal)
+      .text(d.acceptUrl, left, doc.y + 4, { width, link: d.acceptUrl, underline: true });
   } else {
     doc.text('We will e-mail you a private link to accept or decline this quote online.', left, doc.y, { width });
   }
-  doc.font('ui').fontSize(9).fillColor(INK.graphite)
-    .text(`Or reply to ${d.company.email || 'us'}${d.company.phone ? `, or call ${d.company.phone}` : ''}, quoting ${d.quote.number}. This quote is valid until ${longDate(d.quote.validUntil, d.quote.locale)}.`, left, doc.y + 6, { width });
+  doc
+    .font('ui')
+    .fontSize(9)
+    .fillColor(INK.graphite)
+    .text(
+      `Or reply to ${d.company.email || 'us'}${d.company.phone ? `, or call ${d.company.phone}` : ''}, quoting ${d.quote.number}. This quote is valid until ${longDate(d.quote.validUntil, d.quote.locale)}.`,
+      left,
+      doc.y + 6,
+      { width },
+    );
 
   return done(`${d.company.name} · Quote ${d.quote.number}${d.quote.version > 1 ? ` v${d.quote.version}` : ''}`);
 }

@@ -21,7 +21,13 @@ export function authRouter(deps: AppDeps, auth: AuthService, passport: AppPasspo
     keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
     message: tooMany,
   });
-  const mailLimiter = rateLimit({ windowMs: 15 * 60_000, limit: deps.config.loginRateLimit, standardHeaders: 'draft-8', legacyHeaders: false, message: tooMany });
+  const mailLimiter = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: deps.config.loginRateLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    message: tooMany,
+  });
 
   const r = Router();
   r.post('/login', loginLimiter, validate({ body: loginBodySchema }), c.login);

@@ -9,15 +9,33 @@ import { loadCompanySettings } from '../settings/settings.service';
 
 export function toProductDto(p: Product): ProductDto {
   return {
-    id: p.id, name: p.name, supplierCode: p.supplierCode, thicknessMm: p.thicknessMm, rollWidthMm: p.rollWidthMm, lanes: p.lanes,
-    rollLengthMm: p.rollLengthMm, coverageM2: p.coverageM2, lambdaWmK: p.lambdaWmK, unitPriceMinor: p.unitPriceMinor,
-    unitCostMinor: p.unitCostMinor, taxClass: p.taxClass, roles: p.roles, active: p.active,
+    id: p.id,
+    name: p.name,
+    supplierCode: p.supplierCode,
+    thicknessMm: p.thicknessMm,
+    rollWidthMm: p.rollWidthMm,
+    lanes: p.lanes,
+    rollLengthMm: p.rollLengthMm,
+    coverageM2: p.coverageM2,
+    lambdaWmK: p.lambdaWmK,
+    unitPriceMinor: p.unitPriceMinor,
+    unitCostMinor: p.unitCostMinor,
+    taxClass: p.taxClass,
+    roles: p.roles,
+    active: p.active,
   };
 }
 export function toExtraDto(e: Extra): ExtraDto {
   return {
-    id: e.id, kind: e.kind, name: e.name, unit: e.unit, unitPriceMinor: e.unitPriceMinor, unitCostMinor: e.unitCostMinor,
-    minutesPerUnit: e.minutesPerUnit, taxClass: e.taxClass, active: e.active,
+    id: e.id,
+    kind: e.kind,
+    name: e.name,
+    unit: e.unit,
+    unitPriceMinor: e.unitPriceMinor,
+    unitCostMinor: e.unitCostMinor,
+    minutesPerUnit: e.minutesPerUnit,
+    taxClass: e.taxClass,
+    active: e.active,
   };
 }
 export function toTaxRateDto(t: TaxRate): TaxRateDto {
@@ -29,8 +47,20 @@ export async function loadCatalogue(organisationId: string) {
   await loadCompanySettings(organisationId); // makes sure the default tax rates exist
   const [products, extras, taxRates] = await Promise.all([
     Product.findAll({ where: { organisationId }, order: [['name', 'ASC']] }),
-    Extra.findAll({ where: { organisationId }, order: [['kind', 'ASC'], ['name', 'ASC']] }),
-    TaxRate.findAll({ where: { organisationId }, order: [['taxClass', 'ASC'], ['validFrom', 'ASC']] }),
+    Extra.findAll({
+      where: { organisationId },
+      order: [
+        ['kind', 'ASC'],
+        ['name', 'ASC'],
+      ],
+    }),
+    TaxRate.findAll({
+      where: { organisationId },
+      order: [
+        ['taxClass', 'ASC'],
+        ['validFrom', 'ASC'],
+      ],
+    }),
   ]);
   return { products: products.map(toProductDto), extras: extras.map(toExtraDto), taxRates: taxRates.map(toTaxRateDto) };
 }

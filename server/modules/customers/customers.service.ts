@@ -44,7 +44,13 @@ export function createCustomersService() {
       if (query.q?.trim()) {
         const p = likePattern(query.q.trim());
         Object.assign(where, {
-          [Op.or]: [{ name: { [Op.iLike]: p } }, { email: { [Op.iLike]: p } }, { postcode: { [Op.iLike]: p } }, { town: { [Op.iLike]: p } }, { addressLine1: { [Op.iLike]: p } }],
+          [Op.or]: [
+            { name: { [Op.iLike]: p } },
+            { email: { [Op.iLike]: p } },
+            { postcode: { [Op.iLike]: p } },
+            { town: { [Op.iLike]: p } },
+            { addressLine1: { [Op.iLike]: p } },
+          ],
         });
       }
       const rows = await Customer.findAll({ where, order: [['name', 'ASC']], limit: 500 });

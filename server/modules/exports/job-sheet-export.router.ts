@@ -40,20 +40,28 @@ export function jobSheetExportRouter(deps: AppDeps) {
     if (!row?.email) throw new ValidationError([{ path: 'assignedInstallerId', message: 'the assigned installer has no e-mail address' }]);
     const a = sheet.job.propertyAddress;
     const subject = `Job sheet ${sheet.job.reference}: ${a.line1}, ${a.town}${sheet.job.installDate ? ` on ${sheet.job.installDate}` : ''}`;
-    await sendRecordedMail(deps, { organisationId: user.organisationId, jobId: sheet.job.id, userId: user.id, purpose: 'job_sheet' }, {
+    await sendRecordedMail(
+      deps,
+      { organisationId: user.organisationId, jobId: sheet.job.id, userId: user.id, purpose: 'job_sheet' },
+      {
+        to: row.email,
+        subject,
+        text: [
+          `Hello ${installer.name},`,
+          '',
+          `The job sheet for ${sheet.job.reference} at ${[a.line1, a.town, a.postcode].filter(Boolean).join(', ')} is attached: the plan with numbered strips and lay direction, the cut list by roll, the van load and the site checks.`,
+          `Open it on your phone to tick the checks and add photos: ${deps.config.appUrl}/jobs/${sheet.job.id}`,
+          '',
+          'Work safely: follow the cautions on the first page and local regulations.',
+        ].join('\n'),
+        attachments: [{ filename: `job-sheet-${sheet.job.reference}.pdf`, content: pdf, contentType: 'application/pdf' }],
+      },
+    );
+    await recordEvent(user.organisationId, sheet.job.id, user.id, 'job_sheet_sent', {
       to: row.email,
-      subject,
-      text: [
-        `Hello ${installer.name},`,
-        '',
-        `The job sheet for ${sheet.job.reference} at ${[a.line1, a.town, a.postcode].filter(Boolean).join(', ')} is attached: the plan with numbered strips and lay direction, the cut list by roll, the van load and the site checks.`,
-        `Open it on your phone to tick the checks and add photos: ${deps.config.appUrl}/jobs/${sheet.job.id}`,
-        '',
-        'Work safely: follow the cautions on the first page and local regulations.',
-      ].join('\n'),
-      attachments: [{ filename: `job-sheet-${sheet.job.reference}.pdf`, content: pdf, contentType: 'application/pdf' }],
+      installerId: installer.id,
+      text: `Job sheet e-mailed to ${installer.name}`,
     });
-    await recordEvent(user.organisationId, sheet.job.id, user.id, 'job_sheet_sent', { to: row.email, installerId: installer.id, text: `Job sheet e-mailed to ${installer.name}` });
     res.json({ sent: true, to: row.email });
   });
   return r;

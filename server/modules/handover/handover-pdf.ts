@@ -90,8 +90,14 @@ export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
   doc.moveDown(1).font('bold').fontSize(13).fillColor(INK).text('Looking after your insulation', 48);
   doc.font('body').fontSize(10.5);
   for (const line of CARE_ADVICE) doc.text(`• ${line}`, { width });
-  doc.moveDown(0.4).fillColor(MUTED).fontSize(9)
-    .text('Local building regulations, electrical rules and licensed practice come first; ask a qualified person before changing wiring, flues or ventilation.', { width });
+  doc
+    .moveDown(0.4)
+    .fillColor(MUTED)
+    .fontSize(9)
+    .text(
+      'Local building regulations, electrical rules and licensed practice come first; ask a qualified person before changing wiring, flues or ventilation.',
+      { width },
+    );
 
   if (d.signedReceipt) drawReceipt(doc, d, width);
   doc.end();
@@ -108,7 +114,10 @@ function drawPhotos(doc: PDFKit.PDFDocument, photos: HandoverData['spaces'][numb
     photos.slice(i, i + 2).forEach((p, j) => {
       const x = 48 + j * (boxW + 12);
       doc.image(p.jpeg, x, top, { fit: [boxW, boxH], align: 'center', valign: 'center' });
-      doc.font('body').fontSize(8.5).fillColor(MUTED)
+      doc
+        .font('body')
+        .fontSize(8.5)
+        .fillColor(MUTED)
         .text(`${p.stage === 'before' ? 'Before' : 'After'}${p.caption ? ` — ${p.caption}` : ''}`, x, top + boxH + 2, { width: boxW });
     });
     doc.x = 48;
@@ -134,8 +143,19 @@ function drawReceipt(doc: PDFKit.PDFDocument, d: HandoverData, width: number) {
   }
   doc.moveDown(2);
   const y = doc.y;
-  doc.moveTo(48, y + 24).lineTo(248, y + 24).strokeColor(INK).stroke();
-  doc.moveTo(300, y + 24).lineTo(500, y + 24).stroke();
-  doc.fontSize(9).fillColor(MUTED).text('Installer signature', 48, y + 28).text('Customer signature', 300, y + 28);
+  doc
+    .moveTo(48, y + 24)
+    .lineTo(248, y + 24)
+    .strokeColor(INK)
+    .stroke();
+  doc
+    .moveTo(300, y + 24)
+    .lineTo(500, y + 24)
+    .stroke();
+  doc
+    .fontSize(9)
+    .fillColor(MUTED)
+    .text('Installer signature', 48, y + 28)
+    .text('Customer signature', 300, y + 28);
   doc.x = 48;
 }

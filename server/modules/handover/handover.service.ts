@@ -23,13 +23,21 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
       loadInstallSettings(job.organisationId),
     ]);
     const installer = completion?.user ?? (job.assignedInstallerId ? await User.findByPk(job.assignedInstallerId) : null);
-    const spaces = await Space.findAll({ where: { jobId: job.id }, order: [['position', 'ASC'], ['createdAt', 'ASC']] });
+    const spaces = await Space.findAll({
+      where: { jobId: job.id },
+      order: [
+        ['position', 'ASC'],
+        ['createdAt', 'ASC'],
+      ],
+    });
     const revisions = await latestRevisionRows(spaces.map((s) => s.id));
     const photoRows = await JobPhoto.findAll({ where: { jobId: job.id }, order: [['takenAt', 'ASC']] });
     const out: HandoverData['spaces'] = [];
     for (const s of spaces) {
       const t = revisions.get(s.id)?.takeoff;
-      const chosen = (['before', 'after'] as const).flatMap((stage) => photoRows.filter((p) => p.spaceId === s.id && p.stage === stage).slice(0, PHOTOS_PER_STAGE));
+      const chosen = (['before', 'after'] as const).flatMap((stage) =>
+        photoRows.filter((p) => p.spaceId === s.id && p.stage === stage).slice(0, PHOTOS_PER_STAGE),
+      );
       const photos = [];
       for (const p of chosen) photos.push({ stage: p.stage as 'before' | 'after', caption: p.caption, jpeg: await storage.get(p.storageKey) });
       out.push({
@@ -38,7 +46,14 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         uValueBefore: isTakeoff(t) ? t.uValueBefore : null,
         uValueAfter: isTakeoff(t) ? t.uValueAfter : null,
         layers: isTakeoff(t)
-          ? t.layers.map((l) => ({ productName: l.productName, role: l.role, thicknessMm: l.thicknessMm, areaM2: l.areaM2, rolls: l.rollsByPacking, lambdaWmK: l.lambda ?? null }))
+          ? t.layers.map((l) => ({
+              productName: l.productName,
+              role: l.role,
+              thicknessMm: l.thicknessMm,
+              areaM2: l.areaM2,
+              rolls: l.rollsByPacking,
+              lambdaWmK: l.lambda ?? null,
+            }))
           : [],
         photos,
       });
@@ -83,7 +98,21 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
             if (tick?.done) continue;
             if (given) {
               if (tick) await tick.update({ reason: given, userId: user.id, tickedAt: now }, { transaction: t });
-              else await JobTick.create({ organisationId: user.organisationId, jobId: j.id, spaceId: s.id, kind: 'check', ref: c.code, done: false, reason: given, userId: user.id, tickedAt: now }, { transaction: t });
+              else
+                await JobTick.create(
+                  {
+                    organisationId: user.organisationId,
+                    jobId: j.id,
+                    spaceId: s.id,
+                    kind: 'check',
+                    ref: c.code,
+                    done: false,
+                    reason: given,
+                    userId: user.id,
+                    tickedAt: now,
+                  },
+                  { transaction: t },
+                );
               continue;
             }
             if (!tick?.reason) missing.push({ path: `checks.${s.id}:${c.code}`, message: `${s.name}: "${c.title}" is not ticked and has no reason` });
@@ -94,7 +123,10 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
           throw new ConflictError(`not ready to mark installed: ${missing.map((m) => m.message).join('; ')}`, 'not_ready', missing);
         }
         await j.update({ stage: 'installed' }, { transaction: t });
-        await JobCompletion.create({ jobId: j.id, organisationId: user.organisationId, userId: user.id, completedAt: now, reasons, handoverKey: null }, { transaction: t });
+        await JobCompletion.create(
+          { jobId: j.id, organisationId: user.organisationId, userId: user.id, completedAt: now, reasons, handoverKey: null },
+          { transaction: t },
+        );
         await JobEvent.create({ organisationId: user.organisationId, jobId: j.id, userId: user.id, kind: 'installed', data: { reasons } }, { transaction: t });
         return j;
       });

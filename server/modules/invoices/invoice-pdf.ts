@@ -29,7 +29,11 @@ const formatDate = (iso: string) => longDate(iso);
 
 /** Render the invoice (or credit note) to a PDF buffer. */
 export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'A4', margin: 50, info: { Title: `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`, Author: company.name } });
+  const doc = new PDFDocument({
+    size: 'A4',
+    margin: 50,
+    info: { Title: `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`, Author: company.name },
+  });
   doc.registerFont('regular', FONTS.regular);
   doc.registerFont('semibold', FONTS.semibold);
   // 'mono' = Inter with tabular figures, so columns of amounts line up.
@@ -48,13 +52,25 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   const isCredit = invoice.kind === 'credit_note';
 
   // Header: company on the left, document title and number on the right.
-  doc.font('semibold').fontSize(16).fillColor(INK.graphite).text(company.name, left, 50, { width: width / 2 });
+  doc
+    .font('semibold')
+    .fontSize(16)
+    .fillColor(INK.graphite)
+    .text(company.name, left, 50, { width: width / 2 });
   doc.font('regular').fontSize(9).fillColor(INK.graphiteLight);
   for (const l of [...company.addressLines, company.email, company.phone, company.taxNumber ? `VAT no. ${company.taxNumber}` : undefined]) {
     if (l) doc.text(l, { width: width / 2 });
   }
-  doc.font('semibold').fontSize(20).fillColor(isCredit ? INK.brick : INK.timber).text(isCredit ? 'Credit note' : 'Invoice', left + width / 2, 50, { width: width / 2, align: 'right', ...TNUM });
-  doc.font('mono').fontSize(11).fillColor(INK.graphite).text(invoice.number, { width: width / 2, align: 'right', ...TNUM });
+  doc
+    .font('semibold')
+    .fontSize(20)
+    .fillColor(isCredit ? INK.brick : INK.timber)
+    .text(isCredit ? 'Credit note' : 'Invoice', left + width / 2, 50, { width: width / 2, align: 'right', ...TNUM });
+  doc
+    .font('mono')
+    .fontSize(11)
+    .fillColor(INK.graphite)
+    .text(invoice.number, { width: width / 2, align: 'right', ...TNUM });
   doc.font('regular').fontSize(9).fillColor(INK.graphiteLight);
   doc.text(`Issued ${formatDate(invoice.issueDate)}`, { width: width / 2, align: 'right', ...TNUM });
   if (!isCredit && invoice.dueDate) doc.text(`Due ${formatDate(invoice.dueDate)}`, { width: width / 2, align: 'right', ...TNUM });
@@ -65,7 +81,11 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   // Bill to
   let y = Math.max(doc.y, 150) + 16;
   doc.font('semibold').fontSize(9).fillColor(INK.graphiteLight).text('BILL TO', left, y);
-  doc.font('regular').fontSize(10).fillColor(INK.graphite).text(invoice.customerName, left, doc.y + 2);
+  doc
+    .font('regular')
+    .fontSize(10)
+    .fillColor(INK.graphite)
+    .text(invoice.customerName, left, doc.y + 2);
   for (const l of invoice.billingAddress) doc.text(l);
   if (isCredit && invoice.reason) {
     doc.moveDown(0.6).font('semibold').fontSize(9).fillColor(INK.graphiteLight).text('REASON');
@@ -106,14 +126,26 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     doc.text(money(line.netMinor), cols.net, y, { width: 65, align: 'right', ...TNUM });
     doc.text(money(line.grossMinor), cols.total, y, { width: 75, align: 'right', ...TNUM });
     y += Math.max(descHeight, 12) + 6;
-    doc.moveTo(left, y - 3).lineTo(right, y - 3).lineWidth(0.4).strokeColor(INK.paperLine).stroke();
+    doc
+      .moveTo(left, y - 3)
+      .lineTo(right, y - 3)
+      .lineWidth(0.4)
+      .strokeColor(INK.paperLine)
+      .stroke();
   }
 
   // Totals
   y += 8;
   const row = (label: string, value: string, bold = false) => {
-    doc.font(bold ? 'semibold' : 'regular').fontSize(bold ? 11 : 9.5).fillColor(INK.graphite).text(label, right - 260, y, { width: 170, align: 'right', ...TNUM });
-    doc.font(bold ? 'semibold' : 'mono').fontSize(bold ? 11 : 9.5).text(value, right - 85, y, { width: 85, align: 'right', ...TNUM });
+    doc
+      .font(bold ? 'semibold' : 'regular')
+      .fontSize(bold ? 11 : 9.5)
+      .fillColor(INK.graphite)
+      .text(label, right - 260, y, { width: 170, align: 'right', ...TNUM });
+    doc
+      .font(bold ? 'semibold' : 'mono')
+      .fontSize(bold ? 11 : 9.5)
+      .text(value, right - 85, y, { width: 85, align: 'right', ...TNUM });
     y += bold ? 18 : 14;
   };
   row('Net', money(invoice.netMinor));
@@ -129,11 +161,19 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   if (!isCredit && invoice.status !== 'paid' && invoice.balanceMinor > 0 && invoice.payUrl) {
     y += 12;
     doc.font('semibold').fontSize(10).fillColor(INK.timber).text('Pay online', left, y);
-    doc.font('regular').fontSize(9).fillColor(INK.graphite).text('Pay the balance by card at this private link:', left, doc.y + 2, { width });
+    doc
+      .font('regular')
+      .fontSize(9)
+      .fillColor(INK.graphite)
+      .text('Pay the balance by card at this private link:', left, doc.y + 2, { width });
     doc.font('regular').fontSize(8.5).fillColor(INK.graphite).text(invoice.payUrl, { width, link: invoice.payUrl, underline: false });
   } else if (!isCredit && invoice.status === 'paid' && invoice.paidAt) {
     y += 12;
-    doc.font('semibold').fontSize(10).fillColor(INK.timber).text(`Paid in full on ${formatDate(invoice.paidAt)}. Thank you.`, left, y);
+    doc
+      .font('semibold')
+      .fontSize(10)
+      .fillColor(INK.timber)
+      .text(`Paid in full on ${formatDate(invoice.paidAt)}. Thank you.`, left, y);
   }
   if (invoice.notes) {
     doc.moveDown(1).font('regular').fontSize(9).fillColor(INK.graphiteLight).text(invoice.notes, left, doc.y, { width });

@@ -1,6 +1,14 @@
 import { randomBytes } from 'node:crypto';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import type { CreditNoteCreate, Invoice as InvoiceDto, InvoiceCreate, InvoiceLineInput, InvoiceListQuery, InvoicePatch, InvoiceSummary } from '../../../shared/api/invoices';
+import type {
+  CreditNoteCreate,
+  Invoice as InvoiceDto,
+  InvoiceCreate,
+  InvoiceLineInput,
+  InvoiceListQuery,
+  InvoicePatch,
+  InvoiceSummary,
+} from '../../../shared/api/invoices';
 import { formatMoney } from '../../../shared/quote/money';
 import { taxRateOn, type DatedTaxRate } from '../../../shared/quote/tax';
 import type { AppDeps } from '../../deps';
@@ -44,7 +52,10 @@ const formatNumber = (series: string, n: number) => `${series}-${String(n).padSt
  */
 export async function takeNumber(deps: Pick<AppDeps, 'sequelize'>, organisationId: string, series: string, t: Transaction): Promise<number> {
   const s = deps.sequelize;
-  await s.query('INSERT INTO invoice_counters (organisation_id, series, next_number) VALUES (:org, :series, 1) ON CONFLICT DO NOTHING', { replacements: { org: organisationId, series }, transaction: t });
+  await s.query('INSERT INTO invoice_counters (organisation_id, series, next_number) VALUES (:org, :series, 1) ON CONFLICT DO NOTHING', {
+    replacements: { org: organisationId, series },
+    transaction: t,
+  });
   const rows = await s.query<{ n: number }>(
     'UPDATE invoice_counters SET next_number = next_number + 1 WHERE organisation_id = :org AND series = :series RETURNING next_number - 1 AS n',
     { replacements: { org: organisationId, series }, type: QueryTypes.SELECT, transaction: t },
@@ -79,13 +90,25 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
       inv.creditedInvoiceId ? Invoice.findByPk(inv.creditedInvoiceId) : null,
       creditNotesOf(inv),
     ]);
-    return toInvoiceDto(inv, lines, { jobReference: job?.reference ?? '', quoteReference: quote?.number ?? null, creditedInvoiceNumber: credited?.number ?? null, creditNotes, appUrl: ctx.appUrl });
+    return toInvoiceDto(inv, lines, {
+      jobReference: job?.reference ?? '',
+      quoteReference: quote?.number ?? null,
+      creditedInvoiceNumber: credited?.number ?? null,
+      creditNotes,
+      appUrl: ctx.appUrl,
+    });
   }
 
   async function companyDetails(organisationId: string): Promise<CompanyDetails> {
     const c = await loadCompanySettings(organisationId);
     const a = c.address;
-    return { name: c.companyName, addressLines: [a.line1, a.line2, `${a.town} ${a.postcode}`.trim()].filter(Boolean), email: c.email, phone: c.phone || undefined, taxNumber: c.taxNumber || undefined };
+    return {
+      name: c.companyName,
+      addressLines: [a.line1, a.line2, `${a.town} ${a.postcode}`.trim()].filter(Boolean),
+      email: c.email,
+      phone: c.phone || undefined,
+      taxNumber: c.taxNumber || undefined,
+    };
   }
 
   async function ratesOf(organisationId: string): Promise<DatedTaxRate[]> {
@@ -95,7 +118,13 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
   }
 
   /** Price lines the office typed, with the company's rate for each tax class on the document's date. */
-  function priceInputs(inputs: readonly InvoiceLineInput[], source: 'variation' | 'credit', rates: DatedTaxRate[], dateIso: string, pathPrefix: string): LineRow[] {
+  function priceInputs(
+    inputs: readonly InvoiceLineInput[],
+    source: 'variation' | 'credit',
+    rates: DatedTaxRate[],
+    dateIso: string,
+    pathPrefix: string,
+  ): LineRow[] {
     return inputs.map((l, i) => {
       let rateBp: number;
       try {
@@ -104,12 +133,25 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
         throw new ValidationError([{ path: `${pathPrefix}.${i}.taxClass`, message: e instanceof Error ? e.message : 'no tax rate' }]);
       }
       const a = lineAmounts({ quantity: l.quantity, unitPriceMinor: l.unitPriceMinor, rateBp });
-      return { source, description: l.description, quantity: l.quantity, unit: l.unit ?? 'each', unitPriceMinor: l.unitPriceMinor, taxClass: l.taxClass, rateBp, netMinor: a.netMinor, taxMinor: a.taxMinor };
+      return {
+        source,
+        description: l.description,
+        quantity: l.quantity,
+        unit: l.unit ?? 'each',
+        unitPriceMinor: l.unitPriceMinor,
+        taxClass: l.taxClass,
+        rateBp,
+        netMinor: a.netMinor,
+        taxMinor: a.taxMinor,
+      };
     });
   }
 
   async function insertLines(inv: Invoice, rows: LineRow[], t: Transaction) {
-    await InvoiceLine.bulkCreate(rows.map((r, i) => ({ ...r, organisationId: inv.organisationId, invoiceId: inv.id, position: i + 1 })), { transaction: t });
+    await InvoiceLine.bulkCreate(
+      rows.map((r, i) => ({ ...r, organisationId: inv.organisationId, invoiceId: inv.id, position: i + 1 })),
+      { transaction: t },
+    );
   }
 
   async function event(inv: Invoice, userId: string | null, kind: string, data: Record<string, unknown>, t?: Transaction) {
@@ -137,7 +179,12 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           '',
           company.name,
         ].join('\n');
-    await deps.mailer.send({ to: inv.customerEmail, subject: `${title} from ${company.name}`, text: body, attachments: [{ filename: `${d.number}.pdf`, content: pdf, contentType: 'application/pdf' }] });
+    await deps.mailer.send({
+      to: inv.customerEmail,
+      subject: `${title} from ${company.name}`,
+      text: body,
+      attachments: [{ filename: `${d.number}.pdf`, content: pdf, contentType: 'application/pdf' }],
+    });
     await inv.update({ sentAt: new Date() });
     return true;
   }
@@ -150,7 +197,8 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
     async create(actor: Actor, body: InvoiceCreate & { variations: InvoiceLineInput[]; notes: string; send: boolean }): Promise<InvoiceDto> {
       const job = await Job.findOne({ where: { id: body.jobId, organisationId: actor.organisationId } });
       if (!job) throw new NotFoundError('job');
-      if (job.stage !== 'installed' && job.stage !== 'closed') throw new ConflictError(`an invoice is made once the job is installed (this job is ${job.stage})`, 'job_not_installed');
+      if (job.stage !== 'installed' && job.stage !== 'closed')
+        throw new ConflictError(`an invoice is made once the job is installed (this job is ${job.stage})`, 'job_not_installed');
       const quote = await Quote.findOne({ where: { jobId: job.id, organisationId: actor.organisationId, status: 'accepted' }, order: [['version', 'DESC']] });
       if (!quote) throw new ConflictError('this job has no accepted quote to invoice', 'no_accepted_quote');
       const customer = await Customer.findByPk(job.customerId);
@@ -159,8 +207,15 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
       const issueDate = todayIso();
       const priced = await pricedQuoteLines(quote);
       const quoteRows: LineRow[] = priced.lines.map((p) => ({
-        source: 'quote', description: p.line.description, quantity: p.line.quantity, unit: p.line.unit, unitPriceMinor: p.line.unitPriceMinor,
-        taxClass: p.line.taxClass, rateBp: p.rateBp, netMinor: p.netMinor, taxMinor: p.taxMinor,
+        source: 'quote',
+        description: p.line.description,
+        quantity: p.line.quantity,
+        unit: p.line.unit,
+        unitPriceMinor: p.line.unitPriceMinor,
+        taxClass: p.line.taxClass,
+        rateBp: p.rateBp,
+        netMinor: p.netMinor,
+        taxMinor: p.taxMinor,
       }));
       const variationRows = priceInputs(body.variations, 'variation', await ratesOf(actor.organisationId), issueDate, 'variations');
       const rows = [...quoteRows, ...variationRows];
@@ -173,22 +228,49 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           const seq = await takeNumber(deps, actor.organisationId, SERIES.invoice, t);
           const created = await Invoice.create(
             {
-              organisationId: actor.organisationId, jobId: job.id, quoteId: quote.id, kind: 'invoice', series: SERIES.invoice, seq, number: formatNumber(SERIES.invoice, seq),
-              creditedInvoiceId: null, issueDate, dueDate: addDays(issueDate, settings.paymentTermsDays), currency: quote.currency,
-              customerName: customer?.name ?? '', customerEmail: customer?.email ?? '',
+              organisationId: actor.organisationId,
+              jobId: job.id,
+              quoteId: quote.id,
+              kind: 'invoice',
+              series: SERIES.invoice,
+              seq,
+              number: formatNumber(SERIES.invoice, seq),
+              creditedInvoiceId: null,
+              issueDate,
+              dueDate: addDays(issueDate, settings.paymentTermsDays),
+              currency: quote.currency,
+              customerName: customer?.name ?? '',
+              customerEmail: customer?.email ?? '',
               billingAddress: customer ? [customer.addressLine1, customer.addressLine2, customer.town, customer.postcode].filter(Boolean) : [],
-              netMinor: totals.netMinor, taxMinor: totals.taxMinor, totalMinor: totals.totalMinor,
+              netMinor: totals.netMinor,
+              taxMinor: totals.taxMinor,
+              totalMinor: totals.totalMinor,
               depositMinor: deposit.state === 'paid' ? Math.min(deposit.amountMinor, totals.totalMinor) : 0,
-              notes: body.notes, payToken: randomBytes(24).toString('base64url'), createdById: actor.id,
+              notes: body.notes,
+              payToken: randomBytes(24).toString('base64url'),
+              createdById: actor.id,
             },
             { transaction: t },
           );
           await insertLines(created, rows, t);
-          await event(created, actor.id, 'invoice_issued', { invoiceId: created.id, invoiceNumber: created.number, amountMinor: created.totalMinor, currency: created.currency, paymentText: `Invoice ${created.number} issued for ${formatMoney(created.totalMinor, created.currency)}` }, t);
+          await event(
+            created,
+            actor.id,
+            'invoice_issued',
+            {
+              invoiceId: created.id,
+              invoiceNumber: created.number,
+              amountMinor: created.totalMinor,
+              currency: created.currency,
+              paymentText: `Invoice ${created.number} issued for ${formatMoney(created.totalMinor, created.currency)}`,
+            },
+            t,
+          );
           return created;
         });
       } catch (e) {
-        if ((e as { name?: string }).name === 'SequelizeUniqueConstraintError') throw new ConflictError('this job already has an invoice; correct it with a credit note', 'invoice_exists');
+        if ((e as { name?: string }).name === 'SequelizeUniqueConstraintError')
+          throw new ConflictError('this job already has an invoice; correct it with a credit note', 'invoice_exists');
         throw e;
       }
       if (body.send) await mailDocument(inv);
@@ -200,13 +282,27 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
       if (q.jobId) where.jobId = q.jobId;
       if (q.status === 'paid') where.status = 'paid';
       if (q.status === 'issued' || q.status === 'overdue') where.status = 'issued';
-      const rows = await Invoice.findAll({ where, order: [['issueDate', 'DESC'], ['series', 'ASC'], ['seq', 'DESC']] });
+      const rows = await Invoice.findAll({
+        where,
+        order: [
+          ['issueDate', 'DESC'],
+          ['series', 'ASC'],
+          ['seq', 'DESC'],
+        ],
+      });
       const jobs = await Job.findAll({ where: { id: { [Op.in]: [...new Set(rows.map((r) => r.jobId))] } }, attributes: ['id', 'reference'] });
       const refOf = new Map(jobs.map((j) => [j.id, j.reference]));
       const creditsOf = new Map<string, Invoice[]>();
       for (const r of rows) if (r.creditedInvoiceId) creditsOf.set(r.creditedInvoiceId, [...(creditsOf.get(r.creditedInvoiceId) ?? []), r]);
       // Credit notes of listed invoices that the filter left out still reduce their balance.
-      const missing = await Invoice.findAll({ where: { organisationId: actor.organisationId, kind: 'credit_note', creditedInvoiceId: { [Op.in]: rows.filter((r) => r.kind === 'invoice').map((r) => r.id) }, id: { [Op.notIn]: rows.map((r) => r.id) } } });
+      const missing = await Invoice.findAll({
+        where: {
+          organisationId: actor.organisationId,
+          kind: 'credit_note',
+          creditedInvoiceId: { [Op.in]: rows.filter((r) => r.kind === 'invoice').map((r) => r.id) },
+          id: { [Op.notIn]: rows.map((r) => r.id) },
+        },
+      });
       for (const c of missing) creditsOf.set(c.creditedInvoiceId!, [...(creditsOf.get(c.creditedInvoiceId!) ?? []), c]);
       const out = rows.map((r) => toSummary(r, { jobReference: refOf.get(r.jobId) ?? '', creditNotes: creditsOf.get(r.id) ?? [] }));
       return q.status === 'overdue' ? out.filter((s) => s.overdue) : out;
@@ -235,7 +331,8 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
         const inv = await find(actor, id, t);
         if (inv.kind !== 'invoice') throw new ConflictError('a credit note cannot be changed', 'credit_note_final');
         if (inv.status === 'paid') throw new ConflictError('a paid invoice cannot be changed: issue a credit note instead', 'invoice_paid');
-        if ((await creditNotesOf(inv, t)).length) throw new ConflictError('this invoice has credit notes: issue another credit note instead', 'invoice_credited');
+        if ((await creditNotesOf(inv, t)).length)
+          throw new ConflictError('this invoice has credit notes: issue another credit note instead', 'invoice_credited');
         const patch: Partial<Invoice['_creationAttributes']> = {};
         if (body.notes !== undefined) patch.notes = body.notes;
         if (body.dueDate !== undefined) {
@@ -246,9 +343,17 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           const rows = priceInputs(body.variations as InvoiceLineInput[], 'variation', await ratesOf(inv.organisationId), inv.issueDate, 'variations');
           await InvoiceLine.destroy({ where: { invoiceId: inv.id, source: 'variation' }, transaction: t });
           const kept = await InvoiceLine.findAll({ where: { invoiceId: inv.id }, order: [['position', 'ASC']], transaction: t });
-          await InvoiceLine.bulkCreate(rows.map((r, i) => ({ ...r, organisationId: inv.organisationId, invoiceId: inv.id, position: kept.length + i + 1 })), { transaction: t });
+          await InvoiceLine.bulkCreate(
+            rows.map((r, i) => ({ ...r, organisationId: inv.organisationId, invoiceId: inv.id, position: kept.length + i + 1 })),
+            { transaction: t },
+          );
           const totals = sumLines([...kept, ...rows]);
-          Object.assign(patch, { netMinor: totals.netMinor, taxMinor: totals.taxMinor, totalMinor: totals.totalMinor, depositMinor: Math.min(inv.depositMinor, totals.totalMinor) });
+          Object.assign(patch, {
+            netMinor: totals.netMinor,
+            taxMinor: totals.taxMinor,
+            totalMinor: totals.totalMinor,
+            depositMinor: Math.min(inv.depositMinor, totals.totalMinor),
+          });
         }
         await inv.update(patch, { transaction: t });
       });
@@ -258,7 +363,11 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
     },
 
     /** Issue a credit note against an invoice; optionally pay it back to the card. */
-    async creditNote(actor: Actor, invoiceId: string, body: CreditNoteCreate & { lines: InvoiceLineInput[]; refund: boolean; reason: string }): Promise<InvoiceDto> {
+    async creditNote(
+      actor: Actor,
+      invoiceId: string,
+      body: CreditNoteCreate & { lines: InvoiceLineInput[]; refund: boolean; reason: string },
+    ): Promise<InvoiceDto> {
       const rates = await ratesOf(actor.organisationId);
       const issueDate = todayIso();
       const rows = priceInputs(body.lines, 'credit', rates, issueDate, 'lines');
@@ -268,24 +377,58 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
         const inv = await find(actor, invoiceId, t);
         if (inv.kind !== 'invoice') throw new ConflictError('credit notes are issued against invoices', 'not_an_invoice');
         if (body.refund && inv.status !== 'paid') {
-          throw new ValidationError([{ path: 'refund', message: 'this invoice is not paid yet: the credit reduces what is left to pay, there is nothing to refund' }]);
+          throw new ValidationError([
+            { path: 'refund', message: 'this invoice is not paid yet: the credit reduces what is left to pay, there is nothing to refund' },
+          ]);
         }
         const already = creditedTotal(await creditNotesOf(inv, t));
         if (already + totals.totalMinor > inv.totalMinor) {
-          throw new ValidationError([{ path: 'lines', message: `at most ${formatMoney(inv.totalMinor - already, inv.currency)} is left to credit on ${inv.number}` }]);
+          throw new ValidationError([
+            { path: 'lines', message: `at most ${formatMoney(inv.totalMinor - already, inv.currency)} is left to credit on ${inv.number}` },
+          ]);
         }
         const seq = await takeNumber(deps, actor.organisationId, SERIES.credit_note, t);
         const cn = await Invoice.create(
           {
-            organisationId: actor.organisationId, jobId: inv.jobId, quoteId: inv.quoteId, kind: 'credit_note', series: SERIES.credit_note, seq, number: formatNumber(SERIES.credit_note, seq),
-            creditedInvoiceId: inv.id, issueDate, dueDate: null, currency: inv.currency, customerName: inv.customerName, customerEmail: inv.customerEmail,
-            billingAddress: inv.billingAddress, netMinor: totals.netMinor, taxMinor: totals.taxMinor, totalMinor: totals.totalMinor, depositMinor: 0,
-            reason: body.reason, payToken: null, createdById: actor.id,
+            organisationId: actor.organisationId,
+            jobId: inv.jobId,
+            quoteId: inv.quoteId,
+            kind: 'credit_note',
+            series: SERIES.credit_note,
+            seq,
+            number: formatNumber(SERIES.credit_note, seq),
+            creditedInvoiceId: inv.id,
+            issueDate,
+            dueDate: null,
+            currency: inv.currency,
+            customerName: inv.customerName,
+            customerEmail: inv.customerEmail,
+            billingAddress: inv.billingAddress,
+            netMinor: totals.netMinor,
+            taxMinor: totals.taxMinor,
+            totalMinor: totals.totalMinor,
+            depositMinor: 0,
+            reason: body.reason,
+            payToken: null,
+            createdById: actor.id,
           },
           { transaction: t },
         );
         await insertLines(cn, rows, t);
-        await event(cn, actor.id, 'credit_note_issued', { invoiceId: inv.id, creditNoteId: cn.id, creditNoteNumber: cn.number, amountMinor: cn.totalMinor, currency: cn.currency, paymentText: `Credit note ${cn.number} for ${formatMoney(cn.totalMinor, cn.currency)} against ${inv.number}` }, t);
+        await event(
+          cn,
+          actor.id,
+          'credit_note_issued',
+          {
+            invoiceId: inv.id,
+            creditNoteId: cn.id,
+            creditNoteNumber: cn.number,
+            amountMinor: cn.totalMinor,
+            currency: cn.currency,
+            paymentText: `Credit note ${cn.number} for ${formatMoney(cn.totalMinor, cn.currency)} against ${inv.number}`,
+          },
+          t,
+        );
         return cn;
       });
       await Payment.update({ status: 'expired' }, { where: { invoiceId, status: 'open' } });
@@ -312,7 +455,11 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
     if (!ctx.gateway) throw new BadRequestError('card payments are not set up on this server, so nothing can be refunded by card');
     const inv = await find(actor, invoiceId);
     const paid = await Payment.findAll({
-      where: { organisationId: actor.organisationId, status: 'paid', [Op.or]: [{ invoiceId: inv.id }, ...(inv.quoteId ? [{ quoteId: inv.quoteId, purpose: 'deposit' }] : [])] },
+      where: {
+        organisationId: actor.organisationId,
+        status: 'paid',
+        [Op.or]: [{ invoiceId: inv.id }, ...(inv.quoteId ? [{ quoteId: inv.quoteId, purpose: 'deposit' }] : [])],
+      },
       order: [['purpose', 'ASC']], // 'balance' before 'deposit'
     });
     let left = cn.totalMinor;
@@ -324,11 +471,24 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
         r = await ctx.gateway.refund(p.paymentIntentId, amount, { creditNote: cn.number, paymentId: p.id });
       } catch (e) {
         // The credit note stands; the office refunds by hand and sees why here.
-        await event(cn, actor.id, 'refund_failed', { paymentId: p.id, creditNoteNumber: cn.number, amountMinor: amount, currency: cn.currency, paymentText: `Card refund of ${formatMoney(amount, cn.currency)} failed: ${e instanceof Error ? e.message : 'error'}` });
+        await event(cn, actor.id, 'refund_failed', {
+          paymentId: p.id,
+          creditNoteNumber: cn.number,
+          amountMinor: amount,
+          currency: cn.currency,
+          paymentText: `Card refund of ${formatMoney(amount, cn.currency)} failed: ${e instanceof Error ? e.message : 'error'}`,
+        });
         continue;
       }
       left -= r.amountMinor;
-      await event(cn, actor.id, 'payment_refunded', { paymentId: p.id, refundId: r.id, creditNoteNumber: cn.number, amountMinor: r.amountMinor, currency: r.currency.toUpperCase(), paymentText: `Refunded ${formatMoney(r.amountMinor, r.currency.toUpperCase())} to the card for ${cn.number}` });
+      await event(cn, actor.id, 'payment_refunded', {
+        paymentId: p.id,
+        refundId: r.id,
+        creditNoteNumber: cn.number,
+        amountMinor: r.amountMinor,
+        currency: r.currency.toUpperCase(),
+        paymentText: `Refunded ${formatMoney(r.amountMinor, r.currency.toUpperCase())} to the card for ${cn.number}`,
+      });
     }
   }
 

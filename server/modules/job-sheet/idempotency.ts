@@ -48,10 +48,10 @@ export async function runOnce(
       return { status: row.status_code, body: row.response, replayed: true };
     }
     const result = await work(t);
-    await sequelize.query(
-      'UPDATE idempotency_keys SET status_code = :status, response = CAST(:body AS jsonb) WHERE user_id = :userId AND key = :key',
-      { replacements: { status: result.status, body: JSON.stringify(result.body ?? null), userId: user.id, key }, transaction: t },
-    );
+    await sequelize.query('UPDATE idempotency_keys SET status_code = :status, response = CAST(:body AS jsonb) WHERE user_id = :userId AND key = :key', {
+      replacements: { status: result.status, body: JSON.stringify(result.body ?? null), userId: user.id, key },
+      transaction: t,
+    });
     return { ...result, replayed: false };
   });
 }

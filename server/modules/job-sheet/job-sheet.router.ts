@@ -28,10 +28,12 @@ export function jobSheetRouter(deps: AppDeps) {
 
   /** Runs a write once per Idempotency-Key and answers with the stored (or fresh) result. */
   const once = (req: Request, res: Response, work: Parameters<typeof runOnce>[4]) =>
-    runOnce(deps.sequelize, currentUser(req), readIdempotencyKey(req.get(IDEMPOTENCY_HEADER)), `${req.method} ${req.baseUrl}${req.path}`, work).then((out: StoredResult & { replayed: boolean }) => {
-      if (out.replayed) res.set('Idempotent-Replayed', 'true');
-      res.status(out.status).json(out.body);
-    });
+    runOnce(deps.sequelize, currentUser(req), readIdempotencyKey(req.get(IDEMPOTENCY_HEADER)), `${req.method} ${req.baseUrl}${req.path}`, work).then(
+      (out: StoredResult & { replayed: boolean }) => {
+        if (out.replayed) res.set('Idempotent-Replayed', 'true');
+        res.status(out.status).json(out.body);
+      },
+    );
 
   r.get('/my-jobs', requireAuth, requireCan('jobsheet:work'), async (req, res) => {
     res.json({ jobs: await sheets.myJobs(currentUser(req)) });
@@ -63,4 +65,3 @@ export function jobSheetRouter(deps: AppDeps) {
   });
   return r;
 }
-

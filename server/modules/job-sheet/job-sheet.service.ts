@@ -26,7 +26,13 @@ export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage
     /** Everything the installer needs on site, built field by field: no price, cost or margin can be in it. */
     async sheet(user: SessionUser, jobId: string): Promise<JobSheet> {
       const job = await findSheetJob(user, jobId);
-      const spaces = await Space.findAll({ where: { jobId: job.id }, order: [['position', 'ASC'], ['createdAt', 'ASC']] });
+      const spaces = await Space.findAll({
+        where: { jobId: job.id },
+        order: [
+          ['position', 'ASC'],
+          ['createdAt', 'ASC'],
+        ],
+      });
       const revisions = await latestRevisionRows(spaces.map((s) => s.id));
       const completion = await JobCompletion.findByPk(job.id, { include: ['user'] });
       return {
@@ -48,7 +54,11 @@ export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage
         notes: await records.listNotes(job.id),
         photos: await photos.list(job.id),
         completion: completion
-          ? { by: { id: completion.userId ?? '', name: completion.user?.name ?? 'former user' }, at: completion.completedAt.toISOString(), handoverUrl: `/api/jobs/${job.id}/handover.pdf` }
+          ? {
+              by: { id: completion.userId ?? '', name: completion.user?.name ?? 'former user' },
+              at: completion.completedAt.toISOString(),
+              handoverUrl: `/api/jobs/${job.id}/handover.pdf`,
+            }
           : null,
       };
     },
@@ -57,8 +67,14 @@ export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage
     async myJobs(user: SessionUser): Promise<MyJob[]> {
       const jobs = await Job.findAll({
         where: { organisationId: user.organisationId, assignedInstallerId: user.id, stage: { [Op.in]: ['scheduled', 'installed', 'closed'] } },
-        include: [{ model: Customer, as: 'customer' }, { model: Space, as: 'spaces' }],
-        order: [['installDate', 'ASC'], ['reference', 'ASC']],
+        include: [
+          { model: Customer, as: 'customer' },
+          { model: Space, as: 'spaces' },
+        ],
+        order: [
+          ['installDate', 'ASC'],
+          ['reference', 'ASC'],
+        ],
       });
       return jobs.map((j) => ({
         id: j.id,

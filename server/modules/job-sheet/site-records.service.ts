@@ -52,10 +52,17 @@ export function createSiteRecordsService(_deps: Pick<AppDeps, 'sequelize'>) {
       if (body.kind !== 'check' && body.reason) throw fieldError('reason', 'only a site check takes a reason');
       const at = recordedAt(body.at);
       const values = { done: body.done, reason: body.done ? '' : (body.reason ?? ''), userId: user.id, tickedAt: at };
-      const existing = await JobTick.findOne({ where: { jobId: job.id, spaceId: body.spaceId, kind: body.kind, ref: body.ref }, transaction: t, lock: t.LOCK.UPDATE });
+      const existing = await JobTick.findOne({
+        where: { jobId: job.id, spaceId: body.spaceId, kind: body.kind, ref: body.ref },
+        transaction: t,
+        lock: t.LOCK.UPDATE,
+      });
       const tick = existing
         ? await existing.update(values, { transaction: t })
-        : await JobTick.create({ organisationId: user.organisationId, jobId: job.id, spaceId: body.spaceId, kind: body.kind, ref: body.ref, ...values }, { transaction: t });
+        : await JobTick.create(
+            { organisationId: user.organisationId, jobId: job.id, spaceId: body.spaceId, kind: body.kind, ref: body.ref, ...values },
+            { transaction: t },
+          );
       return tickToDto(tick, user.name);
     },
 
@@ -67,7 +74,10 @@ export function createSiteRecordsService(_deps: Pick<AppDeps, 'sequelize'>) {
         { organisationId: user.organisationId, jobId: job.id, spaceId: body.spaceId ?? null, userId: user.id, text: body.text, notedAt: recordedAt(body.at) },
         { transaction: t },
       );
-      await JobEvent.create({ organisationId: user.organisationId, jobId: job.id, userId: user.id, kind: 'site_note', data: { noteId: note.id } }, { transaction: t });
+      await JobEvent.create(
+        { organisationId: user.organisationId, jobId: job.id, userId: user.id, kind: 'site_note', data: { noteId: note.id } },
+        { transaction: t },
+      );
       return noteToDto(note, user.name);
     },
 

@@ -74,7 +74,6 @@ function sheetLayer(l: TakeoffLayer): SheetLayer {
   };
 }
 
-
 function sheetStrip(key: string, s: TakeoffLayer['strips'][number]): SheetStrip {
   const polygons = stripPolygons(s).map((poly) => poly.map((p) => [Number(p[0]), Number(p[1])] as [number, number]));
   return {
@@ -132,7 +131,12 @@ function sheetPlan(plan: unknown): SheetSpace['plan'] {
     outline: p.outline.map((q) => [Number(q[0]), Number(q[1])] as [number, number]),
     eavesEdges: (p.eavesEdges ?? []).map(Number),
     eavesGapMm: Number(p.eavesGapMm ?? 50),
-    joists: { angleDeg: Number(p.joists.angleDeg), centresMm: Number(p.joists.centresMm), widthMm: Number(p.joists.widthMm), offsetMm: Number(p.joists.offsetMm ?? 0) },
+    joists: {
+      angleDeg: Number(p.joists.angleDeg),
+      centresMm: Number(p.joists.centresMm),
+      widthMm: Number(p.joists.widthMm),
+      offsetMm: Number(p.joists.offsetMm ?? 0),
+    },
     exclusions: (p.exclusions ?? []).map((e) => ({
       kind: String(e.kind),
       label: String(e.label ?? ''),
@@ -145,10 +149,18 @@ function sheetPlan(plan: unknown): SheetSpace['plan'] {
 /** One space of the job sheet from its latest revision (or a clear problem when there is none). */
 export function sheetSpace(space: { id: string; name: string }, row: RevisionRow | undefined): SheetSpace {
   const empty = { layers: [], rolls: [], checks: [], netAreaM2: null, uValueBefore: null, uValueAfter: null };
-  if (!row) return { id: space.id, name: space.name, revision: null, plan: null, ...empty, problem: 'No plan has been drawn for this space yet: ask the office.' };
+  if (!row)
+    return { id: space.id, name: space.name, revision: null, plan: null, ...empty, problem: 'No plan has been drawn for this space yet: ask the office.' };
   const plan = sheetPlan(row.plan);
   if (!isTakeoff(row.takeoff)) {
-    return { id: space.id, name: space.name, revision: row.revision, plan, ...empty, problem: 'The takeoff for this plan has not been worked out: ask the office to open and save the plan.' };
+    return {
+      id: space.id,
+      name: space.name,
+      revision: row.revision,
+      plan,
+      ...empty,
+      problem: 'The takeoff for this plan has not been worked out: ask the office to open and save the plan.',
+    };
   }
   const t = row.takeoff;
   return {

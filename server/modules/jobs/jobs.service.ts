@@ -35,7 +35,12 @@ export async function findJobForUser(actor: SessionUser, jobId: string): Promise
 }
 
 /** Appends to a job's timeline. Other modules call it too (quote sent, installed, ...). */
-export async function recordJobEvent(job: Pick<Job, 'id' | 'organisationId'>, actor: Pick<SessionUser, 'id'> | null, kind: string, data: Record<string, unknown> = {}) {
+export async function recordJobEvent(
+  job: Pick<Job, 'id' | 'organisationId'>,
+  actor: Pick<SessionUser, 'id'> | null,
+  kind: string,
+  data: Record<string, unknown> = {},
+) {
   await JobEvent.create({ organisationId: job.organisationId, jobId: job.id, userId: actor?.id ?? null, kind, data });
 }
 
@@ -76,11 +81,20 @@ function orderFor(query: JobListQuery): Order {
     case 'created':
       return [['createdAt', dir]];
     case 'stage':
-      return [[seq.literal(`array_position(ARRAY[${JOB_STAGES.map((s) => `'${s}'`).join(',')}]::varchar[], "Job"."stage")`), dir], ['updatedAt', 'DESC']];
+      return [
+        [seq.literal(`array_position(ARRAY[${JOB_STAGES.map((s) => `'${s}'`).join(',')}]::varchar[], "Job"."stage")`), dir],
+        ['updatedAt', 'DESC'],
+      ];
     case 'customer':
-      return [[{ model: Customer, as: 'customer' }, 'name', dir], ['reference', 'ASC']];
+      return [
+        [{ model: Customer, as: 'customer' }, 'name', dir],
+        ['reference', 'ASC'],
+      ];
     case 'installDate':
-      return [['installDate', `${dir} NULLS LAST`], ['reference', 'ASC']];
+      return [
+        ['installDate', `${dir} NULLS LAST`],
+        ['reference', 'ASC'],
+      ];
     default:
       return [['updatedAt', dir]];
   }
@@ -159,7 +173,10 @@ export function createJobsService(deps: AppDeps) {
           },
           { transaction },
         );
-        await JobEvent.create({ organisationId: actor.organisationId, jobId: created.id, userId: actor.id, kind: 'created', data: { reference, stage: body.stage } }, { transaction });
+        await JobEvent.create(
+          { organisationId: actor.organisationId, jobId: created.id, userId: actor.id, kind: 'created', data: { reference, stage: body.stage } },
+          { transaction },
+        );
         return created;
       });
       return this.get(actor, job.id);
@@ -173,7 +190,12 @@ export function createJobsService(deps: AppDeps) {
       const changes: Partial<Job> = {};
       if (patch.customerId !== undefined) changes.customerId = patch.customerId;
       if (patch.propertyAddress) {
-        Object.assign(changes, { addressLine1: patch.propertyAddress.line1, addressLine2: patch.propertyAddress.line2 ?? '', town: patch.propertyAddress.town, postcode: patch.propertyAddress.postcode });
+        Object.assign(changes, {
+          addressLine1: patch.propertyAddress.line1,
+          addressLine2: patch.propertyAddress.line2 ?? '',
+          town: patch.propertyAddress.town,
+          postcode: patch.propertyAddress.postcode,
+        });
       }
       for (const k of ['stage', 'assignedInstallerId', 'installDate', 'accessNotes', 'notes'] as const) {
         if (patch[k] !== undefined) (changes as Record<string, unknown>)[k] = patch[k];
@@ -187,7 +209,8 @@ export function createJobsService(deps: AppDeps) {
         if (changes.assignedInstallerId !== undefined && changes.assignedInstallerId !== before.assignedInstallerId) {
           await ev('assigned', { from: before.assignedInstallerId, to: changes.assignedInstallerId });
         }
-        if (changes.installDate !== undefined && changes.installDate !== before.installDate) await ev('scheduled', { from: before.installDate, to: changes.installDate });
+        if (changes.installDate !== undefined && changes.installDate !== before.installDate)
+          await ev('scheduled', { from: before.installDate, to: changes.installDate });
         const other = Object.keys(changes).filter((k) => !['stage', 'assignedInstallerId', 'installDate'].includes(k));
         if (other.length) await ev('updated', { fields: other });
       });
@@ -201,7 +224,13 @@ export function createJobsService(deps: AppDeps) {
         include: [{ model: User, as: 'user', attributes: ['id', 'name'] }],
         order: [['createdAt', 'ASC']],
       });
-      const dtos = rows.map((e) => ({ id: e.id, kind: e.kind, data: e.data, user: e.user ? { id: e.user.id, name: e.user.name } : null, createdAt: e.createdAt.toISOString() }));
+      const dtos = rows.map((e) => ({
+        id: e.id,
+        kind: e.kind,
+        data: e.data,
+        user: e.user ? { id: e.user.id, name: e.user.name } : null,
+        createdAt: e.createdAt.toISOString(),
+      }));
       return can(actor, 'prices:read') ? dtos : redactPrices(dtos);
     },
 

@@ -1,8 +1,7 @@
 /** The customer's payment pages (no sign-in): plain server-rendered HTML in Quiltline's notebook look. */
 import { formatMoney } from '../../../shared/quote/money';
 
-export const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** CSP for these pages: forms may post here and be redirected on to the hosted checkout only. */
 export function payPageCsp(checkoutOrigins: string[]): string {

@@ -27,7 +27,13 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   const r = Router();
   r.use(express.urlencoded({ extended: false, limit: '10kb' }));
   // Each POST opens a checkout at the payment service: keep a stranger from opening thousands.
-  const startLimit = rateLimit({ windowMs: 15 * 60_000, limit: 60, standardHeaders: 'draft-8', legacyHeaders: false, message: 'Too many attempts: wait a few minutes.' });
+  const startLimit = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: 60,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    message: 'Too many attempts: wait a few minutes.',
+  });
   r.post('/{*rest}', startLimit);
   r.use((_req, res, next) => {
     res.setHeader('Content-Security-Policy', payPageCsp(ctx.checkoutOrigins));
@@ -48,7 +54,8 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
 
   const companyName = async (organisationId: string) => (await CompanySetting.findByPk(organisationId))?.companyName ?? '';
   const send = (res: Response, status: number, html: string) => res.status(status).type('html').send(html);
-  const notFound = (res: Response) => send(res, 404, payLayout('Link not recognised', '<p>This payment link is not valid. Please use the latest link from your e-mail, or contact us.</p>'));
+  const notFound = (res: Response) =>
+    send(res, 404, payLayout('Link not recognised', '<p>This payment link is not valid. Please use the latest link from your e-mail, or contact us.</p>'));
 
   r.get('/deposit/:link', async (req, res) => {
     const quote = await quoteFromLink(String(req.params.link), linkSecret(deps));
@@ -56,18 +63,51 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     const company = await companyName(quote.organisationId);
     const status = await payments.depositStatusOf(quote);
     if (quote.status !== 'accepted') {
-      return send(res, 409, payLayout(`Quote ${quote.number}`, `<p class="warn">A deposit is taken once the quote is accepted.</p><p><a href="/q/${encodeURIComponent(String(req.params.link))}">Back to the quote</a></p>`, { company }));
+      return send(
+        res,
+        409,
+        payLayout(
+          `Quote ${quote.number}`,
+          `<p class="warn">A deposit is taken once the quote is accepted.</p><p><a href="/q/${encodeURIComponent(String(req.params.link))}">Back to the quote</a></p>`,
+          { company },
+        ),
+      );
     }
     if (status.state === 'paid') {
-      return send(res, 200, payLayout('Deposit received', `<p class="ok">We received your deposit of <strong>${money(status.amountMinor, status.currency)}</strong> for quote ${escapeHtml(quote.number)}. Thank you.</p>`, { company }));
+      return send(
+        res,
+        200,
+        payLayout(
+          'Deposit received',
+          `<p class="ok">We received your deposit of <strong>${money(status.amountMinor, status.currency)}</strong> for quote ${escapeHtml(quote.number)}. Thank you.</p>`,
+          { company },
+        ),
+      );
     }
-    if (status.state === 'none') return send(res, 200, payLayout('No deposit needed', `<p>No deposit is needed for quote ${escapeHtml(quote.number)}. We will be in touch to arrange the work.</p>`, { company }));
-    send(res, 200, payLayout(`Deposit for quote ${quote.number}`, `
+    if (status.state === 'none')
+      return send(
+        res,
+        200,
+        payLayout('No deposit needed', `<p>No deposit is needed for quote ${escapeHtml(quote.number)}. We will be in touch to arrange the work.</p>`, {
+          company,
+        }),
+      );
+    send(
+      res,
+      200,
+      payLayout(
+        `Deposit for quote ${quote.number}`,
+        `
       <p>Thank you for accepting quote ${escapeHtml(quote.number)}. To book the work, please pay the deposit by card.</p>
       <div class="amount" data-testid="deposit-amount">${money(status.amountMinor, status.currency)}</div>
-      ${ctx.gateway
-        ? '<form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay deposit by card</button></form><p class="note">You will be taken to our card payment page. The remaining balance is invoiced after the work is done.</p>'
-        : '<p class="warn">Card payment is not available here at the moment: we will contact you about paying the deposit.</p>'}`, { company }));
+      ${
+        ctx.gateway
+          ? '<form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay deposit by card</button></form><p class="note">You will be taken to our card payment page. The remaining balance is invoiced after the work is done.</p>'
+          : '<p class="warn">Card payment is not available here at the moment: we will contact you about paying the deposit.</p>'
+      }`,
+        { company },
+      ),
+    );
   });
 
   r.post('/deposit/:link', async (req, res) => {
@@ -90,12 +130,28 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
       <dt>Total</dt><dd>${money(d.totalMinor, d.currency)}</dd>${d.depositMinor ? `<dt>Deposit paid</dt><dd>−${money(d.depositMinor, d.currency)}</dd>` : ''}${d.creditedMinor ? `<dt>Credited</dt><dd>−${money(d.creditedMinor, d.currency)}</dd>` : ''}</dl>`;
     const pdf = `<a class="btn btn-quiet" href="/pay/invoice/${encodeURIComponent(String(req.params.token))}/pdf">Download the PDF</a>`;
     if (d.balanceMinor <= 0) {
-      return send(res, 200, payLayout(`Invoice ${d.number}`, `<p class="ok">${d.status === 'paid' ? 'This invoice is paid. Thank you.' : 'Nothing is left to pay on this invoice.'}</p>${rows}<div class="actions">${pdf}</div>`, { company }));
+      return send(
+        res,
+        200,
+        payLayout(
+          `Invoice ${d.number}`,
+          `<p class="ok">${d.status === 'paid' ? 'This invoice is paid. Thank you.' : 'Nothing is left to pay on this invoice.'}</p>${rows}<div class="actions">${pdf}</div>`,
+          { company },
+        ),
+      );
     }
-    send(res, 200, payLayout(`Invoice ${d.number}`, `
+    send(
+      res,
+      200,
+      payLayout(
+        `Invoice ${d.number}`,
+        `
       ${d.overdue ? '<p class="warn">This invoice is overdue.</p>' : ''}
       <p>Balance to pay</p><div class="amount" data-testid="balance">${money(d.balanceMinor, d.currency)}</div>${rows}
-      ${ctx.gateway ? `<form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay by card</button>${pdf}</form>` : `<p class="warn">Card payment is not available here at the moment: please pay as agreed with us.</p><div class="actions">${pdf}</div>`}`, { company }));
+      ${ctx.gateway ? `<form method="post" class="actions"><button class="btn btn-primary" type="submit">Pay by card</button>${pdf}</form>` : `<p class="warn">Card payment is not available here at the moment: please pay as agreed with us.</p><div class="actions">${pdf}</div>`}`,
+        { company },
+      ),
+    );
   });
 
   r.post('/invoice/:token', async (req, res) => {
@@ -123,18 +179,42 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     const company = await companyName(p.organisationId);
     const what = p.purpose === 'deposit' ? 'deposit' : 'payment';
     if (p.status === 'paid') {
-      return send(res, 200, payLayout('Payment received', `<p class="ok" data-testid="paid">We received your ${what} of <strong>${money(p.amountMinor, p.currency)}</strong>. Thank you. A receipt is on its way from the card payment service.</p>`, { company }));
+      return send(
+        res,
+        200,
+        payLayout(
+          'Payment received',
+          `<p class="ok" data-testid="paid">We received your ${what} of <strong>${money(p.amountMinor, p.currency)}</strong>. Thank you. A receipt is on its way from the card payment service.</p>`,
+          { company },
+        ),
+      );
     }
-    send(res, 200, payLayout('Confirming your payment…', `<p class="warn" data-testid="confirming">We are waiting for the card payment service to confirm your ${what} of ${money(p.amountMinor, p.currency)}. This page refreshes by itself.</p>`, { company, refreshSeconds: 2 }));
+    send(
+      res,
+      200,
+      payLayout(
+        'Confirming your payment…',
+        `<p class="warn" data-testid="confirming">We are waiting for the card payment service to confirm your ${what} of ${money(p.amountMinor, p.currency)}. This page refreshes by itself.</p>`,
+        { company, refreshSeconds: 2 },
+      ),
+    );
   });
 
   r.get('/cancelled/:token', async (req, res) => {
     const p = await payments.paymentByToken(String(req.params.token)).catch(() => null);
     if (!p) return notFound(res);
     const company = await companyName(p.organisationId);
-    send(res, 200, payLayout('Payment not taken', `
+    send(
+      res,
+      200,
+      payLayout(
+        'Payment not taken',
+        `
       <p data-testid="cancelled">You left the card payment page, so nothing was paid.</p>
-      <form method="post" action="/pay/retry/${encodeURIComponent(p.token)}" class="actions"><button class="btn btn-primary" type="submit">Try again: pay ${money(p.amountMinor, p.currency)}</button></form>`, { company }));
+      <form method="post" action="/pay/retry/${encodeURIComponent(p.token)}" class="actions"><button class="btn btn-primary" type="submit">Try again: pay ${money(p.amountMinor, p.currency)}</button></form>`,
+        { company },
+      ),
+    );
   });
 
   r.post('/retry/:token', async (req, res) => {
@@ -158,7 +238,14 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
       return send(res, err.status, payLayout('Payment not available', `<p class="warn">${escapeHtml(err.message)}</p>`));
     }
     console.error('[pay] error:', err instanceof Error ? err.message : err);
-    send(res, 502, payLayout('Card payment unavailable', '<p class="warn">The card payment service could not be reached, so nothing was paid. Please try again in a few minutes.</p>'));
+    send(
+      res,
+      502,
+      payLayout(
+        'Card payment unavailable',
+        '<p class="warn">The card payment service could not be reached, so nothing was paid. Please try again in a few minutes.</p>',
+      ),
+    );
   });
 
   return r;

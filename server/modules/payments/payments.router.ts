@@ -37,14 +37,26 @@ export function paymentsRouter(deps: AppDeps, service: PaymentsService = createP
     const quote = await quoteFromLink(link, linkSecret(deps));
     if (!quote) throw new NotFoundError('quote');
     const d = await service.depositStatusOf(quote);
-    res.json({ deposit: { state: d.state, amountMinor: d.amountMinor, currency: d.currency, paidAt: d.paidAt, payUrl: quote.status === 'accepted' && d.state === 'due' ? `/pay/deposit/${encodeURIComponent(link)}` : null } });
+    res.json({
+      deposit: {
+        state: d.state,
+        amountMinor: d.amountMinor,
+        currency: d.currency,
+        paidAt: d.paidAt,
+        payUrl: quote.status === 'accepted' && d.state === 'due' ? `/pay/deposit/${encodeURIComponent(link)}` : null,
+      },
+    });
   });
   r.use(requireAuth);
   r.get('/settings', requireCan('settings:manage'), async (req, res) => {
     res.json({ settings: await service.settingsOf(currentUser(req).organisationId), provider: service.provider, enabled: service.provider !== 'off' });
   });
   r.put('/settings', requireCan('settings:manage'), validate({ body: paymentSettingsBodySchema }), async (req, res) => {
-    res.json({ settings: await service.updateSettings(currentUser(req).organisationId, req.body), provider: service.provider, enabled: service.provider !== 'off' });
+    res.json({
+      settings: await service.updateSettings(currentUser(req).organisationId, req.body),
+      provider: service.provider,
+      enabled: service.provider !== 'off',
+    });
   });
   r.get('/deposits/:quoteId', requireCan('prices:read'), validate({ params: z.object({ quoteId: z.uuid() }) }), async (req, res) => {
     res.json({ deposit: await service.depositStatus(currentUser(req).organisationId, String(req.params.quoteId)) });

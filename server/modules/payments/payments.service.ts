@@ -56,7 +56,13 @@ export function createPaymentsService(deps: AppDeps) {
       currency: p.currency,
       description,
       reference,
-      metadata: { paymentId: p.id, purpose: p.purpose, organisationId: p.organisationId, ...(p.quoteId ? { quoteId: p.quoteId } : {}), ...(p.invoiceId ? { invoiceId: p.invoiceId } : {}) },
+      metadata: {
+        paymentId: p.id,
+        purpose: p.purpose,
+        organisationId: p.organisationId,
+        ...(p.quoteId ? { quoteId: p.quoteId } : {}),
+        ...(p.invoiceId ? { invoiceId: p.invoiceId } : {}),
+      },
       successUrl: `${ctx.appUrl}/pay/done/${p.token}`,
       cancelUrl: `${ctx.appUrl}/pay/cancelled/${p.token}`,
       customerEmail,
@@ -114,7 +120,15 @@ export function createPaymentsService(deps: AppDeps) {
     async depositStatusOf(quote: Quote): Promise<DepositStatus> {
       const payments = await Payment.findAll({ where: { quoteId: quote.id, purpose: 'deposit' }, order: [['createdAt', 'ASC']] });
       const paid = payments.find((p) => p.status === 'paid');
-      if (paid) return { quoteId: quote.id, state: 'paid', amountMinor: paid.amountMinor, currency: paid.currency, paidAt: paid.paidAt?.toISOString() ?? null, attempts: payments.length };
+      if (paid)
+        return {
+          quoteId: quote.id,
+          state: 'paid',
+          amountMinor: paid.amountMinor,
+          currency: paid.currency,
+          paidAt: paid.paidAt?.toISOString() ?? null,
+          attempts: payments.length,
+        };
       const amount = await depositDue(quote);
       return { quoteId: quote.id, state: amount > 0 ? 'due' : 'none', amountMinor: amount, currency: quote.currency, paidAt: null, attempts: payments.length };
     },
@@ -130,8 +144,16 @@ export function createPaymentsService(deps: AppDeps) {
       if (!ctx.gateway) throw new PaymentsOffError();
       await expireOpen({ quoteId: quote.id, purpose: 'deposit' });
       const p = await Payment.create({
-        organisationId: quote.organisationId, jobId: quote.jobId, quoteId: quote.id, invoiceId: null, purpose: 'deposit',
-        amountMinor: status.amountMinor, currency: quote.currency, token: newToken(), checkoutSessionId: null, checkoutUrl: null,
+        organisationId: quote.organisationId,
+        jobId: quote.jobId,
+        quoteId: quote.id,
+        invoiceId: null,
+        purpose: 'deposit',
+        amountMinor: status.amountMinor,
+        currency: quote.currency,
+        token: newToken(),
+        checkoutSessionId: null,
+        checkoutUrl: null,
       });
       return openCheckout(p, `Deposit for quote ${quote.number}`, quote.number, await customerEmailOfJob(quote.jobId));
     },
@@ -142,8 +164,16 @@ export function createPaymentsService(deps: AppDeps) {
       if (!ctx.gateway) throw new PaymentsOffError();
       await expireOpen({ invoiceId: invoice.id, purpose: 'balance' });
       const p = await Payment.create({
-        organisationId: invoice.organisationId, jobId: invoice.jobId, quoteId: invoice.quoteId, invoiceId: invoice.id, purpose: 'balance',
-        amountMinor: balanceMinor, currency: invoice.currency, token: newToken(), checkoutSessionId: null, checkoutUrl: null,
+        organisationId: invoice.organisationId,
+        jobId: invoice.jobId,
+        quoteId: invoice.quoteId,
+        invoiceId: invoice.id,
+        purpose: 'balance',
+        amountMinor: balanceMinor,
+        currency: invoice.currency,
+        token: newToken(),
+        checkoutSessionId: null,
+        checkoutUrl: null,
       });
       return openCheckout(p, `Invoice ${invoice.number}`, invoice.number, invoice.customerEmail || null);
     },
@@ -177,7 +207,10 @@ export function createPaymentsService(deps: AppDeps) {
         if (!session.id || !event.type.startsWith('checkout.session.')) return { duplicate: false, handled: false };
         const p = await Payment.findOne({ where: { checkoutSessionId: session.id }, transaction: t, lock: t.LOCK.UPDATE });
         if (!p) return { duplicate: false, handled: false };
-        await sequelize.query('UPDATE payment_events SET organisation_id = :org, payment_id = :pid WHERE event_id = :id', { replacements: { org: p.organisationId, pid: p.id, id: event.id }, transaction: t });
+        await sequelize.query('UPDATE payment_events SET organisation_id = :org, payment_id = :pid WHERE event_id = :id', {
+          replacements: { org: p.organisationId, pid: p.id, id: event.id },
+          transaction: t,
+        });
         if (event.type === 'checkout.session.expired') {
           if (p.status === 'open') await p.update({ status: 'expired' }, { transaction: t });
           return { duplicate: false, handled: true };
@@ -185,8 +218,20 @@ export function createPaymentsService(deps: AppDeps) {
         if (!PAID_EVENTS.has(event.type) || session.payment_status !== 'paid' || p.status === 'paid') return { duplicate: false, handled: false };
         if (session.amount_total !== p.amountMinor || (session.currency ?? '').toLowerCase() !== p.currency.toLowerCase()) {
           // Never count money we did not ask for; the office sees it and sorts it out by hand.
-          await recordJobEvent(p, 'payment_mismatch', { paymentId: p.id, expectedMinor: p.amountMinor, receivedMinor: session.amount_total ?? null, currency: session.currency ?? null }, t);
-          after.push(() => mailOffice(deps.mailer, p.organisationId, 'Payment received with an unexpected amount', `A card payment for ${p.purpose} arrived for ${session.amount_total} ${session.currency} but ${p.amountMinor} ${p.currency} was asked. Check it in the payment service's dashboard.`));
+          await recordJobEvent(
+            p,
+            'payment_mismatch',
+            { paymentId: p.id, expectedMinor: p.amountMinor, receivedMinor: session.amount_total ?? null, currency: session.currency ?? null },
+            t,
+          );
+          after.push(() =>
+            mailOffice(
+              deps.mailer,
+              p.organisationId,
+              'Payment received with an unexpected amount',
+              `A card payment for ${p.purpose} arrived for ${session.amount_total} ${session.currency} but ${p.amountMinor} ${p.currency} was asked. Check it in the payment service's dashboard.`,
+            ),
+          );
           return { duplicate: false, handled: true };
         }
         const paidAt = new Date();
@@ -212,12 +257,22 @@ export function createPaymentsService(deps: AppDeps) {
         order: [['createdAt', 'ASC']],
       });
       const kindMap: Record<string, PaymentTimelineEntry['kind']> = {
-        deposit_paid: 'deposit-paid', invoice_issued: 'invoice-issued', invoice_paid: 'invoice-paid', credit_note_issued: 'credit-note-issued', payment_refunded: 'refund',
+        deposit_paid: 'deposit-paid',
+        invoice_issued: 'invoice-issued',
+        invoice_paid: 'invoice-paid',
+        credit_note_issued: 'credit-note-issued',
+        payment_refunded: 'refund',
       };
       return events.map((e) => {
         // `paymentText` (not `text`): price-like keys are stripped for installers (server/lib/redact.ts).
         const d = e.data as { amountMinor?: number; currency?: string; paymentText?: string };
-        return { at: e.createdAt.toISOString(), kind: kindMap[e.kind], text: d.paymentText ?? e.kind, amountMinor: d.amountMinor ?? 0, currency: d.currency ?? 'GBP' };
+        return {
+          at: e.createdAt.toISOString(),
+          kind: kindMap[e.kind],
+          text: d.paymentText ?? e.kind,
+          amountMinor: d.amountMinor ?? 0,
+          currency: d.currency ?? 'GBP',
+        };
       });
     },
   };
@@ -233,17 +288,40 @@ export function createPaymentsService(deps: AppDeps) {
       const others = await Payment.count({ where: { quoteId: p.quoteId, purpose: 'deposit', status: 'paid', id: { [Op.ne]: p.id } }, transaction: t });
       if (others > 0) {
         // Paid twice (two tabs): give the second one back at once.
-        await recordJobEvent(p, 'payment_refunded', { paymentId: p.id, amountMinor: p.amountMinor, currency: p.currency, paymentText: `Second deposit payment of ${money} refunded` }, t);
+        await recordJobEvent(
+          p,
+          'payment_refunded',
+          { paymentId: p.id, amountMinor: p.amountMinor, currency: p.currency, paymentText: `Second deposit payment of ${money} refunded` },
+          t,
+        );
         after.push(async () => {
           if (ctx.gateway && p.paymentIntentId) await ctx.gateway.refund(p.paymentIntentId, p.amountMinor, { reason: 'duplicate deposit', paymentId: p.id });
         });
         return;
       }
       const text = `Deposit of ${money} paid for quote ${quote?.number ?? ''}`.trim();
-      await recordJobEvent(p, 'deposit_paid', { paymentId: p.id, quoteId: p.quoteId, quoteNumber: quote?.number ?? null, amountMinor: p.amountMinor, currency: p.currency, paidAt: paidAt.toISOString(), paymentText: text }, t);
+      await recordJobEvent(
+        p,
+        'deposit_paid',
+        {
+          paymentId: p.id,
+          quoteId: p.quoteId,
+          quoteNumber: quote?.number ?? null,
+          amountMinor: p.amountMinor,
+          currency: p.currency,
+          paidAt: paidAt.toISOString(),
+          paymentText: text,
+        },
+        t,
+      );
       const job = await Job.findByPk(p.jobId, { include: ['customer'], transaction: t });
       after.push(() =>
-        mailOffice(deps.mailer, p.organisationId, `Deposit paid: ${money} for quote ${quote?.number ?? ''}`, `${job?.customer?.name ?? 'The customer'} paid a deposit of ${money} for quote ${quote?.number ?? ''} (job ${job?.reference ?? ''}) on ${paidAt.toUTCString()}.\n\nThe payment service's reference: ${p.paymentIntentId ?? p.checkoutSessionId}.`),
+        mailOffice(
+          deps.mailer,
+          p.organisationId,
+          `Deposit paid: ${money} for quote ${quote?.number ?? ''}`,
+          `${job?.customer?.name ?? 'The customer'} paid a deposit of ${money} for quote ${quote?.number ?? ''} (job ${job?.reference ?? ''}) on ${paidAt.toUTCString()}.\n\nThe payment service's reference: ${p.paymentIntentId ?? p.checkoutSessionId}.`,
+        ),
       );
       return;
     }
@@ -252,8 +330,28 @@ export function createPaymentsService(deps: AppDeps) {
       if (!inv) return;
       if (inv.status !== 'paid') await inv.update({ status: 'paid', paidAt }, { transaction: t });
       const text = `Invoice ${inv.number} paid: ${money}`;
-      await recordJobEvent(p, 'invoice_paid', { paymentId: p.id, invoiceId: inv.id, invoiceNumber: inv.number, amountMinor: p.amountMinor, currency: p.currency, paidAt: paidAt.toISOString(), paymentText: text }, t);
-      after.push(() => mailOffice(deps.mailer, p.organisationId, `Invoice ${inv.number} paid: ${money}`, `${inv.customerName} paid the balance of invoice ${inv.number}, ${money}, on ${paidAt.toUTCString()}.`));
+      await recordJobEvent(
+        p,
+        'invoice_paid',
+        {
+          paymentId: p.id,
+          invoiceId: inv.id,
+          invoiceNumber: inv.number,
+          amountMinor: p.amountMinor,
+          currency: p.currency,
+          paidAt: paidAt.toISOString(),
+          paymentText: text,
+        },
+        t,
+      );
+      after.push(() =>
+        mailOffice(
+          deps.mailer,
+          p.organisationId,
+          `Invoice ${inv.number} paid: ${money}`,
+          `${inv.customerName} paid the balance of invoice ${inv.number}, ${money}, on ${paidAt.toUTCString()}.`,
+        ),
+      );
     }
   }
 

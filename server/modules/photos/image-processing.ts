@@ -8,7 +8,10 @@ const FULL_MAX_PX = 2048;
 const THUMB_MAX_PX = 320;
 
 export class ImageRejected extends Error {
-  constructor(readonly code: 'not_an_image' | 'unreadable_image', message: string) {
+  constructor(
+    readonly code: 'not_an_image' | 'unreadable_image',
+    message: string,
+  ) {
     super(message);
   }
 }

@@ -24,7 +24,8 @@ function receivePhoto() {
     upload(req, res, (err: unknown) => {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'photo_too_large', `The photo is larger than ${MAX_MB} MB. Take it at a lower resolution or pick a smaller file.`));
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(new AppError(413, 'photo_too_large', `The photo is larger than ${MAX_MB} MB. Take it at a lower resolution or pick a smaller file.`));
         if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(fieldError('photo', 'send one photo, in the field "photo"'));
         return next(new AppError(400, 'bad_upload', err.message));
       }

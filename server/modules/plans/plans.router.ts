@@ -23,7 +23,10 @@ function receiveImage() {
     upload(req, res, (err: unknown) => {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'image_too_large', `the underlay image is larger than ${BACKGROUND_MAX_BYTES / 1024 / 1024} MB; scan or export it smaller`));
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(
+            new AppError(413, 'image_too_large', `the underlay image is larger than ${BACKGROUND_MAX_BYTES / 1024 / 1024} MB; scan or export it smaller`),
+          );
         if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(fieldError('image', 'send one image, in the field "image"'));
         return next(new AppError(400, 'bad_upload', err.message));
       }

@@ -31,7 +31,15 @@ export function starterPlan(name: string): Plan {
 }
 
 function messageDetail(m: PlanMessage): ErrorDetail {
-  const where = m.path ?? (m.edgeIndex !== undefined ? `outline.edge.${m.edgeIndex}` : m.pointIndex !== undefined ? `outline.${m.pointIndex}` : m.exclusionIndex !== undefined ? `exclusions.${m.exclusionIndex}` : '');
+  const where =
+    m.path ??
+    (m.edgeIndex !== undefined
+      ? `outline.edge.${m.edgeIndex}`
+      : m.pointIndex !== undefined
+        ? `outline.${m.pointIndex}`
+        : m.exclusionIndex !== undefined
+          ? `exclusions.${m.exclusionIndex}`
+          : '');
   return { path: where ? `plan.${where}` : 'plan', message: m.message };
 }
 

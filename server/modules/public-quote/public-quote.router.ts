@@ -12,7 +12,15 @@ const tokenParams = z.object({ token: z.string().min(10, { error: 'link token mi
 export function publicQuoteRouter(deps: AppDeps) {
   const s = createPublicQuoteService(deps);
   const r = Router();
-  r.use(rateLimit({ windowMs: 15 * 60_000, limit: 300, standardHeaders: 'draft-8', legacyHeaders: false, message: { error: { code: 'rate_limited', message: 'too many requests; wait a few minutes' } } }));
+  r.use(
+    rateLimit({
+      windowMs: 15 * 60_000,
+      limit: 300,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      message: { error: { code: 'rate_limited', message: 'too many requests; wait a few minutes' } },
+    }),
+  );
   r.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     res.setHeader('Referrer-Policy', 'no-referrer');

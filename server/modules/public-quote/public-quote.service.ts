@@ -63,7 +63,14 @@ export function createPublicQuoteService(deps: AppDeps) {
       locale: q.locale,
       issueDate: q.issueDate,
       validUntil: q.validUntil,
-      lines: totals.lines.map((p) => ({ description: p.line.description, quantity: p.line.quantity, unit: p.line.unit, unitPriceMinor: p.line.unitPriceMinor, netMinor: p.netMinor, rateBp: p.rateBp })),
+      lines: totals.lines.map((p) => ({
+        description: p.line.description,
+        quantity: p.line.quantity,
+        unit: p.line.unit,
+        unitPriceMinor: p.line.unitPriceMinor,
+        netMinor: p.netMinor,
+        rateBp: p.rateBp,
+      })),
       totals: { netMinor: totals.netMinor, taxByRate: totals.taxByRate, taxMinor: totals.taxMinor, grossMinor: totals.grossMinor },
       saving,
       cautions: snap.cautions,
@@ -77,7 +84,11 @@ export function createPublicQuoteService(deps: AppDeps) {
 
   async function notifyOffice(q: Quote, subject: string, text: string) {
     for (const to of await officeRecipients(q.organisationId)) {
-      await sendRecordedMail(deps, { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id }, { to, subject, text });
+      await sendRecordedMail(
+        deps,
+        { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id },
+        { to, subject, text },
+      );
     }
   }
 
@@ -104,8 +115,23 @@ export function createPublicQuoteService(deps: AppDeps) {
         if (n !== 1) return false;
         const from = job.stage;
         await job.update({ stage: 'accepted' }, { transaction: t });
-        await recordEvent(q.organisationId, job.id, null, 'quote_accepted', { quoteId: q.id, number: q.number, version: q.version, name: body.name, ip: meta.ip ?? null, text: `Quote ${q.number} accepted by ${body.name} through the private link` }, t);
-        if (from !== 'accepted') await recordEvent(q.organisationId, job.id, null, 'stage_changed', { from, to: 'accepted', reason: `quote ${q.number} accepted by the customer` }, t);
+        await recordEvent(
+          q.organisationId,
+          job.id,
+          null,
+          'quote_accepted',
+          {
+            quoteId: q.id,
+            number: q.number,
+            version: q.version,
+            name: body.name,
+            ip: meta.ip ?? null,
+            text: `Quote ${q.number} accepted by ${body.name} through the private link`,
+          },
+          t,
+        );
+        if (from !== 'accepted')
+          await recordEvent(q.organisationId, job.id, null, 'stage_changed', { from, to: 'accepted', reason: `quote ${q.number} accepted by the customer` }, t);
         return true;
       });
       if (!accepted) throw new LinkError('used');
@@ -133,7 +159,20 @@ export function createPublicQuoteService(deps: AppDeps) {
           await job.update({ stage: 'declined' }, { transaction: t });
           await recordEvent(q.organisationId, job.id, null, 'stage_changed', { from, to: 'declined', reason: `quote ${q.number} declined by the customer` }, t);
         }
-        await recordEvent(q.organisationId, job.id, null, 'quote_declined', { quoteId: q.id, number: q.number, version: q.version, reason: body.reason || null, text: `Quote ${q.number} declined by the customer${body.reason ? `: ${body.reason}` : ''}` }, t);
+        await recordEvent(
+          q.organisationId,
+          job.id,
+          null,
+          'quote_declined',
+          {
+            quoteId: q.id,
+            number: q.number,
+            version: q.version,
+            reason: body.reason || null,
+            text: `Quote ${q.number} declined by the customer${body.reason ? `: ${body.reason}` : ''}`,
+          },
+          t,
+        );
         return true;
       });
       if (!declined) throw new LinkError('used');

@@ -11,17 +11,47 @@ export function addressLines(a: { line1: string; line2?: string; town: string; p
 }
 
 /** Everything the customer's PDF prints, from the stored quote (the snapshot's tax rates, never today's). */
-export async function quotePdfData(q: Quote, lines: QuoteLine[], job: Job, settings: CompanySetting, storage: Storage, acceptUrl: string | null): Promise<QuotePdfData> {
+export async function quotePdfData(
+  q: Quote,
+  lines: QuoteLine[],
+  job: Job,
+  settings: CompanySetting,
+  storage: Storage,
+  acceptUrl: string | null,
+): Promise<QuotePdfData> {
   const { snap, totals, saving } = priceQuote(q, lines);
   let logo: Buffer | null = null;
   if (settings.logoKey && (await storage.exists(settings.logoKey))) logo = await storage.get(settings.logoKey);
   const customer = job.customer!;
   return {
-    company: { name: settings.companyName, addressLines: addressLines(settings.address), email: settings.email, phone: settings.phone, taxNumber: settings.taxNumber, logo },
+    company: {
+      name: settings.companyName,
+      addressLines: addressLines(settings.address),
+      email: settings.email,
+      phone: settings.phone,
+      taxNumber: settings.taxNumber,
+      logo,
+    },
     customer: { name: customer.name, email: customer.email, phone: customer.phone },
     propertyAddressLines: addressLines({ line1: job.addressLine1, line2: job.addressLine2, town: job.town, postcode: job.postcode }),
-    quote: { number: q.number, version: q.version, issueDate: q.issueDate, validUntil: q.validUntil, currency: q.currency, locale: q.locale, jobReference: job.reference },
-    lines: totals.lines.map((p) => ({ description: p.line.description, quantity: p.line.quantity, unit: p.line.unit, unitPriceMinor: p.line.unitPriceMinor, netMinor: p.netMinor, rateBp: p.rateBp, note: p.line.note })),
+    quote: {
+      number: q.number,
+      version: q.version,
+      issueDate: q.issueDate,
+      validUntil: q.validUntil,
+      currency: q.currency,
+      locale: q.locale,
+      jobReference: job.reference,
+    },
+    lines: totals.lines.map((p) => ({
+      description: p.line.description,
+      quantity: p.line.quantity,
+      unit: p.line.unit,
+      unitPriceMinor: p.line.unitPriceMinor,
+      netMinor: p.netMinor,
+      rateBp: p.rateBp,
+      note: p.line.note,
+    })),
     totals: { netMinor: totals.netMinor, taxByRate: totals.taxByRate, taxMinor: totals.taxMinor, grossMinor: totals.grossMinor },
     saving,
     spaces: snap.spaces,

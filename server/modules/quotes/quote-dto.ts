@@ -7,7 +7,14 @@ import type { QuoteLine } from '../../db/models/quote-line';
 /** What a quote keeps from the time it was built (never recomputed once sent). */
 export interface QuoteSnapshot {
   spaces: Array<{
-    id: string; name: string; revision: number | null; plan: unknown; netAreaM2: number | null; uBefore: number | null; uAfter: number | null; layers: string[];
+    id: string;
+    name: string;
+    revision: number | null;
+    plan: unknown;
+    netAreaM2: number | null;
+    uBefore: number | null;
+    uAfter: number | null;
+    layers: string[];
     takeoffLayers?: Array<{ role: string; productName: string; areaM2: number; rollsByPacking: number; rollsByArea: number }>;
   }>;
   saving: { kwhPerYear: number; minorPerYear: number } | null;
@@ -99,15 +106,33 @@ export function toQuoteDto(q: Quote, lines: QuoteLine[], versions: Array<{ id: s
     lines: totals.lines.map((p) => {
       const l = p.line;
       return {
-        id: l.id, position: l.position, kind: l.kind, description: l.description, quantity: l.quantity, unit: l.unit,
-        unitPriceMinor: l.unitPriceMinor, unitCostMinor: l.unitCostMinor, taxClass: l.taxClass, productId: l.productId ?? null,
-        extraKind: l.extraKind ?? null, altQuantity: l.altQuantity ?? null, note: l.note ?? '',
-        netMinor: p.netMinor, costMinor: p.costMinor, rateBp: p.rateBp, taxMinor: p.taxMinor,
+        id: l.id,
+        position: l.position,
+        kind: l.kind,
+        description: l.description,
+        quantity: l.quantity,
+        unit: l.unit,
+        unitPriceMinor: l.unitPriceMinor,
+        unitCostMinor: l.unitCostMinor,
+        taxClass: l.taxClass,
+        productId: l.productId ?? null,
+        extraKind: l.extraKind ?? null,
+        altQuantity: l.altQuantity ?? null,
+        note: l.note ?? '',
+        netMinor: p.netMinor,
+        costMinor: p.costMinor,
+        rateBp: p.rateBp,
+        taxMinor: p.taxMinor,
       };
     }),
     totals: {
-      netMinor: totals.netMinor, taxByRate: totals.taxByRate, taxMinor: totals.taxMinor, grossMinor: totals.grossMinor,
-      costMinor: totals.costMinor, marginMinor: totals.marginMinor, marginBp: totals.marginBp,
+      netMinor: totals.netMinor,
+      taxByRate: totals.taxByRate,
+      taxMinor: totals.taxMinor,
+      grossMinor: totals.grossMinor,
+      costMinor: totals.costMinor,
+      marginMinor: totals.marginMinor,
+      marginBp: totals.marginBp,
     },
     saving,
     taxRates: snap.taxRates,

@@ -27,8 +27,18 @@ export async function sendRecordedMail(
 ) {
   await deps.mailer.send(message);
   await JobEvent.create({
-    organisationId: ctx.organisationId, jobId: ctx.jobId, userId: ctx.userId, kind: 'email_sent',
-    data: { text: `E-mail to ${message.to}: ${message.subject}`, to: message.to, subject: message.subject, purpose: ctx.purpose, quoteId: ctx.quoteId ?? null, attachments: (message.attachments ?? []).map((a) => a.filename) },
+    organisationId: ctx.organisationId,
+    jobId: ctx.jobId,
+    userId: ctx.userId,
+    kind: 'email_sent',
+    data: {
+      text: `E-mail to ${message.to}: ${message.subject}`,
+      to: message.to,
+      subject: message.subject,
+      purpose: ctx.purpose,
+      quoteId: ctx.quoteId ?? null,
+      attachments: (message.attachments ?? []).map((a) => a.filename),
+    },
   } as never);
 }
 
@@ -54,7 +64,8 @@ export function createQuoteSendService(deps: AppDeps) {
       }
       const job = await findJobInOrg(actor, q.jobId);
       const customer = job.customer!;
-      if (!customer.email) throw new ValidationError([{ path: 'customer.email', message: 'the customer has no e-mail address: add one to the customer first' }]);
+      if (!customer.email)
+        throw new ValidationError([{ path: 'customer.email', message: 'the customer has no e-mail address: add one to the customer first' }]);
       const lines = await linesOf(q);
       if (lines.length === 0) throw new ValidationError([{ path: 'lines', message: 'the quote has no lines' }]);
       const settings = await loadCompanySettings(actor.organisationId);
@@ -79,16 +90,30 @@ export function createQuoteSendService(deps: AppDeps) {
         'You can read it, accept it or decline it online at your private link:',
         url,
         '',
-        'The link is for you only and stops working after the quote\'s valid-until date.',
+        "The link is for you only and stops working after the quote's valid-until date.",
         '',
         `${settings.companyName}${settings.phone ? ` · ${settings.phone}` : ''}${settings.email ? ` · ${settings.email}` : ''}`,
       ].join('\n');
-      await sendRecordedMail(deps, { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id }, {
-        to: customer.email, subject, text, attachments: [{ filename: quoteFileName(q, 'pdf'), content: pdf, contentType: 'application/pdf' }],
-      });
+      await sendRecordedMail(
+        deps,
+        { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id },
+        {
+          to: customer.email,
+          subject,
+          text,
+          attachments: [{ filename: quoteFileName(q, 'pdf'), content: pdf, contentType: 'application/pdf' }],
+        },
+      );
       const firstSend = q.status === 'draft';
       await Quote.update({ status: 'sent', linkNonce: nonce, sentAt: new Date() }, { where: { id: q.id } });
-      await recordEvent(actor.organisationId, job.id, actor.id, firstSend ? 'quote_sent' : 'quote_resent', { quoteId: q.id, number: q.number, version: q.version, to: customer.email, grossMinor: totals.grossMinor, text: `Quote ${q.number}${q.version > 1 ? ` v${q.version}` : ''} ${firstSend ? 'sent' : 'sent again'} to the customer` });
+      await recordEvent(actor.organisationId, job.id, actor.id, firstSend ? 'quote_sent' : 'quote_resent', {
+        quoteId: q.id,
+        number: q.number,
+        version: q.version,
+        to: customer.email,
+        grossMinor: totals.grossMinor,
+        text: `Quote ${q.number}${q.version > 1 ? ` v${q.version}` : ''} ${firstSend ? 'sent' : 'sent again'} to the customer`,
+      });
       if (['enquiry', 'surveyed'].includes(job.stage)) {
         const from = job.stage;
         await job.update({ stage: 'quoted' });

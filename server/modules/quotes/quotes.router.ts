@@ -21,9 +21,15 @@ export function jobQuotesRouter(deps: AppDeps) {
   r.get('/:id/quotes', requireAuth, requireCan('quotes:draft'), params, async (req: Request, res: Response) => {
     res.json({ quotes: await s.listForJob(currentUser(req), String(req.params.id)) });
   });
-  r.post('/:id/quotes', requireAuth, requireCan('quotes:draft'), validate({ params: idParamsSchema, body: createQuoteBodySchema }), async (req: Request, res: Response) => {
-    res.status(201).json({ quote: await s.createFromJob(currentUser(req), String(req.params.id), req.body) });
-  });
+  r.post(
+    '/:id/quotes',
+    requireAuth,
+    requireCan('quotes:draft'),
+    validate({ params: idParamsSchema, body: createQuoteBodySchema }),
+    async (req: Request, res: Response) => {
+      res.status(201).json({ quote: await s.createFromJob(currentUser(req), String(req.params.id), req.body) });
+    },
+  );
   return r;
 }
 
@@ -66,7 +72,9 @@ export function quotesRouter(deps: AppDeps) {
   });
   r.get('/:id/xlsx', params, async (req: Request, res: Response) => {
     const { q, input } = await exportInput(req);
-    res.type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet').setHeader('Content-Disposition', `attachment; filename="${quoteFileName(q, 'xlsx')}"`);
+    res
+      .type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
+      .setHeader('Content-Disposition', `attachment; filename="${quoteFileName(q, 'xlsx')}"`);
     res.send(await quoteXlsx(input));
   });
   return r;

@@ -50,7 +50,13 @@ export async function recordEvent(organisationId: string, jobId: string, userId:
 
 /** Every space of a job with its latest plan revision (spaces without a plan are skipped with a warning). */
 export async function latestPlans(job: Job) {
-  const spaces = await Space.findAll({ where: { jobId: job.id, organisationId: job.organisationId }, order: [['position', 'ASC'], ['createdAt', 'ASC']] });
+  const spaces = await Space.findAll({
+    where: { jobId: job.id, organisationId: job.organisationId },
+    order: [
+      ['position', 'ASC'],
+      ['createdAt', 'ASC'],
+    ],
+  });
   const out: Array<{ space: Space; revision: PlanRevision | null }> = [];
   for (const space of spaces) {
     const revision = await PlanRevision.findOne({ where: { spaceId: space.id }, order: [['revision', 'DESC']] });
@@ -70,7 +76,11 @@ async function nextQuoteNumber(organisationId: string, t: Transaction): Promise<
 }
 
 async function versionsOf(q: Quote) {
-  const rows = await Quote.findAll({ where: { organisationId: q.organisationId, number: q.number }, order: [['version', 'ASC']], attributes: ['id', 'version', 'status'] });
+  const rows = await Quote.findAll({
+    where: { organisationId: q.organisationId, number: q.number },
+    order: [['version', 'ASC']],
+    attributes: ['id', 'version', 'status'],
+  });
   return rows.map((r) => ({ id: r.id, version: r.version, status: r.status }));
 }
 
@@ -106,8 +116,23 @@ export async function buildDraft(job: Job) {
     spacesForQuote.push(t.space);
     for (const [k, n] of Object.entries(t.space.exclusionCounts)) if (n) kinds.add(k as ExclusionKind);
     if (t.saving) saving = { kwhPerYear: (saving?.kwhPerYear ?? 0) + t.saving.kwh, minorPerYear: (saving?.minorPerYear ?? 0) + t.saving.minor };
-    snapSpaces.push({ id: space.id, name: space.name, revision: revision.revision, plan: revision.plan, netAreaM2: t.netAreaM2, uBefore: t.uBefore, uAfter: t.uAfter, layers: t.layerNames,
-      takeoffLayers: t.space.layers.map((l) => ({ role: l.role, productName: l.productName ?? l.productId, areaM2: l.areaM2, rollsByPacking: l.rollsByPacking, rollsByArea: l.rollsByArea })) });
+    snapSpaces.push({
+      id: space.id,
+      name: space.name,
+      revision: revision.revision,
+      plan: revision.plan,
+      netAreaM2: t.netAreaM2,
+      uBefore: t.uBefore,
+      uAfter: t.uAfter,
+      layers: t.layerNames,
+      takeoffLayers: t.space.layers.map((l) => ({
+        role: l.role,
+        productName: l.productName ?? l.productId,
+        areaM2: l.areaM2,
+        rollsByPacking: l.rollsByPacking,
+        rollsByArea: l.rollsByArea,
+      })),
+    });
     warnings.push(...t.warnings.map((w) => `${space.name}: ${w}`));
   }
   if (plans.length === 0) warnings.push('this job has no spaces yet: add lines by hand or sketch a loft first');
@@ -138,7 +163,17 @@ export function createQuotesService(deps: AppDeps) {
       for (const q of quotes) {
         await expireIfDue(q);
         const { totals } = priceQuote(q, await linesOf(q));
-        out.push({ id: q.id, number: q.number, version: q.version, status: q.status, currency: q.currency, issueDate: q.issueDate, validUntil: q.validUntil, sentAt: q.sentAt ? q.sentAt.toISOString() : null, grossMinor: totals.grossMinor });
+        out.push({
+          id: q.id,
+          number: q.number,
+          version: q.version,
+          status: q.status,
+          currency: q.currency,
+          issueDate: q.issueDate,
+          validUntil: q.validUntil,
+          sentAt: q.sentAt ? q.sentAt.toISOString() : null,
+          grossMinor: totals.grossMinor,
+        });
       }
       return out;
     },
@@ -156,14 +191,30 @@ export function createQuotesService(deps: AppDeps) {
         const number = await nextQuoteNumber(actor.organisationId, t);
         const q = await Quote.create(
           {
-            organisationId: actor.organisationId, jobId: job.id, number, version: 1, status: 'draft', currency: draft.settings.currency,
-            locale: draft.settings.locale, issueDate: draft.issueDate, validUntil: draft.validUntil, notes: body.notes ?? '',
-            snapshot: draft.snapshot as never, createdById: actor.id,
+            organisationId: actor.organisationId,
+            jobId: job.id,
+            number,
+            version: 1,
+            status: 'draft',
+            currency: draft.settings.currency,
+            locale: draft.settings.locale,
+            issueDate: draft.issueDate,
+            validUntil: draft.validUntil,
+            notes: body.notes ?? '',
+            snapshot: draft.snapshot as never,
+            createdById: actor.id,
           } as never,
           { transaction: t },
         );
         await QuoteLine.bulkCreate(lineRows(actor.organisationId, q.id, draft.lines) as never, { transaction: t });
-        await recordEvent(actor.organisationId, job.id, actor.id, 'quote_created', { quoteId: q.id, number, version: 1, text: `Quote ${number} drafted from the takeoff` }, t);
+        await recordEvent(
+          actor.organisationId,
+          job.id,
+          actor.id,
+          'quote_created',
+          { quoteId: q.id, number, version: 1, text: `Quote ${number} drafted from the takeoff` },
+          t,
+        );
         return q;
       });
       return quoteDto(quote);
@@ -185,31 +236,65 @@ export function createQuotesService(deps: AppDeps) {
       if (q.status === 'superseded') throw new ConflictError('a newer version of this quote exists: edit that one', 'quote_superseded');
       if (q.status !== 'draft' && !can(actor, 'quotes:manage')) throw new ForbiddenError('only the office can change a quote once it has been sent');
       const snap = snapshotOf(q);
-      if (body.validUntil && body.validUntil < q.issueDate) throw new ValidationError([{ path: 'validUntil', message: 'valid-until cannot be before the issue date' }]);
+      if (body.validUntil && body.validUntil < q.issueDate)
+        throw new ValidationError([{ path: 'validUntil', message: 'valid-until cannot be before the issue date' }]);
       const target = await sequelize.transaction(async (t) => {
         if (q.status === 'draft') {
-          await q.update({ ...(body.validUntil ? { validUntil: body.validUntil } : {}), ...(body.notes !== undefined ? { notes: body.notes } : {}) }, { transaction: t });
+          await q.update(
+            { ...(body.validUntil ? { validUntil: body.validUntil } : {}), ...(body.notes !== undefined ? { notes: body.notes } : {}) },
+            { transaction: t },
+          );
           if (body.lines) {
             await QuoteLine.destroy({ where: { quoteId: q.id }, transaction: t });
             await QuoteLine.bulkCreate(lineRows(actor.organisationId, q.id, body.lines) as never, { transaction: t });
           }
-          await recordEvent(actor.organisationId, q.jobId, actor.id, 'quote_edited', { quoteId: q.id, number: q.number, version: q.version, text: `Quote ${q.number} edited` }, t);
+          await recordEvent(
+            actor.organisationId,
+            q.jobId,
+            actor.id,
+            'quote_edited',
+            { quoteId: q.id, number: q.number, version: q.version, text: `Quote ${q.number} edited` },
+            t,
+          );
           return q;
         }
         const oldLines = await linesOf(q, t);
         const issueDate = todayIso();
         const next = await Quote.create(
           {
-            organisationId: q.organisationId, jobId: q.jobId, number: q.number, version: q.version + 1, status: 'draft', currency: q.currency, locale: q.locale,
-            issueDate, validUntil: body.validUntil ?? (q.validUntil >= issueDate ? q.validUntil : addDaysIso(issueDate, (await loadCompanySettings(q.organisationId)).validityDays)),
-            notes: body.notes ?? q.notes, snapshot: snap as never, createdById: actor.id,
+            organisationId: q.organisationId,
+            jobId: q.jobId,
+            number: q.number,
+            version: q.version + 1,
+            status: 'draft',
+            currency: q.currency,
+            locale: q.locale,
+            issueDate,
+            validUntil:
+              body.validUntil ?? (q.validUntil >= issueDate ? q.validUntil : addDaysIso(issueDate, (await loadCompanySettings(q.organisationId)).validityDays)),
+            notes: body.notes ?? q.notes,
+            snapshot: snap as never,
+            createdById: actor.id,
           } as never,
           { transaction: t },
         );
         const lines = body.lines ?? oldLines.map((l) => ({ ...l.get({ plain: true }) }));
         await QuoteLine.bulkCreate(lineRows(actor.organisationId, next.id, lines as never) as never, { transaction: t });
         await q.update({ status: 'superseded', linkNonce: null }, { transaction: t });
-        await recordEvent(actor.organisationId, q.jobId, actor.id, 'quote_new_version', { quoteId: next.id, number: q.number, version: next.version, replaces: q.id, text: `Quote ${q.number} version ${next.version} drafted; version ${q.version} kept as sent` }, t);
+        await recordEvent(
+          actor.organisationId,
+          q.jobId,
+          actor.id,
+          'quote_new_version',
+          {
+            quoteId: next.id,
+            number: q.number,
+            version: next.version,
+            replaces: q.id,
+            text: `Quote ${q.number} version ${next.version} drafted; version ${q.version} kept as sent`,
+          },
+          t,
+        );
         return next;
       });
       return quoteDto(target);
@@ -231,4 +316,3 @@ export function createQuotesService(deps: AppDeps) {
   };
 }
 export type QuotesService = ReturnType<typeof createQuotesService>;
-

@@ -19,7 +19,6 @@ export type SpaceTakeoff =
     }
   | { ok: false; message: string };
 
-
 /** The takeoff of a space's plan with the company's catalogue and settings; throws the plan's own messages. */
 export function computeSpaceTakeoff(planRaw: unknown, products: Product[], settings: CompanySettings): Takeoff {
   const parsed = planSchema.safeParse(planRaw);
@@ -44,7 +43,12 @@ export function takeoffForSpace(name: string, planRaw: unknown, stored: unknown,
   const space: SpaceForQuote = {
     spaceName: name,
     layers: takeoff.layers.map((l) => ({
-      role: l.role, productId: l.productId, productName: l.productName, areaM2: l.areaM2, rollsByPacking: l.rollsByPacking, rollsByArea: l.rollsByArea,
+      role: l.role,
+      productId: l.productId,
+      productName: l.productName,
+      areaM2: l.areaM2,
+      rollsByPacking: l.rollsByPacking,
+      rollsByArea: l.rollsByArea,
     })),
     exclusionCounts: { ...takeoff.exclusions.countsByKind },
     boardedAreaM2: takeoff.exclusions.boardedAreaM2 ?? 0,

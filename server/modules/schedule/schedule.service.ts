@@ -66,11 +66,23 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
       const capacity = await loadInstallSettings(user.organisationId);
       const installers = await User.findAll({ where: { organisationId: user.organisationId, role: 'installer', active: true }, order: [['name', 'ASC']] });
       const booked = await Job.findAll({
-        where: { organisationId: user.organisationId, installDate: { [Op.between]: [days[0], days[6]] }, assignedInstallerId: { [Op.ne]: null }, stage: { [Op.in]: ['scheduled', 'installed', 'closed'] } },
+        where: {
+          organisationId: user.organisationId,
+          installDate: { [Op.between]: [days[0], days[6]] },
+          assignedInstallerId: { [Op.ne]: null },
+          stage: { [Op.in]: ['scheduled', 'installed', 'closed'] },
+        },
         include: jobInclude,
-        order: [['installDate', 'ASC'], ['reference', 'ASC']],
+        order: [
+          ['installDate', 'ASC'],
+          ['reference', 'ASC'],
+        ],
       });
-      const waiting = await Job.findAll({ where: { organisationId: user.organisationId, stage: 'accepted' }, include: jobInclude, order: [['updatedAt', 'ASC']] });
+      const waiting = await Job.findAll({
+        where: { organisationId: user.organisationId, stage: 'accepted' },
+        include: jobInclude,
+        order: [['updatedAt', 'ASC']],
+      });
       const jobs = await toScheduleJobs(booked);
       const loads = new Map<string, { installerId: string; date: string; jobs: number; areaM2: number; overCapacity: boolean }>();
       for (const j of jobs) {
@@ -97,7 +109,11 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
      * `scheduled`. Over the day's capacity it refuses with `over_capacity` unless the office says
      * book anyway; then the warning is returned. E-mails the customer and the installer.
      */
-    async assign(user: SessionUser, body: { jobId: string; installerId: string; date: string; allowOverCapacity: boolean }, today = new Date().toISOString().slice(0, 10)): Promise<AssignResult> {
+    async assign(
+      user: SessionUser,
+      body: { jobId: string; installerId: string; date: string; allowOverCapacity: boolean },
+      today = new Date().toISOString().slice(0, 10),
+    ): Promise<AssignResult> {
       if (body.date < today) throw fieldError('date', 'choose today or a later date');
       const job = await Job.findOne({ where: { id: body.jobId, organisationId: user.organisationId }, include: jobInclude });
       if (!job) throw new NotFoundError('job');
@@ -110,7 +126,13 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
 
       const capacity = await loadInstallSettings(user.organisationId);
       const sameDay = await Job.findAll({
-        where: { organisationId: user.organisationId, assignedInstallerId: installer.id, installDate: body.date, stage: { [Op.in]: ['scheduled', 'installed', 'closed'] }, id: { [Op.ne]: job.id } },
+        where: {
+          organisationId: user.organisationId,
+          assignedInstallerId: installer.id,
+          installDate: body.date,
+          stage: { [Op.in]: ['scheduled', 'installed', 'closed'] },
+          id: { [Op.ne]: job.id },
+        },
       });
       const areas = await jobAreasM2([job.id, ...sameDay.map((j) => j.id)]);
       const load = { jobs: sameDay.length + 1, areaM2: [job.id, ...sameDay.map((j) => j.id)].reduce((s, id) => s + (areas.get(id) ?? 0), 0) };
@@ -134,7 +156,13 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
 
       const emailed: string[] = [];
       const address = [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', ');
-      const when = new Date(`${body.date}T12:00:00Z`).toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+      const when = new Date(`${body.date}T12:00:00Z`).toLocaleDateString('en-GB', {
+        weekday: 'long',
+        day: 'numeric',
+        month: 'long',
+        year: 'numeric',
+        timeZone: 'UTC',
+      });
       const customer = job.customer;
       try {
         if (customer?.email) {
@@ -186,4 +214,3 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
   };
 }
 export type ScheduleService = ReturnType<typeof createScheduleService>;
-

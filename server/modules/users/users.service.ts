@@ -18,7 +18,13 @@ export function createUsersService(_deps: AppDeps, auth: AuthService) {
 
   return {
     async list(actor: SessionUser): Promise<UserDto[]> {
-      const users = await User.findAll({ where: { organisationId: actor.organisationId }, order: [['active', 'DESC'], ['name', 'ASC']] });
+      const users = await User.findAll({
+        where: { organisationId: actor.organisationId },
+        order: [
+          ['active', 'DESC'],
+          ['name', 'ASC'],
+        ],
+      });
       return users.map(toUserDto);
     },
 

@@ -13,7 +13,11 @@ type Editing = { kind: 'new' } | { kind: 'edit'; customer: Customer } | null;
 
 function matches(c: Customer, q: string): boolean {
   const hay = [c.name, c.email, c.phone, formatAddress(c.address)].join(' ').toLowerCase();
-  return q.toLowerCase().split(/\s+/).filter(Boolean).every((w) => hay.includes(w));
+  return q
+    .toLowerCase()
+    .split(/\s+/)
+    .filter(Boolean)
+    .every((w) => hay.includes(w));
 }
 
 export default function CustomersPage() {
@@ -63,7 +67,17 @@ function Customers() {
           {shown.length === 0 ? (
             <EmptyState title="No customer matches">Nothing matches “{q}”.</EmptyState>
           ) : (
-            <CustomersTable customers={shown} onEdit={canWrite ? (customer) => { setEditing({ kind: 'edit', customer }); window.scrollTo?.({ top: 0 }); } : undefined} />
+            <CustomersTable
+              customers={shown}
+              onEdit={
+                canWrite
+                  ? (customer) => {
+                      setEditing({ kind: 'edit', customer });
+                      window.scrollTo?.({ top: 0 });
+                    }
+                  : undefined
+              }
+            />
           )}
         </>
       )}

@@ -29,7 +29,13 @@ export default function JobsListPage() {
   const q = useDebouncedValue(filters.q.trim(), 250);
   const canFilterByInstaller = can(user, 'jobs:read-all');
   const installers = useInstallers({ enabled: canFilterByInstaller });
-  const jobs = useJobs({ q: q || undefined, stage: filters.stage || undefined, installerId: filters.installerId || undefined, sort: filters.sort, dir: filters.dir });
+  const jobs = useJobs({
+    q: q || undefined,
+    stage: filters.stage || undefined,
+    installerId: filters.installerId || undefined,
+    sort: filters.sort,
+    dir: filters.dir,
+  });
   const filtered = !!(filters.q.trim() || filters.stage || filters.installerId);
 
   function update(next: Partial<JobFilterValues>) {
@@ -82,9 +88,7 @@ export default function JobsListPage() {
         )
       ) : (
         <div className="relative">
-          {jobs.isFetching && (
-            <Spinner size="sm" label="Updating" className="absolute -top-7 right-1 text-graphite-light" />
-          )}
+          {jobs.isFetching && <Spinner size="sm" label="Updating" className="absolute -top-7 right-1 text-graphite-light" />}
           <JobsTable jobs={jobs.data} />
         </div>
       )}

@@ -24,7 +24,9 @@ export default function ResetPasswordPage() {
       {done ? (
         <div className="flex flex-col gap-4">
           <Alert tone="success">Your new password is saved and the link can't be used again.</Alert>
-          <ButtonLink to="/sign-in" variant="primary">Go to sign in</ButtonLink>
+          <ButtonLink to="/sign-in" variant="primary">
+            Go to sign in
+          </ButtonLink>
         </div>
       ) : (
         <SetPasswordForm token={token} submitLabel="Save new password" onDone={() => setDone(true)} />

@@ -22,7 +22,9 @@ export default function SetPasswordPage() {
       {done ? (
         <div className="flex flex-col gap-4">
           <Alert tone="success">Your password is set. Sign in with your e-mail address and the new password.</Alert>
-          <ButtonLink to="/sign-in" variant="primary">Go to sign in</ButtonLink>
+          <ButtonLink to="/sign-in" variant="primary">
+            Go to sign in
+          </ButtonLink>
         </div>
       ) : (
         <SetPasswordForm token={token} submitLabel="Save password" onDone={() => setDone(true)} />

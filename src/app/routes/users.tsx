@@ -30,7 +30,18 @@ function Users() {
       <PageHeader
         title="Users"
         subtitle="Everyone in your company who signs in to Quiltline, and what their role lets them do."
-        actions={!inviting ? <Button onClick={() => { setInviting(true); setInvited(null); }}>Invite a colleague</Button> : null}
+        actions={
+          !inviting ? (
+            <Button
+              onClick={() => {
+                setInviting(true);
+                setInvited(null);
+              }}
+            >
+              Invite a colleague
+            </Button>
+          ) : null
+        }
       />
       {inviting && (
         <InviteUserForm
@@ -45,7 +56,14 @@ function Users() {
           <Alert tone="success">
             Invitation sent to <strong>{invited}</strong>. The link in it lets them choose a password.
             {can(me, 'outbox:read') && (
-              <> In development the message is in the <Link to="/outbox" className="underline">Outbox</Link>.</>
+              <>
+                {' '}
+                In development the message is in the{' '}
+                <Link to="/outbox" className="underline">
+                  Outbox
+                </Link>
+                .
+              </>
             )}
           </Alert>
         </div>

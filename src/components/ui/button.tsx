@@ -28,14 +28,7 @@ export const Button = forwardRef<HTMLButtonElement, ButtonProps>(function Button
   ref,
 ) {
   return (
-    <button
-      ref={ref}
-      type={type}
-      className={buttonClass(variant, size, className)}
-      disabled={disabled || busy}
-      aria-busy={busy || undefined}
-      {...rest}
-    >
+    <button ref={ref} type={type} className={buttonClass(variant, size, className)} disabled={disabled || busy} aria-busy={busy || undefined} {...rest}>
       {busy && <Spinner size="sm" label="" />}
       {children}
     </button>

@@ -31,7 +31,12 @@ export function Field({ label, error, hint, required, className, id, children }:
       <div className={cn('flex flex-col gap-1', className)}>
         <label htmlFor={controlId} className="text-sm font-medium text-graphite">
           {label}
-          {required && <span className="ml-0.5 text-brick" aria-hidden> *</span>}
+          {required && (
+            <span className="ml-0.5 text-brick" aria-hidden>
+              {' '}
+              *
+            </span>
+          )}
         </label>
         {children}
         {hint && !error && (

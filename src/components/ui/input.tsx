@@ -19,10 +19,7 @@ function borderFor(invalid: boolean) {
   return invalid ? 'border-brick focus:outline-brick' : 'border-graphite/25 hover:border-graphite/40';
 }
 
-export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputElement>>(function Input(
-  { className, id, ...rest },
-  ref,
-) {
+export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputElement>>(function Input({ className, id, ...rest }, ref) {
   const field = useFieldControl();
   const invalid = !!field?.invalid || rest['aria-invalid'] === true;
   return (

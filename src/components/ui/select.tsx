@@ -3,10 +3,7 @@ import { cn } from '../../lib/cn';
 import { controlClass, sizeClasses } from './input';
 import { useFieldControl } from './field';
 
-export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement>>(function Select(
-  { className, id, children, ...rest },
-  ref,
-) {
+export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement>>(function Select({ className, id, children, ...rest }, ref) {
   const field = useFieldControl();
   const invalid = !!field?.invalid;
   return (

@@ -10,7 +10,9 @@ export function BackgroundImage({ background, camera }: { background: NonNullabl
     const el = new window.Image();
     el.onload = () => setImg(el);
     el.src = background.url;
-    return () => { el.onload = null; };
+    return () => {
+      el.onload = null;
+    };
   }, [background.url]);
   if (!img) return null;
   const k = background.mmPerPx * camera.zoom;

@@ -27,13 +27,27 @@ export function traceRing(d: DrawContext, ring: ReadonlyArray<readonly [number, 
 export function hatch(d: DrawContext, box: { minX: number; minY: number; maxX: number; maxY: number }, angleDeg: number, spacingPx: number) {
   const { ctx } = d;
   const a = (angleDeg * Math.PI) / 180;
-  const ux = Math.cos(a), uy = Math.sin(a);
-  const nx = -uy, ny = ux;
-  const corners = [[box.minX, box.minY], [box.maxX, box.minY], [box.maxX, box.maxY], [box.minX, box.maxY]];
-  let lo = Infinity, hi = -Infinity, lo2 = Infinity, hi2 = -Infinity;
+  const ux = Math.cos(a),
+    uy = Math.sin(a);
+  const nx = -uy,
+    ny = ux;
+  const corners = [
+    [box.minX, box.minY],
+    [box.maxX, box.minY],
+    [box.maxX, box.maxY],
+    [box.minX, box.maxY],
+  ];
+  let lo = Infinity,
+    hi = -Infinity,
+    lo2 = Infinity,
+    hi2 = -Infinity;
   for (const [x, y] of corners) {
-    const dn = x * nx + y * ny, du = x * ux + y * uy;
-    lo = Math.min(lo, dn); hi = Math.max(hi, dn); lo2 = Math.min(lo2, du); hi2 = Math.max(hi2, du);
+    const dn = x * nx + y * ny,
+      du = x * ux + y * uy;
+    lo = Math.min(lo, dn);
+    hi = Math.max(hi, dn);
+    lo2 = Math.min(lo2, du);
+    hi2 = Math.max(hi2, du);
   }
   const start = Math.floor(lo / spacingPx) * spacingPx;
   for (let t = start; t <= hi; t += spacingPx) {

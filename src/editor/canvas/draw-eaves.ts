@@ -17,7 +17,8 @@ export function drawEaves(d: DrawContext, plan: Plan) {
     const a = plan.outline[e];
     const b = plan.outline[(e + 1) % n];
     const [ox, oy] = outwardNormal(plan.outline, e);
-    const ix = -ox * widthMm, iy = -oy * widthMm;
+    const ix = -ox * widthMm,
+      iy = -oy * widthMm;
     ctx.beginPath();
     ctx.moveTo(sx(cam, a[0]), sy(cam, a[1]));
     ctx.lineTo(sx(cam, b[0]), sy(cam, b[1]));
@@ -33,7 +34,8 @@ export function drawEaves(d: DrawContext, plan: Plan) {
     const stepMm = 30 / cam.zoom;
     ctx.beginPath();
     for (let t = stepMm / 2; t < len; t += stepMm) {
-      const px = a[0] + ((b[0] - a[0]) * t) / len, py = a[1] + ((b[1] - a[1]) * t) / len;
+      const px = a[0] + ((b[0] - a[0]) * t) / len,
+        py = a[1] + ((b[1] - a[1]) * t) / len;
       ctx.moveTo(sx(cam, px) + ox * 3, sy(cam, py) + oy * 3);
       ctx.lineTo(sx(cam, px) + ox * 9, sy(cam, py) + oy * 9);
     }

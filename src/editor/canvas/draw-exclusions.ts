@@ -10,14 +10,17 @@ export function drawExclusions(d: DrawContext, plan: Plan, selected: number | nu
     const st = KIND_STYLES[e.kind];
     const isSel = selected === i;
     if (e.at) {
-      const x = sx(cam, e.at[0]), y = sy(cam, e.at[1]);
+      const x = sx(cam, e.at[0]),
+        y = sy(cam, e.at[1]);
       const r = Math.max(6, 50 * cam.zoom);
       ctx.beginPath();
       ctx.arc(x, y, r, 0, Math.PI * 2);
       ctx.fillStyle = PALETTE.brickLight;
       ctx.fill();
-      ctx.moveTo(x - r * 0.7, y - r * 0.7); ctx.lineTo(x + r * 0.7, y + r * 0.7);
-      ctx.moveTo(x + r * 0.7, y - r * 0.7); ctx.lineTo(x - r * 0.7, y + r * 0.7);
+      ctx.moveTo(x - r * 0.7, y - r * 0.7);
+      ctx.lineTo(x + r * 0.7, y + r * 0.7);
+      ctx.moveTo(x + r * 0.7, y - r * 0.7);
+      ctx.lineTo(x - r * 0.7, y + r * 0.7);
       ctx.strokeStyle = isSel ? PALETTE.select : PALETTE.brick;
       ctx.lineWidth = isSel ? 2.5 : 1.5;
       ctx.stroke();
@@ -52,7 +55,8 @@ export function drawExclusions(d: DrawContext, plan: Plan, selected: number | nu
       const text = e.label ?? st.name.toLowerCase();
       ctx.font = `600 11px ${SANS}`;
       const tw = Math.min(ctx.measureText(text).width, w - 6);
-      const cx = (box.minX + box.maxX) / 2, cy = (box.minY + box.maxY) / 2;
+      const cx = (box.minX + box.maxX) / 2,
+        cy = (box.minY + box.maxY) / 2;
       ctx.fillStyle = 'rgba(250,247,240,0.9)';
       ctx.fillRect(cx - tw / 2 - 3, cy - 8, tw + 6, 16);
       ctx.fillStyle = PALETTE.brick;

@@ -57,7 +57,12 @@ export function drawHandles(d: DrawContext, plan: Plan, session: Session) {
     if (e?.polygon) {
       const b = boxOf(e.polygon);
       ctx.beginPath();
-      for (const [x, y] of [[b.minX, b.minY], [b.maxX, b.minY], [b.maxX, b.maxY], [b.minX, b.maxY]]) {
+      for (const [x, y] of [
+        [b.minX, b.minY],
+        [b.maxX, b.minY],
+        [b.maxX, b.maxY],
+        [b.minX, b.maxY],
+      ]) {
         ctx.rect(sx(cam, x) - 5, sy(cam, y) - 5, 10, 10);
       }
       ctx.fillStyle = PALETTE.paper;

@@ -13,7 +13,8 @@ export function placeMessage(plan: Plan, m: PlanMessage, severity: PlacedIssue['
   const ex = m.exclusionIndex !== undefined ? plan.exclusions[m.exclusionIndex] : undefined;
   const ring = ex?.polygon ?? (ex ? null : plan.outline);
   if (!at && ring && m.edgeIndex !== undefined && ring[m.edgeIndex]) {
-    const a = ring[m.edgeIndex], b = ring[(m.edgeIndex + 1) % ring.length];
+    const a = ring[m.edgeIndex],
+      b = ring[(m.edgeIndex + 1) % ring.length];
     at = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
   }
   if (!at && ring && m.pointIndex !== undefined && ring[m.pointIndex]) at = [ring[m.pointIndex][0], ring[m.pointIndex][1]];
@@ -33,7 +34,8 @@ export function drawIssues(d: DrawContext, issues: PlacedIssue[]) {
   ctx.font = `500 11px ${SANS}`;
   ctx.textBaseline = 'middle';
   issues.slice(0, 12).forEach((m, i) => {
-    const x = sx(cam, m.at[0]), y = sy(cam, m.at[1]);
+    const x = sx(cam, m.at[0]),
+      y = sy(cam, m.at[1]);
     const colour = m.severity === 'error' ? PALETTE.brick : PALETTE.strawDark;
     ctx.beginPath();
     ctx.arc(x, y, 9, 0, Math.PI * 2);

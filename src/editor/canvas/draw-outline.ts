@@ -19,7 +19,8 @@ export function drawOutline(d: DrawContext, plan: Plan, units: Units, selectedEd
   ctx.lineJoin = 'round';
   ctx.stroke();
   if (selectedEdge !== null && selectedEdge < n && n >= 2) {
-    const a = ring[selectedEdge], b = ring[(selectedEdge + 1) % n];
+    const a = ring[selectedEdge],
+      b = ring[(selectedEdge + 1) % n];
     ctx.beginPath();
     ctx.moveTo(sx(cam, a[0]), sy(cam, a[1]));
     ctx.lineTo(sx(cam, b[0]), sy(cam, b[1]));
@@ -32,7 +33,8 @@ export function drawOutline(d: DrawContext, plan: Plan, units: Units, selectedEd
   ctx.textAlign = 'center';
   ctx.textBaseline = 'middle';
   for (let i = 0; i < edges; i++) {
-    const a = ring[i], b = ring[(i + 1) % n];
+    const a = ring[i],
+      b = ring[(i + 1) % n];
     const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
     if (len * cam.zoom < 24) continue;
     const [ox, oy] = n >= 3 ? outwardNormal(ring, i) : [0, -1];

@@ -10,7 +10,10 @@ export function drawPaper(d: DrawContext) {
   const step = gridStepMm(cam, 5);
   const tl = screenToWorld(cam, screen(0, 0));
   const br = screenToWorld(cam, screen(width, height));
-  for (const [strong, stepMm] of [[false, step], [true, step * 10]] as const) {
+  for (const [strong, stepMm] of [
+    [false, step],
+    [true, step * 10],
+  ] as const) {
     ctx.beginPath();
     for (let x = Math.floor(tl.x / stepMm) * stepMm; x <= br.x; x += stepMm) {
       const px = Math.round(sx(cam, x)) + 0.5;

@@ -39,7 +39,8 @@ export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
       const [cx, cy] = s.labelAt;
       // Stagger the cross layer's numbers so they do not sit on the base layer's.
       const off = base ? 0 : 12;
-      const x = sx(cam, cx) + off, y = sy(cam, cy) + off;
+      const x = sx(cam, cx) + off,
+        y = sy(cam, cy) + off;
       ctx.strokeStyle = 'rgba(250,247,240,0.95)';
       ctx.lineWidth = 3;
       ctx.strokeText(String(s.number), x, y);
@@ -66,9 +67,11 @@ export function drawLayArrows(d: DrawContext, t: DrawnTakeoff) {
   ctx.fillRect(8, top, w, h);
   ctx.strokeRect(8.5, top + 0.5, w, h);
   t.layers.forEach((layer, i) => {
-    const x = 30, y = top + 21 + i * 30;
+    const x = 30,
+      y = top + 21 + i * 30;
     const a = (layer.layAngleDeg * Math.PI) / 180;
-    const ux = Math.cos(a), uy = Math.sin(a);
+    const ux = Math.cos(a),
+      uy = Math.sin(a);
     const colour = layer.role === 'base' ? PALETTE.strawDark : PALETTE.teal;
     ctx.beginPath();
     ctx.moveTo(x - ux * 11, y - uy * 11);

@@ -80,8 +80,20 @@ export function PlanStage({ editor, takeoff, issues }: Props) {
           <Layer listening={false}>
             <Shape sceneFunc={draw((d) => drawLoft(d, plan, session, takeoff, showStrips, selExcl))} perfectDrawEnabled={false} />
             <Shape sceneFunc={draw((d) => drawOutline(d, plan, session.units, selEdge))} perfectDrawEnabled={false} />
-            <Shape sceneFunc={draw((d) => { drawIssues(d, issues); if (showStrips && takeoff) drawLayArrows(d, takeoff); })} perfectDrawEnabled={false} />
-            <Shape sceneFunc={draw((d) => { drawHandles(d, plan, session); drawDraft(d, plan, session); })} perfectDrawEnabled={false} />
+            <Shape
+              sceneFunc={draw((d) => {
+                drawIssues(d, issues);
+                if (showStrips && takeoff) drawLayArrows(d, takeoff);
+              })}
+              perfectDrawEnabled={false}
+            />
+            <Shape
+              sceneFunc={draw((d) => {
+                drawHandles(d, plan, session);
+                drawDraft(d, plan, session);
+              })}
+              perfectDrawEnabled={false}
+            />
           </Layer>
         </Stage>
       )}

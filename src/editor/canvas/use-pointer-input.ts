@@ -10,10 +10,13 @@ export function usePointerInput(editor: Editor, wrap: RefObject<HTMLDivElement |
   const touches = useRef(new Map<number, { x: number; y: number }>());
   const pinch = useRef<{ dist: number; mid: { x: number; y: number } } | null>(null);
 
-  const local = useCallback((e: { clientX: number; clientY: number }) => {
-    const r = wrap.current!.getBoundingClientRect();
-    return { x: e.clientX - r.left, y: e.clientY - r.top };
-  }, [wrap]);
+  const local = useCallback(
+    (e: { clientX: number; clientY: number }) => {
+      const r = wrap.current!.getBoundingClientRect();
+      return { x: e.clientX - r.left, y: e.clientY - r.top };
+    },
+    [wrap],
+  );
 
   const pinchState = () => {
     const [a, b] = [...touches.current.values()];

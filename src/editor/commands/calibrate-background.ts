@@ -5,10 +5,7 @@ import { CommandError } from './command';
  * Rescales the background so the two picked points `a` and `b` (mm, as currently drawn) end up
  * `realMm` apart, keeping `a` where it is on the plan.
  */
-export function calibrateBackground(
-  plan: Plan,
-  args: { a: [number, number]; b: [number, number]; realMm: number },
-): Plan {
+export function calibrateBackground(plan: Plan, args: { a: [number, number]; b: [number, number]; realMm: number }): Plan {
   const bg = plan.background;
   if (!bg) throw new CommandError('upload a background image before calibrating it');
   if (bg.locked) throw new CommandError('the background is locked: unlock it to calibrate');

@@ -23,14 +23,34 @@ export class RunParseError extends Error {
 
 // Screen-like axes (y down): right = 0°, down = 90°, left = 180°, up = 270°.
 const DIRECTIONS: Record<string, number> = {
-  r: 0, right: 0, e: 0, east: 0,
-  d: 90, down: 90, s: 90, south: 90,
-  l: 180, left: 180, w: 180, west: 180,
-  u: 270, up: 270, n: 270, north: 270,
-  ur: 315, 'up-right': 315, ne: 315,
-  dr: 45, 'down-right': 45, se: 45,
-  dl: 135, 'down-left': 135, sw: 135,
-  ul: 225, 'up-left': 225, nw: 225,
+  r: 0,
+  right: 0,
+  e: 0,
+  east: 0,
+  d: 90,
+  down: 90,
+  s: 90,
+  south: 90,
+  l: 180,
+  left: 180,
+  w: 180,
+  west: 180,
+  u: 270,
+  up: 270,
+  n: 270,
+  north: 270,
+  ur: 315,
+  'up-right': 315,
+  ne: 315,
+  dr: 45,
+  'down-right': 45,
+  se: 45,
+  dl: 135,
+  'down-left': 135,
+  sw: 135,
+  ul: 225,
+  'up-left': 225,
+  nw: 225,
 };
 
 const UNIT_MM: Record<string, number> = { mm: 1, cm: 10, m: 1000, in: 25.4, ft: 304.8 };
@@ -53,7 +73,7 @@ export function parseRun(text: string, start: [number, number] = [0, 0]): RunRes
     .filter(Boolean);
   if (tokens.length === 0) throw new RunParseError('type at least three walls, e.g. "4200 right, 3600 down, 4200 left"');
   const steps: RunStep[] = [];
-  for (let i = 0; i < tokens.length; ) {
+  for (let i = 0; i < tokens.length;) {
     const m = /^(\d+(?:\.\d+)?)(mm|cm|m|in|ft)?$/.exec(tokens[i]);
     if (!m) throw new RunParseError(`"${tokens[i]}" should be a length, e.g. 4200 or 4.2m (wall ${steps.length + 1})`);
     let unit = m[2];

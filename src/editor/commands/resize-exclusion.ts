@@ -6,10 +6,15 @@ export type BoxMm = { minX: number; minY: number; maxX: number; maxY: number };
 
 /** The bounding box (mm) of a list of points. */
 export function boxOf(points: ReadonlyArray<readonly [number, number]>): BoxMm {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   for (const [x, y] of points) {
-    minX = Math.min(minX, x); minY = Math.min(minY, y);
-    maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
+    minX = Math.min(minX, x);
+    minY = Math.min(minY, y);
+    maxX = Math.max(maxX, x);
+    maxY = Math.max(maxY, y);
   }
   return { minX, minY, maxX, maxY };
 }
@@ -23,8 +28,10 @@ export function resizeExclusion(plan: Plan, args: { index: number; box: BoxMm })
   const e = plan.exclusions[args.index];
   if (!e.polygon) throw new CommandError('a point exclusion has no size to change');
   const nb = {
-    minX: Math.min(args.box.minX, args.box.maxX), maxX: Math.max(args.box.minX, args.box.maxX),
-    minY: Math.min(args.box.minY, args.box.maxY), maxY: Math.max(args.box.minY, args.box.maxY),
+    minX: Math.min(args.box.minX, args.box.maxX),
+    maxX: Math.max(args.box.minX, args.box.maxX),
+    minY: Math.min(args.box.minY, args.box.maxY),
+    maxY: Math.max(args.box.minY, args.box.maxY),
   };
   if (nb.maxX - nb.minX < 10 || nb.maxY - nb.minY < 10) throw new CommandError('an exclusion must be at least 10 mm each way');
   const ob = boxOf(e.polygon);

@@ -53,17 +53,17 @@ export function panBy(cam: Camera, dxPx: number, dyPx: number): Camera {
 }
 
 /** The camera that shows `points` (mm) inside a viewport of `width`×`height` px with `marginPx` around. */
-export function fitCamera(
-  points: ReadonlyArray<readonly [number, number]>,
-  width: number,
-  height: number,
-  marginPx = 60,
-): Camera {
+export function fitCamera(points: ReadonlyArray<readonly [number, number]>, width: number, height: number, marginPx = 60): Camera {
   if (points.length === 0) return { zoom: 0.1, panX: marginPx, panY: marginPx };
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   for (const [x, y] of points) {
-    minX = Math.min(minX, x); minY = Math.min(minY, y);
-    maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
+    minX = Math.min(minX, x);
+    minY = Math.min(minY, y);
+    maxX = Math.max(maxX, x);
+    maxY = Math.max(maxY, y);
   }
   const w = Math.max(maxX - minX, 500);
   const h = Math.max(maxY - minY, 500);

@@ -57,14 +57,12 @@ export function clipLineToRing(ring: ReadonlyArray<P>, n: readonly [number, numb
 }
 
 /** The joist centre lines inside the outline (mm), as segments. */
-export function joistSegments(
-  outline: ReadonlyArray<P>,
-  joists: { angleDeg: number; centresMm: number; offsetMm: number },
-): [P, P][] {
+export function joistSegments(outline: ReadonlyArray<P>, joists: { angleDeg: number; centresMm: number; offsetMm: number }): [P, P][] {
   if (outline.length < 3 || !(joists.centresMm > 0)) return [];
   const a = (joists.angleDeg * Math.PI) / 180;
   const n: [number, number] = [-Math.sin(a), Math.cos(a)];
-  let lo = Infinity, hi = -Infinity;
+  let lo = Infinity,
+    hi = -Infinity;
   for (const p of outline) {
     const d = p[0] * n[0] + p[1] * n[1];
     lo = Math.min(lo, d);

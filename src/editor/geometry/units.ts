@@ -11,7 +11,10 @@ export function formatLength(mm: number, units: Units): string {
   const inches = Math.floor(rest / 8);
   let frac = rest % 8;
   let den = 8;
-  while (frac > 0 && frac % 2 === 0) { frac /= 2; den /= 2; }
+  while (frac > 0 && frac % 2 === 0) {
+    frac /= 2;
+    den /= 2;
+  }
   return `${ft}′ ${inches}${frac ? ` ${frac}/${den}` : ''}″`;
 }
 

@@ -36,7 +36,12 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
   const btn = 'h-8 rounded border border-graphite/25 bg-white px-2 text-sm';
   const toolbar = (
     <>
-      <input ref={importInput} type="file" accept="application/json,.json" className="hidden" data-testid="import-file"
+      <input
+        ref={importInput}
+        type="file"
+        accept="application/json,.json"
+        className="hidden"
+        data-testid="import-file"
         onChange={async (e) => {
           const f = e.target.files?.[0];
           e.target.value = '';
@@ -47,21 +52,39 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
           } catch (err) {
             editor.store.setError((err as Error).message);
           }
-        }} />
-      {data.canWrite && <button type="button" className={btn} onClick={() => importInput.current?.click()}>Import</button>}
-      <button type="button" className={btn} onClick={() => exportPlanFile(editor.store.getState().plan)} data-testid="export">Export</button>
+        }}
+      />
+      {data.canWrite && (
+        <button type="button" className={btn} onClick={() => importInput.current?.click()}>
+          Import
+        </button>
+      )}
+      <button type="button" className={btn} onClick={() => exportPlanFile(editor.store.getState().plan)} data-testid="export">
+        Export
+      </button>
       <RevisionsMenu spaceId={spaceId} current={p.revision} canWrite={data.canWrite} busy={p.saving} onRestore={(r) => void p.restoreRevision(r)} />
       {data.canWrite ? (
         <>
           <label className="flex items-center gap-1 text-sm">
             <input type="checkbox" checked={p.autosave} onChange={(e) => p.setAutosave(e.target.checked)} /> Autosave
           </label>
-          <span className={`text-sm ${p.status === 'saved' ? 'text-teal-dark' : p.status === 'error' || p.status === 'conflict' ? 'text-brick' : 'text-graphite-light'}`}
-            data-testid="save-status" title={p.message ?? undefined}>
-            {STATUS_TEXT[p.status]}{p.revision > 0 && p.status === 'saved' ? ` · rev ${p.revision}` : ''}
+          <span
+            className={`text-sm ${p.status === 'saved' ? 'text-teal-dark' : p.status === 'error' || p.status === 'conflict' ? 'text-brick' : 'text-graphite-light'}`}
+            data-testid="save-status"
+            title={p.message ?? undefined}
+          >
+            {STATUS_TEXT[p.status]}
+            {p.revision > 0 && p.status === 'saved' ? ` · rev ${p.revision}` : ''}
           </span>
-          <button type="button" className="h-8 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50" disabled={p.saving || !p.dirty}
-            onClick={() => void p.save()} data-testid="save">Save</button>
+          <button
+            type="button"
+            className="h-8 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50"
+            disabled={p.saving || !p.dirty}
+            onClick={() => void p.save()}
+            data-testid="save"
+          >
+            Save
+          </button>
         </>
       ) : (
         <span className="rounded bg-paper-dark px-2 py-1 text-xs">Read only</span>
@@ -72,24 +95,45 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
   return (
     <div className="flex h-[calc(100dvh-7.5rem)] min-h-[480px] flex-col">
       <div className="flex items-center gap-2 px-3 py-1 text-sm text-graphite-light">
-        <Link to={`/jobs/${data.space.jobId}`} className="underline">Job {data.space.jobReference}</Link>
+        <Link to={`/jobs/${data.space.jobId}`} className="underline">
+          Job {data.space.jobReference}
+        </Link>
         <span>›</span>
         <span>{data.space.name}</span>
       </div>
       {p.recoverable && (
         <div role="status" className="flex flex-wrap items-center gap-3 bg-straw-light/70 px-3 py-2 text-sm" data-testid="draft-banner">
           <span>Unsaved changes from {formatDateTime(p.recoverable.savedAt)} were kept in this browser.</span>
-          <button type="button" className="h-8 rounded bg-graphite px-3 text-paper" onClick={p.recoverDraft} data-testid="recover-draft">Restore them</button>
-          <button type="button" className="h-8 rounded px-3 underline" onClick={p.discardDraft}>Discard</button>
+          <button type="button" className="h-8 rounded bg-graphite px-3 text-paper" onClick={p.recoverDraft} data-testid="recover-draft">
+            Restore them
+          </button>
+          <button type="button" className="h-8 rounded px-3 underline" onClick={p.discardDraft}>
+            Discard
+          </button>
         </div>
       )}
-      {p.message && <div role="alert" className="bg-brick-light/60 px-3 py-1.5 text-sm text-brick-dark" data-testid="save-error">{p.message}</div>}
+      {p.message && (
+        <div role="alert" className="bg-brick-light/60 px-3 py-1.5 text-sm text-brick-dark" data-testid="save-error">
+          {p.message}
+        </div>
+      )}
       <div className="min-h-0 flex-1">
-        <EditorView editor={editor} products={data.takeoffInputs.products} settings={data.takeoffInputs.settings} toolbar={toolbar}
-          onUploadBackground={data.canWrite ? (f) => uploadBackground(spaceId, f) : undefined} />
+        <EditorView
+          editor={editor}
+          products={data.takeoffInputs.products}
+          settings={data.takeoffInputs.settings}
+          toolbar={toolbar}
+          onUploadBackground={data.canWrite ? (f) => uploadBackground(spaceId, f) : undefined}
+        />
       </div>
       {p.conflict && (
-        <ConflictDialog theirRevision={p.conflict.theirRevision} busy={p.saving} onKeepMine={() => void p.keepMine()} onLoadTheirs={p.loadTheirs} onCancel={p.dismissConflict} />
+        <ConflictDialog
+          theirRevision={p.conflict.theirRevision}
+          busy={p.saving}
+          onKeepMine={() => void p.keepMine()}
+          onLoadTheirs={p.loadTheirs}
+          onCancel={p.dismissConflict}
+        />
       )}
     </div>
   );

@@ -35,12 +35,15 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
   const restore = useRestoreRevision(spaceId);
   const dirty = plan !== savedPlan;
 
-  const adopt = useCallback((p: Plan, rev: number, opts: { intoEditor: boolean }) => {
-    base.current = rev;
-    setRevision(rev);
-    if (opts.intoEditor) editor.store.dispatch(cmd(`revision ${rev}`, replacePlan, { plan: p }));
-    setSavedPlan(editor.store.getState().plan);
-  }, [editor]);
+  const adopt = useCallback(
+    (p: Plan, rev: number, opts: { intoEditor: boolean }) => {
+      base.current = rev;
+      setRevision(rev);
+      if (opts.intoEditor) editor.store.dispatch(cmd(`revision ${rev}`, replacePlan, { plan: p }));
+      setSavedPlan(editor.store.getState().plan);
+    },
+    [editor],
+  );
 
   // Mirror unsaved edits to the browser; a clean plan needs no draft. A draft offered for
   // recovery is left alone until the estimator decides.
@@ -51,25 +54,28 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
     return () => clearTimeout(t);
   }, [plan, dirty, spaceId, recoverable]);
 
-  const doSave = useCallback(async (opts: { baseRevision?: number; auto?: boolean } = {}) => {
-    const sent = editor.store.getState().plan;
-    setMessage(null);
-    try {
-      const res = await save.mutateAsync({ plan: sent, baseRevision: opts.baseRevision ?? base.current, note: opts.auto ? 'autosave' : undefined });
-      base.current = res.revision;
-      setRevision(res.revision);
-      setSavedPlan(sent);
-      setConflict(null);
-      if (editor.store.getState().plan === sent) clearDraft(spaceId);
-    } catch (e) {
-      if (isApiError(e) && e.status === 409) {
-        const latest = await getPlan(spaceId);
-        setConflict({ theirs: latest.plan, theirRevision: latest.revision });
-      } else {
-        setMessage(isApiError(e) ? e.message : (e as Error).message);
+  const doSave = useCallback(
+    async (opts: { baseRevision?: number; auto?: boolean } = {}) => {
+      const sent = editor.store.getState().plan;
+      setMessage(null);
+      try {
+        const res = await save.mutateAsync({ plan: sent, baseRevision: opts.baseRevision ?? base.current, note: opts.auto ? 'autosave' : undefined });
+        base.current = res.revision;
+        setRevision(res.revision);
+        setSavedPlan(sent);
+        setConflict(null);
+        if (editor.store.getState().plan === sent) clearDraft(spaceId);
+      } catch (e) {
+        if (isApiError(e) && e.status === 409) {
+          const latest = await getPlan(spaceId);
+          setConflict({ theirs: latest.plan, theirRevision: latest.revision });
+        } else {
+          setMessage(isApiError(e) ? e.message : (e as Error).message);
+        }
       }
-    }
-  }, [editor, save, spaceId]);
+    },
+    [editor, save, spaceId],
+  );
 
   useEffect(() => {
     if (!autosave || !canWrite || !dirty || conflict || recoverable || save.isPending) return;

@@ -4,12 +4,7 @@ import type { Camera } from '../geometry/coords';
 export const STEPS = ['outline', 'joists', 'exclusions', 'eaves', 'layers', 'review'] as const;
 export type StepId = (typeof STEPS)[number];
 
-export type Selection =
-  | { kind: 'corner'; index: number }
-  | { kind: 'edge'; index: number }
-  | { kind: 'exclusion'; index: number }
-  | { kind: 'joists' }
-  | null;
+export type Selection = { kind: 'corner'; index: number } | { kind: 'edge'; index: number } | { kind: 'exclusion'; index: number } | { kind: 'joists' } | null;
 
 /** A shape being drawn: points placed so far (mm) and the snapped cursor, if any. */
 export type Draft = {

@@ -29,6 +29,10 @@ export function runTakeoff({ plan, products, settings }: TakeoffInput): TakeoffR
     return done({ takeoff, errors: [], warnings: v.warnings });
   } catch (e) {
     if (e instanceof InvalidPlanError) return done({ takeoff: null, errors: e.errors, warnings: v.warnings });
-    return done({ takeoff: null, errors: [{ code: 'takeoff.failed', message: `the takeoff could not be computed: ${(e as Error).message}` }], warnings: v.warnings });
+    return done({
+      takeoff: null,
+      errors: [{ code: 'takeoff.failed', message: `the takeoff could not be computed: ${(e as Error).message}` }],
+      warnings: v.warnings,
+    });
   }
 }

@@ -122,8 +122,10 @@ export function createExclusionsTool(): Tool {
         const b = exclusionBox(ex)!;
         const [x, y] = snap(ctx, e);
         const box = { ...b };
-        if (s.handle.includes('w')) box.minX = x; else box.maxX = x;
-        if (s.handle.includes('n')) box.minY = y; else box.maxY = y;
+        if (s.handle.includes('w')) box.minX = x;
+        else box.maxX = x;
+        if (s.handle.includes('n')) box.minY = y;
+        else box.maxY = y;
         ctx.store.dispatch(cmd(`resize ${ex.kind}`, resizeExclusion, { index: s.index, box }), { history: 'gesture' });
       }
     },
@@ -137,7 +139,12 @@ export function createExclusionsTool(): Tool {
           const bx = boxOf([a, b]);
           const exclusion: Exclusion = {
             kind: session.exclusionKind,
-            polygon: [[bx.minX, bx.minY], [bx.maxX, bx.minY], [bx.maxX, bx.maxY], [bx.minX, bx.maxY]],
+            polygon: [
+              [bx.minX, bx.minY],
+              [bx.maxX, bx.minY],
+              [bx.maxX, bx.maxY],
+              [bx.minX, bx.maxY],
+            ],
           };
           if (bx.maxX - bx.minX >= 10 && bx.maxY - bx.minY >= 10 && ctx.store.dispatch(cmd(`add ${exclusion.kind}`, addExclusion, { exclusion }))) {
             ctx.store.setSession({ selection: { kind: 'exclusion', index: ctx.store.getState().plan.exclusions.length - 1 } });

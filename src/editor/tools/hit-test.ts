@@ -8,7 +8,10 @@ export function hitCorner(plan: Plan, p: WorldPt, tolMm: number): number {
   let bestD = tolMm;
   plan.outline.forEach(([x, y], i) => {
     const d = Math.hypot(p.x - x, p.y - y);
-    if (d <= bestD) { best = i; bestD = d; }
+    if (d <= bestD) {
+      best = i;
+      bestD = d;
+    }
   });
   return best;
 }
@@ -23,7 +26,10 @@ export function hitEdge(plan: Plan, p: WorldPt, tolMm: number): { edge: number; 
     const a = plan.outline[i];
     const b = plan.outline[(i + 1) % n];
     const { distMm, t } = distanceToSegmentMm(p, world(a[0], a[1]), world(b[0], b[1]));
-    if (distMm <= bestD) { best = { edge: i, t }; bestD = distMm; }
+    if (distMm <= bestD) {
+      best = { edge: i, t };
+      bestD = distMm;
+    }
   }
   return best;
 }
@@ -43,7 +49,8 @@ export function hitEdgeMidpoint(plan: Plan, p: WorldPt, tolMm: number, minLength
   const n = plan.outline.length;
   if (n < 3) return -1;
   for (let i = 0; i < n; i++) {
-    const a = plan.outline[i], b = plan.outline[(i + 1) % n];
+    const a = plan.outline[i],
+      b = plan.outline[(i + 1) % n];
     if (Math.hypot(b[0] - a[0], b[1] - a[1]) < minLengthMm) continue;
     const [x, y] = edgeMidpoint(plan, i);
     if (Math.hypot(p.x - x, p.y - y) <= tolMm) return i;
@@ -82,7 +89,12 @@ export function exclusionBox(e: Exclusion): BoxMm | null {
 export function hitBoxHandle(e: Exclusion, p: WorldPt, tolMm: number): BoxHandle | null {
   const b = exclusionBox(e);
   if (!b) return null;
-  const handles: [BoxHandle, number, number][] = [['nw', b.minX, b.minY], ['ne', b.maxX, b.minY], ['se', b.maxX, b.maxY], ['sw', b.minX, b.maxY]];
+  const handles: [BoxHandle, number, number][] = [
+    ['nw', b.minX, b.minY],
+    ['ne', b.maxX, b.minY],
+    ['se', b.maxX, b.maxY],
+    ['sw', b.minX, b.maxY],
+  ];
   for (const [h, x, y] of handles) if (Math.hypot(p.x - x, p.y - y) <= tolMm) return h;
   return null;
 }

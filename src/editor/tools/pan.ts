@@ -6,13 +6,18 @@ export function createPanner() {
   let last: ScreenPt | null = null;
   return {
     active: () => last !== null,
-    start(s: ScreenPt) { last = s; },
+    start(s: ScreenPt) {
+      last = s;
+    },
     move(ctx: ToolContext, s: ScreenPt) {
       if (!last) return;
-      const dx = s.x - last.x, dy = s.y - last.y;
+      const dx = s.x - last.x,
+        dy = s.y - last.y;
       last = s;
       ctx.store.setSession((ss) => ({ camera: panBy(ss.camera, dx, dy) }));
     },
-    end() { last = null; },
+    end() {
+      last = null;
+    },
   };
 }

@@ -7,12 +7,7 @@ import { hitPx, SNAP_GRID_MM, type ToolContext, type ToolPointer } from './tool'
  * Where a placed or dragged point lands: an existing corner nearby, else (from a previous corner)
  * the nearest 45° direction with the length on the grid step, else the grid. Alt: free (1 mm).
  */
-export function snapPoint(
-  ctx: ToolContext,
-  e: ToolPointer,
-  plan: Plan,
-  opts: { from?: [number, number]; ignoreCorner?: number } = {},
-): [number, number] {
+export function snapPoint(ctx: ToolContext, e: ToolPointer, plan: Plan, opts: { from?: [number, number]; ignoreCorner?: number } = {}): [number, number] {
   const p = e.world;
   if (e.alt) return [Math.round(p.x), Math.round(p.y)];
   const tol = pxToMm(ctx.camera(), hitPx(e));

@@ -33,8 +33,18 @@ export function BackgroundControls({ onUpload }: Props) {
     <div className="flex flex-wrap items-center gap-2 text-sm">
       {onUpload && (
         <>
-          <input ref={file} type="file" accept="image/png,image/jpeg,image/webp" className="hidden" data-testid="background-file"
-            onChange={(e) => { const f = e.target.files?.[0]; if (f) void upload(f); e.target.value = ''; }} />
+          <input
+            ref={file}
+            type="file"
+            accept="image/png,image/jpeg,image/webp"
+            className="hidden"
+            data-testid="background-file"
+            onChange={(e) => {
+              const f = e.target.files?.[0];
+              if (f) void upload(f);
+              e.target.value = '';
+            }}
+          />
           <button type="button" className="h-8 rounded border border-graphite/25 bg-white px-2" disabled={busy} onClick={() => file.current?.click()}>
             {busy ? 'Uploading…' : bg ? 'Replace underlay' : 'Underlay image'}
           </button>
@@ -42,34 +52,68 @@ export function BackgroundControls({ onUpload }: Props) {
       )}
       {bg && (
         <>
-          <button type="button" className={`h-8 rounded border px-2 ${calibrating ? 'border-teal bg-teal-light' : 'border-graphite/25 bg-white'}`}
-            disabled={bg.locked} onClick={() => editor.setCalibrating(!calibrating)}>
+          <button
+            type="button"
+            className={`h-8 rounded border px-2 ${calibrating ? 'border-teal bg-teal-light' : 'border-graphite/25 bg-white'}`}
+            disabled={bg.locked}
+            onClick={() => editor.setCalibrating(!calibrating)}
+          >
             {calibrating ? (calibration ? 'Type the distance' : 'Click two points…') : 'Calibrate'}
           </button>
           {calibration && (
-            <form className="flex items-center gap-1" onSubmit={(e) => {
-              e.preventDefault();
-              if (d(cmd('calibrate background', calibrateBackground, { ...calibration, realMm: Number(realMm) }))) {
-                editor.setCalibrating(false);
-                setRealMm('');
-              }
-            }}>
-              <input autoFocus className="h-8 w-24 rounded border border-graphite/25 px-2 font-mono" placeholder="real mm" value={realMm}
-                onChange={(e) => setRealMm(e.target.value)} onKeyDown={(e) => e.stopPropagation()} />
-              <button type="submit" className="h-8 rounded bg-teal-dark px-2 text-white">Set scale</button>
+            <form
+              className="flex items-center gap-1"
+              onSubmit={(e) => {
+                e.preventDefault();
+                if (d(cmd('calibrate background', calibrateBackground, { ...calibration, realMm: Number(realMm) }))) {
+                  editor.setCalibrating(false);
+                  setRealMm('');
+                }
+              }}
+            >
+              <input
+                autoFocus
+                className="h-8 w-24 rounded border border-graphite/25 px-2 font-mono"
+                placeholder="real mm"
+                value={realMm}
+                onChange={(e) => setRealMm(e.target.value)}
+                onKeyDown={(e) => e.stopPropagation()}
+              />
+              <button type="submit" className="h-8 rounded bg-teal-dark px-2 text-white">
+                Set scale
+              </button>
             </form>
           )}
-          <label className="flex items-center gap-1">Opacity
-            <input type="range" min={0.1} max={1} step={0.05} value={bg.opacity} disabled={bg.locked}
+          <label className="flex items-center gap-1">
+            Opacity
+            <input
+              type="range"
+              min={0.1}
+              max={1}
+              step={0.05}
+              value={bg.opacity}
+              disabled={bg.locked}
               onChange={(e) => d(cmd('background opacity', setBackground, { background: { opacity: Number(e.target.value) } }), { history: 'gesture' })}
-              onPointerUp={() => editor.store.endGesture()} onKeyUp={() => editor.store.endGesture()} />
+              onPointerUp={() => editor.store.endGesture()}
+              onKeyUp={() => editor.store.endGesture()}
+            />
           </label>
           <label className="flex items-center gap-1">
-            <input type="checkbox" checked={bg.locked} onChange={(e) => d(cmd('lock background', setBackground, { background: { locked: e.target.checked } }))} />
+            <input
+              type="checkbox"
+              checked={bg.locked}
+              onChange={(e) => d(cmd('lock background', setBackground, { background: { locked: e.target.checked } }))}
+            />
             Lock
           </label>
-          <button type="button" className="h-8 rounded px-2 text-brick hover:bg-brick-light/40" disabled={bg.locked}
-            onClick={() => d(cmd('remove background', setBackground, { background: null }))}>Remove</button>
+          <button
+            type="button"
+            className="h-8 rounded px-2 text-brick hover:bg-brick-light/40"
+            disabled={bg.locked}
+            onClick={() => d(cmd('remove background', setBackground, { background: null }))}
+          >
+            Remove
+          </button>
         </>
       )}
     </div>

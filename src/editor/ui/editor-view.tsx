@@ -42,8 +42,14 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
   const issues = useMemo(() => {
     if (!run) return [];
     const out: PlacedIssue[] = [];
-    for (const m of run.errors) { const p = placeMessage(plan, m, 'error'); if (p) out.push(p); }
-    for (const m of run.warnings) { const p = placeMessage(plan, m, 'warning'); if (p) out.push(p); }
+    for (const m of run.errors) {
+      const p = placeMessage(plan, m, 'error');
+      if (p) out.push(p);
+    }
+    for (const m of run.warnings) {
+      const p = placeMessage(plan, m, 'warning');
+      if (p) out.push(p);
+    }
     return out;
     // Messages belong to the plan they were computed for; placing them on the live plan is what we want.
   }, [run, plan]);
@@ -60,9 +66,15 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
             <PlanStage editor={editor} takeoff={drawn} issues={issues} />
             <HelpSheet />
             {error && (
-              <div role="alert" data-testid="editor-error" className="absolute left-1/2 top-3 -translate-x-1/2 rounded bg-brick px-3 py-1.5 text-sm text-white shadow">
+              <div
+                role="alert"
+                data-testid="editor-error"
+                className="absolute left-1/2 top-3 -translate-x-1/2 rounded bg-brick px-3 py-1.5 text-sm text-white shadow"
+              >
                 {error}
-                <button type="button" className="ml-3 underline" onClick={() => editor.store.setError(null)}>dismiss</button>
+                <button type="button" className="ml-3 underline" onClick={() => editor.store.setError(null)}>
+                  dismiss
+                </button>
               </div>
             )}
           </div>

@@ -23,7 +23,9 @@ export function KindSwatch({ kind, size = 18 }: { kind: ExclusionKind; size?: nu
         ))}
       </defs>
       <rect x="1" y="1" width="16" height="16" fill={PALETTE.brickLight} fillOpacity="0.45" />
-      {st.angles.map((_, i) => <rect key={i} x="1" y="1" width="16" height="16" fill={`url(#${id}-${i})`} />)}
+      {st.angles.map((_, i) => (
+        <rect key={i} x="1" y="1" width="16" height="16" fill={`url(#${id}-${i})`} />
+      ))}
       <rect x="1" y="1" width="16" height="16" fill="none" stroke={PALETTE.brick} strokeWidth="1.5" strokeDasharray={st.dash.join(' ')} />
     </svg>
   );
@@ -34,7 +36,10 @@ export function ExclusionLegend() {
   return (
     <ul className="flex flex-wrap gap-x-3 gap-y-1 text-xs text-graphite-light" aria-label="Legend">
       {EXCLUSION_KINDS.map((k) => (
-        <li key={k} className="flex items-center gap-1"><KindSwatch kind={k} size={14} />{KIND_STYLES[k].name}</li>
+        <li key={k} className="flex items-center gap-1">
+          <KindSwatch kind={k} size={14} />
+          {KIND_STYLES[k].name}
+        </li>
       ))}
     </ul>
   );

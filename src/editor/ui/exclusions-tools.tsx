@@ -29,18 +29,32 @@ export function ExclusionsTools() {
     <div className="flex flex-wrap items-end gap-3">
       <div className="flex flex-wrap gap-1" role="radiogroup" aria-label="Kind to draw">
         {EXCLUSION_KINDS.map((k) => (
-          <button key={k} type="button" role="radio" aria-checked={k === kind} data-testid={`kind-${k}`}
+          <button
+            key={k}
+            type="button"
+            role="radio"
+            aria-checked={k === kind}
+            data-testid={`kind-${k}`}
             onClick={() => editor.store.setSession({ exclusionKind: k })}
-            className={cn('flex h-8 items-center gap-1 rounded border px-2 text-sm', k === kind ? 'border-brick bg-brick-light/60' : 'border-graphite/25 bg-white')}>
-            <KindSwatch kind={k} size={14} />{KIND_STYLES[k].name}
+            className={cn(
+              'flex h-8 items-center gap-1 rounded border px-2 text-sm',
+              k === kind ? 'border-brick bg-brick-light/60' : 'border-graphite/25 bg-white',
+            )}
+          >
+            <KindSwatch kind={k} size={14} />
+            {KIND_STYLES[k].name}
           </button>
         ))}
       </div>
       {kind !== 'downlight' && (
         <div className="flex gap-1 text-sm">
           {(['rect', 'polygon'] as const).map((s) => (
-            <button key={s} type="button" onClick={() => editor.store.setSession({ exclusionShape: s })}
-              className={cn('h-8 rounded border px-2', s === shape ? 'border-graphite bg-graphite text-paper' : 'border-graphite/25 bg-white')}>
+            <button
+              key={s}
+              type="button"
+              onClick={() => editor.store.setSession({ exclusionShape: s })}
+              className={cn('h-8 rounded border px-2', s === shape ? 'border-graphite bg-graphite text-paper' : 'border-graphite/25 bg-white')}
+            >
               {s === 'rect' ? 'Rectangle' : 'Polygon'}
             </button>
           ))}
@@ -48,21 +62,46 @@ export function ExclusionsTools() {
       )}
       {ex && i !== null && (
         <div className="flex flex-wrap items-end gap-2 rounded border border-brick/30 bg-white/60 px-2 py-1">
-          <label className="flex flex-col text-xs text-graphite-light">Label
-            <input key={i} defaultValue={ex.label ?? ''} data-testid="exclusion-label" className="h-8 w-40 rounded border border-graphite/25 bg-white px-2 text-sm text-graphite"
-              onKeyDown={(e) => { e.stopPropagation(); if (e.key === 'Enter') (e.target as HTMLInputElement).blur(); }}
-              onBlur={(e) => { if ((ex.label ?? '') !== e.target.value.trim()) editor.store.dispatch(cmd('label', setExclusionLabel, { index: i, label: e.target.value })); }} />
+          <label className="flex flex-col text-xs text-graphite-light">
+            Label
+            <input
+              key={i}
+              defaultValue={ex.label ?? ''}
+              data-testid="exclusion-label"
+              className="h-8 w-40 rounded border border-graphite/25 bg-white px-2 text-sm text-graphite"
+              onKeyDown={(e) => {
+                e.stopPropagation();
+                if (e.key === 'Enter') (e.target as HTMLInputElement).blur();
+              }}
+              onBlur={(e) => {
+                if ((ex.label ?? '') !== e.target.value.trim()) editor.store.dispatch(cmd('label', setExclusionLabel, { index: i, label: e.target.value }));
+              }}
+            />
           </label>
-          <label className="flex flex-col text-xs text-graphite-light">Kind
-            <select value={ex.kind} className="h-8 rounded border border-graphite/25 bg-white px-1 text-sm text-graphite"
-              onChange={(e) => editor.store.dispatch(cmd('kind', setExclusionKind, { index: i, kind: e.target.value as ExclusionKind }))}>
-              {EXCLUSION_KINDS.map((k) => <option key={k} value={k}>{KIND_STYLES[k].name}</option>)}
+          <label className="flex flex-col text-xs text-graphite-light">
+            Kind
+            <select
+              value={ex.kind}
+              className="h-8 rounded border border-graphite/25 bg-white px-1 text-sm text-graphite"
+              onChange={(e) => editor.store.dispatch(cmd('kind', setExclusionKind, { index: i, kind: e.target.value as ExclusionKind }))}
+            >
+              {EXCLUSION_KINDS.map((k) => (
+                <option key={k} value={k}>
+                  {KIND_STYLES[k].name}
+                </option>
+              ))}
             </select>
           </label>
-          <button type="button" className="h-8 rounded bg-brick px-2 text-sm text-white" onClick={() => {
-            editor.store.dispatch(cmd(`delete ${ex.kind}`, deleteExclusion, { index: i }));
-            editor.store.setSession({ selection: null });
-          }}>Delete</button>
+          <button
+            type="button"
+            className="h-8 rounded bg-brick px-2 text-sm text-white"
+            onClick={() => {
+              editor.store.dispatch(cmd(`delete ${ex.kind}`, deleteExclusion, { index: i }));
+              editor.store.setSession({ selection: null });
+            }}
+          >
+            Delete
+          </button>
           <p className="max-w-xs text-xs text-graphite-light">{KIND_RULES[ex.kind]}</p>
         </div>
       )}

@@ -21,18 +21,27 @@ export function HelpSheet() {
   const open = useEditorSelect((s) => s.session.helpOpen);
   if (!open) return null;
   return (
-    <div role="dialog" aria-label="Keyboard shortcuts" className="absolute inset-0 z-20 flex items-center justify-center bg-graphite/30"
-      onClick={() => editor.store.setSession({ helpOpen: false })}>
+    <div
+      role="dialog"
+      aria-label="Keyboard shortcuts"
+      className="absolute inset-0 z-20 flex items-center justify-center bg-graphite/30"
+      onClick={() => editor.store.setSession({ helpOpen: false })}
+    >
       <div className="max-w-lg rounded-lg bg-paper p-5 shadow-xl" onClick={(e) => e.stopPropagation()}>
         <h2 className="mb-3 text-lg font-semibold">Shortcuts</h2>
         <table className="text-sm">
           <tbody>
             {SHORTCUTS.map(([k, v]) => (
-              <tr key={k}><td className="whitespace-nowrap py-1 pr-4 font-mono text-xs">{k}</td><td>{v}</td></tr>
+              <tr key={k}>
+                <td className="whitespace-nowrap py-1 pr-4 font-mono text-xs">{k}</td>
+                <td>{v}</td>
+              </tr>
             ))}
           </tbody>
         </table>
-        <button type="button" className="mt-4 h-8 rounded bg-graphite px-3 text-sm text-paper" onClick={() => editor.store.setSession({ helpOpen: false })}>Close</button>
+        <button type="button" className="mt-4 h-8 rounded bg-graphite px-3 text-sm text-paper" onClick={() => editor.store.setSession({ helpOpen: false })}>
+          Close
+        </button>
       </div>
     </div>
   );

@@ -24,45 +24,100 @@ export function LayersTools({ products }: { products: TakeoffProduct[] }) {
   };
   return (
     <div className="flex flex-wrap items-end gap-3">
-      <NumberField label="Existing depth" unit="mm" value={existing.depthMm} testId="existing-depth" className="w-28"
-        onCommit={(v) => d(cmd('existing depth', setExisting, { depthMm: v }))} />
-      <label className="flex flex-col text-xs text-graphite-light">Condition
-        <select className={selectClass} value={existing.condition} data-testid="existing-condition"
-          onChange={(e) => d(cmd('existing condition', setExisting, { condition: e.target.value as Existing['condition'] }))}>
-          {CONDITIONS.map((c) => <option key={c} value={c}>{c}</option>)}
+      <NumberField
+        label="Existing depth"
+        unit="mm"
+        value={existing.depthMm}
+        testId="existing-depth"
+        className="w-28"
+        onCommit={(v) => d(cmd('existing depth', setExisting, { depthMm: v }))}
+      />
+      <label className="flex flex-col text-xs text-graphite-light">
+        Condition
+        <select
+          className={selectClass}
+          value={existing.condition}
+          data-testid="existing-condition"
+          onChange={(e) => d(cmd('existing condition', setExisting, { condition: e.target.value as Existing['condition'] }))}
+        >
+          {CONDITIONS.map((c) => (
+            <option key={c} value={c}>
+              {c}
+            </option>
+          ))}
         </select>
       </label>
-      <label className="flex flex-col text-xs text-graphite-light">Target
-        <select className={selectClass} value={byDepth ? 'depth' : 'u'}
-          onChange={(e) => d(cmd('target', setTarget, { target: e.target.value === 'depth' ? { depthMm: 270 } : { uValue: 0.16 } }))}>
+      <label className="flex flex-col text-xs text-graphite-light">
+        Target
+        <select
+          className={selectClass}
+          value={byDepth ? 'depth' : 'u'}
+          onChange={(e) => d(cmd('target', setTarget, { target: e.target.value === 'depth' ? { depthMm: 270 } : { uValue: 0.16 } }))}
+        >
           <option value="depth">total depth</option>
           <option value="u">U-value</option>
         </select>
       </label>
       {byDepth ? (
-        <NumberField label="Target depth" unit="mm" value={target.depthMm} testId="target-depth" className="w-28"
-          onCommit={(v) => d(cmd('target depth', setTarget, { target: { depthMm: v } }))} />
+        <NumberField
+          label="Target depth"
+          unit="mm"
+          value={target.depthMm}
+          testId="target-depth"
+          className="w-28"
+          onCommit={(v) => d(cmd('target depth', setTarget, { target: { depthMm: v } }))}
+        />
       ) : (
-        <NumberField label="Target U" unit="W/m²K" step={0.01} value={target.uValue} testId="target-u" className="w-32"
-          onCommit={(v) => d(cmd('target U', setTarget, { target: { uValue: v } }))} />
+        <NumberField
+          label="Target U"
+          unit="W/m²K"
+          step={0.01}
+          value={target.uValue}
+          testId="target-u"
+          className="w-32"
+          onCommit={(v) => d(cmd('target U', setTarget, { target: { uValue: v } }))}
+        />
       )}
-      <label className="flex flex-col text-xs text-graphite-light">Base product
+      <label className="flex flex-col text-xs text-graphite-light">
+        Base product
         <select className={selectClass} value={choice?.baseProductId ?? ''} onChange={(e) => pick({ baseProductId: e.target.value || undefined })}>
           <option value="">choose for me</option>
-          {fits('base').map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+          {fits('base').map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.name}
+            </option>
+          ))}
         </select>
       </label>
-      <label className="flex flex-col text-xs text-graphite-light">Cross product
-        <select className={selectClass} value={cross[0] ?? ''} onChange={(e) => pick({ crossProductIds: e.target.value ? [e.target.value, ...cross.slice(1)] : [] })}>
+      <label className="flex flex-col text-xs text-graphite-light">
+        Cross product
+        <select
+          className={selectClass}
+          value={cross[0] ?? ''}
+          onChange={(e) => pick({ crossProductIds: e.target.value ? [e.target.value, ...cross.slice(1)] : [] })}
+        >
           <option value="">choose for me</option>
-          {fits('cross').map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+          {fits('cross').map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.name}
+            </option>
+          ))}
         </select>
       </label>
       {cross.length > 0 && (
-        <label className="flex flex-col text-xs text-graphite-light">Second cross
-          <select className={selectClass} value={cross[1] ?? ''} onChange={(e) => pick({ crossProductIds: e.target.value ? [cross[0], e.target.value] : [cross[0]] })}>
+        <label className="flex flex-col text-xs text-graphite-light">
+          Second cross
+          <select
+            className={selectClass}
+            value={cross[1] ?? ''}
+            onChange={(e) => pick({ crossProductIds: e.target.value ? [cross[0], e.target.value] : [cross[0]] })}
+          >
             <option value="">none</option>
-            {fits('cross').map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+            {fits('cross').map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.name}
+              </option>
+            ))}
           </select>
         </label>
       )}

@@ -17,7 +17,10 @@ export function OutlineTools() {
       const r = parseRun(run);
       return r.closure.kind === 'closed'
         ? { ok: true, text: `${r.points.length} corners; closes with ${r.closure.errorMm} mm closing error` }
-        : { ok: true, text: `${r.points.length} corners; closing error ${formatLength(r.closure.lengthMm, units)} — a last wall of that length ${describeDirection(r.closure.angleDeg)} closes it` };
+        : {
+            ok: true,
+            text: `${r.points.length} corners; closing error ${formatLength(r.closure.lengthMm, units)} — a last wall of that length ${describeDirection(r.closure.angleDeg)} closes it`,
+          };
     } catch (e) {
       return { ok: false, text: (e as Error).message };
     }
@@ -29,14 +32,26 @@ export function OutlineTools() {
     }
   };
   const edge = sel?.kind === 'edge' && sel.index < plan.outline.length ? sel.index : null;
-  const edgeLen = edge !== null ? (() => {
-    const a = plan.outline[edge], b = plan.outline[(edge + 1) % plan.outline.length];
-    return Math.round(Math.hypot(b[0] - a[0], b[1] - a[1]));
-  })() : 0;
+  const edgeLen =
+    edge !== null
+      ? (() => {
+          const a = plan.outline[edge],
+            b = plan.outline[(edge + 1) % plan.outline.length];
+          return Math.round(Math.hypot(b[0] - a[0], b[1] - a[1]));
+        })()
+      : 0;
   return (
     <div className="flex flex-wrap items-end gap-3">
-      <form className="flex min-w-[280px] flex-1 flex-col gap-0.5" onSubmit={(e) => { e.preventDefault(); apply(); }}>
-        <label className="text-xs text-graphite-light" htmlFor="wall-run">Walls in order (e.g. 4200 right, 3600 down, 4200 left)</label>
+      <form
+        className="flex min-w-[280px] flex-1 flex-col gap-0.5"
+        onSubmit={(e) => {
+          e.preventDefault();
+          apply();
+        }}
+      >
+        <label className="text-xs text-graphite-light" htmlFor="wall-run">
+          Walls in order (e.g. 4200 right, 3600 down, 4200 left)
+        </label>
         <div className="flex gap-2">
           <input
             id="wall-run"
@@ -47,25 +62,55 @@ export function OutlineTools() {
             onChange={(e) => setRun(e.target.value)}
             onKeyDown={(e) => e.stopPropagation()}
           />
-          <button type="submit" data-testid="wall-run-apply" disabled={!preview?.ok} className="h-8 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50">Use walls</button>
+          <button
+            type="submit"
+            data-testid="wall-run-apply"
+            disabled={!preview?.ok}
+            className="h-8 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50"
+          >
+            Use walls
+          </button>
         </div>
-        {preview && <span data-testid="wall-run-preview" className={preview.ok ? 'text-xs text-teal-dark' : 'text-xs text-brick'}>{preview.text}</span>}
+        {preview && (
+          <span data-testid="wall-run-preview" className={preview.ok ? 'text-xs text-teal-dark' : 'text-xs text-brick'}>
+            {preview.text}
+          </span>
+        )}
       </form>
       {edge !== null && (
-        <NumberField key={edge} label={`Edge ${edge + 1} length`} unit="mm" value={edgeLen} testId="edge-length"
-          onCommit={(v) => editor.store.dispatch(cmd(`edge ${edge + 1} length`, setEdgeLength, { edge, lengthMm: v }))} className="w-32" />
+        <NumberField
+          key={edge}
+          label={`Edge ${edge + 1} length`}
+          unit="mm"
+          value={edgeLen}
+          testId="edge-length"
+          onCommit={(v) => editor.store.dispatch(cmd(`edge ${edge + 1} length`, setEdgeLength, { edge, lengthMm: v }))}
+          className="w-32"
+        />
       )}
       {sel?.kind === 'corner' && sel.index < plan.outline.length && (
-        <button type="button" className="h-8 rounded border border-graphite/25 px-3 text-sm" onClick={() => {
-          editor.store.dispatch(cmd(`delete corner ${sel.index + 1}`, deleteCorner, { index: sel.index }));
-          editor.store.setSession({ selection: null });
-        }}>Delete corner {sel.index + 1}</button>
+        <button
+          type="button"
+          className="h-8 rounded border border-graphite/25 px-3 text-sm"
+          onClick={() => {
+            editor.store.dispatch(cmd(`delete corner ${sel.index + 1}`, deleteCorner, { index: sel.index }));
+            editor.store.setSession({ selection: null });
+          }}
+        >
+          Delete corner {sel.index + 1}
+        </button>
       )}
       {plan.outline.length > 0 && (
-        <button type="button" className="h-8 rounded border border-graphite/25 px-3 text-sm" onClick={() => {
-          editor.store.dispatch(cmd('clear outline', setOutline, { outline: [] }));
-          editor.store.setSession({ selection: null });
-        }}>Draw again</button>
+        <button
+          type="button"
+          className="h-8 rounded border border-graphite/25 px-3 text-sm"
+          onClick={() => {
+            editor.store.dispatch(cmd('clear outline', setOutline, { outline: [] }));
+            editor.store.setSession({ selection: null });
+          }}
+        >
+          Draw again
+        </button>
       )}
     </div>
   );

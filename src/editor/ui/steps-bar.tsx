@@ -49,5 +49,9 @@ export function StepsBar() {
 /** The one-line hint of the current step. */
 export function StepHint() {
   const step = useEditorSelect((s) => s.session.step);
-  return <p className="truncate text-sm text-graphite-light" data-testid="step-hint">{STEP_HINTS[step]}</p>;
+  return (
+    <p className="truncate text-sm text-graphite-light" data-testid="step-hint">
+      {STEP_HINTS[step]}
+    </p>
+  );
 }

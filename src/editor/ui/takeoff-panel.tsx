@@ -17,7 +17,9 @@ function Row({ label, value, testId, strong }: { label: string; value: string; t
   return (
     <div className="flex justify-between gap-2 py-0.5">
       <dt className="text-graphite-light">{label}</dt>
-      <dd className={`font-mono ${strong ? 'font-semibold text-graphite' : ''}`} data-testid={testId}>{value}</dd>
+      <dd className={`font-mono ${strong ? 'font-semibold text-graphite' : ''}`} data-testid={testId}>
+        {value}
+      </dd>
     </div>
   );
 }
@@ -32,7 +34,10 @@ export function groupStripsByLength(layer: TakeoffLayer): { lengthMm: number; co
 function LayerBlock({ layer, units }: { layer: TakeoffLayer; units: Units }) {
   const base = layer.role === 'base';
   return (
-    <section className={`rounded border-l-4 bg-white/60 px-2 py-1 ${base ? 'border-straw' : 'border-teal'}`} data-testid={`layer-${layer.role}-${layer.roleIndex}`}>
+    <section
+      className={`rounded border-l-4 bg-white/60 px-2 py-1 ${base ? 'border-straw' : 'border-teal'}`}
+      data-testid={`layer-${layer.role}-${layer.roleIndex}`}
+    >
       <h4 className="text-sm font-semibold">{base ? 'Base layer (between joists)' : `Cross layer ${layer.roleIndex + 1} (over joists)`}</h4>
       <p className="text-xs text-graphite-light">{layer.productName}</p>
       <dl className="text-xs">
@@ -46,7 +51,10 @@ function LayerBlock({ layer, units }: { layer: TakeoffLayer; units: Units }) {
         <summary className="cursor-pointer text-graphite-light">Strips by length</summary>
         <ul className="font-mono">
           {groupStripsByLength(layer).map((g) => (
-            <li key={g.lengthMm}>{g.count} × {formatLength(g.lengthMm, units)}{units === 'metric' ? ' mm' : ''}</li>
+            <li key={g.lengthMm}>
+              {g.count} × {formatLength(g.lengthMm, units)}
+              {units === 'metric' ? ' mm' : ''}
+            </li>
           ))}
         </ul>
       </details>
@@ -58,7 +66,12 @@ function Messages({ items, tone }: { items: PlanMessage[]; tone: 'error' | 'warn
   if (!items.length) return null;
   return (
     <ul className={`space-y-1 text-xs ${tone === 'error' ? 'text-brick' : 'text-straw-dark'}`} data-testid={`takeoff-${tone}s`}>
-      {items.map((m, i) => <li key={i}>{tone === 'error' ? '⚠ ' : '• '}{m.message}</li>)}
+      {items.map((m, i) => (
+        <li key={i}>
+          {tone === 'error' ? '⚠ ' : '• '}
+          {m.message}
+        </li>
+      ))}
     </ul>
   );
 }
@@ -72,7 +85,11 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
         <Row label="Excluded" value={formatArea(t.excludedAreaM2, units)} />
         <Row label="Eaves bands" value={formatArea(t.eavesBandAreaM2, units)} />
       </dl>
-      <div className="space-y-2">{t.layers.map((l) => <LayerBlock key={`${l.role}${l.roleIndex}`} layer={l} units={units} />)}</div>
+      <div className="space-y-2">
+        {t.layers.map((l) => (
+          <LayerBlock key={`${l.role}${l.roleIndex}`} layer={l} units={units} />
+        ))}
+      </div>
       {t.layers.length === 0 && <p className="text-xs text-graphite-light">No new layers needed for this target.</p>}
       {t.rollsPerProduct.length > 0 && (
         <section>
@@ -81,13 +98,23 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
             <thead>
               <tr className="align-bottom leading-tight text-graphite-light">
                 <th className="pb-0.5 text-left font-normal">Product</th>
-                <th className="w-16 px-1 pb-0.5 text-center font-normal" title="Rolls counted by packing the strips into whole rolls">By packing</th>
-                <th className="w-16 px-1 pb-0.5 text-center font-normal" title="Rolls by rule of thumb: area ÷ roll area, plus waste (common practice)">Rule of thumb</th>
+                <th className="w-16 px-1 pb-0.5 text-center font-normal" title="Rolls counted by packing the strips into whole rolls">
+                  By packing
+                </th>
+                <th className="w-16 px-1 pb-0.5 text-center font-normal" title="Rolls by rule of thumb: area ÷ roll area, plus waste (common practice)">
+                  Rule of thumb
+                </th>
               </tr>
             </thead>
             <tbody className="font-mono">
               {t.rollsPerProduct.map((r) => (
-                <tr key={r.productId}><td className="font-sans">{r.productName}</td><td className="text-center" data-testid="rolls-packing">{r.rollsByPacking}</td><td className="text-center">{r.rollsByArea}</td></tr>
+                <tr key={r.productId}>
+                  <td className="font-sans">{r.productName}</td>
+                  <td className="text-center" data-testid="rolls-packing">
+                    {r.rollsByPacking}
+                  </td>
+                  <td className="text-center">{r.rollsByArea}</td>
+                </tr>
               ))}
             </tbody>
           </table>
@@ -108,7 +135,9 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
         <section>
           <h4 className="text-sm font-semibold">Site checks</h4>
           <ul className="list-disc space-y-1 pl-4 text-xs" data-testid="site-checks">
-            {t.siteChecks.map((c) => <li key={c.code}>{c.message}</li>)}
+            {t.siteChecks.map((c) => (
+              <li key={c.code}>{c.message}</li>
+            ))}
           </ul>
           <p className="mt-1 text-[11px] text-graphite-faint">Reminders only: follow local building regulations, electrical rules and licensed practice.</p>
         </section>
@@ -120,13 +149,19 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
 /** The live takeoff beside the plan; memoised so a drag that does not change it costs nothing here. */
 export const TakeoffPanel = memo(function TakeoffPanel({ run, units, stale }: { run: TakeoffRun | null; units: Units; stale?: boolean }) {
   return (
-    <aside className={`flex h-full flex-col gap-3 overflow-y-auto border-l border-graphite/15 bg-paper/95 p-3 transition-opacity ${stale ? 'opacity-60' : ''}`} aria-label="Live takeoff" data-testid="takeoff-panel">
+    <aside
+      className={`flex h-full flex-col gap-3 overflow-y-auto border-l border-graphite/15 bg-paper/95 p-3 transition-opacity ${stale ? 'opacity-60' : ''}`}
+      aria-label="Live takeoff"
+      data-testid="takeoff-panel"
+    >
       <h3 className="font-semibold">Takeoff</h3>
       {!run && <p className="text-sm text-graphite-light">Working…</p>}
       {run && !run.takeoff && run.errors.length === 0 && <p className="text-sm text-graphite-light">Draw or type the outline to see the takeoff.</p>}
       {run && <Messages items={run.errors} tone="error" />}
       {run?.takeoff && <Summary t={run.takeoff} units={units} />}
-      {run && <Messages items={[...run.warnings, ...(run.takeoff?.warnings.filter((w) => !run.warnings.some((v) => v.code === w.code)) ?? [])]} tone="warning" />}
+      {run && (
+        <Messages items={[...run.warnings, ...(run.takeoff?.warnings.filter((w) => !run.warnings.some((v) => v.code === w.code)) ?? [])]} tone="warning" />
+      )}
     </aside>
   );
 });

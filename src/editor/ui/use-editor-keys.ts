@@ -1,8 +1,7 @@
 import { useEffect } from 'react';
 import type { Editor } from '../create-editor';
 
-const isTyping = (t: EventTarget | null) =>
-  t instanceof HTMLElement && (t.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(t.tagName));
+const isTyping = (t: EventTarget | null) => t instanceof HTMLElement && (t.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(t.tagName));
 
 /** The editor's shortcuts wherever focus is on the page, except while typing in a field. */
 export function useEditorKeys(editor: Editor) {

@@ -32,9 +32,23 @@ export function mergePending(sheet: JobSheet, items: OutboxItem[], me: { id: str
         pending: true,
       });
     } else if (item.kind === 'note' && item.status === 'waiting') {
-      notes.push({ id: item.key, spaceId: (b.spaceId as string) ?? null, text: String(b.text), byName: me.name, at: String(b.at ?? item.createdAt), pending: true });
+      notes.push({
+        id: item.key,
+        spaceId: (b.spaceId as string) ?? null,
+        text: String(b.text),
+        byName: me.name,
+        at: String(b.at ?? item.createdAt),
+        pending: true,
+      });
     } else if (item.kind === 'photo' && item.file) {
-      pendingPhotos.push({ key: item.key, spaceId: String(b.spaceId), stage: b.stage as PhotoStage, caption: String(b.caption ?? ''), file: item.file, failed: item.status === 'failed' });
+      pendingPhotos.push({
+        key: item.key,
+        spaceId: String(b.spaceId),
+        stage: b.stage as PhotoStage,
+        caption: String(b.caption ?? ''),
+        file: item.file,
+        failed: item.status === 'failed',
+      });
     }
   }
   return { ticks, notes, pendingPhotos };
@@ -50,7 +64,8 @@ export function finishBlockers(sheet: JobSheet, ticks: Map<string, ShownTick>, r
       const reason = (reasons[`${s.id}:${c.code}`] ?? t?.reason ?? '').trim();
       if (!t?.done && !reason) checks.push({ key: `${s.id}:${c.code}`, spaceName: s.name, title: c.title });
     }
-    const hasAfter = sheet.photos.some((p) => p.spaceId === s.id && p.stage === 'after') || pendingPhotos.some((p) => p.spaceId === s.id && p.stage === 'after' && !p.failed);
+    const hasAfter =
+      sheet.photos.some((p) => p.spaceId === s.id && p.stage === 'after') || pendingPhotos.some((p) => p.spaceId === s.id && p.stage === 'after' && !p.failed);
     if (!hasAfter) photos.push(s.name);
   }
   return { checks, photos };

@@ -16,7 +16,10 @@ export function arbStarPolygon(opts: { minPoints?: number; maxPoints?: number; m
     .record({
       cx: fc.integer({ min: -20000, max: 20000 }),
       cy: fc.integer({ min: -20000, max: 20000 }),
-      pts: fc.array(fc.record({ gap: fc.double({ min: 0.2, max: 1, noNaN: true }), r: fc.integer({ min: minR, max: maxR }) }), { minLength: minPoints, maxLength: maxPoints }),
+      pts: fc.array(fc.record({ gap: fc.double({ min: 0.2, max: 1, noNaN: true }), r: fc.integer({ min: minR, max: maxR }) }), {
+        minLength: minPoints,
+        maxLength: maxPoints,
+      }),
     })
     .map(({ cx, cy, pts }) => {
       const total = pts.reduce((t, p) => t + p.gap, 0);
@@ -52,6 +55,11 @@ export function arbQuad(centre: Vec2, spread = 5000): fc.Arbitrary<Vec2[]> {
     .map(({ x, y, w, h, skew }) => {
       const x0 = centre[0] + x;
       const y0 = centre[1] + y;
-      return [[x0, y0], [x0 + w, y0], [x0 + w + skew, y0 + h], [x0 + skew, y0 + h]] as Vec2[];
+      return [
+        [x0, y0],
+        [x0 + w, y0],
+        [x0 + w + skew, y0 + h],
+        [x0 + skew, y0 + h],
+      ] as Vec2[];
     });
 }

@@ -17,8 +17,7 @@ export async function getMe(signal?: AbortSignal): Promise<Me | null> {
   }
 }
 
-export const meQueryOptions = () =>
-  queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 5 * 60_000 });
+export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 5 * 60_000 });
 
 export function useMe() {
   return useQuery(meQueryOptions());

@@ -10,7 +10,11 @@ export function CustomersTable({ customers, onEdit }: { customers: Customer[]; o
           <Th>Name</Th>
           <Th className="hidden sm:table-cell">Contact</Th>
           <Th>Address</Th>
-          {onEdit && <Th className="w-px"><span className="sr-only">Actions</span></Th>}
+          {onEdit && (
+            <Th className="w-px">
+              <span className="sr-only">Actions</span>
+            </Th>
+          )}
         </tr>
       </THead>
       <TBody>

@@ -7,7 +7,8 @@ export async function getDeposit(quoteId: string, signal?: AbortSignal): Promise
   return (await api.get<{ deposit: DepositStatus }>(`/api/payments/deposits/${encodeURIComponent(quoteId)}`, undefined, signal)).deposit;
 }
 
-export const depositQueryOptions = (quoteId: string) => queryOptions({ queryKey: invoiceKeys.deposit(quoteId), queryFn: ({ signal }) => getDeposit(quoteId, signal) });
+export const depositQueryOptions = (quoteId: string) =>
+  queryOptions({ queryKey: invoiceKeys.deposit(quoteId), queryFn: ({ signal }) => getDeposit(quoteId, signal) });
 
 /** A quote's deposit: none asked, due, or paid (amount and time). */
 export function useDeposit(quoteId: string) {

@@ -28,5 +28,8 @@ export function useSendInvoice(id: string) {
 
 export function useCreateCreditNote(id: string) {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: (body: CreditNoteCreate) => createCreditNote(id, body), onSuccess: () => qc.invalidateQueries({ queryKey: invoiceKeys.all }) });
+  return useMutation({
+    mutationFn: (body: CreditNoteCreate) => createCreditNote(id, body),
+    onSuccess: () => qc.invalidateQueries({ queryKey: invoiceKeys.all }),
+  });
 }

@@ -22,7 +22,10 @@ export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
     if (parsed.lines.length === 0) return setProblem('add at least one line');
     if (!reason.trim()) return setProblem('say why the credit is given');
     setProblem(null);
-    create.mutateAsync({ reason, lines: parsed.lines, refund: invoice.status === 'paid' && refund }).then((cn) => navigate(`/invoices/${cn.id}`), () => undefined);
+    create.mutateAsync({ reason, lines: parsed.lines, refund: invoice.status === 'paid' && refund }).then(
+      (cn) => navigate(`/invoices/${cn.id}`),
+      () => undefined,
+    );
   }
 
   return (
@@ -38,7 +41,9 @@ export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
       )}
       {(problem || create.isError) && <Alert>{asSentence(problem ?? create.error?.message ?? '')}</Alert>}
       <div>
-        <Button type="submit" variant="secondary" busy={create.isPending}>Issue credit note</Button>
+        <Button type="submit" variant="secondary" busy={create.isPending}>
+          Issue credit note
+        </Button>
       </div>
     </form>
   );

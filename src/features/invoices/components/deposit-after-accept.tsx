@@ -19,13 +19,21 @@ export function DepositAfterAccept({ link, redirect = false }: { link: string; r
   const d = deposit.data;
   const money = formatMoney(d.amountMinor, d.currency);
   if (d.state === 'paid') {
-    return <p data-testid="deposit-paid" className="rounded-md border border-teal/40 bg-teal-light/30 px-3 py-2 text-sm text-teal-dark">Deposit of {money} received {formatDateTime(d.paidAt)}. Thank you.</p>;
+    return (
+      <p data-testid="deposit-paid" className="rounded-md border border-teal/40 bg-teal-light/30 px-3 py-2 text-sm text-teal-dark">
+        Deposit of {money} received {formatDateTime(d.paidAt)}. Thank you.
+      </p>
+    );
   }
   if (!payUrl) return null;
   return (
     <div data-testid="deposit-due" className="flex flex-wrap items-center gap-3 rounded-md border border-straw-dark/40 bg-straw-light/40 px-3 py-2 text-sm">
-      <span>A deposit of <strong>{money}</strong> books the work.</span>
-      <a className={buttonClass('primary', 'sm')} href={payUrl}>Pay the deposit</a>
+      <span>
+        A deposit of <strong>{money}</strong> books the work.
+      </span>
+      <a className={buttonClass('primary', 'sm')} href={payUrl}>
+        Pay the deposit
+      </a>
     </div>
   );
 }

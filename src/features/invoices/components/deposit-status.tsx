@@ -11,8 +11,17 @@ export function DepositStatus({ quoteId, className }: { quoteId: string; classNa
   if (d.state === 'none') return null;
   const money = formatMoney(d.amountMinor, d.currency);
   return (
-    <p data-testid="deposit-status" className={cn('rounded-md border px-3 py-2 text-sm', d.state === 'paid' ? 'border-teal/40 bg-teal-light/30 text-teal-dark' : 'border-straw-dark/40 bg-straw-light/40 text-graphite', className)}>
-      {d.state === 'paid' ? `Deposit of ${money} paid ${formatDateTime(d.paidAt)}` : `Deposit of ${money} due when the customer accepts${d.attempts ? ` (${d.attempts} checkout${d.attempts > 1 ? 's' : ''} started, not paid)` : ''}`}
+    <p
+      data-testid="deposit-status"
+      className={cn(
+        'rounded-md border px-3 py-2 text-sm',
+        d.state === 'paid' ? 'border-teal/40 bg-teal-light/30 text-teal-dark' : 'border-straw-dark/40 bg-straw-light/40 text-graphite',
+        className,
+      )}
+    >
+      {d.state === 'paid'
+        ? `Deposit of ${money} paid ${formatDateTime(d.paidAt)}`
+        : `Deposit of ${money} due when the customer accepts${d.attempts ? ` (${d.attempts} checkout${d.attempts > 1 ? 's' : ''} started, not paid)` : ''}`}
     </p>
   );
 }

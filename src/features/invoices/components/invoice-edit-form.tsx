@@ -14,7 +14,12 @@ export function InvoiceEditForm({ invoice }: { invoice: Invoice }) {
   const [lines, setLines] = useState<DraftLine[]>(() =>
     invoice.lines
       .filter((l) => l.source === 'variation')
-      .map((l) => ({ description: l.description, quantity: String(l.quantity), price: minorToDecimalString(l.unitPriceMinor, invoice.currency), taxClass: (l.taxClass ?? 'standard') as DraftLine['taxClass'] })),
+      .map((l) => ({
+        description: l.description,
+        quantity: String(l.quantity),
+        price: minorToDecimalString(l.unitPriceMinor, invoice.currency),
+        taxClass: (l.taxClass ?? 'standard') as DraftLine['taxClass'],
+      })),
   );
   const [problem, setProblem] = useState<string | null>(null);
 
@@ -42,7 +47,9 @@ export function InvoiceEditForm({ invoice }: { invoice: Invoice }) {
         {(problem || update.isError) && <Alert>{asSentence(problem ?? update.error?.message ?? '')}</Alert>}
         {update.isSuccess && <Alert tone="success">Saved. Send it again so the customer has the new version.</Alert>}
         <div>
-          <Button type="submit" busy={update.isPending}>Save changes</Button>
+          <Button type="submit" busy={update.isPending}>
+            Save changes
+          </Button>
         </div>
       </form>
     </Card>

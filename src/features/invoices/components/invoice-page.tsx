@@ -2,7 +2,24 @@ import { Link, useParams } from 'react-router-dom';
 import type { Invoice } from '../../../../shared/api/invoices';
 import { formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
-import { Alert, Button, Card, CardTitle, ErrorState, LoadingState, PageHeader, Table, TBody, Td, Th, THead, Tr, buttonClass, formatDate, formatDateTime } from '../../../components/ui';
+import {
+  Alert,
+  Button,
+  Card,
+  CardTitle,
+  ErrorState,
+  LoadingState,
+  PageHeader,
+  Table,
+  TBody,
+  Td,
+  Th,
+  THead,
+  Tr,
+  buttonClass,
+  formatDate,
+  formatDateTime,
+} from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { asSentence } from '../../../lib/form-errors';
 import { invoicePdfUrl, useInvoice } from '../api/get-invoice';
@@ -17,7 +34,13 @@ export default function InvoicePage() {
   const invoice = useInvoice(id);
   if (invoice.isPending) return <LoadingState label="Loading the invoice…" />;
   if (invoice.isError) {
-    return <ErrorState error={invoice.error} onRetry={() => invoice.refetch()} title={isApiError(invoice.error) && invoice.error.status === 404 ? 'No such invoice' : 'The invoice could not be loaded'} />;
+    return (
+      <ErrorState
+        error={invoice.error}
+        onRetry={() => invoice.refetch()}
+        title={isApiError(invoice.error) && invoice.error.status === 404 ? 'No such invoice' : 'The invoice could not be loaded'}
+      />
+    );
   }
   const inv = invoice.data;
   const isInvoice = inv.kind === 'invoice';
@@ -33,11 +56,18 @@ export default function InvoicePage() {
         }
         subtitle={
           <>
-            {inv.customerName} · job <Link className="underline-offset-2 hover:underline" to={`/jobs/${inv.jobId}`}>{inv.jobReference}</Link>
+            {inv.customerName} · job{' '}
+            <Link className="underline-offset-2 hover:underline" to={`/jobs/${inv.jobId}`}>
+              {inv.jobReference}
+            </Link>
             {inv.quoteReference ? ` · quote ${inv.quoteReference}` : ''}
             {inv.creditedInvoiceId ? (
               <>
-                {' '}· credits <Link className="underline-offset-2 hover:underline" to={`/invoices/${inv.creditedInvoiceId}`}>{inv.creditedInvoiceNumber}</Link>
+                {' '}
+                · credits{' '}
+                <Link className="underline-offset-2 hover:underline" to={`/invoices/${inv.creditedInvoiceId}`}>
+                  {inv.creditedInvoiceNumber}
+                </Link>
               </>
             ) : null}
           </>
@@ -55,7 +85,9 @@ export default function InvoicePage() {
       <Lines inv={inv} />
       {editable && <InvoiceEditForm invoice={inv} />}
       {isInvoice && inv.status === 'paid' && (
-        <Alert tone="info">A paid invoice cannot be changed. To correct it, issue a credit note below (it can pay the amount back to the customer's card).</Alert>
+        <Alert tone="info">
+          A paid invoice cannot be changed. To correct it, issue a credit note below (it can pay the amount back to the customer's card).
+        </Alert>
       )}
       {isInvoice && (
         <Card>
@@ -64,7 +96,10 @@ export default function InvoicePage() {
             <ul className="mb-4 flex flex-col gap-1 text-sm">
               {inv.creditNotes.map((c) => (
                 <li key={c.id}>
-                  <Link className="font-mono text-teal-dark hover:underline" to={`/invoices/${c.id}`}>{c.number}</Link> · {formatDate(c.issueDate)} · {formatMoney(c.totalMinor, c.currency)}
+                  <Link className="font-mono text-teal-dark hover:underline" to={`/invoices/${c.id}`}>
+                    {c.number}
+                  </Link>{' '}
+                  · {formatDate(c.issueDate)} · {formatMoney(c.totalMinor, c.currency)}
                 </li>
               ))}
             </ul>
@@ -83,7 +118,11 @@ function SendButton({ invoice }: { invoice: Invoice }) {
       <Button variant="primary" busy={send.isPending} onClick={() => send.mutate()} disabled={!invoice.customerEmail}>
         {invoice.sentAt ? 'Send again' : 'Send to customer'}
       </Button>
-      {send.isError && <span role="alert" className="text-sm text-brick-dark">{asSentence(send.error.message)}</span>}
+      {send.isError && (
+        <span role="alert" className="text-sm text-brick-dark">
+          {asSentence(send.error.message)}
+        </span>
+      )}
       {send.isSuccess && <span className="text-sm text-teal-dark">Sent.</span>}
     </span>
   );
@@ -97,7 +136,9 @@ function Summary({ inv }: { inv: Invoice }) {
     ['Total', m(inv.totalMinor)],
     ...(inv.depositMinor ? ([['Deposit paid', `−${m(inv.depositMinor)}`]] as Array<[string, string]>) : []),
     ...(inv.creditedMinor ? ([['Credited', `−${m(inv.creditedMinor)}`]] as Array<[string, string]>) : []),
-    ...(inv.kind === 'invoice' ? ([[inv.status === 'paid' ? 'Paid' : 'To pay', inv.status === 'paid' ? formatDateTime(inv.paidAt) : m(inv.balanceMinor)]] as Array<[string, string]>) : []),
+    ...(inv.kind === 'invoice'
+      ? ([[inv.status === 'paid' ? 'Paid' : 'To pay', inv.status === 'paid' ? formatDateTime(inv.paidAt) : m(inv.balanceMinor)]] as Array<[string, string]>)
+      : []),
     ['Sent', inv.sentAt ? formatDateTime(inv.sentAt) : inv.customerEmail ? 'not yet' : 'the customer has no e-mail address'],
   ];
   return (
@@ -106,13 +147,18 @@ function Summary({ inv }: { inv: Invoice }) {
         {rows.map(([k, v]) => (
           <div key={k} className="contents">
             <dt className="text-graphite-light">{k}</dt>
-            <dd className="font-mono" data-testid={`summary-${k.toLowerCase().replace(/\s+/g, '-')}`}>{v}</dd>
+            <dd className="font-mono" data-testid={`summary-${k.toLowerCase().replace(/\s+/g, '-')}`}>
+              {v}
+            </dd>
           </div>
         ))}
       </dl>
       {inv.payUrl && inv.balanceMinor > 0 && (
         <p className="mt-3 break-all text-xs text-graphite-light">
-          Customer's private pay link: <a className="font-mono text-teal-dark" href={inv.payUrl} target="_blank" rel="noreferrer">{inv.payUrl}</a>
+          Customer's private pay link:{' '}
+          <a className="font-mono text-teal-dark" href={inv.payUrl} target="_blank" rel="noreferrer">
+            {inv.payUrl}
+          </a>
         </p>
       )}
     </Card>
@@ -148,18 +194,30 @@ function Lines({ inv }: { inv: Invoice }) {
           </Tr>
         ))}
         <Tr>
-          <Td colSpan={4} className="text-right text-graphite-light">Net</Td>
-          <Td colSpan={2} className="text-right font-mono">{m(inv.netMinor)}</Td>
+          <Td colSpan={4} className="text-right text-graphite-light">
+            Net
+          </Td>
+          <Td colSpan={2} className="text-right font-mono">
+            {m(inv.netMinor)}
+          </Td>
         </Tr>
         {inv.taxBreakdown.map((t) => (
           <Tr key={t.rateBp}>
-            <Td colSpan={4} className="text-right text-graphite-light">VAT at {formatRateBp(t.rateBp)} on {m(t.netMinor)}</Td>
-            <Td colSpan={2} className="text-right font-mono">{m(t.taxMinor)}</Td>
+            <Td colSpan={4} className="text-right text-graphite-light">
+              VAT at {formatRateBp(t.rateBp)} on {m(t.netMinor)}
+            </Td>
+            <Td colSpan={2} className="text-right font-mono">
+              {m(t.taxMinor)}
+            </Td>
           </Tr>
         ))}
         <Tr>
-          <Td colSpan={4} className="text-right font-semibold">Total</Td>
-          <Td colSpan={2} className="text-right font-mono font-semibold">{m(inv.totalMinor)}</Td>
+          <Td colSpan={4} className="text-right font-semibold">
+            Total
+          </Td>
+          <Td colSpan={2} className="text-right font-mono font-semibold">
+            {m(inv.totalMinor)}
+          </Td>
         </Tr>
       </TBody>
     </Table>

@@ -2,7 +2,13 @@ import type { InvoiceSummary } from '../../../../shared/api/invoices';
 import { cn } from '../../../lib/cn';
 
 /** Paid, to pay, overdue, or credit note — as a small coloured tag. */
-export function InvoiceStatusBadge({ invoice, className }: { invoice: Pick<InvoiceSummary, 'kind' | 'status' | 'overdue' | 'balanceMinor'>; className?: string }) {
+export function InvoiceStatusBadge({
+  invoice,
+  className,
+}: {
+  invoice: Pick<InvoiceSummary, 'kind' | 'status' | 'overdue' | 'balanceMinor'>;
+  className?: string;
+}) {
   const [label, tone] =
     invoice.kind === 'credit_note'
       ? ['Credit note', 'bg-brick-light/40 text-brick-dark border-brick/30']

@@ -74,7 +74,10 @@ export default function InvoicesPage() {
                 <Td>{i.customerName}</Td>
                 <Td>{formatDate(i.issueDate)}</Td>
                 <Td>{formatDate(i.dueDate)}</Td>
-                <Td className="text-right font-mono">{i.kind === 'credit_note' ? '−' : ''}{formatMoney(i.totalMinor, i.currency)}</Td>
+                <Td className="text-right font-mono">
+                  {i.kind === 'credit_note' ? '−' : ''}
+                  {formatMoney(i.totalMinor, i.currency)}
+                </Td>
                 <Td className="text-right font-mono">{i.kind === 'invoice' ? formatMoney(i.balanceMinor, i.currency) : ''}</Td>
                 <Td>
                   <InvoiceStatusBadge invoice={i} />

@@ -39,8 +39,12 @@ export function JobMoneyCard({ jobId, stage, canInvoice }: { jobId: string; stag
       )}
       {invoice && (
         <p className="mt-3 flex items-center gap-2 text-sm">
-          Invoice <Link className="font-mono text-teal-dark hover:underline" to={`/invoices/${invoice.id}`}>{invoice.number}</Link>
-          <InvoiceStatusBadge invoice={invoice} /> {invoice.status !== 'paid' && <span className="font-mono">{formatMoney(invoice.balanceMinor, invoice.currency)} to pay</span>}
+          Invoice{' '}
+          <Link className="font-mono text-teal-dark hover:underline" to={`/invoices/${invoice.id}`}>
+            {invoice.number}
+          </Link>
+          <InvoiceStatusBadge invoice={invoice} />{' '}
+          {invoice.status !== 'paid' && <span className="font-mono">{formatMoney(invoice.balanceMinor, invoice.currency)} to pay</span>}
         </p>
       )}
       {canInvoice && !invoice && invoices.isSuccess && (stage === 'installed' || stage === 'closed') && <NewInvoiceForm jobId={jobId} />}
@@ -73,29 +77,48 @@ function NewInvoiceForm({ jobId }: { jobId: string }) {
     if ('error' in parsed) return setProblem(parsed.error);
     setProblem(null);
     // mutateAsync, not mutate's onSuccess: the refetch after creating unmounts this form (the job now has an invoice).
-    create.mutateAsync({ jobId, variations: parsed.lines, notes, send: true }).then((inv) => navigate(`/invoices/${inv.id}`), () => undefined);
+    create.mutateAsync({ jobId, variations: parsed.lines, notes, send: true }).then(
+      (inv) => navigate(`/invoices/${inv.id}`),
+      () => undefined,
+    );
   }
   return (
     <form onSubmit={submit} className="mt-4 flex flex-col gap-3 border-t border-paper-line pt-3">
-      <p className="text-sm text-graphite-light">The invoice takes the accepted quote's lines, adds any variations below (see the installer's site notes), takes off the deposit paid, and is e-mailed to the customer with a link to pay.</p>
+      <p className="text-sm text-graphite-light">
+        The invoice takes the accepted quote's lines, adds any variations below (see the installer's site notes), takes off the deposit paid, and is e-mailed to
+        the customer with a link to pay.
+      </p>
       {siteNotes.isSuccess && siteNotes.data.length > 0 && (
         <div className="rounded-md border border-paper-line bg-paper/60 px-3 py-2 text-sm" data-testid="site-notes">
           <p className="mb-1 font-medium">The installer's notes from site</p>
           <ul className="list-disc pl-5">
             {siteNotes.data.map((n) => (
               <li key={n.id}>
-                {n.text} <span className="text-xs text-graphite-light">— {n.by.name}, {formatDateTime(n.at)}</span>
+                {n.text}{' '}
+                <span className="text-xs text-graphite-light">
+                  — {n.by.name}, {formatDateTime(n.at)}
+                </span>
               </li>
             ))}
           </ul>
         </div>
       )}
       <LineEditor label="Variations found on site" lines={lines} onChange={setLines} />
-      <Textarea aria-label="Notes printed on the invoice" placeholder="Notes printed on the invoice (optional)" rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} />
+      <Textarea
+        aria-label="Notes printed on the invoice"
+        placeholder="Notes printed on the invoice (optional)"
+        rows={2}
+        value={notes}
+        onChange={(e) => setNotes(e.target.value)}
+      />
       {(problem || create.isError) && <Alert>{asSentence(problem ?? create.error?.message ?? '')}</Alert>}
       <div className="flex gap-2">
-        <Button type="submit" busy={create.isPending}>Create and e-mail invoice</Button>
-        <Button variant="ghost" onClick={() => setOpen(false)}>Cancel</Button>
+        <Button type="submit" busy={create.isPending}>
+          Create and e-mail invoice
+        </Button>
+        <Button variant="ghost" onClick={() => setOpen(false)}>
+          Cancel
+        </Button>
       </div>
     </form>
   );

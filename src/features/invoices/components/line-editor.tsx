@@ -36,9 +36,20 @@ export function LineEditor({ lines, onChange, label }: { lines: DraftLine[]; onC
       <legend className="mb-1 text-sm font-medium text-graphite">{label}</legend>
       {lines.map((l, i) => (
         <div key={i} className="grid grid-cols-[minmax(0,1fr)_5rem_7rem_minmax(0,12rem)_auto] items-center gap-2">
-          <Input aria-label={`Line ${i + 1} description`} placeholder="What was done" value={l.description} onChange={(e) => set(i, { description: e.target.value })} />
+          <Input
+            aria-label={`Line ${i + 1} description`}
+            placeholder="What was done"
+            value={l.description}
+            onChange={(e) => set(i, { description: e.target.value })}
+          />
           <Input aria-label={`Line ${i + 1} quantity`} inputMode="decimal" value={l.quantity} onChange={(e) => set(i, { quantity: e.target.value })} />
-          <Input aria-label={`Line ${i + 1} unit price`} inputMode="decimal" placeholder="0.00" value={l.price} onChange={(e) => set(i, { price: e.target.value })} />
+          <Input
+            aria-label={`Line ${i + 1} unit price`}
+            inputMode="decimal"
+            placeholder="0.00"
+            value={l.price}
+            onChange={(e) => set(i, { price: e.target.value })}
+          />
           <Select aria-label={`Line ${i + 1} tax class`} value={l.taxClass} onChange={(e) => set(i, { taxClass: e.target.value as TaxClass })}>
             {TAX_CLASSES.map((c) => (
               <option key={c} value={c}>

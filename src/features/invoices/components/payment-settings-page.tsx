@@ -39,7 +39,12 @@ export default function PaymentSettingsPage() {
     if (mode === 'percent' && !(bp >= 1 && bp <= 10000)) return setProblem('enter a percentage between 0.01 and 100');
     if (mode === 'fixed' && !(fixedMinor && fixedMinor > 0)) return setProblem('enter the deposit amount, like 150.00');
     setProblem(null);
-    save.mutate({ depositMode: mode, depositPercentBp: mode === 'percent' ? bp : null, depositFixedMinor: mode === 'fixed' ? fixedMinor : null, paymentTermsDays: Number(terms) });
+    save.mutate({
+      depositMode: mode,
+      depositPercentBp: mode === 'percent' ? bp : null,
+      depositFixedMinor: mode === 'fixed' ? fixedMinor : null,
+      paymentTermsDays: Number(terms),
+    });
   }
   const fieldErrors = serverFieldErrors(save.error);
   return (
@@ -71,7 +76,9 @@ export default function PaymentSettingsPage() {
           {(problem || (save.isError && Object.keys(fieldErrors).length === 0)) && <Alert>{asSentence(problem ?? save.error?.message ?? '')}</Alert>}
           {save.isSuccess && <Alert tone="success">Saved.</Alert>}
           <div>
-            <Button type="submit" busy={save.isPending}>Save</Button>
+            <Button type="submit" busy={save.isPending}>
+              Save
+            </Button>
           </div>
         </form>
       </Card>

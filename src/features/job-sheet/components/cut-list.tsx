@@ -44,11 +44,25 @@ export function CutList({ space, ticks, onTick }: Props) {
                           <div className="flex items-baseline gap-3">
                             <span className="min-w-[3.5ch] font-mono text-xl font-bold">{cut.stripLabel}</span>
                             <span className="whitespace-nowrap font-mono text-xl">{mm(cut.lengthMm)}</span>
-                            {cut.pieceCount > 1 && <span className="text-base text-graphite-light">piece {cut.piece} of {cut.pieceCount}</span>}
+                            {cut.pieceCount > 1 && (
+                              <span className="text-base text-graphite-light">
+                                piece {cut.piece} of {cut.pieceCount}
+                              </span>
+                            )}
                           </div>
                           <div className="mt-1 flex gap-2">
-                            <TickButton label="Cut" tick={ticks.get(tickKey('strip-cut', space.id, cut.id))} onToggle={(d) => onTick('strip-cut', cut.id, d)} testId={`cut-${cut.id}`} />
-                            <TickButton label="Laid" tick={ticks.get(tickKey('strip-laid', space.id, cut.stripId))} onToggle={(d) => onTick('strip-laid', cut.stripId, d)} testId={`laid-${cut.stripId}`} />
+                            <TickButton
+                              label="Cut"
+                              tick={ticks.get(tickKey('strip-cut', space.id, cut.id))}
+                              onToggle={(d) => onTick('strip-cut', cut.id, d)}
+                              testId={`cut-${cut.id}`}
+                            />
+                            <TickButton
+                              label="Laid"
+                              tick={ticks.get(tickKey('strip-laid', space.id, cut.stripId))}
+                              onToggle={(d) => onTick('strip-laid', cut.stripId, d)}
+                              testId={`laid-${cut.stripId}`}
+                            />
                           </div>
                         </li>
                       ))}

@@ -6,7 +6,17 @@ import { finishBlockers, type PendingPhoto, type ShownTick } from '../merge-pend
 import { SheetSection } from './sheet-section';
 
 /** Mark installed: only with every check ticked or explained and an after photo of every space, and online. */
-export function FinishPanel({ sheet, ticks, pendingPhotos, waiting }: { sheet: JobSheet; ticks: Map<string, ShownTick>; pendingPhotos: PendingPhoto[]; waiting: number }) {
+export function FinishPanel({
+  sheet,
+  ticks,
+  pendingPhotos,
+  waiting,
+}: {
+  sheet: JobSheet;
+  ticks: Map<string, ShownTick>;
+  pendingPhotos: PendingPhoto[];
+  waiting: number;
+}) {
   const [reasons, setReasons] = useState<Record<string, string>>({});
   const [writing, setWriting] = useState(false);
   const finish = useFinishJob(sheet.job.id);
@@ -19,10 +29,15 @@ export function FinishPanel({ sheet, ticks, pendingPhotos, waiting }: { sheet: J
       {unticked.length > 0 && (
         <div className="mb-3">
           <p className="text-base font-semibold">
-            {unticked.length} check{unticked.length === 1 ? ' is' : 's are'} not ticked. Tick {unticked.length === 1 ? 'it' : 'them'} above, or write why {unticked.length === 1 ? 'it' : 'each'} could not be done.
+            {unticked.length} check{unticked.length === 1 ? ' is' : 's are'} not ticked. Tick {unticked.length === 1 ? 'it' : 'them'} above, or write why{' '}
+            {unticked.length === 1 ? 'it' : 'each'} could not be done.
           </p>
           {!writing ? (
-            <button type="button" className="mt-2 min-h-11 rounded-md border-2 border-graphite/40 bg-white px-3 text-base font-semibold" onClick={() => setWriting(true)}>
+            <button
+              type="button"
+              className="mt-2 min-h-11 rounded-md border-2 border-graphite/40 bg-white px-3 text-base font-semibold"
+              onClick={() => setWriting(true)}
+            >
               Write reasons
             </button>
           ) : (
@@ -42,9 +57,19 @@ export function FinishPanel({ sheet, ticks, pendingPhotos, waiting }: { sheet: J
           )}
         </div>
       )}
-      {blockers.photos.length > 0 && <p className="mb-2 text-base font-semibold text-brick-dark">Add at least one after photo of: {blockers.photos.join(', ')}.</p>}
-      {waiting > 0 && <p className="mb-2 text-base">Waiting to send {waiting} change{waiting === 1 ? '' : 's'}: finish once they are sent.</p>}
-      {finish.error && <p role="alert" className="mb-2 text-base font-semibold text-brick-dark">{isApiError(finish.error) ? finish.error.message : 'Could not mark the job installed.'}</p>}
+      {blockers.photos.length > 0 && (
+        <p className="mb-2 text-base font-semibold text-brick-dark">Add at least one after photo of: {blockers.photos.join(', ')}.</p>
+      )}
+      {waiting > 0 && (
+        <p className="mb-2 text-base">
+          Waiting to send {waiting} change{waiting === 1 ? '' : 's'}: finish once they are sent.
+        </p>
+      )}
+      {finish.error && (
+        <p role="alert" className="mb-2 text-base font-semibold text-brick-dark">
+          {isApiError(finish.error) ? finish.error.message : 'Could not mark the job installed.'}
+        </p>
+      )}
       <button
         type="button"
         disabled={!ready || waiting > 0 || finish.isPending}

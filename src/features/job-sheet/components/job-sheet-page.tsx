@@ -58,7 +58,8 @@ export default function JobSheetPage() {
   }, [sheet.data, fetchedAt, sent, outbox.items, me.id, me.name]);
 
   if (sheet.isPending) return <LoadingState label="Opening the job sheet…" />;
-  if (sheet.isError || !sheet.data || !merged) return <ErrorState error={sheet.error} onRetry={() => sheet.refetch()} title="The job sheet could not be opened" />;
+  if (sheet.isError || !sheet.data || !merged)
+    return <ErrorState error={sheet.error} onRetry={() => sheet.refetch()} title="The job sheet could not be opened" />;
   const s = sheet.data;
   const closed = s.job.stage !== 'scheduled';
   const canRecord = !closed && me.role !== 'estimator';
@@ -142,7 +143,14 @@ export default function JobSheetPage() {
         <NotesPanel notes={merged.notes} onAdd={canRecord ? (text) => void recordNote(s.job.id, { text }) : undefined} />
       </SheetSection>
 
-      {canRecord && <FinishPanel sheet={s} ticks={merged.ticks} pendingPhotos={merged.pendingPhotos} waiting={outbox.items.filter((i) => i.jobId === s.job.id && i.status === 'waiting').length} />}
+      {canRecord && (
+        <FinishPanel
+          sheet={s}
+          ticks={merged.ticks}
+          pendingPhotos={merged.pendingPhotos}
+          waiting={outbox.items.filter((i) => i.jobId === s.job.id && i.status === 'waiting').length}
+        />
+      )}
     </div>
   );
 }

@@ -30,8 +30,19 @@ export function NotesPanel({ notes, onAdd }: { notes: ShownNote[]; onAdd?: (text
           <label htmlFor="new-note" className="block text-base font-semibold">
             Add a note
           </label>
-          <textarea id="new-note" value={text} onChange={(e) => setText(e.target.value)} rows={3} maxLength={4000} className="mt-1 w-full rounded-md border-2 border-graphite/40 bg-white p-2 text-lg" />
-          <button type="submit" disabled={!text.trim()} className="mt-2 min-h-12 w-full rounded-md bg-teal-dark px-4 text-lg font-bold text-white disabled:opacity-50">
+          <textarea
+            id="new-note"
+            value={text}
+            onChange={(e) => setText(e.target.value)}
+            rows={3}
+            maxLength={4000}
+            className="mt-1 w-full rounded-md border-2 border-graphite/40 bg-white p-2 text-lg"
+          />
+          <button
+            type="submit"
+            disabled={!text.trim()}
+            className="mt-2 min-h-12 w-full rounded-md bg-teal-dark px-4 text-lg font-bold text-white disabled:opacity-50"
+          >
             Save note
           </button>
         </form>

@@ -21,13 +21,21 @@ function PendingThumb({ photo }: { photo: PendingPhoto }) {
       ) : (
         <div className="h-24 w-full rounded bg-paper-dark" aria-hidden />
       )}
-      <figcaption className={`text-sm font-semibold ${photo.failed ? 'text-brick-dark' : 'text-straw-dark'}`}>{photo.failed ? 'Refused' : 'Waiting to send'}</figcaption>
+      <figcaption className={`text-sm font-semibold ${photo.failed ? 'text-brick-dark' : 'text-straw-dark'}`}>
+        {photo.failed ? 'Refused' : 'Waiting to send'}
+      </figcaption>
     </figure>
   );
 }
 
 /** Before, during and after photos of one space, from the camera or files; queued when offline. */
-export function PhotosPanel({ space, photos, pending, onAdd, disabled }: {
+export function PhotosPanel({
+  space,
+  photos,
+  pending,
+  onAdd,
+  disabled,
+}: {
   space: SheetSpace;
   photos: JobPhoto[];
   pending: PendingPhoto[];
@@ -83,8 +91,17 @@ export function PhotosPanel({ space, photos, pending, onAdd, disabled }: {
           <label className="mt-2 block text-base font-semibold" htmlFor={`${inputId}-caption`}>
             Caption (optional)
           </label>
-          <input id={`${inputId}-caption`} value={caption} onChange={(e) => setCaption(e.target.value)} maxLength={500} className="mt-1 h-11 w-full rounded-md border-2 border-graphite/40 px-2 text-lg" />
-          <label htmlFor={inputId} className="mt-2 flex min-h-12 cursor-pointer items-center justify-center rounded-md bg-teal-dark px-4 text-lg font-bold text-white">
+          <input
+            id={`${inputId}-caption`}
+            value={caption}
+            onChange={(e) => setCaption(e.target.value)}
+            maxLength={500}
+            className="mt-1 h-11 w-full rounded-md border-2 border-graphite/40 px-2 text-lg"
+          />
+          <label
+            htmlFor={inputId}
+            className="mt-2 flex min-h-12 cursor-pointer items-center justify-center rounded-md bg-teal-dark px-4 text-lg font-bold text-white"
+          >
             Take or choose a {STAGE_LABEL[stage].toLowerCase()} photo
           </label>
           <input
@@ -103,7 +120,11 @@ export function PhotosPanel({ space, photos, pending, onAdd, disabled }: {
               setCaption('');
             }}
           />
-          {error && <p role="alert" className="mt-2 text-base font-semibold text-brick-dark">{error}</p>}
+          {error && (
+            <p role="alert" className="mt-2 text-base font-semibold text-brick-dark">
+              {error}
+            </p>
+          )}
         </div>
       )}
     </div>

@@ -20,7 +20,12 @@ function joistLines(box: View, j: { angleDeg: number; centresMm: number; offsetM
   const a = (j.angleDeg * Math.PI) / 180;
   const d: Pt = [Math.cos(a), Math.sin(a)];
   const n: Pt = [-Math.sin(a), Math.cos(a)];
-  const corners: Pt[] = [[box.x, box.y], [box.x + box.w, box.y], [box.x, box.y + box.h], [box.x + box.w, box.y + box.h]];
+  const corners: Pt[] = [
+    [box.x, box.y],
+    [box.x + box.w, box.y],
+    [box.x, box.y + box.h],
+    [box.x + box.w, box.y + box.h],
+  ];
   const proj = corners.map((c) => c[0] * n[0] + c[1] * n[1]);
   const first = Math.ceil((Math.min(...proj) - j.offsetMm) / j.centresMm);
   const last = Math.floor((Math.max(...proj) - j.offsetMm) / j.centresMm);
@@ -121,7 +126,10 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
     return () => ro.disconnect();
   }, []);
   const mmPerPx = Math.max(view.w / screen.w, view.h / screen.h);
-  const labels = useMemo(() => (layer ? placeStripLabels(layer.strips as Parameters<typeof placeStripLabels>[0], mmPerPx) : { placed: [], hidden: 0 }), [layer, mmPerPx]);
+  const labels = useMemo(
+    () => (layer ? placeStripLabels(layer.strips as Parameters<typeof placeStripLabels>[0], mmPerPx) : { placed: [], hidden: 0 }),
+    [layer, mmPerPx],
+  );
 
   return (
     <div className="relative">
@@ -155,16 +163,35 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
           {layer?.strips.map((s) => {
             const isLaid = laid.has(s.id);
             const fill = layer.role === 'base' ? (isLaid ? '#a57e16' : '#f3dc93') : isLaid ? '#135e5a' : '#9fd6d1';
-            return s.polygons.map((poly, i) => <polygon key={`${s.id}-${i}`} points={pointsAttr(poly as Pt[])} fill={fill} stroke="#33363b" strokeWidth={size / 900} />);
+            return s.polygons.map((poly, i) => (
+              <polygon key={`${s.id}-${i}`} points={pointsAttr(poly as Pt[])} fill={fill} stroke="#33363b" strokeWidth={size / 900} />
+            ));
           })}
           {joistLines(home, plan.joists).map(([a, b], i) => (
-            <line key={`j-${i}`} x1={a[0]} y1={a[1]} x2={b[0]} y2={b[1]} stroke="#8a5a2b" strokeOpacity={0.55} strokeWidth={Math.max(plan.joists.widthMm / 3, size / 1200)} />
+            <line
+              key={`j-${i}`}
+              x1={a[0]}
+              y1={a[1]}
+              x2={b[0]}
+              y2={b[1]}
+              stroke="#8a5a2b"
+              strokeOpacity={0.55}
+              strokeWidth={Math.max(plan.joists.widthMm / 3, size / 1200)}
+            />
           ))}
           {plan.exclusions.map((x, i) =>
             x.polygon ? (
               <polygon key={`x-${i}`} points={pointsAttr(x.polygon as Pt[])} fill={`url(#${hatchId})`} stroke="#b0462f" strokeWidth={size / 400} />
             ) : x.at ? (
-              <circle key={`x-${i}`} cx={x.at[0]} cy={x.at[1]} r={Math.max(size / 80, 60)} fill={`url(#${hatchId})`} stroke="#b0462f" strokeWidth={size / 400} />
+              <circle
+                key={`x-${i}`}
+                cx={x.at[0]}
+                cy={x.at[1]}
+                r={Math.max(size / 80, 60)}
+                fill={`url(#${hatchId})`}
+                stroke="#b0462f"
+                strokeWidth={size / 400}
+              />
             ) : null,
           )}
         </g>

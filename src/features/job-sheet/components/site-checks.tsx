@@ -28,9 +28,23 @@ function CheckRow({ spaceId, check, tick, onCheck }: { spaceId: string; check: S
             <label htmlFor={fieldId} className="block text-base font-semibold">
               Why can it not be done?
             </label>
-            <textarea id={fieldId} value={reason} onChange={(e) => setReason(e.target.value)} rows={2} className="mt-1 w-full rounded-md border-2 border-graphite/40 p-2 text-base" />
+            <textarea
+              id={fieldId}
+              value={reason}
+              onChange={(e) => setReason(e.target.value)}
+              rows={2}
+              className="mt-1 w-full rounded-md border-2 border-graphite/40 p-2 text-base"
+            />
             <div className="mt-2 flex gap-2">
-              <button type="button" className="min-h-11 rounded-md bg-graphite px-4 text-base font-bold text-white disabled:opacity-50" disabled={!reason.trim()} onClick={() => { onCheck(check.code, false, reason.trim()); setWriting(false); }}>
+              <button
+                type="button"
+                className="min-h-11 rounded-md bg-graphite px-4 text-base font-bold text-white disabled:opacity-50"
+                disabled={!reason.trim()}
+                onClick={() => {
+                  onCheck(check.code, false, reason.trim());
+                  setWriting(false);
+                }}
+              >
                 Save reason
               </button>
               <button type="button" className="min-h-11 rounded-md border-2 border-graphite/40 px-4 text-base" onClick={() => setWriting(false)}>

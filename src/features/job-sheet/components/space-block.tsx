@@ -37,7 +37,9 @@ export function SpaceBlock({ space, ticks, photos, pendingPhotos, canRecord, onT
       <h2 id={`space-${space.id}`} className="mb-2 mt-5 border-b-4 border-graphite pb-1 text-2xl font-bold">
         {space.name}
       </h2>
-      {space.problem && <p className="mb-3 rounded-md border-2 border-brick bg-brick-light/30 px-3 py-2 text-lg font-semibold text-brick-dark">{space.problem}</p>}
+      {space.problem && (
+        <p className="mb-3 rounded-md border-2 border-brick bg-brick-light/30 px-3 py-2 text-lg font-semibold text-brick-dark">{space.problem}</p>
+      )}
       {space.netAreaM2 !== null && (
         <p className="mb-2 text-base">
           Net area <strong>{space.netAreaM2.toFixed(1)} m²</strong>

@@ -36,7 +36,12 @@ function runDeg(poly: Pt[]): number {
 function boxCorners(c: Pt, w: number, h: number, deg: number): Pt[] {
   const r = (deg * Math.PI) / 180;
   const [cos, sin] = [Math.cos(r), Math.sin(r)];
-  return [[-w / 2, -h / 2], [w / 2, -h / 2], [w / 2, h / 2], [-w / 2, h / 2]].map(([x, y]) => [c[0] + x * cos - y * sin, c[1] + x * sin + y * cos] as Pt);
+  return [
+    [-w / 2, -h / 2],
+    [w / 2, -h / 2],
+    [w / 2, h / 2],
+    [-w / 2, h / 2],
+  ].map(([x, y]) => [c[0] + x * cos - y * sin, c[1] + x * sin + y * cos] as Pt);
 }
 
 type Box = { x0: number; y0: number; x1: number; y1: number };

@@ -1,7 +1,17 @@
 import type { ShownTick } from '../merge-pending';
 
 /** A large two-state button for ticking something off on site; shows who ticked it and when. */
-export function TickButton({ label, tick, onToggle, testId }: { label: string; tick: ShownTick | undefined; onToggle: (done: boolean) => void; testId?: string }) {
+export function TickButton({
+  label,
+  tick,
+  onToggle,
+  testId,
+}: {
+  label: string;
+  tick: ShownTick | undefined;
+  onToggle: (done: boolean) => void;
+  testId?: string;
+}) {
   const done = !!tick?.done;
   return (
     <button

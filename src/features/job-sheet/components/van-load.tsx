@@ -12,7 +12,9 @@ export function VanLoad({ load }: { load: VanLoadData }) {
               {r.productName}
               {!r.productName.includes(`${r.thicknessMm} mm`) && <span className="text-graphite-light"> ({r.thicknessMm} mm)</span>}
             </span>
-            <span className="shrink-0 whitespace-nowrap font-mono font-bold">{r.count} roll{r.count === 1 ? '' : 's'}</span>
+            <span className="shrink-0 whitespace-nowrap font-mono font-bold">
+              {r.count} roll{r.count === 1 ? '' : 's'}
+            </span>
           </li>
         ))}
         {load.extras.map((x) => (

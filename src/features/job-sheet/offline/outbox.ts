@@ -34,7 +34,11 @@ export function onSent(listener: (item: OutboxItem, response: unknown) => void) 
 }
 
 export function useOutbox(): Snapshot {
-  return useSyncExternalStore(subscribe, () => snapshot, () => snapshot);
+  return useSyncExternalStore(
+    subscribe,
+    () => snapshot,
+    () => snapshot,
+  );
 }
 
 export async function enqueue(item: Omit<OutboxItem, 'key' | 'createdAt' | 'status'>): Promise<OutboxItem> {

@@ -7,7 +7,11 @@ import { jobKeys } from './keys';
 export type JobListItem = Omit<Job, 'spaces'> & { spaces?: Job['spaces'] };
 
 export async function getJobs(query: JobListQuery, signal?: AbortSignal): Promise<JobListItem[]> {
-  const body = await api.get<{ jobs: JobListItem[] }>('/api/jobs', { q: query.q?.trim(), stage: query.stage, installerId: query.installerId, sort: query.sort, dir: query.dir }, signal);
+  const body = await api.get<{ jobs: JobListItem[] }>(
+    '/api/jobs',
+    { q: query.q?.trim(), stage: query.stage, installerId: query.installerId, sort: query.sort, dir: query.dir },
+    signal,
+  );
   return body.jobs;
 }
 

@@ -20,8 +20,24 @@ export function JobDetails({ job }: { job: Job }) {
         <CardTitle>Customer</CardTitle>
         <dl>
           <Row label="Name">{job.customer.name}</Row>
-          <Row label="E-mail">{job.customer.email ? <a className="text-teal-dark hover:underline" href={`mailto:${job.customer.email}`}>{job.customer.email}</a> : none}</Row>
-          <Row label="Phone">{job.customer.phone ? <a className="text-teal-dark hover:underline" href={`tel:${job.customer.phone}`}>{job.customer.phone}</a> : none}</Row>
+          <Row label="E-mail">
+            {job.customer.email ? (
+              <a className="text-teal-dark hover:underline" href={`mailto:${job.customer.email}`}>
+                {job.customer.email}
+              </a>
+            ) : (
+              none
+            )}
+          </Row>
+          <Row label="Phone">
+            {job.customer.phone ? (
+              <a className="text-teal-dark hover:underline" href={`tel:${job.customer.phone}`}>
+                {job.customer.phone}
+              </a>
+            ) : (
+              none
+            )}
+          </Row>
         </dl>
       </Card>
       <Card>

@@ -35,9 +35,7 @@ export function jobBodyFrom(values: JobValues, customerId: string, opts: { canAs
     customerId,
     propertyAddress: values.propertyAddress,
     stage: values.stage,
-    ...(opts.canAssign
-      ? { assignedInstallerId: values.assignedInstallerId || null, installDate: values.installDate || null }
-      : {}),
+    ...(opts.canAssign ? { assignedInstallerId: values.assignedInstallerId || null, installDate: values.installDate || null } : {}),
     accessNotes: values.accessNotes,
     notes: values.notes,
   };

@@ -29,64 +29,67 @@ export function JobFilters({
   return (
     <div
       className={`mb-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-white/60 p-3 ${
-        installers ? 'sm:grid-cols-2 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1fr)_minmax(0,1.4fr)]' : 'sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.4fr)]'
+        installers
+          ? 'sm:grid-cols-2 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1fr)_minmax(0,1.4fr)]'
+          : 'sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1.4fr)]'
       }`}
     >
       <div className="flex items-end gap-2">
         <Field label="Search" className="min-w-0 flex-1">
-          <Input
-            type="search"
-            placeholder="Name, address, postcode or ref"
-            value={value.q}
-            onChange={(e) => onChange({ q: e.target.value })}
-          />
+          <Input type="search" placeholder="Name, address, postcode or ref" value={value.q} onChange={(e) => onChange({ q: e.target.value })} />
         </Field>
-        <Button variant="secondary" className="h-10 shrink-0 sm:hidden" aria-expanded={open} aria-controls="job-filters-more" onClick={() => setOpen((o) => !o)}>
+        <Button
+          variant="secondary"
+          className="h-10 shrink-0 sm:hidden"
+          aria-expanded={open}
+          aria-controls="job-filters-more"
+          onClick={() => setOpen((o) => !o)}
+        >
           Filters{active ? ` (${active})` : ''}
         </Button>
       </div>
       <div id="job-filters-more" className={`${open ? 'grid' : 'hidden'} grid-cols-1 gap-3 sm:contents`}>
-      <Field label="Stage">
-        <Select value={value.stage} onChange={(e) => onChange({ stage: e.target.value as JobStage | '' })}>
-          <option value="">All stages</option>
-          {JOB_STAGES.map((s) => (
-            <option key={s} value={s}>
-              {STAGE_LABELS[s]}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      {installers && (
-        <Field label="Installer">
-          <Select value={value.installerId} onChange={(e) => onChange({ installerId: e.target.value })}>
-            <option value="">Anyone</option>
-            {installers.map((i) => (
-              <option key={i.id} value={i.id}>
-                {i.name}
-              </option>
-            ))}
-          </Select>
-        </Field>
-      )}
-      <div className="flex items-end gap-2">
-        <Field label="Sort by" className="flex-1">
-          <Select value={value.sort} onChange={(e) => onChange({ sort: e.target.value as JobSort })}>
-            {JOB_SORTS.map((s) => (
+        <Field label="Stage">
+          <Select value={value.stage} onChange={(e) => onChange({ stage: e.target.value as JobStage | '' })}>
+            <option value="">All stages</option>
+            {JOB_STAGES.map((s) => (
               <option key={s} value={s}>
-                {SORT_LABELS[s]}
+                {STAGE_LABELS[s]}
               </option>
             ))}
           </Select>
         </Field>
-        <Button
-          variant="secondary"
-          className="h-10 w-24 shrink-0"
-          aria-label={value.dir === 'asc' ? 'Ascending order; switch to descending' : 'Descending order; switch to ascending'}
-          onClick={() => onChange({ dir: value.dir === 'asc' ? 'desc' : 'asc' })}
-        >
-          {value.dir === 'asc' ? '↑ Asc' : '↓ Desc'}
-        </Button>
-      </div>
+        {installers && (
+          <Field label="Installer">
+            <Select value={value.installerId} onChange={(e) => onChange({ installerId: e.target.value })}>
+              <option value="">Anyone</option>
+              {installers.map((i) => (
+                <option key={i.id} value={i.id}>
+                  {i.name}
+                </option>
+              ))}
+            </Select>
+          </Field>
+        )}
+        <div className="flex items-end gap-2">
+          <Field label="Sort by" className="flex-1">
+            <Select value={value.sort} onChange={(e) => onChange({ sort: e.target.value as JobSort })}>
+              {JOB_SORTS.map((s) => (
+                <option key={s} value={s}>
+                  {SORT_LABELS[s]}
+                </option>
+              ))}
+            </Select>
+          </Field>
+          <Button
+            variant="secondary"
+            className="h-10 w-24 shrink-0"
+            aria-label={value.dir === 'asc' ? 'Ascending order; switch to descending' : 'Descending order; switch to ascending'}
+            onClick={() => onChange({ dir: value.dir === 'asc' ? 'desc' : 'asc' })}
+          >
+            {value.dir === 'asc' ? '↑ Asc' : '↓ Desc'}
+          </Button>
+        </div>
       </div>
     </div>
   );

@@ -41,7 +41,12 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
         Loft spaces
       </CardTitle>
       {adding && (
-        <form onSubmit={onSubmit} noValidate className="mb-4 flex flex-col gap-2 rounded-md bg-paper-dark/60 p-3 sm:flex-row sm:items-start" aria-label="Add space">
+        <form
+          onSubmit={onSubmit}
+          noValidate
+          className="mb-4 flex flex-col gap-2 rounded-md bg-paper-dark/60 p-3 sm:flex-row sm:items-start"
+          aria-label="Add space"
+        >
           <Field label="Name of the space" error={errors.name} className="flex-1" hint="For example: Main loft, Garage loft, Extension.">
             <Input value={name} onChange={(e) => setName(e.target.value)} autoFocus name="name" />
           </Field>
@@ -49,7 +54,13 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
             <Button type="submit" busy={create.isPending}>
               Add
             </Button>
-            <Button variant="ghost" onClick={() => { setAdding(false); setErrors({}); }}>
+            <Button
+              variant="ghost"
+              onClick={() => {
+                setAdding(false);
+                setErrors({});
+              }}
+            >
               Cancel
             </Button>
           </div>
@@ -57,9 +68,7 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
         </form>
       )}
       {job.spaces.length === 0 ? (
-        <EmptyState title="No spaces yet">
-          Each loft area (main loft, garage loft, extension) gets its own space and plan.
-        </EmptyState>
+        <EmptyState title="No spaces yet">Each loft area (main loft, garage loft, extension) gets its own space and plan.</EmptyState>
       ) : (
         <ul className="divide-y divide-paper-line">
           {job.spaces.map((s) => (
@@ -78,8 +87,8 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
         </ul>
       )}
       <p className="mt-4 border-t border-paper-line pt-3 text-xs leading-relaxed text-graphite-light">
-        <strong className="text-graphite">Surveying a loft:</strong> use a secure ladder, tread only on joists or boards, keep clear of
-        cables and flues, and wear a mask, gloves and goggles near mineral wool. Local building regulations and licensed practice take precedence.
+        <strong className="text-graphite">Surveying a loft:</strong> use a secure ladder, tread only on joists or boards, keep clear of cables and flues, and
+        wear a mask, gloves and goggles near mineral wool. Local building regulations and licensed practice take precedence.
       </p>
     </Card>
   );

@@ -42,7 +42,13 @@ export function StageControl({ job }: { job: Job }) {
           <label htmlFor="stage-control" className="text-sm font-medium whitespace-nowrap">
             Move to
           </label>
-          <Select id="stage-control" className="h-9 w-40" value={shown} disabled={update.isPending} onChange={(e) => update.mutate({ stage: e.target.value as JobStage })}>
+          <Select
+            id="stage-control"
+            className="h-9 w-40"
+            value={shown}
+            disabled={update.isPending}
+            onChange={(e) => update.mutate({ stage: e.target.value as JobStage })}
+          >
             {JOB_STAGES.map((s) => (
               <option key={s} value={s}>
                 {STAGE_LABELS[s]}

@@ -40,7 +40,20 @@ export function toDraft(q: Quote): DraftLine[] {
 }
 
 export function blankLine(): DraftLine {
-  return { key: newKey(), kind: 'custom', description: '', quantityText: '1', unit: 'each', priceText: '0.00', unitCostMinor: 0, taxClass: 'standard', productId: null, extraKind: null, altQuantity: null, note: '' };
+  return {
+    key: newKey(),
+    kind: 'custom',
+    description: '',
+    quantityText: '1',
+    unit: 'each',
+    priceText: '0.00',
+    unitCostMinor: 0,
+    taxClass: 'standard',
+    productId: null,
+    extraKind: null,
+    altQuantity: null,
+    note: '',
+  };
 }
 
 export type LineProblem = { key: string; field: 'quantity' | 'price' | 'description'; message: string };
@@ -53,13 +66,23 @@ export function parseDraft(lines: DraftLine[], currency: string): { body: QuoteL
     const quantity = Number(l.quantityText.trim());
     const price = parseMoney(l.priceText, currency);
     if (!l.description.trim()) problems.push({ key: l.key, field: 'description', message: 'describe the line' });
-    if (l.quantityText.trim() === '' || !Number.isFinite(quantity) || quantity < 0) problems.push({ key: l.key, field: 'quantity', message: 'enter a quantity of 0 or more' });
-    else if (Math.abs(quantity * 1000 - Math.round(quantity * 1000)) > 1e-6) problems.push({ key: l.key, field: 'quantity', message: 'use at most three decimals' });
+    if (l.quantityText.trim() === '' || !Number.isFinite(quantity) || quantity < 0)
+      problems.push({ key: l.key, field: 'quantity', message: 'enter a quantity of 0 or more' });
+    else if (Math.abs(quantity * 1000 - Math.round(quantity * 1000)) > 1e-6)
+      problems.push({ key: l.key, field: 'quantity', message: 'use at most three decimals' });
     if (price === null) problems.push({ key: l.key, field: 'price', message: 'enter a price like 12.50' });
     body.push({
-      kind: l.kind, description: l.description.trim(), quantity: Number.isFinite(quantity) ? quantity : 0, unit: l.unit || 'each',
-      unitPriceMinor: price ?? 0, unitCostMinor: l.unitCostMinor, taxClass: l.taxClass, productId: l.productId, extraKind: l.extraKind,
-      altQuantity: l.altQuantity, note: l.note,
+      kind: l.kind,
+      description: l.description.trim(),
+      quantity: Number.isFinite(quantity) ? quantity : 0,
+      unit: l.unit || 'each',
+      unitPriceMinor: price ?? 0,
+      unitCostMinor: l.unitCostMinor,
+      taxClass: l.taxClass,
+      productId: l.productId,
+      extraKind: l.extraKind,
+      altQuantity: l.altQuantity,
+      note: l.note,
     });
   }
   const inputs = body.map((b) => ({ ...b, kind: b.kind ?? 'custom', unit: b.unit ?? 'each', unitCostMinor: b.unitCostMinor ?? 0, note: b.note ?? '' }));

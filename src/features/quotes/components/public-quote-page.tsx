@@ -12,11 +12,23 @@ import { DepositAfterAccept } from '../../invoices/components/deposit-after-acce
 export default function PublicQuotePage() {
   const { token = '' } = useParams();
   const quote = usePublicQuote(token);
-  if (quote.isPending) return <Shell><LoadingState label="Opening your quote…" /></Shell>;
+  if (quote.isPending)
+    return (
+      <Shell>
+        <LoadingState label="Opening your quote…" />
+      </Shell>
+    );
   if (quote.isError) {
     const e = quote.error;
     const code = isApiError(e) ? e.code : '';
-    const title = code === 'link_expired' ? 'This quote has expired' : code === 'link_replaced' ? 'There is a newer version of this quote' : code === 'link_invalid' ? 'This link does not work' : 'The quote could not be opened';
+    const title =
+      code === 'link_expired'
+        ? 'This quote has expired'
+        : code === 'link_replaced'
+          ? 'There is a newer version of this quote'
+          : code === 'link_invalid'
+            ? 'This link does not work'
+            : 'The quote could not be opened';
     return (
       <Shell>
         <Card role="alert" data-testid="link-problem">
@@ -53,7 +65,15 @@ function QuoteView({ quote: q, token }: { quote: PublicQuote; token: string }) {
         </p>
       </header>
       <Card>
-        <CardTitle action={<a className="text-sm text-teal-dark underline" href={publicQuotePdfUrl(token)} target="_blank" rel="noreferrer">Download the PDF</a>}>What we will do</CardTitle>
+        <CardTitle
+          action={
+            <a className="text-sm text-teal-dark underline" href={publicQuotePdfUrl(token)} target="_blank" rel="noreferrer">
+              Download the PDF
+            </a>
+          }
+        >
+          What we will do
+        </CardTitle>
         <Table>
           <THead>
             <Tr>
@@ -77,28 +97,55 @@ function QuoteView({ quote: q, token }: { quote: PublicQuote; token: string }) {
           </TBody>
         </Table>
         <dl className="ml-auto mt-3 max-w-sm text-sm">
-          <div className="flex justify-between"><dt>Before VAT</dt><dd className="font-mono">{m(q.totals.netMinor)}</dd></div>
+          <div className="flex justify-between">
+            <dt>Before VAT</dt>
+            <dd className="font-mono">{m(q.totals.netMinor)}</dd>
+          </div>
           {q.totals.taxByRate.map((b) => (
-            <div key={b.rateBp} className="flex justify-between"><dt>VAT at {formatRateBp(b.rateBp)}</dt><dd className="font-mono">{m(b.taxMinor)}</dd></div>
+            <div key={b.rateBp} className="flex justify-between">
+              <dt>VAT at {formatRateBp(b.rateBp)}</dt>
+              <dd className="font-mono">{m(b.taxMinor)}</dd>
+            </div>
           ))}
-          <div className="mt-1 flex justify-between border-t border-graphite/30 pt-1 font-semibold"><dt>Total</dt><dd className="font-mono" data-testid="public-total">{m(q.totals.grossMinor)}</dd></div>
+          <div className="mt-1 flex justify-between border-t border-graphite/30 pt-1 font-semibold">
+            <dt>Total</dt>
+            <dd className="font-mono" data-testid="public-total">
+              {m(q.totals.grossMinor)}
+            </dd>
+          </div>
         </dl>
         {q.saving && q.saving.minorPerYear > 0 && (
           <p className="mt-3 text-sm">
-            Estimated saving: about {m(q.saving.minorPerYear)} a year{q.saving.paybackYears !== null ? `, paying for itself in about ${q.saving.paybackYears} years` : ''}.
+            Estimated saving: about {m(q.saving.minorPerYear)} a year
+            {q.saving.paybackYears !== null ? `, paying for itself in about ${q.saving.paybackYears} years` : ''}.
           </p>
         )}
       </Card>
       <Card>
         <CardTitle>Safety and what to expect</CardTitle>
-        <ul className="list-disc pl-5 text-sm">{q.cautions.map((c) => <li key={c}>{c}</li>)}</ul>
+        <ul className="list-disc pl-5 text-sm">
+          {q.cautions.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+        </ul>
         <h3 className="mt-3 font-semibold">Before we come, please</h3>
-        <ul className="list-disc pl-5 text-sm">{q.customerBeforeInstall.map((c) => <li key={c}>{c}</li>)}</ul>
+        <ul className="list-disc pl-5 text-sm">
+          {q.customerBeforeInstall.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+        </ul>
       </Card>
       {q.terms && (
         <Card>
           <CardTitle>Terms</CardTitle>
-          <ul className="list-disc pl-5 text-sm">{q.terms.split(/\n+/).filter(Boolean).map((t) => <li key={t}>{t}</li>)}</ul>
+          <ul className="list-disc pl-5 text-sm">
+            {q.terms
+              .split(/\n+/)
+              .filter(Boolean)
+              .map((t) => (
+                <li key={t}>{t}</li>
+              ))}
+          </ul>
         </Card>
       )}
       <Answer quote={q} token={token} />
@@ -116,7 +163,9 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
   if (q.status === 'accepted') {
     return (
       <>
-        <Alert tone="success">Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${formatDate(q.acceptedAt)}` : ''}. We will be in touch to agree the install date.</Alert>
+        <Alert tone="success">
+          Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${formatDate(q.acceptedAt)}` : ''}. We will be in touch to agree the install date.
+        </Alert>
         {/* payments engineer: when a deposit is due, straight on to pay it after accepting; a button when coming back later */}
         <DepositAfterAccept link={token} redirect={answer.isSuccess} />
       </>
@@ -133,12 +182,22 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
   return (
     <Card>
       <div className="mb-3 flex gap-2" role="tablist">
-        <Button variant={mode === 'accept' ? 'primary' : 'ghost'} size="sm" role="tab" aria-selected={mode === 'accept'} onClick={() => setMode('accept')}>Accept</Button>
-        <Button variant={mode === 'decline' ? 'primary' : 'ghost'} size="sm" role="tab" aria-selected={mode === 'decline'} onClick={() => setMode('decline')}>Decline</Button>
+        <Button variant={mode === 'accept' ? 'primary' : 'ghost'} size="sm" role="tab" aria-selected={mode === 'accept'} onClick={() => setMode('accept')}>
+          Accept
+        </Button>
+        <Button variant={mode === 'decline' ? 'primary' : 'ghost'} size="sm" role="tab" aria-selected={mode === 'decline'} onClick={() => setMode('decline')}>
+          Decline
+        </Button>
       </div>
       {(problem || error) && <Alert>{problem ?? error}</Alert>}
       {mode === 'accept' ? (
-        <form className="mt-2 flex flex-col gap-3" onSubmit={(e) => { e.preventDefault(); accept(); }}>
+        <form
+          className="mt-2 flex flex-col gap-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            accept();
+          }}
+        >
           <Field label="Your full name" required>
             <Input value={name} onChange={(e) => setName(e.target.value)} autoComplete="name" />
           </Field>
@@ -147,16 +206,26 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
             <span>I have read the quote and its terms and I accept them.</span>
           </label>
           <div>
-            <Button type="submit" busy={answer.isPending}>Accept the quote ({formatMoney(q.totals.grossMinor, q.currency, q.locale)})</Button>
+            <Button type="submit" busy={answer.isPending}>
+              Accept the quote ({formatMoney(q.totals.grossMinor, q.currency, q.locale)})
+            </Button>
           </div>
         </form>
       ) : (
-        <form className="mt-2 flex flex-col gap-3" onSubmit={(e) => { e.preventDefault(); answer.mutate({ decline: { reason: reason.trim() } }); }}>
+        <form
+          className="mt-2 flex flex-col gap-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            answer.mutate({ decline: { reason: reason.trim() } });
+          }}
+        >
           <Field label="Reason (optional)" hint="It helps us, but you do not have to say.">
             <Textarea rows={3} value={reason} onChange={(e) => setReason(e.target.value)} />
           </Field>
           <div>
-            <Button type="submit" variant="danger" busy={answer.isPending}>Decline the quote</Button>
+            <Button type="submit" variant="danger" busy={answer.isPending}>
+              Decline the quote
+            </Button>
           </div>
         </form>
       )}

@@ -79,26 +79,52 @@ export function QuoteLinesEditor({ lines, priced, problems, currency, locale, re
                   {readOnly ? (
                     <span className="font-mono">{l.quantityText}</span>
                   ) : (
-                    <input aria-label={`Line ${i + 1} quantity`} inputMode="decimal" className={`${cell} w-16 text-right font-mono`} value={l.quantityText} onChange={(e) => set(l.key, { quantityText: e.target.value })} aria-invalid={!!problem(l.key, 'quantity') || undefined} />
+                    <input
+                      aria-label={`Line ${i + 1} quantity`}
+                      inputMode="decimal"
+                      className={`${cell} w-16 text-right font-mono`}
+                      value={l.quantityText}
+                      onChange={(e) => set(l.key, { quantityText: e.target.value })}
+                      aria-invalid={!!problem(l.key, 'quantity') || undefined}
+                    />
                   )}
                   {problem(l.key, 'quantity') && <p className="text-xs text-brick-dark">{problem(l.key, 'quantity')}</p>}
                 </Td>
                 <Td className={pad}>
-                  {readOnly ? l.unit : <input aria-label={`Line ${i + 1} unit`} className={`${cell} w-14`} value={l.unit} onChange={(e) => set(l.key, { unit: e.target.value })} />}
+                  {readOnly ? (
+                    l.unit
+                  ) : (
+                    <input aria-label={`Line ${i + 1} unit`} className={`${cell} w-14`} value={l.unit} onChange={(e) => set(l.key, { unit: e.target.value })} />
+                  )}
                 </Td>
                 <Td className={`${pad} text-right`}>
                   {readOnly ? (
                     <span className="font-mono">{l.priceText}</span>
                   ) : (
-                    <input aria-label={`Line ${i + 1} unit price`} inputMode="decimal" className={`${cell} w-20 text-right font-mono`} value={l.priceText} onChange={(e) => set(l.key, { priceText: e.target.value })} aria-invalid={!!problem(l.key, 'price') || undefined} />
+                    <input
+                      aria-label={`Line ${i + 1} unit price`}
+                      inputMode="decimal"
+                      className={`${cell} w-20 text-right font-mono`}
+                      value={l.priceText}
+                      onChange={(e) => set(l.key, { priceText: e.target.value })}
+                      aria-invalid={!!problem(l.key, 'price') || undefined}
+                    />
                   )}
                   {problem(l.key, 'price') && <p className="text-xs text-brick-dark">{problem(l.key, 'price')}</p>}
                 </Td>
                 <Td className={pad}>
                   {readOnly ? (
-                    <span className="text-xs" title={TAX_CLASS_LABELS[l.taxClass]}>{TAX_SHORT[l.taxClass]}</span>
+                    <span className="text-xs" title={TAX_CLASS_LABELS[l.taxClass]}>
+                      {TAX_SHORT[l.taxClass]}
+                    </span>
                   ) : (
-                    <select aria-label={`Line ${i + 1} tax class`} title={TAX_CLASS_LABELS[l.taxClass]} className={`${cell} w-36`} value={l.taxClass} onChange={(e) => set(l.key, { taxClass: e.target.value as TaxClass })}>
+                    <select
+                      aria-label={`Line ${i + 1} tax class`}
+                      title={TAX_CLASS_LABELS[l.taxClass]}
+                      className={`${cell} w-36`}
+                      value={l.taxClass}
+                      onChange={(e) => set(l.key, { taxClass: e.target.value as TaxClass })}
+                    >
                       {(Object.keys(TAX_SHORT) as TaxClass[]).map((c) => (
                         <option key={c} value={c} title={TAX_CLASS_LABELS[c]}>
                           {TAX_SHORT[c]}

@@ -2,7 +2,20 @@ import { useEffect, useMemo, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { can } from '../../../../shared/auth/policies';
 import { computeQuoteTotals } from '../../../../shared/quote/totals';
-import { Alert, Button, Card, CardTitle, ErrorState, Field, Input, LoadingState, PageHeader, Textarea, formatDate, formatDateTime } from '../../../components/ui';
+import {
+  Alert,
+  Button,
+  Card,
+  CardTitle,
+  ErrorState,
+  Field,
+  Input,
+  LoadingState,
+  PageHeader,
+  Textarea,
+  formatDate,
+  formatDateTime,
+} from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { useCurrentUser } from '../../auth/use-current-user';
 import { useQuote } from '../api/get-quote';
@@ -124,7 +137,15 @@ export default function QuotePage() {
       <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,1fr)]">
         <Card>
           <CardTitle>Lines</CardTitle>
-          <QuoteLinesEditor lines={lines} priced={totals?.lines ?? null} problems={parsed.problems} currency={q.currency} locale={q.locale} readOnly={!editable} onChange={setLines} />
+          <QuoteLinesEditor
+            lines={lines}
+            priced={totals?.lines ?? null}
+            problems={parsed.problems}
+            currency={q.currency}
+            locale={q.locale}
+            readOnly={!editable}
+            onChange={setLines}
+          />
           <div className="mt-4 grid grid-cols-1 gap-3 sm:grid-cols-[12rem_minmax(0,1fr)]">
             <Field label="Valid until">
               <Input type="date" value={validUntil} disabled={!editable} onChange={(e) => setValidUntil(e.target.value)} />
@@ -148,14 +169,28 @@ export default function QuotePage() {
           </div>
         </Card>
         <div className="flex flex-col gap-4">
-          <QuoteTotalsPanel totals={totals} currency={q.currency} locale={q.locale} saving={q.saving} siteHours={q.siteHours} showMargin={can(user, 'prices:read')} />
+          <QuoteTotalsPanel
+            totals={totals}
+            currency={q.currency}
+            locale={q.locale}
+            saving={q.saving}
+            siteHours={q.siteHours}
+            showMargin={can(user, 'prices:read')}
+          />
           {q.versions.length > 1 && (
             <Card>
               <CardTitle>Versions</CardTitle>
               <ul className="text-sm">
                 {q.versions.map((v) => (
                   <li key={v.id}>
-                    {v.id === q.id ? <strong>v{v.version}</strong> : <Link className="text-teal-dark underline" to={`/jobs/${jobId}/quotes/${v.id}`}>v{v.version}</Link>} · {v.status}
+                    {v.id === q.id ? (
+                      <strong>v{v.version}</strong>
+                    ) : (
+                      <Link className="text-teal-dark underline" to={`/jobs/${jobId}/quotes/${v.id}`}>
+                        v{v.version}
+                      </Link>
+                    )}{' '}
+                    · {v.status}
                   </li>
                 ))}
               </ul>

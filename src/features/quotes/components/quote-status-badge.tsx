@@ -10,5 +10,9 @@ const TONES: Record<QuoteStatus, string> = {
 };
 
 export function QuoteStatusBadge({ status }: { status: QuoteStatus }) {
-  return <span className={`rounded-full px-2.5 py-0.5 text-xs font-semibold uppercase tracking-wide ${TONES[status]}`} data-testid="quote-status">{status}</span>;
+  return (
+    <span className={`rounded-full px-2.5 py-0.5 text-xs font-semibold uppercase tracking-wide ${TONES[status]}`} data-testid="quote-status">
+      {status}
+    </span>
+  );
 }

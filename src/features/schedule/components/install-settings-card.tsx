@@ -26,7 +26,13 @@ export function InstallSettingsCard() {
           <Input type="number" min={1} max={20} value={form.maxJobsPerDay} onChange={(e) => setForm({ ...form, maxJobsPerDay: Number(e.target.value) })} />
         </Field>
         <Field label="Area per installer a day (m²)">
-          <Input type="number" min={1} max={10000} value={form.maxAreaM2PerDay} onChange={(e) => setForm({ ...form, maxAreaM2PerDay: Number(e.target.value) })} />
+          <Input
+            type="number"
+            min={1}
+            max={10000}
+            value={form.maxAreaM2PerDay}
+            onChange={(e) => setForm({ ...form, maxAreaM2PerDay: Number(e.target.value) })}
+          />
         </Field>
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" checked={form.handoverRValues} onChange={(e) => setForm({ ...form, handoverRValues: e.target.checked })} />

@@ -57,7 +57,9 @@ export default function SchedulePage() {
       ) : (
         <div className="flex flex-col gap-5">
           {week.data.loads.some((l) => l.overCapacity) && (
-            <Alert tone="caution">Some installer-days this week are over capacity ({week.data.capacity.maxJobsPerDay} job(s) or {week.data.capacity.maxAreaM2PerDay} m² a day).</Alert>
+            <Alert tone="caution">
+              Some installer-days this week are over capacity ({week.data.capacity.maxJobsPerDay} job(s) or {week.data.capacity.maxAreaM2PerDay} m² a day).
+            </Alert>
           )}
           <WeekGrid week={week.data} />
           <Card>
@@ -78,7 +80,13 @@ export default function SchedulePage() {
                         {job.areaM2 !== null && ` · ${job.areaM2.toFixed(1)} m²`}
                       </div>
                     </div>
-                    {canBook && <BookingForm job={job} installers={week.data.installers} defaultDate={week.data.days[0] < isoDay(new Date()) ? isoDay(new Date()) : week.data.days[0]} />}
+                    {canBook && (
+                      <BookingForm
+                        job={job}
+                        installers={week.data.installers}
+                        defaultDate={week.data.days[0] < isoDay(new Date()) ? isoDay(new Date()) : week.data.days[0]}
+                      />
+                    )}
                   </li>
                 ))}
               </ul>

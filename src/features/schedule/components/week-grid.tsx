@@ -2,7 +2,8 @@ import { Link } from 'react-router-dom';
 import type { ScheduleWeek } from '../../../../shared/api/schedule';
 import { StageBadge } from '../../../components/ui';
 
-const dayLabel = (iso: string) => new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+const dayLabel = (iso: string) =>
+  new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
 
 /** Installers down the side, days across; each cell lists that installer's jobs and flags a day over capacity. */
 export function WeekGrid({ week }: { week: ScheduleWeek }) {
@@ -11,55 +12,59 @@ export function WeekGrid({ week }: { week: ScheduleWeek }) {
     <>
       <DayList week={week} />
       <div className="hidden overflow-x-auto rounded-lg border border-paper-line bg-white/85 shadow-sm md:block">
-      <table className="w-full min-w-[56rem] border-collapse text-sm">
-        <thead>
-          <tr>
-            <th className="w-36 border-b border-paper-line p-2 text-left font-semibold">Installer</th>
-            {week.days.map((d) => (
-              <th key={d} className="border-b border-l border-paper-line p-2 text-left font-semibold">
-                {dayLabel(d)}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {week.installers.map((inst) => (
-            <tr key={inst.id}>
-              <th scope="row" className="border-b border-paper-line p-2 text-left align-top font-medium">
-                {inst.name}
-              </th>
-              {week.days.map((d) => {
-                const jobs = week.jobs.filter((j) => j.installerId === inst.id && j.installDate === d);
-                const load = week.loads.find((l) => l.installerId === inst.id && l.date === d);
-                return (
-                  <td key={d} className={`border-b border-l border-paper-line p-1.5 align-top ${load?.overCapacity ? 'bg-brick-light/30' : ''}`} data-testid={`cell-${inst.id}-${d}`}>
-                    {load?.overCapacity && <div className="mb-1 text-xs font-semibold text-brick-dark">Over capacity</div>}
-                    <ul className="flex flex-col gap-1">
-                      {jobs.map((j) => (
-                        <li key={j.id} className="rounded border border-sky-dark/30 bg-sky-light/60 px-1.5 py-1">
-                          <Link to={`/jobs/${j.id}`} className="font-mono text-xs font-semibold text-teal-dark underline">
-                            {j.reference}
-                          </Link>
-                          <div className="truncate">{j.customerName}</div>
-                          <div className="flex items-center justify-between gap-1 text-xs text-graphite-light">
-                            <span className="truncate">
-                              {j.town}
-                              {j.areaM2 !== null && ` · ${j.areaM2.toFixed(0)} m²`}
-                            </span>
-                            {j.stage !== 'scheduled' && <StageBadge stage={j.stage} />}
-                          </div>
-                          {(j.stage === 'installed' || j.stage === 'closed') && <HandoverLink jobId={j.id} />}
-                        </li>
-                      ))}
-                    </ul>
-                  </td>
-                );
-              })}
+        <table className="w-full min-w-[56rem] border-collapse text-sm">
+          <thead>
+            <tr>
+              <th className="w-36 border-b border-paper-line p-2 text-left font-semibold">Installer</th>
+              {week.days.map((d) => (
+                <th key={d} className="border-b border-l border-paper-line p-2 text-left font-semibold">
+                  {dayLabel(d)}
+                </th>
+              ))}
             </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+          </thead>
+          <tbody>
+            {week.installers.map((inst) => (
+              <tr key={inst.id}>
+                <th scope="row" className="border-b border-paper-line p-2 text-left align-top font-medium">
+                  {inst.name}
+                </th>
+                {week.days.map((d) => {
+                  const jobs = week.jobs.filter((j) => j.installerId === inst.id && j.installDate === d);
+                  const load = week.loads.find((l) => l.installerId === inst.id && l.date === d);
+                  return (
+                    <td
+                      key={d}
+                      className={`border-b border-l border-paper-line p-1.5 align-top ${load?.overCapacity ? 'bg-brick-light/30' : ''}`}
+                      data-testid={`cell-${inst.id}-${d}`}
+                    >
+                      {load?.overCapacity && <div className="mb-1 text-xs font-semibold text-brick-dark">Over capacity</div>}
+                      <ul className="flex flex-col gap-1">
+                        {jobs.map((j) => (
+                          <li key={j.id} className="rounded border border-sky-dark/30 bg-sky-light/60 px-1.5 py-1">
+                            <Link to={`/jobs/${j.id}`} className="font-mono text-xs font-semibold text-teal-dark underline">
+                              {j.reference}
+                            </Link>
+                            <div className="truncate">{j.customerName}</div>
+                            <div className="flex items-center justify-between gap-1 text-xs text-graphite-light">
+                              <span className="truncate">
+                                {j.town}
+                                {j.areaM2 !== null && ` · ${j.areaM2.toFixed(0)} m²`}
+                              </span>
+                              {j.stage !== 'scheduled' && <StageBadge stage={j.stage} />}
+                            </div>
+                            {(j.stage === 'installed' || j.stage === 'closed') && <HandoverLink jobId={j.id} />}
+                          </li>
+                        ))}
+                      </ul>
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </>
   );
 }

@@ -7,7 +7,7 @@ export type CatalogueResource = 'products' | 'extras' | 'tax-rates';
 export async function listCatalogue<T>(resource: CatalogueResource, signal?: AbortSignal): Promise<T[]> {
   return (await api.get<{ items: T[] }>(`/api/catalogue/${resource}`, undefined, signal)).items;
 }
-export const catalogueQueryOptions = <T,>(resource: CatalogueResource) =>
+export const catalogueQueryOptions = <T>(resource: CatalogueResource) =>
   queryOptions({ queryKey: settingsKeys.catalogue(resource), queryFn: ({ signal }) => listCatalogue<T>(resource, signal) });
 export function useCatalogue<T>(resource: CatalogueResource) {
   return useQuery(catalogueQueryOptions<T>(resource));

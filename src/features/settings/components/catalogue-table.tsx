@@ -22,12 +22,18 @@ type Row = Record<string, unknown> & { id: string };
 function display(c: ColumnDef, v: unknown, currency: string): string {
   if (v === null || v === undefined) return '';
   switch (c.type) {
-    case 'money': return formatMoney(Number(v), currency);
-    case 'bool': return v ? 'yes' : 'no';
-    case 'rate': return formatRateBp(Number(v));
-    case 'select': return c.options?.find((o) => o.value === v)?.label ?? String(v);
-    case 'roles': return (v as string[]).join(', ');
-    default: return String(v);
+    case 'money':
+      return formatMoney(Number(v), currency);
+    case 'bool':
+      return v ? 'yes' : 'no';
+    case 'rate':
+      return formatRateBp(Number(v));
+    case 'select':
+      return c.options?.find((o) => o.value === v)?.label ?? String(v);
+    case 'roles':
+      return (v as string[]).join(', ');
+    default:
+      return String(v);
   }
 }
 
@@ -41,12 +47,21 @@ function toText(c: ColumnDef, v: unknown, currency: string): string {
 
 function fromText(c: ColumnDef, text: string, currency: string): unknown {
   switch (c.type) {
-    case 'number': return text.trim() === '' ? undefined : Number(text);
-    case 'money': return parseMoney(text, currency) ?? Number.NaN;
-    case 'rate': return text.trim() === '' ? undefined : Math.round(Number(text) * 100);
-    case 'bool': return text === 'true';
-    case 'roles': return text.split(',').map((s) => s.trim()).filter(Boolean);
-    default: return text;
+    case 'number':
+      return text.trim() === '' ? undefined : Number(text);
+    case 'money':
+      return parseMoney(text, currency) ?? Number.NaN;
+    case 'rate':
+      return text.trim() === '' ? undefined : Math.round(Number(text) * 100);
+    case 'bool':
+      return text === 'true';
+    case 'roles':
+      return text
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean);
+    default:
+      return text;
   }
 }
 
@@ -68,7 +83,8 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
     const f = filter.trim().toLowerCase();
     const data = (list.data ?? []).filter((r) => !f || columns.some((c) => display(c, r[c.key], currency).toLowerCase().includes(f)));
     return [...data].sort((a, b) => {
-      const x = a[sort.key], y = b[sort.key];
+      const x = a[sort.key],
+        y = b[sort.key];
       const cmp = typeof x === 'number' && typeof y === 'number' ? x - y : String(x ?? '').localeCompare(String(y ?? ''));
       return cmp * sort.dir;
     });
@@ -98,7 +114,15 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
 
   return (
     <Card>
-      <CardTitle action={<Button size="sm" onClick={() => open()}>Add</Button>}>{title}</CardTitle>
+      <CardTitle
+        action={
+          <Button size="sm" onClick={() => open()}>
+            Add
+          </Button>
+        }
+      >
+        {title}
+      </CardTitle>
       <div className="mb-3 max-w-xs">
         <Input placeholder="Filter…" aria-label={`Filter ${title}`} value={filter} onChange={(e) => setFilter(e.target.value)} />
       </div>
@@ -111,23 +135,41 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
             <Tr>
               {visible.map((c) => (
                 <Th key={c.key} aria-sort={sort.key === c.key ? (sort.dir === 1 ? 'ascending' : 'descending') : 'none'}>
-                  <button type="button" className="uppercase" onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? (s.dir === 1 ? -1 : 1) : 1 }))}>
+                  <button
+                    type="button"
+                    className="uppercase"
+                    onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? (s.dir === 1 ? -1 : 1) : 1 }))}
+                  >
                     {c.label} {sort.key === c.key ? (sort.dir === 1 ? '▲' : '▼') : ''}
                   </button>
                 </Th>
               ))}
-              <Th><span className="sr-only">Actions</span></Th>
+              <Th>
+                <span className="sr-only">Actions</span>
+              </Th>
             </Tr>
           </THead>
           <TBody>
             {rows.map((r) => (
               <Tr key={r.id}>
                 {visible.map((c) => (
-                  <Td key={c.key} className={c.type === 'money' || c.type === 'number' || c.type === 'rate' ? 'text-right font-mono' : ''}>{display(c, r[c.key], currency)}</Td>
+                  <Td key={c.key} className={c.type === 'money' || c.type === 'number' || c.type === 'rate' ? 'text-right font-mono' : ''}>
+                    {display(c, r[c.key], currency)}
+                  </Td>
                 ))}
                 <Td className="whitespace-nowrap">
-                  <Button size="sm" variant="ghost" onClick={() => open(r)}>Edit</Button>
-                  <Button size="sm" variant="danger-ghost" onClick={() => { if (window.confirm('Delete this row?')) remove.mutate(r.id); }}>Delete</Button>
+                  <Button size="sm" variant="ghost" onClick={() => open(r)}>
+                    Edit
+                  </Button>
+                  <Button
+                    size="sm"
+                    variant="danger-ghost"
+                    onClick={() => {
+                      if (window.confirm('Delete this row?')) remove.mutate(r.id);
+                    }}
+                  >
+                    Delete
+                  </Button>
                 </Td>
               </Tr>
             ))}
@@ -135,23 +177,52 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
         </Table>
       )}
       {editing && (
-        <form className="mt-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-paper/60 p-4 sm:grid-cols-3" onSubmit={(e) => { e.preventDefault(); void submit(); }}>
+        <form
+          className="mt-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-paper/60 p-4 sm:grid-cols-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void submit();
+          }}
+        >
           {columns.map((c) => (
             <Field key={c.key} label={c.label} error={errors[c.key]}>
               {c.type === 'select' || c.type === 'bool' ? (
                 <Select value={editing.values[c.key]} onChange={(e) => setEditing({ ...editing, values: { ...editing.values, [c.key]: e.target.value } })}>
-                  {(c.type === 'bool' ? [{ value: 'true', label: 'yes' }, { value: 'false', label: 'no' }] : c.options ?? []).map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+                  {(c.type === 'bool'
+                    ? [
+                        { value: 'true', label: 'yes' },
+                        { value: 'false', label: 'no' },
+                      ]
+                    : (c.options ?? [])
+                  ).map((o) => (
+                    <option key={o.value} value={o.value}>
+                      {o.label}
+                    </option>
+                  ))}
                 </Select>
               ) : (
-                <Input type={c.type === 'date' ? 'date' : 'text'} inputMode={c.type === 'text' || c.type === 'date' || c.type === 'roles' ? undefined : 'decimal'} value={editing.values[c.key]} onChange={(e) => setEditing({ ...editing, values: { ...editing.values, [c.key]: e.target.value } })} />
+                <Input
+                  type={c.type === 'date' ? 'date' : 'text'}
+                  inputMode={c.type === 'text' || c.type === 'date' || c.type === 'roles' ? undefined : 'decimal'}
+                  value={editing.values[c.key]}
+                  onChange={(e) => setEditing({ ...editing, values: { ...editing.values, [c.key]: e.target.value } })}
+                />
               )}
             </Field>
           ))}
           <div className="flex gap-2 sm:col-span-3">
-            <Button type="submit" busy={save.isPending}>{editing.id ? 'Save' : 'Add'}</Button>
-            <Button variant="ghost" onClick={() => setEditing(null)}>Cancel</Button>
+            <Button type="submit" busy={save.isPending}>
+              {editing.id ? 'Save' : 'Add'}
+            </Button>
+            <Button variant="ghost" onClick={() => setEditing(null)}>
+              Cancel
+            </Button>
           </div>
-          {save.error && !Object.keys(errors).length && <div className="sm:col-span-3"><Alert>{save.error.message}</Alert></div>}
+          {save.error && !Object.keys(errors).length && (
+            <div className="sm:col-span-3">
+              <Alert>{save.error.message}</Alert>
+            </div>
+          )}
         </form>
       )}
     </Card>

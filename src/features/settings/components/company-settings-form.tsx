@@ -10,15 +10,36 @@ type Values = Record<string, string>;
 function toValues(s: CompanySettings): Values {
   const m = (x: number) => minorToDecimalString(x, s.currency);
   return {
-    companyName: s.companyName, 'address.line1': s.address.line1, 'address.line2': s.address.line2 ?? '', 'address.town': s.address.town, 'address.postcode': s.address.postcode,
-    email: s.email, phone: s.phone, taxNumber: s.taxNumber, terms: s.terms, validityDays: String(s.validityDays), currency: s.currency, locale: s.locale,
-    degreeDays: String(s.degreeDays), fuelPriceMinorPerKwh: String(s.fuelPriceMinorPerKwh), heatingEfficiency: String(s.heatingEfficiency),
-    wasteAllowancePct: String(Math.round(s.wasteAllowance * 1000) / 10), rollCountMethod: s.rollCountMethod,
-    'labour.baseM2PerHour': String(s.labour.baseM2PerHour), 'labour.crossM2PerHour': String(s.labour.crossM2PerHour),
-    'labour.hourlyRate': m(s.labour.hourlyRateMinor), 'labour.hourlyCost': m(s.labour.hourlyCostMinor), 'labour.crewSize': String(s.labour.crewSize),
-    'labour.minimumCharge': m(s.labour.minimumChargeMinor), 'labour.roundUpMinutes': String(s.labour.roundUpMinutes), 'labour.taxClass': s.labour.taxClass,
-    'extraRules.pipeLaggingMPerTank': String(s.extraRules.pipeLaggingMPerTank), 'extraRules.walkwayBoardsPerTank': String(s.extraRules.walkwayBoardsPerTank),
-    'extraRules.boardLegsPerM2': String(s.extraRules.boardLegsPerM2), 'extraRules.disposalPerJob': String(s.extraRules.disposalPerJob), 'extraRules.eavesTrays': String(s.extraRules.eavesTrays),
+    companyName: s.companyName,
+    'address.line1': s.address.line1,
+    'address.line2': s.address.line2 ?? '',
+    'address.town': s.address.town,
+    'address.postcode': s.address.postcode,
+    email: s.email,
+    phone: s.phone,
+    taxNumber: s.taxNumber,
+    terms: s.terms,
+    validityDays: String(s.validityDays),
+    currency: s.currency,
+    locale: s.locale,
+    degreeDays: String(s.degreeDays),
+    fuelPriceMinorPerKwh: String(s.fuelPriceMinorPerKwh),
+    heatingEfficiency: String(s.heatingEfficiency),
+    wasteAllowancePct: String(Math.round(s.wasteAllowance * 1000) / 10),
+    rollCountMethod: s.rollCountMethod,
+    'labour.baseM2PerHour': String(s.labour.baseM2PerHour),
+    'labour.crossM2PerHour': String(s.labour.crossM2PerHour),
+    'labour.hourlyRate': m(s.labour.hourlyRateMinor),
+    'labour.hourlyCost': m(s.labour.hourlyCostMinor),
+    'labour.crewSize': String(s.labour.crewSize),
+    'labour.minimumCharge': m(s.labour.minimumChargeMinor),
+    'labour.roundUpMinutes': String(s.labour.roundUpMinutes),
+    'labour.taxClass': s.labour.taxClass,
+    'extraRules.pipeLaggingMPerTank': String(s.extraRules.pipeLaggingMPerTank),
+    'extraRules.walkwayBoardsPerTank': String(s.extraRules.walkwayBoardsPerTank),
+    'extraRules.boardLegsPerM2': String(s.extraRules.boardLegsPerM2),
+    'extraRules.disposalPerJob': String(s.extraRules.disposalPerJob),
+    'extraRules.eavesTrays': String(s.extraRules.eavesTrays),
   };
 }
 
@@ -26,22 +47,46 @@ function toBody(v: Values) {
   const n = (k: string) => (v[k].trim() === '' ? Number.NaN : Number(v[k]));
   const money = (k: string) => parseMoney(v[k], v.currency || 'GBP') ?? Number.NaN;
   return {
-    companyName: v.companyName, address: { line1: v['address.line1'], line2: v['address.line2'], town: v['address.town'], postcode: v['address.postcode'] },
-    email: v.email, phone: v.phone, taxNumber: v.taxNumber, terms: v.terms, validityDays: n('validityDays'), currency: v.currency.trim().toUpperCase(), locale: v.locale,
-    degreeDays: n('degreeDays'), fuelPriceMinorPerKwh: n('fuelPriceMinorPerKwh'), heatingEfficiency: n('heatingEfficiency'), wasteAllowance: n('wasteAllowancePct') / 100,
+    companyName: v.companyName,
+    address: { line1: v['address.line1'], line2: v['address.line2'], town: v['address.town'], postcode: v['address.postcode'] },
+    email: v.email,
+    phone: v.phone,
+    taxNumber: v.taxNumber,
+    terms: v.terms,
+    validityDays: n('validityDays'),
+    currency: v.currency.trim().toUpperCase(),
+    locale: v.locale,
+    degreeDays: n('degreeDays'),
+    fuelPriceMinorPerKwh: n('fuelPriceMinorPerKwh'),
+    heatingEfficiency: n('heatingEfficiency'),
+    wasteAllowance: n('wasteAllowancePct') / 100,
     rollCountMethod: v.rollCountMethod,
     labour: {
-      baseM2PerHour: n('labour.baseM2PerHour'), crossM2PerHour: n('labour.crossM2PerHour'), hourlyRateMinor: money('labour.hourlyRate'), hourlyCostMinor: money('labour.hourlyCost'),
-      crewSize: n('labour.crewSize'), minimumChargeMinor: money('labour.minimumCharge'), roundUpMinutes: n('labour.roundUpMinutes'), taxClass: v['labour.taxClass'],
+      baseM2PerHour: n('labour.baseM2PerHour'),
+      crossM2PerHour: n('labour.crossM2PerHour'),
+      hourlyRateMinor: money('labour.hourlyRate'),
+      hourlyCostMinor: money('labour.hourlyCost'),
+      crewSize: n('labour.crewSize'),
+      minimumChargeMinor: money('labour.minimumCharge'),
+      roundUpMinutes: n('labour.roundUpMinutes'),
+      taxClass: v['labour.taxClass'],
     },
     extraRules: {
-      pipeLaggingMPerTank: n('extraRules.pipeLaggingMPerTank'), walkwayBoardsPerTank: n('extraRules.walkwayBoardsPerTank'), boardLegsPerM2: n('extraRules.boardLegsPerM2'),
-      disposalPerJob: n('extraRules.disposalPerJob'), eavesTrays: v['extraRules.eavesTrays'] === 'true',
+      pipeLaggingMPerTank: n('extraRules.pipeLaggingMPerTank'),
+      walkwayBoardsPerTank: n('extraRules.walkwayBoardsPerTank'),
+      boardLegsPerM2: n('extraRules.boardLegsPerM2'),
+      disposalPerJob: n('extraRules.disposalPerJob'),
+      eavesTrays: v['extraRules.eavesTrays'] === 'true',
     },
   };
 }
 
-const KEY_ALIASES: Record<string, string> = { wasteAllowance: 'wasteAllowancePct', 'labour.hourlyRateMinor': 'labour.hourlyRate', 'labour.hourlyCostMinor': 'labour.hourlyCost', 'labour.minimumChargeMinor': 'labour.minimumCharge' };
+const KEY_ALIASES: Record<string, string> = {
+  wasteAllowance: 'wasteAllowancePct',
+  'labour.hourlyRateMinor': 'labour.hourlyRate',
+  'labour.hourlyCostMinor': 'labour.hourlyCost',
+  'labour.minimumChargeMinor': 'labour.minimumCharge',
+};
 
 /** The company's details, quote terms, savings inputs, labour rates and extras rules, checked with the server's schema. */
 export function CompanySettingsForm({ settings, section }: { settings: CompanySettings; section: 'company' | 'pricing' }) {
@@ -56,7 +101,11 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
     <Field label={label} hint={opts.hint} error={errors[key]}>
       {opts.options ? (
         <Select value={v[key]} onChange={(e) => setV({ ...v, [key]: e.target.value })}>
-          {opts.options.map(([val, text]) => <option key={val} value={val}>{text}</option>)}
+          {opts.options.map(([val, text]) => (
+            <option key={val} value={val}>
+              {text}
+            </option>
+          ))}
         </Select>
       ) : opts.area ? (
         <Textarea rows={6} value={v[key]} onChange={(e) => setV({ ...v, [key]: e.target.value })} />
@@ -70,7 +119,14 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
     setSaved(false);
     const parsed = companySettingsBodySchema.safeParse(toBody(v));
     if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => { const k = i.path.join('.'); return [KEY_ALIASES[k] ?? k, i.message]; })));
+      setErrors(
+        Object.fromEntries(
+          parsed.error.issues.map((i) => {
+            const k = i.path.join('.');
+            return [KEY_ALIASES[k] ?? k, i.message];
+          }),
+        ),
+      );
       return;
     }
     setErrors({});
@@ -83,7 +139,13 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
   };
 
   return (
-    <form className="flex flex-col gap-4" onSubmit={(e) => { e.preventDefault(); void submit(); }}>
+    <form
+      className="flex flex-col gap-4"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit();
+      }}
+    >
       {section === 'company' ? (
         <>
           <Card>
@@ -99,10 +161,19 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
               {field('phone', 'Phone')}
             </div>
             <div className="mt-4 flex flex-wrap items-center gap-3">
-              {settings.hasLogo && <img src={`/api/settings/logo?v=${Date.now()}`} alt="Company logo" className="h-12 w-auto rounded border border-paper-line bg-white p-1" />}
+              {settings.hasLogo && (
+                <img src={`/api/settings/logo?v=${Date.now()}`} alt="Company logo" className="h-12 w-auto rounded border border-paper-line bg-white p-1" />
+              )}
               <label className="text-sm">
                 <span className="mr-2 font-medium">Logo (PNG or JPEG, up to 1 MB)</span>
-                <input type="file" accept="image/png,image/jpeg" onChange={(e) => { const f = e.target.files?.[0]; if (f) logo.mutate(f); }} />
+                <input
+                  type="file"
+                  accept="image/png,image/jpeg"
+                  onChange={(e) => {
+                    const f = e.target.files?.[0];
+                    if (f) logo.mutate(f);
+                  }}
+                />
               </label>
               {logo.error && <Alert>{logo.error.message}</Alert>}
             </div>
@@ -136,7 +207,12 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
             <CardTitle>Rolls and waste</CardTitle>
             <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
               {field('wasteAllowancePct', 'Waste allowance (%)', { hint: 'For the rule-of-thumb count; common practice is 5–10%.' })}
-              {field('rollCountMethod', 'Price rolls by', { options: [['packing', 'the roll plan (strips packed into rolls)'], ['area', 'the rule of thumb (area + waste)']] })}
+              {field('rollCountMethod', 'Price rolls by', {
+                options: [
+                  ['packing', 'the roll plan (strips packed into rolls)'],
+                  ['area', 'the rule of thumb (area + waste)'],
+                ],
+              })}
             </div>
           </Card>
           <Card>
@@ -146,7 +222,12 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
               {field('extraRules.walkwayBoardsPerTank', 'Walkway boards per tank')}
               {field('extraRules.boardLegsPerM2', 'Board legs per m² boarded')}
               {field('extraRules.disposalPerJob', 'Disposal per job')}
-              {field('extraRules.eavesTrays', 'Eaves trays', { options: [['true', 'one per rafter space'], ['false', 'none']] })}
+              {field('extraRules.eavesTrays', 'Eaves trays', {
+                options: [
+                  ['true', 'one per rafter space'],
+                  ['false', 'none'],
+                ],
+              })}
             </div>
           </Card>
           <Card>
@@ -162,7 +243,9 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
       {saved && <Alert tone="success">Settings saved.</Alert>}
       {Object.keys(errors).length > 0 && <Alert>Some fields need attention.</Alert>}
       <div>
-        <Button type="submit" busy={save.isPending}>Save settings</Button>
+        <Button type="submit" busy={save.isPending}>
+          Save settings
+        </Button>
       </div>
     </form>
   );
