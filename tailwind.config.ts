@@ -1,6 +1,6 @@
 import type { Config } from 'tailwindcss';
 
-// The "site notebook" palette (PRODUCT.md, Look and feel).
+// The "site notebook" palette.
 export default {
   content: ['./index.html', './src/**/*.{ts,tsx}'],
   theme: {

@@ -46,11 +46,11 @@ async function main() {
   const apiPort = dev ? Number(process.env.API_PORT ?? port + 1) : port;
   // tsx directly (not npx) so signals reach the server process.
   const serverArgs = dev ? ['watch', '--clear-screen=false', 'server/index.ts'] : ['server/index.ts'];
-  // payments engineer: without real keys the app's SDK talks to the local stand-in started below.
+  // Without real keys the app's SDK talks to the local stand-in started below.
   if (!env.STRIPE_SECRET_KEY && !env.PAYMENTS_API_URL) env.PAYMENTS_API_URL = `http://127.0.0.1:${env.FAKE_PAYMENTS_PORT ?? 12111}`;
   const server = spawn(bin('tsx'), serverArgs, { cwd: REPO_ROOT, stdio: 'inherit', env: { ...env, PORT: String(apiPort) } });
   children.push(server);
-  // payments engineer: with no real payment keys, the local checkout stand-in (no money moves).
+  // With no real payment keys, the local checkout stand-in (no money moves).
   if (!env.STRIPE_SECRET_KEY) {
     const payments = spawn(bin('tsx'), ['scripts/fake-payments.ts'], {
       cwd: REPO_ROOT,

@@ -36,7 +36,7 @@ export function createApp(deps: AppDeps): Express {
   app.set('query parser', 'extended');
 
   app.use(helmet());
-  // payments engineer: the webhook verifies a signature over the raw body, so it sits before the JSON parser.
+  // The webhook verifies a signature over the raw body, so it sits before the JSON parser.
   mountPaymentsWebhook(app, deps);
   app.use(express.json({ limit: '5mb' }));
 
@@ -53,23 +53,19 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/spaces', spacesRouter(deps));
   if (!config.isProduction) app.use('/api/dev/outbox', devOutboxRouter(deps));
 
-  // ---------------------------------------------------------------------------------------------
-  // feature routers — other modules append their mount lines here, e.g.
-  //   app.use('/api/quotes', quotesRouter(deps));
-  // ---------------------------------------------------------------------------------------------
-  mountPayments(app, deps); // payments engineer: /api/payments, /api/invoices, customer pages under /pay
-  app.use('/api/schedule', scheduleRouter(deps)); // installer engineer: week view, booking, install settings
-  app.use('/api', jobSheetRouter(deps)); // installer engineer: my-jobs, job sheet, ticks, notes, finish, handover
-  app.use('/api', photosRouter(deps)); // installer engineer: site photos
+  mountPayments(app, deps); // /api/payments, /api/invoices, customer pages under /pay
+  app.use('/api/schedule', scheduleRouter(deps)); // week view, booking, install settings
+  app.use('/api', jobSheetRouter(deps)); // my-jobs, job sheet, ticks, notes, finish, handover
+  app.use('/api', photosRouter(deps)); // site photos
 
-  app.use('/api/settings', settingsRouter(deps)); // quotes engineer: company settings, logo
-  app.use('/api/catalogue', catalogueRouter(deps)); // quotes engineer: products, extras, tax rates
-  app.use('/api/jobs', jobQuotesRouter(deps)); // quotes engineer: build and list a job's quotes
-  app.use('/api/quotes', quotesRouter(deps)); // quotes engineer: quotes, send, PDF/CSV/XLSX
-  app.use('/api/public/quotes', publicQuoteRouter(deps)); // quotes engineer: the customer's private link (no sign-in)
-  app.use('/api/jobs', jobSheetExportRouter(deps)); // quotes engineer: job sheet PDF and e-mailing it to the installer
+  app.use('/api/settings', settingsRouter(deps)); // company settings, logo
+  app.use('/api/catalogue', catalogueRouter(deps)); // products, extras, tax rates
+  app.use('/api/jobs', jobQuotesRouter(deps)); // build and list a job's quotes
+  app.use('/api/quotes', quotesRouter(deps)); // quotes, send, PDF/CSV/XLSX
+  app.use('/api/public/quotes', publicQuoteRouter(deps)); // the customer's private link (no sign-in)
+  app.use('/api/jobs', jobSheetExportRouter(deps)); // job sheet PDF and e-mailing it to the installer
 
-  app.use('/api/spaces', plansRouter(deps)); // editor engineer: plan, revisions, restore, background underlay
+  app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay
 
   app.use('/api', apiNotFound);
 

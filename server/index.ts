@@ -23,7 +23,7 @@ async function main() {
   if (config.seedDemo) {
     const seeded = await seedDemo(deps);
     if (seeded) console.log('[server] demo data created (sign in as office@demo.example.com / quiltline-demo)');
-    await seedQuotesDemo(); // quotes engineer: demo company details, catalogue prices, tax rates (idempotent)
+    await seedQuotesDemo(); // demo company details, catalogue prices, tax rates (idempotent)
   }
   const app = createApp(deps);
   const server = app.listen(config.port, config.host, () => {

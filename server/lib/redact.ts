@@ -1,4 +1,4 @@
-/** Keys that carry money or margins; installers never receive them (PRODUCT.md, People). */
+/** Keys that carry money or margins; installers never receive them (they see no prices). */
 export const PRICE_KEY_RE = /(price|cost|total|minor|amount|vat|tax|margin|rate|payment|deposit|discount)/i;
 
 /**

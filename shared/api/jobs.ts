@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { addressSchema, customerSchema } from './customers';
 
-/** Job stages in order (PRODUCT.md, Vocabulary); `declined` may follow `quoted`. */
+/** Job stages in order; `declined` may follow `quoted`. */
 export const JOB_STAGES = ['enquiry', 'surveyed', 'quoted', 'accepted', 'scheduled', 'installed', 'closed', 'declined'] as const;
 export const jobStageSchema = z.enum(JOB_STAGES);
 export type JobStage = z.infer<typeof jobStageSchema>;

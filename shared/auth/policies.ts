@@ -32,7 +32,7 @@ const GRANTS: Record<Role, ReadonlySet<Action>> = {
     'outbox:read',
   ]),
   estimator: new Set<Action>(['customers:read', 'customers:write', 'jobs:read-all', 'jobs:write', 'plans:write', 'prices:read', 'quotes:draft']),
-  // Installers see only jobs assigned to them and never prices (PRODUCT.md, People).
+  // Installers see only jobs assigned to them and never prices.
   installer: new Set<Action>(['jobsheet:work']),
 };
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-/** The three signed-in roles of a company (PRODUCT.md, People). Customers have no account. */
+/** The three signed-in roles of a company Customers have no account. */
 export const ROLES = ['office', 'estimator', 'installer'] as const;
 export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;

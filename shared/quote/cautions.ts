@@ -2,7 +2,7 @@ import type { ExclusionKind } from '../plan/plan-schema';
 
 /**
  * The cautions a quote states, in plain words, and what the customer must do before the install.
- * They defer to local building regulations, electrical rules and licensed practice (PRODUCT.md, Cautions).
+ * They defer to local building regulations, electrical rules and licensed practice.
  */
 export interface QuoteCautions {
   cautions: string[];

@@ -13,7 +13,7 @@ export interface SavingsEstimate {
 }
 
 /**
- * Yearly saving by the degree-day method (standard formula, from memory; see REFERENCES.md):
+ * Yearly saving by the degree-day method (standard formula, from memory):
  * heat kWh = ΔU × area × degree days × 24 / 1000; fuel = heat / efficiency; money = fuel × price.
  * It ignores solar and internal gains and partial heating: present it as an estimate. A negative
  * ΔU is treated as no saving.

@@ -12,7 +12,7 @@ export interface TakeoffSettings {
   cuttingAllowanceMm: number;
   /** Offcuts at least this long are kept for reuse; shorter ones are waste, mm. Default 500 (common practice). */
   minOffcutMm: number;
-  /** Heating degree days a year, K·day. Default 2462: UK standard year, base 15.5 °C (found, see REFERENCES.md). */
+  /** Heating degree days a year, K·day. Default 2462: UK standard year, base 15.5 °C (published UK degree-day figure). */
   degreeDays: number;
   /** Fuel price, minor units per kWh (may have decimals). Default 6.5 p/kWh, a UK mains-gas figure from memory: set your own. */
   fuelPriceMinorPerKwh: number;

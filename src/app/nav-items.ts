@@ -12,9 +12,9 @@ export function navItemsFor(user: { role: Role } | null | undefined, opts: { out
   const items: NavItem[] = [];
   if (can(user, 'jobs:read-all')) items.push({ to: '/jobs', label: 'Jobs' });
   else if (can(user, 'jobsheet:work')) items.push({ to: '/my-jobs', label: 'My jobs' });
-  if (can(user, 'jobs:read-all')) items.push({ to: '/schedule', label: 'Schedule' }); // installer engineer
+  if (can(user, 'jobs:read-all')) items.push({ to: '/schedule', label: 'Schedule' });
   if (can(user, 'customers:read')) items.push({ to: '/customers', label: 'Customers' });
-  if (can(user, 'quotes:manage')) items.push({ to: '/invoices', label: 'Invoices' }); // payments engineer
+  if (can(user, 'quotes:manage')) items.push({ to: '/invoices', label: 'Invoices' });
   if (can(user, 'users:manage')) items.push({ to: '/users', label: 'Users' });
   if (can(user, 'settings:manage')) items.push({ to: '/settings', label: 'Settings' });
   if (can(user, 'outbox:read') && opts.outbox !== false) items.push({ to: '/outbox', label: 'Outbox' });

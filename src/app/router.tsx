@@ -30,16 +30,16 @@ const UsersPage = lazy(() => import('./routes/users'));
 const OutboxPage = lazy(() => import('./routes/outbox'));
 const NotFoundPage = lazy(() => import('./routes/not-found'));
 
-// Pages other engineers own (installer, quotes, editor, payments); each is its own lazy chunk.
-const MyJobsPage = lazy(() => import('../features/job-sheet/components/my-jobs-page')); // installer engineer
-const JobSheetPage = lazy(() => import('../features/job-sheet/components/job-sheet-page')); // installer engineer
-const SchedulePage = lazy(() => import('../features/schedule/components/schedule-page')); // installer engineer
-const SettingsPage = lazy(() => import('../features/settings/components/settings-page')); // quotes engineer
-const QuotePage = lazy(() => import('../features/quotes/components/quote-page')); // quotes engineer
-const PublicQuotePage = lazy(() => import('../features/quotes/components/public-quote-page')); // quotes engineer: the customer's private link
-const SpaceEditorPage = lazy(() => import('../editor/page/space-editor-page')); // editor engineer: konva loads only here
+// Feature pages (site work, schedule, settings, quotes, the plan editor); each is its own lazy chunk.
+const MyJobsPage = lazy(() => import('../features/job-sheet/components/my-jobs-page'));
+const JobSheetPage = lazy(() => import('../features/job-sheet/components/job-sheet-page'));
+const SchedulePage = lazy(() => import('../features/schedule/components/schedule-page'));
+const SettingsPage = lazy(() => import('../features/settings/components/settings-page'));
+const QuotePage = lazy(() => import('../features/quotes/components/quote-page'));
+const PublicQuotePage = lazy(() => import('../features/quotes/components/public-quote-page')); // the customer's private link
+const SpaceEditorPage = lazy(() => import('../editor/page/space-editor-page')); // Konva loads only here
 
-// payments engineer: invoices, payment settings
+// Money: invoices, payment settings
 const InvoicesPage = lazy(() => import('../features/invoices/components/invoices-page'));
 const InvoicePage = lazy(() => import('../features/invoices/components/invoice-page'));
 const PaymentSettingsPage = lazy(() => import('../features/invoices/components/payment-settings-page'));
@@ -69,16 +69,16 @@ const signedInRoutes = (queryClient?: QueryClient): RouteObject[] => [
   { path: 'users', element: page(UsersPage) },
   { path: 'outbox', element: page(OutboxPage) },
 
-  // --- routes owned by other engineers (append below; lazy-load heavy pages) ---
-  { path: 'my-jobs', element: page(MyJobsPage) }, // installer engineer
-  { path: 'jobs/:id/sheet', element: page(JobSheetPage) }, // installer engineer
-  { path: 'schedule', element: page(SchedulePage) }, // installer engineer
-  { path: 'settings', element: page(SettingsPage) }, // quotes engineer
-  { path: 'jobs/:id/quotes/:quoteId', element: page(QuotePage) }, // quotes engineer
-  { path: 'invoices', element: page(InvoicesPage) }, // payments engineer
-  { path: 'invoices/:id', element: page(InvoicePage) }, // payments engineer
-  { path: 'settings/payments', element: page(PaymentSettingsPage) }, // payments engineer
-  { path: 'spaces/:id/edit', element: page(SpaceEditorPage) }, // editor engineer
+  // Feature pages (lazy-loaded)
+  { path: 'my-jobs', element: page(MyJobsPage) },
+  { path: 'jobs/:id/sheet', element: page(JobSheetPage) },
+  { path: 'schedule', element: page(SchedulePage) },
+  { path: 'settings', element: page(SettingsPage) },
+  { path: 'jobs/:id/quotes/:quoteId', element: page(QuotePage) },
+  { path: 'invoices', element: page(InvoicesPage) },
+  { path: 'invoices/:id', element: page(InvoicePage) },
+  { path: 'settings/payments', element: page(PaymentSettingsPage) },
+  { path: 'spaces/:id/edit', element: page(SpaceEditorPage) },
 ];
 
 /** Pages anyone may open (signing in and the links in e-mails). */
@@ -86,7 +86,7 @@ const publicRoutes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
   { path: '/set-password', element: page(SetPasswordPage) },
   { path: '/reset-password', element: page(ResetPasswordPage) },
-  { path: '/q/:token', element: page(PublicQuotePage) }, // quotes engineer: no sign-in
+  { path: '/q/:token', element: page(PublicQuotePage) }, // no sign-in
 ];
 
 /** The route table; `queryClient` lets routes start their data early (tests may leave it out). */

@@ -1,5 +1,5 @@
 // Signs in through the real UI as each demo role, on a desktop and a 360 px phone, and checks the
-// navigation each role gets (PRODUCT.md, People; shared/auth/policies.ts). Screenshots are kept in
+// navigation each role gets (shared/auth/policies.ts). Screenshots are kept in
 // test-output/screenshots/ for a person to look at.
 import fs from 'node:fs';
 import path from 'node:path';

@@ -1,7 +1,7 @@
 // The installer's job sheet in headless chromium at 360 px: opened with signal, then used offline.
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { IdempotencyKey, JobNote, JobPhoto, JobTick } from '../../server/db/models/installer-registry';
+import { IdempotencyKey, JobNote, JobPhoto, JobTick } from '../../server/db/models';
 import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
 import { createOrgWithUsers, type TestOrg } from '../helpers/test-app';
 import { Job } from '../../server/db/models';

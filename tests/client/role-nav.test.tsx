@@ -14,7 +14,7 @@ afterEach(() => {
 });
 
 // What each role must see (in this order) and must not see. Other features add links of their own
-// (the installer engineer's Schedule, for one), so the check is "these, in order, and none of those".
+// (the Schedule, for one), so the check is "these, in order, and none of those".
 const EXPECTED: Record<Role, { has: string[]; not: string[] }> = {
   office: { has: ['Jobs', 'Customers', 'Users', 'Settings', 'Outbox'], not: ['My jobs'] },
   estimator: { has: ['Jobs', 'Customers'], not: ['Users', 'Settings', 'Outbox', 'My jobs'] },

@@ -10,7 +10,7 @@ import { createTestContext, type TestContext } from './test-app';
 export const SCREENSHOT_DIR = path.join(REPO_ROOT, 'test-output', 'screenshots');
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-/** Headless chromium in a fresh profile. Flags per STACK.md (no network chatter, no sandbox as root). */
+/** Headless chromium in a fresh profile. Flags: no network chatter, no sandbox (the tests may run as root). */
 export async function launchBrowser(opts: { viewport?: { width: number; height: number } } = {}) {
   if (!fs.existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: apt-get install -y chromium (npm test does it when root)`);
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'quiltline-chromium-'));

@@ -1,5 +1,5 @@
 // Invoice arithmetic against hand-worked examples. UK VAT rates 20 % standard, 5 % reduced and
-// 0 % for installed energy-saving materials are from HMRC VAT Notice 708/6 (REFERENCES.md); the
+// 0 % for installed energy-saving materials are from HMRC VAT Notice 708/6; the
 // sums themselves were worked by hand, line by line, and are written out beside each row.
 import { describe, expect, it } from 'vitest';
 import { addDays, balanceDue, depositFor, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';

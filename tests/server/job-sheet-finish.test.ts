@@ -4,7 +4,7 @@ import { simpleParser } from 'mailparser';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../../server/config';
-import { InstallSetting } from '../../server/db/models/installer-registry';
+import { InstallSetting } from '../../server/db/models';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { rotatedJpeg, scheduledJobWithTakeoff } from './job-sheet-fixtures';
 

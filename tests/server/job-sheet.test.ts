@@ -1,6 +1,6 @@
 import type { Response } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { JobNote, JobTick } from '../../server/db/models/installer-registry';
+import { JobNote, JobTick } from '../../server/db/models';
 import { createJob, createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { priceKeyPaths, scheduledJobWithTakeoff } from './job-sheet-fixtures';
 

@@ -1,6 +1,6 @@
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { JobPhoto } from '../../server/db/models/installer-registry';
+import { JobPhoto } from '../../server/db/models';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { filesUnder, priceKeyPaths, rotatedJpeg, scheduledJobWithTakeoff } from './job-sheet-fixtures';
 

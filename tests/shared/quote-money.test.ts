@@ -61,7 +61,7 @@ describe('money in minor units', () => {
 });
 
 describe('dated tax rates', () => {
-  // HMRC VAT Notice 708/6 (REFERENCES.md, found): installed energy-saving materials zero-rated
+  // HMRC VAT Notice 708/6, Energy-saving materials and heating equipment: installed energy-saving materials zero-rated
   // 1 May 2023 – 31 March 2027, then 5%; other items standard-rated at 20%.
   it.each([
     ['2023-04-30', 'energy_saving', 500],

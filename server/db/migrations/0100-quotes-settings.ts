@@ -1,7 +1,7 @@
 import { DataTypes, literal, type QueryInterface } from 'sequelize';
 import type { MigrationFn } from 'umzug';
 
-// Quotes and settings range (0100–0199): company settings, catalogue (products, extras), dated tax rates,
+// Company settings, catalogue (products, extras), dated tax rates,
 // quotes with versions and their lines.
 const id = { type: DataTypes.UUID, primaryKey: true, allowNull: false, defaultValue: literal('gen_random_uuid()') };
 const ts = { type: DataTypes.DATE, allowNull: false, defaultValue: literal('now()') };

@@ -1,7 +1,7 @@
 import { DataTypes, literal, type QueryInterface } from 'sequelize';
 import type { MigrationFn } from 'umzug';
 
-// Installer range (0200–0299): install settings, job sheet ticks, notes, photos, idempotency keys, completion.
+// Site work: install settings, job sheet ticks, notes, photos, idempotency keys, completion.
 const id = { type: DataTypes.UUID, primaryKey: true, allowNull: false, defaultValue: literal('gen_random_uuid()') };
 const ts = { type: DataTypes.DATE, allowNull: false, defaultValue: literal('now()') };
 const orgRef = { type: DataTypes.UUID, allowNull: false, references: { model: 'organisations', key: 'id' }, onDelete: 'CASCADE' };

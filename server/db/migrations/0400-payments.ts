@@ -1,7 +1,7 @@
 import { DataTypes, literal, type QueryInterface } from 'sequelize';
 import type { MigrationFn } from 'umzug';
 
-// Payments range (0400–0499): payment settings, checkout payments, handled webhook events,
+// Payment settings, checkout payments, handled webhook events,
 // gap-free invoice/credit note counters, invoices and their lines.
 const id = { type: DataTypes.UUID, primaryKey: true, allowNull: false, defaultValue: literal('gen_random_uuid()') };
 const ts = { type: DataTypes.DATE, allowNull: false, defaultValue: literal('now()') };

@@ -197,7 +197,7 @@ const OTHER_JOBS: DemoJob[] = [
   },
 ];
 
-/** Used only when examples/ holds no valid plan yet: a plain rectangle like PRODUCT.md's sample. */
+/** Used only when examples/ holds no valid plan yet: a plain rectangular loft. */
 const FALLBACK_PLAN: unknown = {
   format: 'quiltline-plan/1',
   name: 'Main loft',

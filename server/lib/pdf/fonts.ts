@@ -4,7 +4,7 @@ const require = createRequire(import.meta.url);
 
 /**
  * Full TTFs shipped with the app (npm packages, no download): pdfkit cannot embed WOFF2 and the
- * @fontsource files are subset per script (STACK.md, "PDF").
+ * @fontsource files are subset per script, so a PDF would miss glyphs.
  */
 export const FONTS = {
   regular: require.resolve('@expo-google-fonts/inter/400Regular/Inter_400Regular.ttf'),

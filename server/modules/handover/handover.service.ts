@@ -1,6 +1,6 @@
 import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
-import { JobCompletion, JobPhoto, JobTick } from '../../db/models/installer-registry';
+import { JobCompletion, JobPhoto, JobTick } from '../../db/models';
 import { longDate } from '../../lib/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';

@@ -2,14 +2,14 @@ import { Op } from 'sequelize';
 import type { JobSheet, MyJob } from '../../../shared/api/job-sheet';
 import type { AppDeps } from '../../deps';
 import { Customer, Job, Space } from '../../db/models';
-import { JobCompletion } from '../../db/models/installer-registry';
+import { JobCompletion } from '../../db/models';
 import type { SessionUser } from '../../types';
 import { createPhotosService } from '../photos/photos.service';
 import { findSheetJob } from './job-access';
 import { createSiteRecordsService } from './site-records.service';
 import { latestRevisionRows, sheetSpace, vanLoad } from './takeoff-view';
 
-/** Shown on every job sheet above the checks (PRODUCT.md, Cautions). */
+/** Shown on every job sheet above the checks: the usual site cautions; local regulations and licensed practice come first. */
 export const SHEET_CAUTIONS = [
   'Loft work is work at height: a secure ladder, good light, and tread only on joists or boards.',
   'Mineral-wool dust: gloves, goggles, a disposable mask and long sleeves.',

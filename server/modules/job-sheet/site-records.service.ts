@@ -2,7 +2,7 @@ import type { Transaction } from 'sequelize';
 import type { JobNote as JobNoteDto, NoteBody, Tick, TickBody } from '../../../shared/api/job-sheet';
 import type { AppDeps } from '../../deps';
 import { JobEvent, Space, User } from '../../db/models';
-import { JobNote, JobTick } from '../../db/models/installer-registry';
+import { JobNote, JobTick } from '../../db/models';
 import { fieldError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findWorkableJob } from './job-access';

@@ -24,7 +24,7 @@ export function jobsRouter(deps: AppDeps) {
   r.get('/', validate({ query: jobListQuerySchema }), c.list);
   r.get('/installers', requireCan('jobs:read-all'), c.installers);
   r.post('/', requireCan('jobs:write'), validate({ body: jobBodySchema }), c.create);
-  // installer engineer: an installer's GET /:id also carries the job sheet (no prices); others fall through to c.get
+  // An installer's GET /:id also carries the job sheet (no prices); others fall through to c.get
   r.get('/:id', validate({ params: idParamsSchema }), installerJobRoute(deps), c.get);
   r.patch('/:id', requireCan('jobs:write'), validate({ params: idParamsSchema, body: jobPatchSchema }), c.update);
   r.get('/:id/events', validate({ params: idParamsSchema }), c.events);

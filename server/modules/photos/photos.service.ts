@@ -3,7 +3,7 @@ import type { Transaction } from 'sequelize';
 import type { JobPhoto as JobPhotoDto, PhotoStage } from '../../../shared/api/job-sheet';
 import type { AppDeps } from '../../deps';
 import { Space, User } from '../../db/models';
-import { JobPhoto } from '../../db/models/installer-registry';
+import { JobPhoto } from '../../db/models';
 import { AppError, fieldError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { assignBodySchema, installSettingsPatchSchema, scheduleQuerySchema } from '../../../shared/api/schedule';
 import type { AppDeps } from '../../deps';
-import { InstallSetting } from '../../db/models/installer-registry';
+import { InstallSetting } from '../../db/models';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';

@@ -4,7 +4,7 @@ import { quoteCautions } from '../../../shared/quote/cautions';
 import type { AppDeps } from '../../deps';
 import { addDaysIso as addDays } from '../../lib/dates';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
-import { InstallSetting } from '../../db/models/installer-registry';
+import { InstallSetting } from '../../db/models';
 import { ConflictError, fieldError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { jobAreasM2, planExclusionKinds } from '../job-sheet/takeoff-view';

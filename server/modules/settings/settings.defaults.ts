@@ -4,7 +4,7 @@ import { UK_DEFAULT_TAX_RATES } from '../../../shared/quote/tax';
 /**
  * Settings a company starts with until the office changes them. Savings inputs: UK standard-year
  * heating degree days (base 15.5 °C) about 2,462 K·day and a condensing gas boiler about 0.85–0.90
- * seasonal efficiency (REFERENCES.md, found); the fuel price is an invented round figure.
+ * seasonal efficiency (published UK figures); the fuel price is an invented round figure.
  */
 export function defaultCompanySettings(
   companyName: string,

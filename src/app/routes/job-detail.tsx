@@ -7,8 +7,8 @@ import { JobDetails } from '../../features/jobs/components/job-details';
 import { JobSpaces } from '../../features/jobs/components/job-spaces';
 import { JobTimeline } from '../../features/jobs/components/job-timeline';
 import { StageControl } from '../../features/jobs/components/stage-control';
-import { JobMoneyCard } from '../../features/invoices/components/job-money-card'; // payments engineer
-import { JobQuotesCard } from '../../features/quotes/components/job-quotes-card'; // quotes engineer
+import { JobMoneyCard } from '../../features/invoices/components/job-money-card';
+import { JobQuotesCard } from '../../features/quotes/components/job-quotes-card';
 import { isApiError } from '../../lib/api-client';
 import NotFoundPage from './not-found';
 

@@ -5,7 +5,7 @@ import { cn } from '../../lib/cn';
 import { useEditor, useEditorSelect } from './editor-context';
 import { ExclusionLegend, KindSwatch } from './exclusion-legend';
 
-/** What each kind asks of the installer (PRODUCT.md vocabulary); shown when one is selected. */
+/** What each kind asks of the installer (the app's words); shown when one is selected. */
 export const KIND_RULES: Record<ExclusionKind, string> = {
   hatch: 'Insulate and draught-seal the hatch lid; finish the laying here.',
   tank: 'Never insulate beneath a cold water tank; lag the tank and its pipes.',

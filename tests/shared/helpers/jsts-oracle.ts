@@ -1,6 +1,6 @@
 /**
  * jsts (the JavaScript port of the JTS Topology Suite) as an independent planar oracle for the
- * takeoff's geometry. Imported by path: the package has no main entry (see STACK.md), and
+ * takeoff's geometry. Imported by path: the package has no main entry, and
  * monkey.js adds union/difference/intersection/buffer to geometries.
  */
 import GeoJSONReader from 'jsts/org/locationtech/jts/io/GeoJSONReader.js';

@@ -6,7 +6,7 @@ import { formatRateBp } from '../../../../shared/quote/tax';
 import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea, formatDate } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { publicQuotePdfUrl, useAnswerQuote, usePublicQuote } from '../api/public-quote';
-import { DepositAfterAccept } from '../../invoices/components/deposit-after-accept'; // payments engineer
+import { DepositAfterAccept } from '../../invoices/components/deposit-after-accept';
 
 /** What the customer sees through the private link: the quote, then accept (typed name + terms) or decline. */
 export default function PublicQuotePage() {
@@ -166,7 +166,7 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
         <Alert tone="success">
           Thank you: {q.acceptedName} accepted this quote{q.acceptedAt ? ` on ${formatDate(q.acceptedAt)}` : ''}. We will be in touch to agree the install date.
         </Alert>
-        {/* payments engineer: when a deposit is due, straight on to pay it after accepting; a button when coming back later */}
+        {/* When a deposit is due, straight on to pay it after accepting; a button when coming back later */}
         <DepositAfterAccept link={token} redirect={answer.isSuccess} />
       </>
     );

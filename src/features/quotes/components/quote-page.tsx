@@ -25,7 +25,7 @@ import { parseDraft, toDraft, type DraftLine } from './draft-lines';
 import { QuoteLinesEditor } from './quote-lines-editor';
 import { QuoteStatusBadge } from './quote-status-badge';
 import { QuoteTotalsPanel } from './quote-totals-panel';
-import { DepositStatus } from '../../invoices/components/deposit-status'; // payments engineer
+import { DepositStatus } from '../../invoices/components/deposit-status';
 
 /** The quote builder: lines, totals, tax by rate, margin, valid-until, saving; save, send, download. */
 export default function QuotePage() {
