@@ -129,6 +129,11 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
       baseNeeded: layerPlan.baseNeeded,
     },
     target: plan.target,
+    productChoice: {
+      source: plan.products?.baseProductId || plan.products?.crossProductIds?.length ? 'plan' : 'catalogue',
+      baseProductId: layers.find((l) => l.role === 'base')?.productId ?? null,
+      crossProductIds: layers.filter((l) => l.role === 'cross').map((l) => l.productId),
+    },
     layers,
     rollsPerProduct: [...byProduct.values()],
     uValueBefore: before.uValue,

@@ -3,8 +3,12 @@ import type { LayerRole } from './products';
 import type { SiteCheck } from './site-checks';
 import type { TakeoffSettings } from './settings';
 
-/** The takeoff's own format tag. */
-export const TAKEOFF_FORMAT = 'quiltline-takeoff/1' as const;
+/**
+ * The takeoff's own format tag; bumped whenever the stored shape changes (its zod schema is
+ * shared/takeoff/takeoff-schema.ts). `/2`: strips carry `polygons` (was one `polygon`) and the
+ * artefact records its product choice.
+ */
+export const TAKEOFF_FORMAT = 'quiltline-takeoff/2' as const;
 
 /** `[x, y]` in plan millimetres. */
 export type PlanPointMm = [number, number];
@@ -123,6 +127,8 @@ export interface Takeoff {
   wasteAllowancePct: number;
   existing: { depthMm: number; condition: string; effectiveDepthMm: number; baseNeeded: boolean };
   target: Target;
+  /** Products chosen for the layers: pinned in the plan, or chosen by the engine from the catalogue. */
+  productChoice: { source: 'plan' | 'catalogue'; baseProductId: string | null; crossProductIds: string[] };
   layers: TakeoffLayer[];
   rollsPerProduct: { productId: string; productName: string; rollsByPacking: number; rollsByArea: number; priceMinor: number }[];
   uValueBefore: number;

@@ -2,7 +2,8 @@ import { createRequire } from 'node:module';
 import { Product } from '../../db/models/product';
 import { parseProductCatalogue, type TakeoffProduct } from '../../../shared/takeoff/products';
 import type { TakeoffSettings } from '../../../shared/takeoff/settings';
-import { TAKEOFF_FORMAT, type Takeoff } from '../../../shared/takeoff/takeoff-types';
+import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
+import type { Takeoff } from '../../../shared/takeoff/takeoff-types';
 import { loadCompanySettings } from '../settings/settings.service';
 
 const require = createRequire(import.meta.url);
@@ -58,7 +59,7 @@ export function takeoffSettingsOf(settings: SettingsForTakeoff): Partial<Takeoff
   };
 }
 
-/** Whether a value stored beside a plan revision is a takeoff of the current format (older or missing ones are not). */
+/** Whether a value stored beside a plan revision is a takeoff of the current format and schema (older or missing ones are not). */
 export function isTakeoff(x: unknown): x is Takeoff {
-  return !!x && typeof x === 'object' && (x as { format?: unknown }).format === TAKEOFF_FORMAT && Array.isArray((x as Takeoff).layers);
+  return readStoredTakeoff(x) !== null;
 }
