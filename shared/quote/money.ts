@@ -87,19 +87,3 @@ export function minorToDecimalString(minor: number, currency: string): string {
   const body = digits === 0 ? s : `${s.slice(0, -digits)}.${s.slice(-digits)}`;
   return negative ? `-${body}` : body;
 }
-
-/**
- * Parses a typed amount ("1,234.5", "£12", "0.99") into minor units; returns null when it is not a number
- * or has more decimals than the currency allows.
- */
-export function parseMoney(text: string, currency: string): number | null {
-  const digits = currencyDigits(currency);
-  const cleaned = text.replace(/[^\d.\-]/g, '');
-  const m = /^(-?)(\d*)(?:\.(\d*))?$/.exec(cleaned);
-  if (!m || (m[2] === '' && (m[3] ?? '') === '')) return null;
-  const frac = m[3] ?? '';
-  if (frac.length > digits) return null;
-  const value = Number(m[2] || '0') * 10 ** digits + Number(frac.padEnd(digits, '0') || '0');
-  if (!Number.isSafeInteger(value)) return null;
-  return m[1] === '-' ? -value : value;
-}

@@ -19,7 +19,11 @@ describe('invoice line editor', () => {
 
   it('skips empty rows and names the row of the first problem', () => {
     expect(toLineInputs([line({ description: '', price: '' })], 'GBP')).toEqual({ lines: [] });
-    expect(toLineInputs([line({}), line({ price: '12.999' })], 'GBP')).toEqual({ error: 'line 2: enter the price like 12.99' });
+    expect(toLineInputs([line({}), line({ price: '12.999' })], 'GBP')).toEqual({
+      error: 'line 2, price: use at most 2 decimal places: type the amount like 1,234.50',
+    });
+    // A variation or credit-note price typed with a comma for pence is refused, not read as £2,690.00.
+    expect(toLineInputs([line({ price: '26,90' })], 'GBP')).toEqual({ error: expect.stringMatching(/^line 1, price: 26,90 cannot be read/) });
     expect(toLineInputs([line({ quantity: '0' })], 'GBP')).toEqual({ error: 'line 1: the quantity must be above 0' });
     expect(toLineInputs([line({ description: ' ' })], 'GBP')).toEqual({ error: 'line 1: describe the line' });
   });

@@ -77,9 +77,17 @@ describe('quote builder lines', () => {
     const added = { ...blankLine(), description: '' };
     const { problems } = parseDraft([...lines, added], 'GBP');
     expect(problems).toEqual([
-      { key: lines[0].key, field: 'price', message: 'enter a price like 12.50' },
+      { key: lines[0].key, field: 'price', message: 'use at most 2 decimal places: type the amount like 1,234.50' },
       { key: lines[1].key, field: 'quantity', message: 'use at most three decimals' },
       { key: added.key, field: 'description', message: 'describe the line' },
     ]);
+  });
+
+  it('refuses "26,90" as a unit price instead of pricing it at £2,690.00', () => {
+    const lines = toDraft(quote);
+    lines[0] = { ...lines[0], priceText: '26,90' };
+    const { problems, body } = parseDraft(lines, 'GBP', 'en-GB');
+    expect(problems).toEqual([{ key: lines[0].key, field: 'price', message: expect.stringContaining('cannot be read') }]);
+    expect(body[0].unitPriceMinor).not.toBe(269000);
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { applyRateBp, currencyDigits, formatMoney, minorToDecimalString, multiplyMinor, parseMoney } from '../../shared/quote/money';
+import { applyRateBp, currencyDigits, formatMoney, minorToDecimalString, multiplyMinor } from '../../shared/quote/money';
+import { parseMoney } from '../../shared/quote/money-input';
 import { formatRateBp, taxRateOn, UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 
 describe('money in minor units', () => {

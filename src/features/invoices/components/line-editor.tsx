@@ -1,6 +1,6 @@
 import { TAX_CLASSES, TAX_CLASS_LABELS, type TaxClass } from '../../../../shared/api/settings';
 import type { InvoiceLineInput } from '../../../../shared/api/invoices';
-import { parseMoney } from '../../../../shared/quote/money';
+import { readMoney } from '../../../../shared/quote/money-input';
 import { Button, Input, Select } from '../../../components/ui';
 
 /** A line as typed: the price stays text until it parses, so "12." does not jump while typing. */
@@ -19,11 +19,11 @@ export function toLineInputs(lines: DraftLine[], currency: string): { lines: Inv
   for (const [i, l] of lines.entries()) {
     if (!l.description.trim() && !l.price.trim()) continue;
     const quantity = Number(l.quantity);
-    const unitPriceMinor = parseMoney(l.price, currency);
+    const price = readMoney(l.price, currency);
     if (!l.description.trim()) return { error: `line ${i + 1}: describe the line` };
     if (!(quantity > 0)) return { error: `line ${i + 1}: the quantity must be above 0` };
-    if (unitPriceMinor === null) return { error: `line ${i + 1}: enter the price like 12.99` };
-    out.push({ description: l.description.trim(), quantity, unit: 'each', unitPriceMinor, taxClass: l.taxClass });
+    if (!price.ok) return { error: `line ${i + 1}, price: ${price.message}` };
+    out.push({ description: l.description.trim(), quantity, unit: 'each', unitPriceMinor: price.minor, taxClass: l.taxClass });
   }
   return { lines: out };
 }

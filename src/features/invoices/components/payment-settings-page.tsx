@@ -1,6 +1,7 @@
 import { useEffect, useState, type FormEvent } from 'react';
 import type { DepositMode } from '../../../../shared/api/payments';
-import { minorToDecimalString, parseMoney } from '../../../../shared/quote/money';
+import { minorToDecimalString } from '../../../../shared/quote/money';
+import { readMoney } from '../../../../shared/quote/money-input';
 import { Alert, Button, Card, ErrorState, Field, Input, LoadingState, PageHeader } from '../../../components/ui';
 import { asSentence, serverFieldErrors } from '../../../lib/form-errors';
 import { usePaymentSettings, useUpdatePaymentSettings } from '../api/payment-settings';
@@ -35,9 +36,11 @@ export default function PaymentSettingsPage() {
   function submit(e: FormEvent) {
     e.preventDefault();
     const bp = Math.round(Number(percent) * 100);
-    const fixedMinor = parseMoney(fixed, currency);
+    const fixedReading = readMoney(fixed, currency);
+    const fixedMinor = fixedReading.ok ? fixedReading.minor : null;
     if (mode === 'percent' && !(bp >= 1 && bp <= 10000)) return setProblem('enter a percentage between 0.01 and 100');
-    if (mode === 'fixed' && !(fixedMinor && fixedMinor > 0)) return setProblem('enter the deposit amount, like 150.00');
+    if (mode === 'fixed' && !fixedReading.ok) return setProblem(`fixed deposit: ${fixedReading.message}`);
+    if (mode === 'fixed' && !(fixedMinor && fixedMinor > 0)) return setProblem('fixed deposit: enter an amount above 0');
     setProblem(null);
     save.mutate({
       depositMode: mode,

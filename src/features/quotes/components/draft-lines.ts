@@ -1,6 +1,6 @@
 import type { Quote, QuoteLineBody } from '../../../../shared/api/quotes';
 import type { TaxClass } from '../../../../shared/api/settings';
-import { minorToDecimalString, parseMoney } from '../../../../shared/quote/money';
+import { formatMoneyInput, readMoney } from '../../../../shared/quote/money-input';
 import type { QuoteLineInput } from '../../../../shared/quote/totals';
 
 /** A line as typed in the builder: numbers kept as the text the user typed until saved. */
@@ -29,7 +29,7 @@ export function toDraft(q: Quote): DraftLine[] {
     description: l.description,
     quantityText: String(l.quantity),
     unit: l.unit,
-    priceText: minorToDecimalString(l.unitPriceMinor, q.currency),
+    priceText: formatMoneyInput(l.unitPriceMinor, q.currency, q.locale),
     unitCostMinor: l.unitCostMinor,
     taxClass: l.taxClass,
     productId: l.productId ?? null,
@@ -39,14 +39,14 @@ export function toDraft(q: Quote): DraftLine[] {
   }));
 }
 
-export function blankLine(): DraftLine {
+export function blankLine(currency = 'GBP', locale = 'en-GB'): DraftLine {
   return {
     key: newKey(),
     kind: 'custom',
     description: '',
     quantityText: '1',
     unit: 'each',
-    priceText: '0.00',
+    priceText: formatMoneyInput(0, currency, locale),
     unitCostMinor: 0,
     taxClass: 'standard',
     productId: null,
@@ -59,24 +59,28 @@ export function blankLine(): DraftLine {
 export type LineProblem = { key: string; field: 'quantity' | 'price' | 'description'; message: string };
 
 /** Parses typed lines; problems name the line and field, lines are ready for the API and for pricing. */
-export function parseDraft(lines: DraftLine[], currency: string): { body: QuoteLineBody[]; inputs: QuoteLineInput[]; problems: LineProblem[] } {
+export function parseDraft(
+  lines: DraftLine[],
+  currency: string,
+  locale = 'en-GB',
+): { body: QuoteLineBody[]; inputs: QuoteLineInput[]; problems: LineProblem[] } {
   const problems: LineProblem[] = [];
   const body: QuoteLineBody[] = [];
   for (const l of lines) {
     const quantity = Number(l.quantityText.trim());
-    const price = parseMoney(l.priceText, currency);
+    const price = readMoney(l.priceText, currency, locale);
     if (!l.description.trim()) problems.push({ key: l.key, field: 'description', message: 'describe the line' });
     if (l.quantityText.trim() === '' || !Number.isFinite(quantity) || quantity < 0)
       problems.push({ key: l.key, field: 'quantity', message: 'enter a quantity of 0 or more' });
     else if (Math.abs(quantity * 1000 - Math.round(quantity * 1000)) > 1e-6)
       problems.push({ key: l.key, field: 'quantity', message: 'use at most three decimals' });
-    if (price === null) problems.push({ key: l.key, field: 'price', message: 'enter a price like 12.50' });
+    if (!price.ok) problems.push({ key: l.key, field: 'price', message: price.message });
     body.push({
       kind: l.kind,
       description: l.description.trim(),
       quantity: Number.isFinite(quantity) ? quantity : 0,
       unit: l.unit || 'each',
-      unitPriceMinor: price ?? 0,
+      unitPriceMinor: price.ok ? price.minor : 0,
       unitCostMinor: l.unitCostMinor,
       taxClass: l.taxClass,
       productId: l.productId,

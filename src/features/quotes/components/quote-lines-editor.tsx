@@ -149,7 +149,7 @@ export function QuoteLinesEditor({ lines, priced, problems, currency, locale, re
       </Table>
       {!readOnly && (
         <div>
-          <Button variant="secondary" size="sm" onClick={() => onChange([...lines, blankLine()])}>
+          <Button variant="secondary" size="sm" onClick={() => onChange([...lines, blankLine(currency, locale)])}>
             Add a line
           </Button>
         </div>

@@ -49,7 +49,7 @@ export default function QuotePage() {
   }, [quote.data]);
 
   const q = quote.data;
-  const parsed = useMemo(() => (q && lines ? parseDraft(lines, q.currency) : null), [q, lines]);
+  const parsed = useMemo(() => (q && lines ? parseDraft(lines, q.currency, q.locale) : null), [q, lines]);
   const totals = useMemo(() => {
     if (!q || !parsed || parsed.problems.length) return null;
     try {
@@ -66,7 +66,8 @@ export default function QuotePage() {
 
   const editable = q.status === 'draft' || (can(user, 'quotes:manage') && ['sent', 'expired', 'declined'].includes(q.status));
   const canSend = can(user, 'quotes:manage') && (q.status === 'draft' || q.status === 'sent');
-  const dirty = JSON.stringify(parsed.body) !== JSON.stringify(parseDraft(toDraft(q), q.currency).body) || validUntil !== q.validUntil || notes !== q.notes;
+  const dirty =
+    JSON.stringify(parsed.body) !== JSON.stringify(parseDraft(toDraft(q), q.currency, q.locale).body) || validUntil !== q.validUntil || notes !== q.notes;
 
   async function save() {
     setMessage(null);

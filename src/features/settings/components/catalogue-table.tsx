@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { z } from 'zod';
-import { formatMoney, minorToDecimalString, parseMoney } from '../../../../shared/quote/money';
+import { formatMoney, minorToDecimalString } from '../../../../shared/quote/money';
+import { parseMoney } from '../../../../shared/quote/money-input';
 import { formatRateBp } from '../../../../shared/quote/tax';
 import { Alert, Button, Card, CardTitle, EmptyState, ErrorState, Field, Input, Select, Spinner, Table, TBody, Td, Th, THead, Tr } from '../../../components/ui';
 import { serverFieldErrors } from '../../../lib/form-errors';

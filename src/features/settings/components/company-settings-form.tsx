@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import { companySettingsBodySchema, TAX_CLASS_LABELS, type CompanySettings } from '../../../../shared/api/settings';
-import { minorToDecimalString, parseMoney } from '../../../../shared/quote/money';
+import { minorToDecimalString } from '../../../../shared/quote/money';
+import { parseMoney } from '../../../../shared/quote/money-input';
 import { Alert, Button, Card, CardTitle, Field, Input, Select, Textarea } from '../../../components/ui';
 import { serverFieldErrors } from '../../../lib/form-errors';
 import { useSaveCompanySettings, useUploadLogo } from '../api/company-settings';
