@@ -13,7 +13,7 @@ afterEach(() => {
 const JOB_ID = '44444444-4444-4444-8444-444444444444';
 const baseJob: Job = {
   id: JOB_ID,
-  reference: 'Q-2026-0006',
+  reference: 'JOB-2026-0006',
   customer: { id: 'c1', name: 'Samuel Okonjo', email: 'sam.okonjo@example.com', phone: '01632 960106' },
   propertyAddress: { line1: '2 Heron Court', line2: '', town: 'Kelsworth', postcode: 'KW3 6NP' },
   stage: 'accepted',

@@ -30,15 +30,15 @@ describe('creating jobs', () => {
       .post('/api/jobs')
       .send({ customerId: customers['Zeno Quill'], propertyAddress: address('9 Quill Street', 'FW9 9QS'), stage: 'surveyed' });
     expect(a.status).toBe(201);
-    expect(a.body.job.reference).toBe(`Q-${year}-0001`);
-    expect(b.body.job.reference).toBe(`Q-${year}-0002`);
+    expect(a.body.job.reference).toBe(`JOB-${year}-0001`);
+    expect(b.body.job.reference).toBe(`JOB-${year}-0002`);
     expect(a.body.job).toMatchObject({ stage: 'enquiry', assignedInstaller: null, installDate: null, spaces: [] });
     // another company starts its own numbering
     const other = await createOrgWithUsers(ctx);
     const otherOffice = await loginAs(ctx.app, other.office);
     const c = await otherOffice.post('/api/customers').send({ name: 'Other Co Customer', address: address('1 Elsewhere', 'EL1 1EE') });
     const otherJob = await otherOffice.post('/api/jobs').send({ customerId: c.body.customer.id, propertyAddress: address('1 Elsewhere', 'EL1 1EE') });
-    expect(otherJob.body.job.reference).toBe(`Q-${year}-0001`);
+    expect(otherJob.body.job.reference).toBe(`JOB-${year}-0001`);
   });
 
   it('lets only the office assign an installer and a date', async () => {

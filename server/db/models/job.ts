@@ -17,7 +17,7 @@ import type { User } from './user';
 export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job>> {
   declare id: CreationOptional<string>;
   declare organisationId: ForeignKey<Organisation['id']>;
-  /** Per company and year, e.g. Q-2026-0001. */
+  /** Per company and year, e.g. JOB-2026-0001. */
   declare reference: string;
   declare customerId: ForeignKey<Customer['id']>;
   declare addressLine1: string;

@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 
-/** Next job reference for a company, e.g. Q-2026-0001: numbered per company and calendar year, atomic. */
+/** Next job reference for a company, e.g. JOB-2026-0001 (its own prefix, so it never reads like a quote number QT-0001): numbered per company and calendar year, atomic. */
 export async function nextJobReference(sequelize: Sequelize, organisationId: string, transaction?: Transaction, now = new Date()): Promise<string> {
   const year = now.getUTCFullYear();
   const [row] = await sequelize.query<{ last_number: number }>(
@@ -10,5 +10,5 @@ export async function nextJobReference(sequelize: Sequelize, organisationId: str
      RETURNING last_number`,
     { replacements: { organisationId, year }, type: QueryTypes.SELECT, transaction },
   );
-  return `Q-${year}-${String(row.last_number).padStart(4, '0')}`;
+  return `JOB-${year}-${String(row.last_number).padStart(4, '0')}`;
 }
