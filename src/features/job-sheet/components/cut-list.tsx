@@ -57,12 +57,18 @@ export function CutList({ space, ticks, onTick }: Props) {
                               onToggle={(d) => onTick('strip-cut', cut.id, d)}
                               testId={`cut-${cut.id}`}
                             />
-                            <TickButton
-                              label="Laid"
-                              tick={ticks.get(tickKey('strip-laid', space.id, cut.stripId))}
-                              onToggle={(d) => onTick('strip-laid', cut.stripId, d)}
-                              testId={`laid-${cut.stripId}`}
-                            />
+                            {/* Laid is a tick of the whole strip: offered once, on its last piece, so tapping
+                                two pieces of one strip cannot undo the first tap. */}
+                            {cut.piece === cut.pieceCount ? (
+                              <TickButton
+                                label={cut.pieceCount > 1 ? `Strip ${cut.stripLabel} laid` : 'Laid'}
+                                tick={ticks.get(tickKey('strip-laid', space.id, cut.stripId))}
+                                onToggle={(d) => onTick('strip-laid', cut.stripId, d)}
+                                testId={`laid-${cut.stripId}`}
+                              />
+                            ) : (
+                              <span className="self-center text-base text-graphite-light">ticked laid with its last piece</span>
+                            )}
                           </div>
                         </li>
                       ))}
