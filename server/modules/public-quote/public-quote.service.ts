@@ -82,14 +82,33 @@ export function createPublicQuoteService(deps: AppDeps) {
     };
   }
 
+  /**
+   * Tells the office. Best effort: the customer's answer is already recorded (and on the job's
+   * timeline), so a mail server that is down must not turn it into an error for the customer.
+   */
   async function notifyOffice(q: Quote, subject: string, text: string) {
-    for (const to of await officeRecipients(q.organisationId)) {
-      await sendRecordedMail(
-        deps,
-        { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id },
-        { to, subject, text },
-      );
+    try {
+      for (const to of await officeRecipients(q.organisationId)) {
+        await sendRecordedMail(
+          deps,
+          { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id },
+          { to, subject, text },
+        );
+      }
+    } catch (e) {
+      console.error(`[public-quote] office notice for quote ${q.number} not sent:`, e instanceof Error ? e.message : e);
     }
+  }
+
+  /** The guarded UPDATE changed nothing: someone else changed the quote meanwhile; say what they did. */
+  async function lostRace(token: string): Promise<LinkError> {
+    try {
+      await resolve(token, { forAction: true });
+    } catch (e) {
+      if (e instanceof LinkError) return e;
+      throw e;
+    }
+    return new LinkError('used');
   }
 
   return {
@@ -134,7 +153,7 @@ export function createPublicQuoteService(deps: AppDeps) {
           await recordEvent(q.organisationId, job.id, null, 'stage_changed', { from, to: 'accepted', reason: `quote ${q.number} accepted by the customer` }, t);
         return true;
       });
-      if (!accepted) throw new LinkError('used');
+      if (!accepted) throw await lostRace(token);
       await q.reload();
       const { totals } = priceQuote(q, await linesOf(q));
       await notifyOffice(
@@ -175,7 +194,7 @@ export function createPublicQuoteService(deps: AppDeps) {
         );
         return true;
       });
-      if (!declined) throw new LinkError('used');
+      if (!declined) throw await lostRace(token);
       await q.reload();
       await notifyOffice(
         q,

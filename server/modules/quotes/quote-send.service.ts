@@ -1,6 +1,5 @@
 import type { AppDeps } from '../../deps';
 import { JobEvent, User } from '../../db/models';
-import { Quote } from '../../db/models/quote';
 import { ConflictError, ValidationError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { formatMoney } from '../../../shared/quote/money';
@@ -94,18 +93,25 @@ export function createQuoteSendService(deps: AppDeps) {
         '',
         `${settings.companyName}${settings.phone ? ` · ${settings.phone}` : ''}${settings.email ? ` · ${settings.email}` : ''}`,
       ].join('\n');
-      await sendRecordedMail(
-        deps,
-        { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id },
-        {
-          to: customer.email,
-          subject,
-          text,
-          attachments: [{ filename: quoteFileName(q, 'pdf'), content: pdf, contentType: 'application/pdf' }],
-        },
-      );
       const firstSend = q.status === 'draft';
-      await Quote.update({ status: 'sent', linkNonce: nonce, sentAt: new Date() }, { where: { id: q.id } });
+      // Guarded: the row is locked while the mail goes out and must still be as read above, so a
+      // customer accepting the previous link or an edit at the same moment is never overwritten.
+      await deps.sequelize.transaction(async (t) => {
+        const locked = await findQuoteInOrg(actor, id, t, { lock: true });
+        if (locked.status !== q.status || locked.linkNonce !== q.linkNonce)
+          throw new ConflictError(`this quote changed meanwhile (it is ${locked.status} now); reload it`, 'quote_changed');
+        await sendRecordedMail(
+          deps,
+          { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id },
+          {
+            to: customer.email,
+            subject,
+            text,
+            attachments: [{ filename: quoteFileName(q, 'pdf'), content: pdf, contentType: 'application/pdf' }],
+          },
+        );
+        await locked.update({ status: 'sent', linkNonce: nonce, sentAt: new Date() }, { transaction: t });
+      });
       await recordEvent(actor.organisationId, job.id, actor.id, firstSend ? 'quote_sent' : 'quote_resent', {
         quoteId: q.id,
         number: q.number,

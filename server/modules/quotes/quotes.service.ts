@@ -25,8 +25,9 @@ export async function findJobInOrg(actor: { organisationId: string }, jobId: str
   return job;
 }
 
-export async function findQuoteInOrg(actor: { organisationId: string }, id: string, t?: Transaction): Promise<Quote> {
-  const q = await Quote.findOne({ where: { id, organisationId: actor.organisationId }, transaction: t });
+/** The company's quote; `lock` takes the row FOR UPDATE inside `t` (for guarded state changes). */
+export async function findQuoteInOrg(actor: { organisationId: string }, id: string, t?: Transaction, opts: { lock?: boolean } = {}): Promise<Quote> {
+  const q = await Quote.findOne({ where: { id, organisationId: actor.organisationId }, transaction: t, ...(t && opts.lock ? { lock: t.LOCK.UPDATE } : {}) });
   if (!q) throw new NotFoundError('quote');
   return q;
 }
@@ -231,14 +232,17 @@ export function createQuotesService(deps: AppDeps) {
      * Estimators may edit drafts only.
      */
     async patch(actor: SessionUser, id: string, body: QuotePatch) {
-      const q = await expireIfDue(await findQuoteInOrg(actor, id));
-      if (q.status === 'accepted') throw new ConflictError('this quote was accepted and cannot be changed', 'quote_final');
-      if (q.status === 'superseded') throw new ConflictError('a newer version of this quote exists: edit that one', 'quote_superseded');
-      if (q.status !== 'draft' && !can(actor, 'quotes:manage')) throw new ForbiddenError('only the office can change a quote once it has been sent');
-      const snap = snapshotOf(q);
-      if (body.validUntil && body.validUntil < q.issueDate)
-        throw new ValidationError([{ path: 'validUntil', message: 'valid-until cannot be before the issue date' }]);
+      await expireIfDue(await findQuoteInOrg(actor, id));
       const target = await sequelize.transaction(async (t) => {
+        // The row stays locked until commit: a customer accepting through the link, a send or a
+        // second edit waits here and then sees the state this edit leaves (guarded transition).
+        const q = await findQuoteInOrg(actor, id, t, { lock: true });
+        if (q.status === 'accepted') throw new ConflictError('this quote was accepted and cannot be changed', 'quote_final');
+        if (q.status === 'superseded') throw new ConflictError('a newer version of this quote exists: edit that one', 'quote_superseded');
+        if (q.status !== 'draft' && !can(actor, 'quotes:manage')) throw new ForbiddenError('only the office can change a quote once it has been sent');
+        const snap = snapshotOf(q);
+        if (body.validUntil && body.validUntil < q.issueDate)
+          throw new ValidationError([{ path: 'validUntil', message: 'valid-until cannot be before the issue date' }]);
         if (q.status === 'draft') {
           await q.update(
             { ...(body.validUntil ? { validUntil: body.validUntil } : {}), ...(body.notes !== undefined ? { notes: body.notes } : {}) },
