@@ -1,11 +1,22 @@
 import { useState } from 'react';
 import type { JobSheet } from '../../../../shared/api/job-sheet';
 import { isApiError } from '../../../lib/api-client';
+import { formatDate } from '../../../components/ui/format';
 import { useFinishJob } from '../api/finish-job';
 import { finishBlockers, type PendingPhoto, type ShownTick } from '../merge-pending';
 import { SheetSection } from './sheet-section';
 
-/** Mark installed: only with every check ticked or explained and an after photo of every space, and online. */
+/** Today's date where the installer is, as YYYY-MM-DD (the install date is a local calendar date). */
+function localToday(now = new Date()): string {
+  const p = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`;
+}
+
+/**
+ * Mark installed: only with every check ticked or explained and an after photo of every space, and online.
+ * A job booked for a later day asks once more first: marking next week's job installed today is
+ * usually a tap on the wrong job.
+ */
 export function FinishPanel({
   sheet,
   ticks,
@@ -19,10 +30,13 @@ export function FinishPanel({
 }) {
   const [reasons, setReasons] = useState<Record<string, string>>({});
   const [writing, setWriting] = useState(false);
+  const [confirmingEarly, setConfirmingEarly] = useState(false);
+  const bookedLater = !!sheet.job.installDate && sheet.job.installDate > localToday();
   const finish = useFinishJob(sheet.job.id);
   const blockers = finishBlockers(sheet, ticks, reasons, pendingPhotos);
   const unticked = finishBlockers(sheet, ticks, {}, pendingPhotos).checks;
   const ready = blockers.checks.length === 0 && blockers.photos.length === 0;
+  const submit = () => finish.mutate({ reasons: Object.fromEntries(Object.entries(reasons).filter(([, v]) => v.trim())) });
   return (
     <SheetSection title="Finish the job">
       {ready && waiting === 0 && <p className="mb-2 text-base">Every check is ticked or explained and every space has an after photo.</p>}
@@ -70,14 +84,39 @@ export function FinishPanel({
           {isApiError(finish.error) ? finish.error.message : 'Could not mark the job installed.'}
         </p>
       )}
-      <button
-        type="button"
-        disabled={!ready || waiting > 0 || finish.isPending}
-        onClick={() => finish.mutate({ reasons: Object.fromEntries(Object.entries(reasons).filter(([, v]) => v.trim())) })}
-        className="min-h-14 w-full rounded-md bg-teal-dark px-4 text-xl font-bold text-white disabled:bg-graphite/30 disabled:text-graphite"
-      >
-        {finish.isPending ? 'Marking installed…' : 'Mark installed'}
-      </button>
+      {confirmingEarly ? (
+        <div role="alertdialog" aria-labelledby="finish-early-title" className="rounded-md border-2 border-brick-dark bg-white p-3">
+          <p id="finish-early-title" className="mb-3 text-base font-semibold">
+            This job is booked for {formatDate(sheet.job.installDate)}, not today. Mark it installed today?
+          </p>
+          <div className="flex gap-2">
+            <button
+              type="button"
+              disabled={finish.isPending}
+              onClick={submit}
+              className="min-h-12 flex-1 rounded-md bg-teal-dark px-3 text-base font-bold text-white disabled:bg-graphite/30"
+            >
+              {finish.isPending ? 'Marking installed…' : 'Yes, installed today'}
+            </button>
+            <button
+              type="button"
+              onClick={() => setConfirmingEarly(false)}
+              className="min-h-12 flex-1 rounded-md border-2 border-graphite/40 bg-white px-3 text-base font-semibold"
+            >
+              Not yet
+            </button>
+          </div>
+        </div>
+      ) : (
+        <button
+          type="button"
+          disabled={!ready || waiting > 0 || finish.isPending}
+          onClick={() => (bookedLater ? setConfirmingEarly(true) : submit())}
+          className="min-h-14 w-full rounded-md bg-teal-dark px-4 text-xl font-bold text-white disabled:bg-graphite/30 disabled:text-graphite"
+        >
+          {finish.isPending ? 'Marking installed…' : 'Mark installed'}
+        </button>
+      )}
     </SheetSection>
   );
 }
