@@ -64,8 +64,10 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const ctx = thermalContext(plan, settings);
   const beforeLayers = existingInsulation(plan, settings);
   const afterLayers = insulationBuildUp(plan, settings, layerPlan.layers);
-  const before = thermalState(beforeLayers, ctx);
-  const after = thermalState(afterLayers, ctx);
+  // RdSAP looks up the depth that counts: the existing layer by its credit, new layers in full.
+  const newMm = layerPlan.layers.reduce((t, l) => t + l.product.thicknessMm, 0);
+  const before = thermalState(beforeLayers, ctx, layerPlan.existingEffectiveMm);
+  const after = thermalState(afterLayers, ctx, layerPlan.existingEffectiveMm + newMm);
   const targetU = 'uValue' in plan.target ? plan.target.uValue : undefined;
   const firstCross = layerPlan.layers.find((l) => l.role === 'cross')?.product;
   const base = layerPlan.layers.filter((l) => l.role === 'base');
@@ -126,6 +128,7 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
       depthMm: plan.existing.depthMm,
       condition: plan.existing.condition,
       effectiveDepthMm: r1(layerPlan.existingEffectiveMm),
+      physicalDepthMm: r1(layerPlan.existingPhysicalMm),
       baseNeeded: layerPlan.baseNeeded,
     },
     target: plan.target,
@@ -146,9 +149,7 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
       method: 'BS EN ISO 6946 combined method; Rsi 0.10, Rse 0.04, roof space resistance added to Rse; joists bridge the insulation below their tops',
       ...(targetU !== undefined ? { targetUValue: targetU, depthForTargetUMm: depthForTarget } : {}),
       meetsTarget:
-        targetU !== undefined
-          ? after.uValue <= targetU + 1e-9
-          : afterLayers.reduce((t, l) => t + l.thicknessMm, 0) >= (plan.target as { depthMm: number }).depthMm - 1e-9,
+        targetU !== undefined ? after.uValue <= targetU + 1e-9 : layerPlan.existingEffectiveMm + newMm >= (plan.target as { depthMm: number }).depthMm - 1e-9,
     },
     savings: {
       areaM2: r3(savings.areaM2),
@@ -183,9 +184,9 @@ function strip<T extends object>(o: T): T {
   return o;
 }
 
-function thermalState(layers: InsulationLayer[], ctx: LoftThermalContext): TakeoffThermalState {
+function thermalState(layers: InsulationLayer[], ctx: LoftThermalContext, creditedMm: number): TakeoffThermalState {
   const res = loftCombinedMethod(layers, ctx);
-  const depth = layers.reduce((t, l) => t + l.thicknessMm, 0);
+  const depth = creditedMm;
   return {
     insulationMm: r1(depth),
     rUpper: r4(res.rUpper),

@@ -14,12 +14,20 @@ export interface LayerChoice {
 /** What the layer choice found, with messages for the estimator. */
 export interface LayerPlan {
   layers: LayerChoice[];
-  /** Existing depth that still counts after its condition, mm. */
+  /** Existing depth that still counts after its condition, mm (thermal credit only). */
   existingEffectiveMm: number;
-  /** Whether the existing layer is missing or poor, so a base layer goes between the joists. */
+  /** Existing depth as it lies in the bays, whatever its condition, mm. */
+  existingPhysicalMm: number;
+  /** Whether the bays are not yet full (physical depth below the joist tops), so a base layer goes between the joists. */
   baseNeeded: boolean;
   warnings: { code: string; message: string }[];
 }
+
+/**
+ * Maps the U-value of the insulated area to the figure a U-value target is judged on (the identity
+ * for the insulated area; an area-weighted mean for the whole ceiling, see `wholeCeilingJudge`).
+ */
+export type TargetJudge = (insulatedU: number) => number;
 
 /** The thermal context of a plan under the given settings. */
 export function thermalContext(plan: Plan, s: TakeoffSettings): LoftThermalContext {
@@ -36,15 +44,36 @@ export function thermalContext(plan: Plan, s: TakeoffSettings): LoftThermalConte
   };
 }
 
-/** Existing insulation as it still counts: depth × the condition's factor, mm. */
-export function existingEffectiveDepthMm(plan: Plan, s: TakeoffSettings): number {
-  return plan.existing.depthMm * (s.existingConditionFactor[plan.existing.condition] ?? 0);
+/** Share of the existing depth credited for its condition (0 for `none`), 0–1. */
+export function existingConditionFactor(plan: Plan, s: TakeoffSettings): number {
+  return s.existingConditionFactor[plan.existing.condition] ?? 0;
 }
 
-/** The existing layer as an insulation layer (empty when nothing counts). */
+/**
+ * Existing depth as it physically lies in the bays, mm: the typed depth whatever its condition
+ * (a patchy or compressed layer still takes up the bay); 0 only for condition `none`, which
+ * means no insulation at all.
+ */
+export function existingPhysicalDepthMm(plan: Plan): number {
+  return plan.existing.condition === 'none' ? 0 : plan.existing.depthMm;
+}
+
+/** Existing insulation as it still counts: depth × the condition's factor, mm. */
+export function existingEffectiveDepthMm(plan: Plan, s: TakeoffSettings): number {
+  return plan.existing.depthMm * existingConditionFactor(plan, s);
+}
+
+/**
+ * The existing layer as an insulation layer: its physical depth (so new layers sit where they
+ * really lie, above it) with its conductivity divided by the condition factor, which gives the
+ * same resistance as the credited depth at full conductivity (200 mm patchy at 0.044 / 0.5 =
+ * 0.088 W/mK has R 2.27, as 100 mm good). Empty when nothing counts (damp or none): the damp
+ * layer is then given no resistance at all, the safe side.
+ */
 export function existingInsulation(plan: Plan, s: TakeoffSettings): InsulationLayer[] {
-  const d = existingEffectiveDepthMm(plan, s);
-  return d > 0 ? [{ thicknessMm: d, lambda: plan.existing.lambda ?? s.existingLambda }] : [];
+  const f = existingConditionFactor(plan, s);
+  const d = existingPhysicalDepthMm(plan);
+  return d > 0 && f > 0 ? [{ thicknessMm: d, lambda: (plan.existing.lambda ?? s.existingLambda) / f }] : [];
 }
 
 /** Build-up bottom-up: existing, then each chosen layer. */
@@ -55,21 +84,38 @@ export function insulationBuildUp(plan: Plan, s: TakeoffSettings, layers: LayerC
 const costPerM2 = (p: TakeoffProduct) => p.priceMinor / p.coverageM2PerRoll;
 
 /**
- * Chooses the layers for a plan. Base layer: when the existing layer is missing or poor (its
- * condition is not `good`, or what counts of it is under half the joist depth), a product whose
- * lane is at least the bay width (`centres − width`), the narrowest such lane, the thinnest
- * thickness that fills the joist depth, then the cheapest. Cross layers: combinations of up to
- * `maxCrossLayers` products that reach the target depth (or target U-value), preferring fewer
- * layers, then the least overshoot, then the lowest cost, then the widest lanes. Products pinned in `plan.products` are
- * used as given. Rules are Quiltline's own reading of common practice.
+ * Chooses the layers for a plan.
+ * Base layer: when the bays are not yet full — the existing depth as it lies (whatever its
+ * condition) is more than `baseFillToleranceMm` below the joist tops — a product whose lane is at
+ * least the bay width (`centres − width`), the narrowest such lane, the thinnest thickness that
+ * fills what is left of the joist depth, then the cheapest. The condition changes only the thermal
+ * credit, never whether the bays are full: 200 mm of patchy wool over 100 mm joists needs no base,
+ * 50 mm of good wool in 100 mm joists does (so cross layers never bridge a half-empty bay).
+ * Cross layers: combinations of up to `maxCrossLayers` products. A depth target (compared with the
+ * credited depth) prefers fewer layers, then the least overshoot, then the lowest cost, then the
+ * widest lanes. A U-value target takes, of the combinations that meet it (judged by `judge`, the
+ * insulated area by default), the lowest material cost per m², then the fewest layers, then the
+ * thinnest, then the widest lanes. Products pinned in `plan.products` are used as given. Rules
+ * are Quiltline's own reading of common practice.
  */
-export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffSettings): LayerPlan {
+export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffSettings, judge: TargetJudge = (u) => u): LayerPlan {
   const warnings: LayerPlan['warnings'] = [];
   const byId = new Map(products.map((p) => [p.id, p]));
   const existingEffectiveMm = existingEffectiveDepthMm(plan, s);
+  const existingPhysicalMm = existingPhysicalDepthMm(plan);
   const depth = plan.joists.depthMm;
   const bay = plan.joists.centresMm - plan.joists.widthMm;
-  const baseNeeded = plan.existing.condition !== 'good' || existingEffectiveMm < depth / 2;
+  const baseNeeded = existingPhysicalMm < depth - s.baseFillToleranceMm;
+  if (plan.existing.condition === 'none' && plan.existing.depthMm > 0)
+    warnings.push({
+      code: 'existing.condition-none',
+      message: `the existing ${plan.existing.depthMm} mm has the condition "none", so it counts as no insulation at all: set its condition (good, compressed, patchy or damp)`,
+    });
+  if (plan.existing.condition === 'damp' && plan.existing.depthMm > 0)
+    warnings.push({
+      code: 'existing.damp-no-credit',
+      message: `the existing ${plan.existing.depthMm} mm is damp: it gets no thermal credit but still fills the bays; if it is to be taken out, set the existing depth to 0 so a base layer is proposed`,
+    });
   const layers: LayerChoice[] = [];
 
   const pinnedBase = plan.products?.baseProductId;
@@ -79,7 +125,7 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
     if (!base) warnings.push({ code: 'product.unknown', message: `base product "${pinnedBase}" is not in the catalogue; choosing one instead` });
   }
   if (!base && baseNeeded) {
-    const need = Math.max(1, depth - existingEffectiveMm);
+    const need = Math.max(1, depth - existingPhysicalMm);
     const candidates = products.filter((p) => productFitsRole(p, 'base'));
     const fitting = candidates.filter((p) => productLaneWidthMm(p) >= bay);
     const pool = fitting.length ? fitting : candidates;
@@ -108,14 +154,15 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
       if (p) layers.push({ role: 'cross', product: p, roleIndex: i });
       else warnings.push({ code: 'product.unknown', message: `cross product "${id}" is not in the catalogue; left out` });
     });
-    return { layers, existingEffectiveMm, baseNeeded, warnings };
+    return { layers, existingEffectiveMm, existingPhysicalMm, baseNeeded, warnings };
   }
 
   const crossPool = products.filter((p) => productFitsRole(p, 'cross'));
   const combos = crossCombinations(crossPool, s.maxCrossLayers);
   const ctx = thermalContext(plan, s);
   const below = insulationBuildUp(plan, s, layers);
-  const belowMm = below.reduce((t, l) => t + l.thicknessMm, 0);
+  // The depth target counts the existing layer by its credit, new layers in full.
+  const belowMm = existingEffectiveMm + layers.reduce((t, l) => t + l.product.thicknessMm, 0);
   let chosen: TakeoffProduct[] = [];
   if ('depthMm' in plan.target) {
     const need = plan.target.depthMm - belowMm;
@@ -137,11 +184,11 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
     }
   } else {
     const target = plan.target.uValue;
-    const u = (c: TakeoffProduct[]) => loftCombinedMethod([...below, ...c.map((p) => ({ thicknessMm: p.thicknessMm, lambda: p.lambda }))], ctx).uValue;
+    const u = (c: TakeoffProduct[]) => judge(loftCombinedMethod([...below, ...c.map((p) => ({ thicknessMm: p.thicknessMm, lambda: p.lambda }))], ctx).uValue);
     if (u([]) > target) {
       const scored = combos.map((c) => ({ c, u: u(c) }));
       const ok = scored.filter((x) => x.u <= target);
-      if (ok.length) chosen = pickBest(ok, (x) => [x.c.length, sum(x.c), x.c.reduce((t, p) => t + costPerM2(p), 0), -minLane(x.c)]).c;
+      if (ok.length) chosen = pickBest(ok, (x) => [x.c.reduce((t, p) => t + costPerM2(p), 0), x.c.length, sum(x.c), -minLane(x.c)]).c;
       else if (scored.length) {
         const best = pickBest(scored, (x) => [x.u, x.c.length]);
         chosen = best.c;
@@ -156,7 +203,7 @@ export function chooseLayers(plan: Plan, products: TakeoffProduct[], s: TakeoffS
     .slice()
     .sort((a, b) => b.thicknessMm - a.thicknessMm)
     .forEach((p, i) => layers.push({ role: 'cross', product: p, roleIndex: i }));
-  return { layers, existingEffectiveMm, baseNeeded, warnings };
+  return { layers, existingEffectiveMm, existingPhysicalMm, baseNeeded, warnings };
 }
 
 function sum(c: TakeoffProduct[]): number {

@@ -12,25 +12,25 @@ export interface TakeoffSettings {
   cuttingAllowanceMm: number;
   /** Offcuts at least this long are kept for reuse; shorter ones are waste, mm. Default 500 (common practice). */
   minOffcutMm: number;
-  /** Heating degree days a year, K·day. Default 2462: UK standard year, base 15.5 °C (published UK degree-day figure). */
+  /** Heating degree days a year, K·day. Default 2462: UK standard year, base 15.5 °C (CIBSE TM41 degree-day convention; the 15.5 °C base already allows for typical internal and solar gains). */
   degreeDays: number;
   /** Fuel price, minor units per kWh (may have decimals). Default 6.5 p/kWh, a UK mains-gas figure from memory: set your own. */
   fuelPriceMinorPerKwh: number;
-  /** Seasonal efficiency of the heating system, 0–1. Default 0.85 (condensing gas boiler 0.85–0.90, found). */
+  /** Seasonal efficiency of the heating system, 0–1. Default 0.85 (condensing gas boiler, seasonal 0.85–0.90: SAP 10 Table 4b / the PCDB range; common practice). */
   heatingEfficiency: number;
-  /** Resistance of the ventilated roof space above the ceiling, m²K/W, added to Rse. Default 0.2 (ISO 6946 roof-space table, tiled roof with felt or boards; from memory). */
+  /** Resistance of the ventilated roof space above the ceiling, m²K/W, added to Rse. Default 0.2 (BS EN ISO 6946:2017 roof-space table, tiled roof with felt or boards; from memory: tested only in range checks). */
   roofSpaceResistance: number;
-  /** Internal surface resistance, heat flow upward, m²K/W. Default 0.10 (ISO 6946, found). */
+  /** Internal surface resistance, heat flow upward, m²K/W. Default 0.10 (BS EN ISO 6946:2017 Table 7, heat flow upward). */
   rsi: number;
-  /** External surface resistance, m²K/W. Default 0.04 (ISO 6946, found). */
+  /** External surface resistance, m²K/W. Default 0.04 (BS EN ISO 6946:2017 Table 7). */
   rse: number;
   /** Ceiling board thickness, mm. Default 12.5 (gypsum plasterboard). */
   ceilingBoardMm: number;
-  /** Ceiling board conductivity. Default 0.21 W/mK (gypsum plasterboard, Scottish Government Annex 6.B, found). */
+  /** Ceiling board conductivity. Default 0.21 W/mK (gypsum plasterboard, Scottish Government "Tables of U-values and thermal conductivity", Annex 6.B, 2020). */
   ceilingBoardLambda: number;
-  /** Joist timber conductivity. Default 0.13 W/mK (softwood, ISO 10456 table, found). */
+  /** Joist timber conductivity. Default 0.13 W/mK (softwood, BS EN ISO 10456:2007 Table 3). */
   timberLambda: number;
-  /** Conductivity assumed for existing insulation when the plan gives none. Default 0.044 W/mK (the commonest mineral-wool roll, found). */
+  /** Conductivity assumed for existing insulation when the plan gives none. Default 0.044 W/mK (the commonest mineral-wool loft roll, manufacturers' declared λ90/90). */
   existingLambda: number;
   /** Clearance kept around each exclusion kind when the exclusion gives none, mm. */
   clearanceMmByKind: Record<ExclusionKind, number>;
@@ -40,12 +40,32 @@ export interface TakeoffSettings {
   existingConditionFactor: Record<'good' | 'compressed' | 'damp' | 'patchy' | 'none', number>;
   /** Most cross layers the takeoff will propose. Default 3. */
   maxCrossLayers: number;
+  /**
+   * Bays whose existing depth is within this of the joist tops count as full, so no base layer is
+   * proposed, mm. Default 10 (Quiltline's convention: a shallower gap is closed by the cross layer settling).
+   */
+  baseFillToleranceMm: number;
+  /**
+   * What a U-value target is judged on: `whole-ceiling` (area-weighted over the insulated area,
+   * hatch, boards, downlight covers and eaves strip, as Approved Document L judges the roof
+   * element) or `insulated-area` (the insulated part only). Default `whole-ceiling`.
+   */
+  targetBasis: 'whole-ceiling' | 'insulated-area';
+  /**
+   * How the eaves air path is kept open when the plan does not say: `gap` keeps the insulation
+   * back from the eaves by `eavesGapMm` (bare ceiling edge), `ventilators` fits an eaves
+   * ventilator (tray) in each rafter space and runs the insulation over the wall plate (BS 5250:2021,
+   * BRE BR 262). Default `gap`.
+   */
+  eavesMode: 'gap' | 'ventilators';
+  /** Insulation on the hatch lid after the work, mm (at `existingLambda`). Default 0: no credit unless the company fits an insulated hatch or kit. */
+  hatchInsulationMm: number;
 }
 
 /**
  * Sourced defaults for `TakeoffSettings`.
  * Clearances: downlights 100 mm unless rated for covering; masonry chimneys and metal flues 50 mm
- * (New Zealand EnergyWise guidance, found). In the UK follow Approved Document J and the appliance
+ * (New Zealand government EnergyWise insulation guidance). In the UK follow Approved Document J and the appliance
  * maker: these are minimums, not a substitute for them.
  */
 export const DEFAULT_TAKEOFF_SETTINGS: TakeoffSettings = Object.freeze({
@@ -66,6 +86,10 @@ export const DEFAULT_TAKEOFF_SETTINGS: TakeoffSettings = Object.freeze({
   pointFootprintRadiusMm: 50,
   existingConditionFactor: Object.freeze({ good: 1, compressed: 0.5, patchy: 0.5, damp: 0, none: 0 }),
   maxCrossLayers: 3,
+  baseFillToleranceMm: 10,
+  targetBasis: 'whole-ceiling',
+  eavesMode: 'gap',
+  hatchInsulationMm: 0,
 }) as TakeoffSettings;
 
 /** Defaults overlaid with a company's partial settings (nested records merged key by key). */

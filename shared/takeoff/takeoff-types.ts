@@ -102,6 +102,7 @@ export interface TakeoffLayer {
 
 /** One side of the thermal comparison. */
 export interface TakeoffThermalState {
+  /** Depth that counts: the existing layer by its condition credit, new layers in full, mm. */
   insulationMm: number;
   rUpper: number;
   rLower: number;
@@ -125,7 +126,8 @@ export interface Takeoff {
   /** Area new layers cover: net minus the eaves bands, m². */
   layerAreaM2: number;
   wasteAllowancePct: number;
-  existing: { depthMm: number; condition: string; effectiveDepthMm: number; baseNeeded: boolean };
+  /** Existing insulation: typed depth, condition, depth credited for the condition and depth as it lies in the bays, mm. */
+  existing: { depthMm: number; condition: string; effectiveDepthMm: number; physicalDepthMm: number; baseNeeded: boolean };
   target: Target;
   /** Products chosen for the layers: pinned in the plan, or chosen by the engine from the catalogue. */
   productChoice: { source: 'plan' | 'catalogue'; baseProductId: string | null; crossProductIds: string[] };

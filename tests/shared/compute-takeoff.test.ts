@@ -106,7 +106,10 @@ describe('computeTakeoff on the examples (golden checks)', () => {
     }
     const rebuilt = loftCombinedMethod(
       [
-        ...(t.existing.effectiveDepthMm > 0 ? [{ thicknessMm: t.existing.effectiveDepthMm, lambda: 0.044 }] : []),
+        // The existing layer lies at its physical depth, its λ divided by the condition's credit share.
+        ...(t.existing.effectiveDepthMm > 0
+          ? [{ thicknessMm: t.existing.physicalDepthMm, lambda: (0.044 * t.existing.physicalDepthMm) / t.existing.effectiveDepthMm }]
+          : []),
         ...t.layers.map((l) => ({ thicknessMm: l.thicknessMm, lambda: l.lambda })),
       ],
       {
@@ -374,7 +377,8 @@ describe('edge cases', () => {
 
   it('cuts a strip longer than a roll into a full roll length and the rest', () => {
     const t = computeTakeoff(loadExample('bungalow/main-loft.json'), { products });
-    const layer = t.layers[0];
+    // 75 mm in 100 mm joists now takes a base layer first; the cross layer has the long strips.
+    const layer = t.layers.find((l) => l.role === 'cross')!;
     const long = layer.strips.find((s) => s.lengthMm > layer.rollLengthMm)!;
     expect(long.pieces.length).toBe(Math.ceil(long.lengthMm / layer.rollLengthMm));
     expect(long.pieces.slice(0, -1).every((p) => p.lengthMm === layer.rollLengthMm)).toBe(true);
