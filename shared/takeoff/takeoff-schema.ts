@@ -38,6 +38,10 @@ export const takeoffSettingsSchema = z.object({
   pointFootprintRadiusMm: num,
   existingConditionFactor: z.object(Object.fromEntries(CONDITIONS.map((c) => [c, num])) as Record<(typeof CONDITIONS)[number], typeof num>),
   maxCrossLayers: num,
+  baseFillToleranceMm: num,
+  targetBasis: z.enum(['whole-ceiling', 'insulated-area']),
+  eavesMode: z.enum(['gap', 'ventilators']),
+  hatchInsulationMm: num,
 });
 
 /** A site check the plan raises (shared/takeoff/site-checks.ts). */
@@ -129,7 +133,7 @@ export const takeoffSchema = z.object({
   eavesBandAreaM2: num,
   layerAreaM2: num,
   wasteAllowancePct: num,
-  existing: z.object({ depthMm: num, condition: z.string(), effectiveDepthMm: num, baseNeeded: z.boolean() }),
+  existing: z.object({ depthMm: num, condition: z.string(), effectiveDepthMm: num, physicalDepthMm: num, baseNeeded: z.boolean() }),
   target: targetSchema,
   productChoice: takeoffProductChoiceSchema,
   layers: z.array(takeoffLayerSchema),
