@@ -26,9 +26,27 @@ const baseJob: Job = {
   updatedAt: '2026-11-20T10:00:00Z',
 };
 
-function jobApi() {
-  let job = structuredClone(baseJob);
+function jobApi(over: Partial<Job> = {}, quotes: { status: string }[] = []) {
+  let job = { ...structuredClone(baseJob), ...over };
   const calls = fakeApi(({ method, url, body }) => {
+    if (url.pathname === `/api/jobs/${JOB_ID}/quotes`)
+      return {
+        body: {
+          quotes: quotes.map((q, i) => ({
+            id: `q${i}`,
+            number: `QT-000${i + 1}`,
+            version: 1,
+            currency: 'GBP',
+            issueDate: '2026-11-20',
+            validUntil: '2026-12-20',
+            sentAt: null,
+            grossMinor: 0,
+            ...q,
+          })),
+        },
+      };
+    if (url.pathname === '/api/invoices') return { body: { invoices: [] } };
+    if (url.pathname === `/api/payments/jobs/${JOB_ID}/timeline`) return { body: { entries: [] } };
     if (url.pathname === `/api/jobs/${JOB_ID}` && method === 'GET') return { body: { job } };
     if (url.pathname === `/api/jobs/${JOB_ID}` && method === 'PATCH') {
       job = { ...job, ...(body as Partial<Job>) };
@@ -110,5 +128,18 @@ describe('job detail', () => {
     fakeApi(() => undefined);
     render('office');
     expect(await screen.findByText('Nothing on this page of the notebook')).toBeTruthy();
+  });
+
+  it('does not offer "Create invoice" for an installed job without an accepted quote, and says why', async () => {
+    jobApi({ stage: 'installed' }, [{ status: 'draft' }]);
+    render('office');
+    expect((await screen.findByTestId('invoice-needs-quote')).textContent).toMatch(/No accepted quote/);
+    expect(screen.queryByRole('button', { name: 'Create invoice' })).toBeNull();
+  });
+
+  it('offers "Create invoice" once the installed job has an accepted quote', async () => {
+    jobApi({ stage: 'installed' }, [{ status: 'accepted' }]);
+    render('office');
+    expect(await screen.findByRole('button', { name: 'Create invoice' })).toBeTruthy();
   });
 });

@@ -1,5 +1,6 @@
 import { useParams } from 'react-router-dom';
 import { can } from '../../../shared/auth/policies';
+import type { JobStage } from '../../../shared/api/jobs';
 import { ButtonLink, ErrorState, LoadingState, PageHeader, StageBadge, formatDateTime } from '../../components/ui';
 import { useCurrentUser } from '../../features/auth/use-current-user';
 import { useJob } from '../../features/jobs/api/get-job';
@@ -8,6 +9,7 @@ import { JobSpaces } from '../../features/jobs/components/job-spaces';
 import { JobTimeline } from '../../features/jobs/components/job-timeline';
 import { StageControl } from '../../features/jobs/components/stage-control';
 import { JobMoneyCard } from '../../features/invoices/components/job-money-card';
+import { useJobQuotes } from '../../features/quotes/api/get-job-quotes';
 import { JobQuotesCard } from '../../features/quotes/components/job-quotes-card';
 import { isApiError } from '../../lib/api-client';
 import NotFoundPage from './not-found';
@@ -59,7 +61,14 @@ export default function JobDetailPage() {
         <JobTimeline jobId={j.id} />
       </div>
       {can(user, 'quotes:draft') && <JobQuotesCard jobId={j.id} />}
-      {can(user, 'prices:read') && <JobMoneyCard jobId={j.id} stage={j.stage} canInvoice={can(user, 'quotes:manage')} />}
+      {can(user, 'prices:read') && <JobMoney jobId={j.id} stage={j.stage} canInvoice={can(user, 'quotes:manage')} />}
     </div>
   );
+}
+
+/** The money card, told whether the job has an accepted quote (an invoice is made from it). */
+function JobMoney({ jobId, stage, canInvoice }: { jobId: string; stage: JobStage; canInvoice: boolean }) {
+  const quotes = useJobQuotes(jobId);
+  const hasAcceptedQuote = quotes.isSuccess ? quotes.data.some((q) => q.status === 'accepted') : undefined;
+  return <JobMoneyCard jobId={jobId} stage={stage} canInvoice={canInvoice} hasAcceptedQuote={hasAcceptedQuote} />;
 }

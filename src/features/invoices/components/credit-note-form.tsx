@@ -1,10 +1,22 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
-import type { Invoice } from '../../../../shared/api/invoices';
-import { Alert, Button, Field, Input } from '../../../components/ui';
+import type { Invoice, InvoiceLine } from '../../../../shared/api/invoices';
+import type { TaxClass } from '../../../../shared/api/settings';
+import { formatMoneyInput } from '../../../../shared/quote/money-input';
+import { Alert, Button, Field, Input, Select } from '../../../components/ui';
 import { asSentence } from '../../../lib/form-errors';
 import { useCreateCreditNote } from '../api/update-invoice';
 import { emptyLine, LineEditor, toLineInputs, type DraftLine } from './line-editor';
+
+/** A credit line copied from an invoice line, with that line's tax class (a zero-rated line is credited at zero). */
+export function creditLineFrom(line: InvoiceLine, currency: string): DraftLine {
+  return {
+    description: `Credit: ${line.description}`,
+    quantity: String(line.quantity),
+    price: formatMoneyInput(line.unitPriceMinor, currency),
+    taxClass: (line.taxClass ?? 'standard') as TaxClass,
+  };
+}
 
 /** Issue a credit note against an invoice; for a paid one, optionally refund it to the card. */
 export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
@@ -33,6 +45,26 @@ export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
       <Field label="Reason (printed on the credit note)" required>
         <Input value={reason} onChange={(e) => setReason(e.target.value)} placeholder="e.g. walkway boards not fitted" />
       </Field>
+      {invoice.lines.length > 0 && (
+        <Field label="Credit a line of the invoice (copies its price and tax class)">
+          <Select
+            value=""
+            onChange={(e) => {
+              const line = invoice.lines.find((l) => l.id === e.target.value);
+              if (!line) return;
+              const kept = lines.filter((l) => l.description.trim() || l.price.trim());
+              setLines([...kept, creditLineFrom(line, invoice.currency)]);
+            }}
+          >
+            <option value="">Choose a line…</option>
+            {invoice.lines.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.description} ({l.quantity} {l.unit})
+              </option>
+            ))}
+          </Select>
+        </Field>
+      )}
       <LineEditor label="What is credited" lines={lines} onChange={setLines} />
       {invoice.status === 'paid' && (
         <label className="flex items-center gap-2 text-sm">

@@ -13,7 +13,18 @@ import { InvoiceStatusBadge } from './invoice-status-badge';
 import { LineEditor, toLineInputs, type DraftLine } from './line-editor';
 
 /** The job's money: deposit, invoice and payments on one card, and "Create invoice" once installed. */
-export function JobMoneyCard({ jobId, stage, canInvoice }: { jobId: string; stage: JobStage; canInvoice: boolean }) {
+export function JobMoneyCard({
+  jobId,
+  stage,
+  canInvoice,
+  hasAcceptedQuote,
+}: {
+  jobId: string;
+  stage: JobStage;
+  canInvoice: boolean;
+  /** Undefined while the job's quotes load: nothing is offered until it is known. */
+  hasAcceptedQuote: boolean | undefined;
+}) {
   const timeline = usePaymentTimeline(jobId);
   // Invoices are office-only (quotes:manage on the API); an estimator asking would get a 403.
   const invoices = useInvoices({ jobId }, { enabled: canInvoice });
@@ -47,7 +58,13 @@ export function JobMoneyCard({ jobId, stage, canInvoice }: { jobId: string; stag
           {invoice.status !== 'paid' && <span className="font-mono">{formatMoney(invoice.balanceMinor, invoice.currency)} to pay</span>}
         </p>
       )}
-      {canInvoice && !invoice && invoices.isSuccess && (stage === 'installed' || stage === 'closed') && <NewInvoiceForm jobId={jobId} />}
+      {canInvoice && !invoice && invoices.isSuccess && (stage === 'installed' || stage === 'closed') && hasAcceptedQuote && <NewInvoiceForm jobId={jobId} />}
+      {canInvoice && !invoice && invoices.isSuccess && (stage === 'installed' || stage === 'closed') && hasAcceptedQuote === false && (
+        <p className="mt-3 text-sm text-graphite-light" data-testid="invoice-needs-quote">
+          No accepted quote on this job, so there is nothing to invoice from yet: an invoice is made from the quote the customer accepted, plus variations.
+          Build and send a quote first.
+        </p>
+      )}
       {canInvoice && !invoice && invoices.isSuccess && stage !== 'installed' && stage !== 'closed' && (
         <p className="mt-3 text-xs text-graphite-light">The invoice is made once the job is installed.</p>
       )}
