@@ -5,7 +5,7 @@ import { IdempotencyKey, JobNote, JobPhoto, JobTick } from '../../server/db/mode
 import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
 import { createOrgWithUsers, type TestOrg } from '../helpers/test-app';
 import { Job } from '../../server/db/models';
-import { addDays, mondayOf } from '../../server/modules/schedule/schedule.service';
+import { addDaysIso as addDays, mondayOf } from '../../shared/dates';
 import { createJob } from '../helpers/test-app';
 import { rotatedJpeg, scheduledJobWithTakeoff } from '../server/job-sheet-fixtures';
 

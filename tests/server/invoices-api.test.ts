@@ -9,7 +9,7 @@ import { Customer } from '../../server/db/models/customer';
 import { Invoice } from '../../server/db/models/invoice';
 import { Job } from '../../server/db/models/job';
 import { takeNumber } from '../../server/modules/invoices/invoices.service';
-import { addDays } from '../../server/modules/invoices/invoice-totals';
+import { addDaysIso as addDays } from '../../shared/dates';
 import { loadCompanySettings } from '../../server/modules/settings/settings.service';
 import { createJob, createOrgWithUsers, loginAs, type TestOrg } from '../helpers/test-app';
 import { createAcceptedQuote, startPaymentsHarness, type PaymentsHarness } from './payments-fixtures';

@@ -93,8 +93,8 @@ describe('invoice PDF', () => {
       'Fenbank Loft Insulation Ltd',
       'Mrs Ada Fenwick',
       '14 Wren Close',
-      'Issued 20 January 2027',
-      'Due 3 February 2027',
+      'Issued 20 Jan 2027',
+      'Due 3 Feb 2027',
       'Quote Q-0042',
       'Job J-0031',
       'Walkway boards (variation on site)',
@@ -119,7 +119,7 @@ describe('invoice PDF', () => {
 
   it('a paid invoice shows nothing to pay and no pay link', async () => {
     const text = await pdfText(await renderInvoicePdf(sampleInvoice({ status: 'paid', paidAt: '2027-01-25T10:00:00Z', balanceMinor: 0 }), company));
-    expect(text).toContain('Paid in full on 25 January 2027');
+    expect(text).toContain('Paid in full on 25 Jan 2027');
     expect(text).not.toContain('/q/invoice/abc123');
   });
 

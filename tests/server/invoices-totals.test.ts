@@ -2,7 +2,8 @@
 // 0 % for installed energy-saving materials are from HMRC VAT Notice 708/6; the
 // sums themselves were worked by hand, line by line, and are written out beside each row.
 import { describe, expect, it } from 'vitest';
-import { addDays, balanceDue, depositFor, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';
+import { addDaysIso as addDays } from '../../shared/dates';
+import { balanceDue, depositFor, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';
 import { computeQuoteTotals } from '../../shared/quote/totals';
 import { UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 

@@ -2,6 +2,7 @@
 // accepted quote → our deposit page → Checkout Session → pay page → signed webhook → paid.
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { formatDate, todayIso } from '../../shared/dates';
 import { JobEvent } from '../../server/db/models/job-event';
 import { Payment } from '../../server/db/models/payment';
 import { PaymentEvent } from '../../server/db/models/payment-event';
@@ -119,6 +120,9 @@ describe('deposit on acceptance', () => {
     const mail = await h.ctx.outbox.waitFor((m) => m.subject.startsWith('Deposit paid'));
     expect(mail.to).toContain(org.office.email);
     expect(mail.subject).toBe(`Deposit paid: £143.94 for quote ${quote.number}`);
+    // One date style for people: "on 2 Dec 2026", not an HTTP date.
+    expect(mail.text).toContain(`on ${formatDate(todayIso())}.`);
+    expect(mail.text).not.toMatch(/GMT|\d{4}-\d{2}-\d{2}/);
     expect((await request(h.ctx.app).get(`/pay/done/${payment!.token}`)).text).toContain('We received your deposit of <strong>£143.94</strong>');
     // Paying again is not offered.
     expect((await request(h.ctx.app).get(`/pay/deposit/${link}`)).text).toContain('Deposit received');

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PlanRevision } from '../../server/db/models';
-import { addDays, isOverCapacity, mondayOf } from '../../server/modules/schedule/schedule.service';
+import { addDaysIso as addDays, mondayOf } from '../../shared/dates';
+import { isOverCapacity } from '../../server/modules/schedule/schedule.service';
 import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { createJob, createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { examplePlan, exampleProducts } from './job-sheet-fixtures';
@@ -63,8 +64,10 @@ describe('scheduling', () => {
     const toCustomer = await ctx.outbox.waitFor((m) => m.to.includes('robin.hale@example.com'));
     expect(toCustomer.text).toMatch(/Clear the area under the loft hatch/);
     expect(toCustomer.text).toMatch(/never insulat|No insulation is laid beneath the cold water tank/i);
-    const day = new Date(`${tuesday}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', timeZone: 'UTC' });
-    expect(toCustomer.text).toContain(day);
+    // The app's one date style, with the weekday: "Tue, 8 Dec 2026".
+    const [y, m, d] = tuesday.split('-').map(Number);
+    const month = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sept', 'Oct', 'Nov', 'Dec'][m - 1];
+    expect(toCustomer.text).toContain(`Tue, ${d} ${month} ${y}`);
     const toInstaller = await ctx.outbox.waitFor((m) => m.to.includes(org.installer.email));
     expect(toInstaller.links).toContain(`${ctx.config.appUrl}/jobs/${job.id}/sheet`);
 

@@ -1,4 +1,5 @@
 import type { JobSheet } from '../../../shared/api/job-sheet';
+import { formatDate } from '../../../shared/dates';
 import { bullets, ensureSpace, heading, newDocument, table } from './document';
 import { INK } from './fonts';
 import { drawPlan, type PlanForDrawing, type StripForDrawing } from './plan-drawing';
@@ -37,7 +38,7 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
     .font('mono')
     .fontSize(10)
     .fillColor(INK.graphite)
-    .text(`${sheet.job.reference} · install ${sheet.job.installDate ?? 'date to be agreed'}`);
+    .text(`${sheet.job.reference} · install ${sheet.job.installDate ? formatDate(sheet.job.installDate) : 'date to be agreed'}`);
   doc.font('ui').fontSize(10).text([a.line1, a.line2, a.town, a.postcode].filter(Boolean).join(', '));
   doc
     .fontSize(9.5)

@@ -2,7 +2,7 @@ import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
 import { ROUNDING_NOTE } from '../../../shared/quote/totals';
 import { bullets, ensureSpace, heading, newDocument, table } from './document';
-import { longDate } from '../dates';
+import { formatDate } from '../../../shared/dates';
 import { INK } from './fonts';
 import { drawPlan, type PlanForDrawing } from './plan-drawing';
 
@@ -69,8 +69,8 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
   for (const l of [
     `${d.quote.number}${d.quote.version > 1 ? ` v${d.quote.version}` : ''}`,
     `Job ${d.quote.jobReference}`,
-    `Issued ${d.quote.issueDate}`,
-    `Valid until ${d.quote.validUntil}`,
+    `Issued ${formatDate(d.quote.issueDate)}`,
+    `Valid until ${formatDate(d.quote.validUntil)}`,
   ])
     doc.text(l, rx, doc.y, { width: width * 0.4, align: 'right' });
   doc.y = Math.max(leftBottom, doc.y) + 14;
@@ -165,7 +165,7 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     .font('ui')
     .fontSize(7.5)
     .fillColor(INK.graphiteLight)
-    .text(`${ROUNDING_NOTE} VAT at the rates in force on ${longDate(d.quote.issueDate, d.quote.locale)}.`, left, doc.y + 2, { width });
+    .text(`${ROUNDING_NOTE} VAT at the rates in force on ${formatDate(d.quote.issueDate)}.`, left, doc.y + 2, { width });
   if (d.siteHours > 0) {
     doc
       .fontSize(9)
@@ -227,7 +227,7 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     .fontSize(9)
     .fillColor(INK.graphite)
     .text(
-      `Or reply to ${d.company.email || 'us'}${d.company.phone ? `, or call ${d.company.phone}` : ''}, quoting ${d.quote.number}. This quote is valid until ${longDate(d.quote.validUntil, d.quote.locale)}.`,
+      `Or reply to ${d.company.email || 'us'}${d.company.phone ? `, or call ${d.company.phone}` : ''}, quoting ${d.quote.number}. This quote is valid until ${formatDate(d.quote.validUntil)}.`,
       left,
       doc.y + 6,
       { width },

@@ -1,5 +1,6 @@
 import { Router, type Request, type Response } from 'express';
 import { idParamsSchema } from '../../../shared/api/common';
+import { formatDate } from '../../../shared/dates';
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { renderJobSheetPdf } from '../../lib/pdf/job-sheet-pdf';
@@ -39,7 +40,7 @@ export function jobSheetExportRouter(deps: AppDeps) {
     const row = await User.findOne({ where: { id: installer.id, organisationId: user.organisationId } });
     if (!row?.email) throw new ValidationError([{ path: 'assignedInstallerId', message: 'the assigned installer has no e-mail address' }]);
     const a = sheet.job.propertyAddress;
-    const subject = `Job sheet ${sheet.job.reference}: ${a.line1}, ${a.town}${sheet.job.installDate ? ` on ${sheet.job.installDate}` : ''}`;
+    const subject = `Job sheet ${sheet.job.reference}: ${a.line1}, ${a.town}${sheet.job.installDate ? ` on ${formatDate(sheet.job.installDate)}` : ''}`;
     await sendRecordedMail(
       deps,
       { organisationId: user.organisationId, jobId: sheet.job.id, userId: user.id, purpose: 'job_sheet' },

@@ -1,5 +1,6 @@
 import ExcelJS from 'exceljs';
 import type { Quote as QuoteDto } from '../../../shared/api/quotes';
+import { formatDate } from '../../../shared/dates';
 import { currencyDigits, minorToDecimalString } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
 import type { QuoteSnapshot } from '../quotes/quote-dto';
@@ -123,8 +124,8 @@ export async function quoteXlsx({ quote: q, jobReference, customerName, spaces }
     `version ${q.version}`,
     `job ${jobReference}`,
     customerName,
-    `issued ${q.issueDate}`,
-    `valid until ${q.validUntil}`,
+    `issued ${formatDate(q.issueDate)}`,
+    `valid until ${formatDate(q.validUntil)}`,
     q.currency,
   ]);
   ws.addRow([]);

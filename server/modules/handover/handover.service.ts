@@ -1,7 +1,7 @@
 import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { JobCompletion, JobPhoto, JobTick } from '../../db/models';
-import { longDate } from '../../lib/dates';
+import { formatDate } from '../../../shared/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
@@ -65,7 +65,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
       customerName: customer?.name ?? '',
       address: [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', '),
       installerName: installer?.name ?? '',
-      installedOn: longDate(when.toISOString()),
+      installedOn: formatDate(when.toISOString()),
       spaces: out,
       showRValues: settings.handoverRValues,
       signedReceipt: settings.handoverReceipt,

@@ -1,10 +1,8 @@
 import type { Invoice as InvoiceDto, InvoiceSummary } from '../../../shared/api/invoices';
 import type { Invoice } from '../../db/models/invoice';
 import type { InvoiceLine } from '../../db/models/invoice-line';
-import { todayIso } from '../../lib/dates';
+import { todayIso } from '../../../shared/dates';
 import { balanceDue, isOverdue, sumLines } from './invoice-totals';
-
-export { todayIso };
 
 export interface InvoiceContext {
   jobReference: string;

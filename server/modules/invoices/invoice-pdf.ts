@@ -10,7 +10,7 @@ import type { Invoice } from '../../../shared/api/invoices';
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
 import { FONTS, INK } from '../../lib/pdf/fonts';
-import { longDate } from '../../lib/dates';
+import { formatDate } from '../../../shared/dates';
 
 export interface CompanyDetails {
   name: string;
@@ -24,8 +24,6 @@ export interface CompanyDetails {
 export function formatQuantity(quantity: number): string {
   return quantity.toLocaleString('en-GB', { maximumFractionDigits: 3 });
 }
-
-const formatDate = (iso: string) => longDate(iso);
 
 /** Render the invoice (or credit note) to a PDF buffer. */
 export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {

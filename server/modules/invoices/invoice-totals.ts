@@ -58,9 +58,6 @@ export function depositFor(totalMinor: number, mode: 'none' | 'percent' | 'fixed
   return 0;
 }
 
-/** Add whole days to an ISO date (YYYY-MM-DD), in UTC (server/lib/dates.ts). */
-export { addDaysIso as addDays } from '../../lib/dates';
-
 /** An unpaid invoice is overdue from the day after its due date. */
 export function isOverdue(status: string, dueDate: string | null, today: string): boolean {
   return status !== 'paid' && !!dueDate && today > dueDate;

@@ -26,9 +26,10 @@ import { loadCompanySettings } from '../settings/settings.service';
 import { paymentsContext } from '../payments/payments-context';
 import type { PaymentsService } from '../payments/payments.service';
 import { pricedQuoteLines } from '../payments/quote-money';
-import { balanceOf, creditedTotal, todayIso, toInvoiceDto, toSummary } from './invoice-dto';
+import { addDaysIso, formatDate, todayIso } from '../../../shared/dates';
+import { balanceOf, creditedTotal, toInvoiceDto, toSummary } from './invoice-dto';
 import { renderInvoicePdf, type CompanyDetails } from './invoice-pdf';
-import { addDays, lineAmounts, sumLines } from './invoice-totals';
+import { lineAmounts, sumLines } from './invoice-totals';
 
 type Actor = Pick<SessionUser, 'id' | 'organisationId'>;
 interface LineRow {
@@ -173,7 +174,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           '',
           `Thank you for choosing ${company.name}. Please find attached invoice ${d.number} for the work at job ${d.jobReference}.`,
           '',
-          `Total ${money(d.totalMinor)}${d.depositMinor ? `, less the deposit of ${money(d.depositMinor)} you paid` : ''}: ${money(d.balanceMinor)} to pay${d.dueDate ? ` by ${d.dueDate}` : ''}.`,
+          `Total ${money(d.totalMinor)}${d.depositMinor ? `, less the deposit of ${money(d.depositMinor)} you paid` : ''}: ${money(d.balanceMinor)} to pay${d.dueDate ? ` by ${formatDate(d.dueDate)}` : ''}.`,
           '',
           d.payUrl && d.balanceMinor > 0 ? `Pay by card at this private link: ${d.payUrl}` : '',
           '',
@@ -237,7 +238,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
               number: formatNumber(SERIES.invoice, seq),
               creditedInvoiceId: null,
               issueDate,
-              dueDate: addDays(issueDate, settings.paymentTermsDays),
+              dueDate: addDaysIso(issueDate, settings.paymentTermsDays),
               currency: quote.currency,
               customerName: customer?.name ?? '',
               customerEmail: customer?.email ?? '',

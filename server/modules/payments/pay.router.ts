@@ -6,7 +6,7 @@ import type { AppDeps } from '../../deps';
 import { CompanySetting } from '../../db/models/company-setting';
 import { Invoice } from '../../db/models/invoice';
 import { Quote } from '../../db/models/quote';
-import { longDate } from '../../lib/dates';
+import { formatDate } from '../../../shared/dates';
 import { AppError } from '../../lib/errors';
 import type { InvoicesService } from '../invoices/invoices.service';
 import { escapeHtml, money, payLayout, payPageCsp } from './pay-pages';
@@ -125,7 +125,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     if (!inv) return notFound(res);
     const d = await invoices.dto(inv);
     const company = await companyName(inv.organisationId);
-    const day = (iso: string) => escapeHtml(longDate(iso));
+    const day = (iso: string) => escapeHtml(formatDate(iso));
     const rows = `<dl><dt>Invoice</dt><dd>${escapeHtml(d.number)}</dd><dt>Issued</dt><dd>${day(d.issueDate)}</dd>${d.dueDate ? `<dt>Due</dt><dd>${day(d.dueDate)}</dd>` : ''}
       <dt>Total</dt><dd>${money(d.totalMinor, d.currency)}</dd>${d.depositMinor ? `<dt>Deposit paid</dt><dd>−${money(d.depositMinor, d.currency)}</dd>` : ''}${d.creditedMinor ? `<dt>Credited</dt><dd>−${money(d.creditedMinor, d.currency)}</dd>` : ''}</dl>`;
     const pdf = `<a class="btn btn-quiet" href="/pay/invoice/${encodeURIComponent(String(req.params.token))}/pdf">Download the PDF</a>`;

@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { DepositStatus, PaymentSettings, PaymentSettingsBody, PaymentTimelineEntry } from '../../../shared/api/payments';
+import { formatDate } from '../../../shared/dates';
 import { formatMoney } from '../../../shared/quote/money';
 import type { AppDeps } from '../../deps';
 import { Invoice } from '../../db/models/invoice';
@@ -320,7 +321,7 @@ export function createPaymentsService(deps: AppDeps) {
           deps.mailer,
           p.organisationId,
           `Deposit paid: ${money} for quote ${quote?.number ?? ''}`,
-          `${job?.customer?.name ?? 'The customer'} paid a deposit of ${money} for quote ${quote?.number ?? ''} (job ${job?.reference ?? ''}) on ${paidAt.toUTCString()}.\n\nThe payment service's reference: ${p.paymentIntentId ?? p.checkoutSessionId}.`,
+          `${job?.customer?.name ?? 'The customer'} paid a deposit of ${money} for quote ${quote?.number ?? ''} (job ${job?.reference ?? ''}) on ${formatDate(paidAt)}.\n\nThe payment service's reference: ${p.paymentIntentId ?? p.checkoutSessionId}.`,
         ),
       );
       return;
@@ -349,7 +350,7 @@ export function createPaymentsService(deps: AppDeps) {
           deps.mailer,
           p.organisationId,
           `Invoice ${inv.number} paid: ${money}`,
-          `${inv.customerName} paid the balance of invoice ${inv.number}, ${money}, on ${paidAt.toUTCString()}.`,
+          `${inv.customerName} paid the balance of invoice ${inv.number}, ${money}, on ${formatDate(paidAt)}.`,
         ),
       );
     }

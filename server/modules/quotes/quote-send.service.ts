@@ -7,7 +7,8 @@ import { loadCompanySettings } from '../settings/settings.service';
 import { priceQuote } from './quote-dto';
 import { quoteFileName, quotePdf } from './quote-document';
 import { endOfDayEpochSec, newLinkNonce, signQuoteLink } from './quote-link';
-import { addDaysIso, expireIfDue, findJobInOrg, findQuoteInOrg, linesOf, quoteDto, recordEvent, todayIso } from './quotes.service';
+import { addDaysIso, formatDate, todayIso } from '../../../shared/dates';
+import { expireIfDue, findJobInOrg, findQuoteInOrg, linesOf, quoteDto, recordEvent } from './quotes.service';
 
 /** The private link's signing secret: the server secret (a purpose-bound key is derived from it in quote-link.ts). */
 export function linkSecret(deps: AppDeps): string {
@@ -83,7 +84,7 @@ export function createQuoteSendService(deps: AppDeps) {
       const text = [
         `Dear ${customer.name},`,
         '',
-        `Thank you for letting us survey your loft at ${job.addressLine1}, ${job.town}. Your quote ${q.number} is attached as a PDF: ${total} in total, valid until ${q.validUntil}.`,
+        `Thank you for letting us survey your loft at ${job.addressLine1}, ${job.town}. Your quote ${q.number} is attached as a PDF: ${total} in total, valid until ${formatDate(q.validUntil)}.`,
         ...(body.message ? ['', body.message] : []),
         '',
         'You can read it, accept it or decline it online at your private link:',

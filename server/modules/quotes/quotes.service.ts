@@ -15,9 +15,7 @@ import { loadCatalogue } from '../catalogue/catalogue.service';
 import { loadCompanySettings, toSettingsDto } from '../settings/settings.service';
 import { lineRows, priceQuote, snapshotOf, toQuoteDto, type QuoteSnapshot } from './quote-dto';
 import { takeoffForSpace } from './takeoff-adapter';
-import { addDaysIso, todayIso } from '../../lib/dates';
-
-export { addDaysIso, todayIso };
+import { addDaysIso, todayIso } from '../../../shared/dates';
 
 export async function findJobInOrg(actor: { organisationId: string }, jobId: string, t?: Transaction): Promise<Job> {
   const job = await Job.findOne({ where: { id: jobId, organisationId: actor.organisationId }, include: [{ model: Customer, as: 'customer' }], transaction: t });

@@ -2,23 +2,12 @@ import { Op } from 'sequelize';
 import type { AssignResult, Capacity, InstallSettings, ScheduleJob, ScheduleWeek } from '../../../shared/api/schedule';
 import { quoteCautions } from '../../../shared/quote/cautions';
 import type { AppDeps } from '../../deps';
-import { addDaysIso as addDays } from '../../lib/dates';
+import { addDaysIso, formatDate, mondayOf, todayIso } from '../../../shared/dates';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { InstallSetting } from '../../db/models';
 import { ConflictError, fieldError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { jobAreasM2, planExclusionKinds } from '../job-sheet/takeoff-view';
-
-const DAY_MS = 86_400_000;
-
-/** The Monday on or before a 'YYYY-MM-DD' date (UTC calendar arithmetic, no time zones). */
-export function mondayOf(isoDate: string): string {
-  const d = new Date(`${isoDate}T00:00:00Z`);
-  const back = (d.getUTCDay() + 6) % 7;
-  return new Date(d.getTime() - back * DAY_MS).toISOString().slice(0, 10);
-}
-
-export { addDays };
 
 /** Whether a day's load is over the company's capacity (jobs per installer-day, or m² per installer-day). */
 export function isOverCapacity(load: { jobs: number; areaM2: number }, cap: Capacity): boolean {
@@ -61,8 +50,8 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
   return {
     /** The week from `weekStart`'s Monday: installers, their booked jobs, accepted jobs to book, and day loads. */
     async week(user: SessionUser, weekStart?: string): Promise<ScheduleWeek> {
-      const monday = mondayOf(weekStart ?? new Date().toISOString().slice(0, 10));
-      const days = Array.from({ length: 7 }, (_, i) => addDays(monday, i));
+      const monday = mondayOf(weekStart ?? todayIso());
+      const days = Array.from({ length: 7 }, (_, i) => addDaysIso(monday, i));
       const capacity = await loadInstallSettings(user.organisationId);
       const installers = await User.findAll({ where: { organisationId: user.organisationId, role: 'installer', active: true }, order: [['name', 'ASC']] });
       const booked = await Job.findAll({
@@ -112,7 +101,7 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
     async assign(
       user: SessionUser,
       body: { jobId: string; installerId: string; date: string; allowOverCapacity: boolean },
-      today = new Date().toISOString().slice(0, 10),
+      today = todayIso(),
     ): Promise<AssignResult> {
       if (body.date < today) throw fieldError('date', 'choose today or a later date');
       const job = await Job.findOne({ where: { id: body.jobId, organisationId: user.organisationId }, include: jobInclude });
@@ -138,7 +127,7 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
       const load = { jobs: sameDay.length + 1, areaM2: [job.id, ...sameDay.map((j) => j.id)].reduce((s, id) => s + (areas.get(id) ?? 0), 0) };
       const warnings: string[] = [];
       if (isOverCapacity(load, capacity)) {
-        const msg = `${installer.name} would have ${load.jobs} job${load.jobs === 1 ? '' : 's'} (${load.areaM2.toFixed(1)} m²) on ${body.date}; the day's capacity is ${capacity.maxJobsPerDay} job${capacity.maxJobsPerDay === 1 ? '' : 's'} or ${capacity.maxAreaM2PerDay} m².`;
+        const msg = `${installer.name} would have ${load.jobs} job${load.jobs === 1 ? '' : 's'} (${load.areaM2.toFixed(1)} m²) on ${formatDate(body.date)}; the day's capacity is ${capacity.maxJobsPerDay} job${capacity.maxJobsPerDay === 1 ? '' : 's'} or ${capacity.maxAreaM2PerDay} m².`;
         if (!body.allowOverCapacity) throw new ConflictError(msg, 'over_capacity');
         warnings.push(msg);
       }
@@ -156,13 +145,7 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
 
       const emailed: string[] = [];
       const address = [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', ');
-      const when = new Date(`${body.date}T12:00:00Z`).toLocaleDateString('en-GB', {
-        weekday: 'long',
-        day: 'numeric',
-        month: 'long',
-        year: 'numeric',
-        timeZone: 'UTC',
-      });
+      const when = formatDate(body.date, { weekday: true });
       const customer = job.customer;
       try {
         if (customer?.email) {

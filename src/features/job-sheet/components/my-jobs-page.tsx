@@ -1,16 +1,12 @@
 import { useEffect } from 'react';
 import { Link } from 'react-router-dom';
 import type { MyJob } from '../../../../shared/api/job-sheet';
+import { localTodayIso } from '../../../../shared/dates';
 import { EmptyState, ErrorState, LoadingState, PageHeader, StageBadge, formatAddress, formatDate } from '../../../components/ui';
 import { useMyJobs } from '../api/get-my-jobs';
 import { keepForOffline } from '../offline/register-sw';
 import { startOutbox } from '../offline/outbox';
 import { SyncStatus } from './sync-status';
-
-function todayIso(): string {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-}
 
 /** Today's jobs first, then the coming ones by date, then earlier ones, most recent first. */
 export function groupMyJobs(jobs: MyJob[], today: string) {
@@ -66,7 +62,7 @@ export default function MyJobsPage() {
   }, []);
   if (jobs.isPending) return <LoadingState label="Loading your jobs…" />;
   if (jobs.isError) return <ErrorState error={jobs.error} onRetry={() => jobs.refetch()} />;
-  const g = groupMyJobs(jobs.data, todayIso());
+  const g = groupMyJobs(jobs.data, localTodayIso());
   return (
     <div className="mx-auto max-w-xl text-lg">
       <PageHeader title="My jobs" subtitle="Open a job sheet once with signal: it then works in the loft without any." />

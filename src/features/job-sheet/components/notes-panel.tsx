@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatDateTime } from '../../../../shared/dates';
 import type { ShownNote } from '../merge-pending';
 
 /** Notes on the job: what was found, what was left, anything the office should know. */
@@ -12,7 +13,7 @@ export function NotesPanel({ notes, onAdd }: { notes: ShownNote[]; onAdd?: (text
           <li key={n.id} className="rounded-md border-2 border-graphite/20 bg-white p-3 text-lg">
             <p className="whitespace-pre-wrap">{n.text}</p>
             <p className="mt-1 text-sm text-graphite-light">
-              {n.byName}, {new Date(n.at).toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' })}
+              {n.byName}, {formatDateTime(n.at)}
               {n.pending && <strong className="text-straw-dark"> · waiting to send</strong>}
             </p>
           </li>

@@ -1,3 +1,4 @@
+import { formatDateTime } from '../../../../shared/dates';
 import type { ShownTick } from '../merge-pending';
 
 /** A large two-state button for ticking something off on site; shows who ticked it and when. */
@@ -32,6 +33,6 @@ export function TickButton({
 
 export function tickedByLine(tick: ShownTick | undefined): string {
   if (!tick) return '';
-  const when = new Date(tick.at).toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+  const when = formatDateTime(tick.at);
   return `${tick.done ? 'Ticked' : 'Reason given'} by ${tick.by.name}, ${when}${tick.pending ? ' · waiting to send' : ''}`;
 }

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { can } from '../../../../shared/auth/policies';
+import { addDaysIso, mondayOf, todayIso } from '../../../../shared/dates';
 import { Alert, Button, Card, CardTitle, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
 import { useCurrentUser } from '../../auth/use-current-user';
 import { useWeek } from '../api/get-week';
@@ -8,25 +9,10 @@ import { BookingForm } from './booking-form';
 import { InstallSettingsCard } from './install-settings-card';
 import { WeekGrid } from './week-grid';
 
-const DAY_MS = 86_400_000;
-
-function isoDay(d: Date) {
-  return d.toISOString().slice(0, 10);
-}
-
-function mondayOf(iso: string) {
-  const d = new Date(`${iso}T00:00:00Z`);
-  return isoDay(new Date(d.getTime() - ((d.getUTCDay() + 6) % 7) * DAY_MS));
-}
-
-function shift(iso: string, days: number) {
-  return isoDay(new Date(new Date(`${iso}T00:00:00Z`).getTime() + days * DAY_MS));
-}
-
 /** The office's week of installs: installers by day with their jobs, accepted jobs to book, capacity warnings. */
 export default function SchedulePage() {
   const user = useCurrentUser();
-  const [weekStart, setWeekStart] = useState(() => mondayOf(isoDay(new Date())));
+  const [weekStart, setWeekStart] = useState(() => mondayOf(todayIso()));
   const week = useWeek(weekStart);
   const canBook = can(user, 'jobs:assign');
 
@@ -38,13 +24,13 @@ export default function SchedulePage() {
         subtitle="Book accepted jobs for an installer and a day. The customer is e-mailed the date and how to prepare; the installer gets the job sheet link."
         actions={
           <div className="flex items-center gap-2">
-            <Button variant="secondary" size="sm" onClick={() => setWeekStart((w) => shift(w, -7))} aria-label="Previous week">
+            <Button variant="secondary" size="sm" onClick={() => setWeekStart((w) => addDaysIso(w, -7))} aria-label="Previous week">
               ‹ Prev
             </Button>
-            <Button variant="secondary" size="sm" onClick={() => setWeekStart(mondayOf(isoDay(new Date())))}>
+            <Button variant="secondary" size="sm" onClick={() => setWeekStart(mondayOf(todayIso()))}>
               This week
             </Button>
-            <Button variant="secondary" size="sm" onClick={() => setWeekStart((w) => shift(w, 7))} aria-label="Next week">
+            <Button variant="secondary" size="sm" onClick={() => setWeekStart((w) => addDaysIso(w, 7))} aria-label="Next week">
               Next ›
             </Button>
           </div>
@@ -81,11 +67,7 @@ export default function SchedulePage() {
                       </div>
                     </div>
                     {canBook && (
-                      <BookingForm
-                        job={job}
-                        installers={week.data.installers}
-                        defaultDate={week.data.days[0] < isoDay(new Date()) ? isoDay(new Date()) : week.data.days[0]}
-                      />
+                      <BookingForm job={job} installers={week.data.installers} defaultDate={week.data.days[0] < todayIso() ? todayIso() : week.data.days[0]} />
                     )}
                   </li>
                 ))}

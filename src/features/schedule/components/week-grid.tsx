@@ -1,9 +1,8 @@
 import { Link } from 'react-router-dom';
 import type { ScheduleWeek } from '../../../../shared/api/schedule';
-import { StageBadge } from '../../../components/ui';
+import { StageBadge, formatDate } from '../../../components/ui';
 
-const dayLabel = (iso: string) =>
-  new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+const dayLabel = (iso: string) => formatDate(iso, { weekday: true, year: false });
 
 /** Installers down the side, days across; each cell lists that installer's jobs and flags a day over capacity. */
 export function WeekGrid({ week }: { week: ScheduleWeek }) {
