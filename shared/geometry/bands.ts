@@ -133,7 +133,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
     }
   }
   const out: BandPiece[] = [];
-  let active: Edge[] = [];
+  const active: Edge[] = [];
   const cuts: number[] = [];
   // Crossings of the current sub-slab in parallel typed arrays: no object per crossing.
   let cap = 64;

@@ -20,7 +20,12 @@ export function AppShell({ user }: { user: Me }) {
   const outbox = useOutboxAvailable(can(user, 'outbox:read'));
   const items = navItemsFor(user, { outbox });
 
-  useEffect(() => setMenuOpen(false), [location.pathname]);
+  // Navigating closes the menu (adjusted during render, not in an effect).
+  const [menuPath, setMenuPath] = useState(location.pathname);
+  if (menuPath !== location.pathname) {
+    setMenuPath(location.pathname);
+    setMenuOpen(false);
+  }
   useEffect(() => {
     if (!menuOpen) return;
     const onKey = (e: KeyboardEvent) => e.key === 'Escape' && setMenuOpen(false);

@@ -66,6 +66,9 @@ export function PlanStage({ editor, takeoff, issues }: Props) {
       // Its own compositing layer, contained: redrawing the canvas then repaints only the canvas,
       // not the takeoff panel's text beside it (which matters without GPU raster).
       style={{ cursor: cursorFor(editor, session), willChange: 'transform', contain: 'strict' }}
+      // Focusable so the editor's keyboard shortcuts reach it; an application region to screen readers.
+      role="application"
+      aria-label="Plan drawing"
       tabIndex={0}
       data-testid="plan-canvas"
       {...handlers}

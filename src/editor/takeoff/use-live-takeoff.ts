@@ -45,7 +45,6 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
       worker.current = null;
       busy.current = false;
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
   function send(input: { plan: Plan; products: TakeoffProduct[]; settings?: Partial<TakeoffSettings> }) {
@@ -72,7 +71,6 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
     const input = { plan, products, settings };
     if (busy.current) pending.current = input;
     else send(input);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [plan, products, settings, dragging]);
 
   return run;

@@ -3,7 +3,7 @@ import { pxToMm, type ScreenPt } from '../geometry/coords';
 import { edgeMidpoint, hitCorner, hitEdge, hitEdgeMidpoint } from './hit-test';
 import { createPanner } from './pan';
 import { snapPoint } from './snap';
-import { DRAG_THRESHOLD_PX, hitPx, MIN_EDGE_PX_FOR_MIDPOINT, type Tool, type ToolContext, type ToolPointer } from './tool';
+import { DRAG_THRESHOLD_PX, hitPx, MIN_EDGE_PX_FOR_MIDPOINT, type Tool, type ToolContext } from './tool';
 
 type State =
   | { name: 'idle' }

@@ -21,13 +21,10 @@ export function HelpSheet() {
   const open = useEditorSelect((s) => s.session.helpOpen);
   if (!open) return null;
   return (
-    <div
-      role="dialog"
-      aria-label="Keyboard shortcuts"
-      className="absolute inset-0 z-20 flex items-center justify-center bg-graphite/30"
-      onClick={() => editor.store.setSession({ helpOpen: false })}
-    >
-      <div className="max-w-lg rounded-lg bg-paper p-5 shadow-xl" onClick={(e) => e.stopPropagation()}>
+    <div role="dialog" aria-label="Keyboard shortcuts" className="absolute inset-0 z-20 flex items-center justify-center">
+      {/* A click on the dim backdrop closes, as Escape and the Close button do from the keyboard. */}
+      <div aria-hidden="true" className="absolute inset-0 bg-graphite/30" onClick={() => editor.store.setSession({ helpOpen: false })} />
+      <div className="relative max-w-lg rounded-lg bg-paper p-5 shadow-xl">
         <h2 className="mb-3 text-lg font-semibold">Shortcuts</h2>
         <table className="text-sm">
           <tbody>

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { cn } from '../../lib/cn';
 
 type Props = {
@@ -17,7 +17,12 @@ type Props = {
 /** A number that commits on Enter or blur; Escape puts the current value back. */
 export function NumberField({ label, value, unit, step, min, max, onCommit, testId, className }: Props) {
   const [text, setText] = useState(String(value));
-  useEffect(() => setText(String(value)), [value]);
+  // A new value from outside (undo, another field) replaces the text, during render not in an effect.
+  const [shown, setShown] = useState(value);
+  if (shown !== value) {
+    setShown(value);
+    setText(String(value));
+  }
   const commit = () => {
     const v = Number(text.replace(',', '.'));
     if (text.trim() === '' || !Number.isFinite(v)) return setText(String(value));

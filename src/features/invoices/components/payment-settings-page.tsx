@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useState, type FormEvent } from 'react';
 import type { DepositMode } from '../../../../shared/api/payments';
 import { minorToDecimalString } from '../../../../shared/quote/money';
 import { readMoney } from '../../../../shared/quote/money-input';
@@ -21,14 +21,18 @@ export default function PaymentSettingsPage() {
   const [fixed, setFixed] = useState('');
   const [terms, setTerms] = useState('14');
   const [problem, setProblem] = useState<string | null>(null);
-  useEffect(() => {
-    if (!settings.data) return;
-    const s = settings.data.settings;
-    setMode(s.depositMode);
-    setPercent(s.depositPercentBp ? String(s.depositPercentBp / 100) : '');
-    setFixed(s.depositFixedMinor ? minorToDecimalString(s.depositFixedMinor, s.currency) : '');
-    setTerms(String(s.paymentTermsDays));
-  }, [settings.data]);
+  // Settings from the server fill the form (adjusted during render, not in an effect).
+  const [shown, setShown] = useState<typeof settings.data>(undefined);
+  if (settings.data !== shown) {
+    setShown(settings.data);
+    if (settings.data) {
+      const s = settings.data.settings;
+      setMode(s.depositMode);
+      setPercent(s.depositPercentBp ? String(s.depositPercentBp / 100) : '');
+      setFixed(s.depositFixedMinor ? minorToDecimalString(s.depositFixedMinor, s.currency) : '');
+      setTerms(String(s.paymentTermsDays));
+    }
+  }
   if (settings.isPending) return <LoadingState label="Loading payment settings…" />;
   if (settings.isError) return <ErrorState error={settings.error} onRetry={() => settings.refetch()} />;
   const { currency } = settings.data.settings;

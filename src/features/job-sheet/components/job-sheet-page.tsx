@@ -2,7 +2,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { ErrorState, LoadingState, StageBadge, formatAddress, formatDate } from '../../../components/ui';
-import { useCurrentUser } from '../../auth/use-current-user';
+import { useCurrentUser } from '../../auth';
 import { useJobSheet } from '../api/get-job-sheet';
 import { sheetKeys, sheetUrl } from '../api/keys';
 import { recordNote, recordPhoto, recordTick } from '../api/record';
@@ -46,6 +46,7 @@ export default function JobSheetPage() {
   const loaded = !!sheet.data;
   useEffect(() => {
     if (!loaded || offlineReady !== 'no' || !navigator.onLine) return;
+    // eslint-disable-next-line react-hooks/set-state-in-effect -- marks this effect's own request as started, so it is sent once
     setOfflineReady('saving');
     void keepForOffline(['/api/auth/me', '/api/my-jobs', sheetUrl(id)]).then((kept) => setOfflineReady(kept === null ? 'no' : 'yes'));
   }, [loaded, id, offlineReady]);

@@ -6,7 +6,7 @@ import { formatRateBp } from '../../../../shared/quote/tax';
 import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea, formatDate } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { publicQuotePdfUrl, useAnswerQuote, usePublicQuote } from '../api/public-quote';
-import { DepositAfterAccept } from '../../invoices/components/deposit-after-accept';
+import { DepositAfterAccept } from '../../invoices';
 
 /** What the customer sees through the private link: the quote, then accept (typed name + terms) or decline. */
 export default function PublicQuotePage() {

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { can } from '../../../../shared/auth/policies';
 import { computeQuoteTotals } from '../../../../shared/quote/totals';
@@ -17,7 +17,7 @@ import {
   formatDateTime,
 } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
-import { useCurrentUser } from '../../auth/use-current-user';
+import { useCurrentUser } from '../../auth';
 import { useQuote } from '../api/get-quote';
 import { useSendQuote } from '../api/send-quote';
 import { useUpdateQuote } from '../api/update-quote';
@@ -25,7 +25,7 @@ import { parseDraft, toDraft, type DraftLine } from './draft-lines';
 import { QuoteLinesEditor } from './quote-lines-editor';
 import { QuoteStatusBadge } from './quote-status-badge';
 import { QuoteTotalsPanel } from './quote-totals-panel';
-import { DepositStatus } from '../../invoices/components/deposit-status';
+import { DepositStatus } from '../../invoices';
 
 /** The quote builder: lines, totals, tax by rate, margin, valid-until, saving; save, send, download. */
 export default function QuotePage() {
@@ -40,13 +40,16 @@ export default function QuotePage() {
   const [notes, setNotes] = useState('');
   const [message, setMessage] = useState<string | null>(null);
 
-  useEffect(() => {
+  // Each quote version from the server resets the draft (adjusted during render, not in an effect).
+  const [shown, setShown] = useState<typeof quote.data>(undefined);
+  if (quote.data !== shown) {
+    setShown(quote.data);
     if (quote.data) {
       setLines(toDraft(quote.data));
       setValidUntil(quote.data.validUntil);
       setNotes(quote.data.notes);
     }
-  }, [quote.data]);
+  }
 
   const q = quote.data;
   const parsed = useMemo(() => (q && lines ? parseDraft(lines, q.currency, q.locale) : null), [q, lines]);

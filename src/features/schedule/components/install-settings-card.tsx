@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import type { InstallSettings } from '../../../../shared/api/schedule';
 import { Alert, Button, Card, CardTitle, Field, Input } from '../../../components/ui';
 import { useInstallSettings, useUpdateInstallSettings } from '../api/install-settings';
@@ -8,9 +8,12 @@ export function InstallSettingsCard() {
   const settings = useInstallSettings();
   const update = useUpdateInstallSettings();
   const [form, setForm] = useState<InstallSettings | null>(null);
-  useEffect(() => {
+  // Fresh settings from the server replace the form (adjusted during render, not in an effect).
+  const [shown, setShown] = useState<InstallSettings | undefined>(undefined);
+  if (settings.data !== shown) {
+    setShown(settings.data);
     if (settings.data) setForm(settings.data);
-  }, [settings.data]);
+  }
   if (!form) return null;
   return (
     <Card>

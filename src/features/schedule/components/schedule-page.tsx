@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { can } from '../../../../shared/auth/policies';
 import { addDaysIso, mondayOf, todayIso } from '../../../../shared/dates';
 import { Alert, Button, Card, CardTitle, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
-import { useCurrentUser } from '../../auth/use-current-user';
+import { useCurrentUser } from '../../auth';
 import { useWeek } from '../api/get-week';
 import { BookingForm } from './booking-form';
 import { InstallSettingsCard } from './install-settings-card';

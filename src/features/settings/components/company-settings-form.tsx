@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { companySettingsBodySchema, TAX_CLASS_LABELS, type CompanySettings } from '../../../../shared/api/settings';
 import { minorToDecimalString } from '../../../../shared/quote/money';
 import { parseMoney } from '../../../../shared/quote/money-input';
@@ -96,7 +96,15 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
   const [saved, setSaved] = useState(false);
   const save = useSaveCompanySettings();
   const logo = useUploadLogo();
-  useEffect(() => setV(toValues(settings)), [settings]);
+  // Bumped after each upload so the <img> fetches the new logo (the route answers no-cache).
+  const [logoVersion, setLogoVersion] = useState(0);
+  // New settings from the server (after a save) replace the form's values, during render rather
+  // than in an effect so the stale values are never drawn.
+  const [shown, setShown] = useState(settings);
+  if (shown !== settings) {
+    setShown(settings);
+    setV(toValues(settings));
+  }
 
   const field = (key: string, label: string, opts: { hint?: string; type?: string; area?: boolean; options?: Array<[string, string]> } = {}) => (
     <Field label={label} hint={opts.hint} error={errors[key]}>
@@ -163,7 +171,7 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
             </div>
             <div className="mt-4 flex flex-wrap items-center gap-3">
               {settings.hasLogo && (
-                <img src={`/api/settings/logo?v=${Date.now()}`} alt="Company logo" className="h-12 w-auto rounded border border-paper-line bg-white p-1" />
+                <img src={`/api/settings/logo?v=${logoVersion}`} alt="Company logo" className="h-12 w-auto rounded border border-paper-line bg-white p-1" />
               )}
               <label className="text-sm">
                 <span className="mr-2 font-medium">Logo (PNG or JPEG, up to 1 MB)</span>
@@ -172,7 +180,7 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
                   accept="image/png,image/jpeg"
                   onChange={(e) => {
                     const f = e.target.files?.[0];
-                    if (f) logo.mutate(f);
+                    if (f) logo.mutate(f, { onSuccess: () => setLogoVersion((n) => n + 1) });
                   }}
                 />
               </label>

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { EXTRA_KINDS, EXTRA_KIND_LABELS, TAX_CLASS_LABELS, extraBodySchema, productBodySchema, taxRateBodySchema } from '../../../../shared/api/settings';
 import { ButtonLink, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
 import { can } from '../../../../shared/auth/policies';
-import { useCurrentUser } from '../../auth/use-current-user';
+import { useCurrentUser } from '../../auth';
 import { useCompanySettings } from '../api/company-settings';
 import { CatalogueTable, type ColumnDef } from './catalogue-table';
 import { CompanySettingsForm } from './company-settings-form';
