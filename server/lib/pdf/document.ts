@@ -1,14 +1,28 @@
 import PDFDocument from 'pdfkit';
-import { FONTS, INK } from './fonts';
+import { FONTS } from './fonts';
+import { PALETTE } from '../../../shared/palette';
 
-/** A new A4 document with the app's fonts registered; `done()` resolves to the finished bytes. */
-export function newDocument(title: string) {
-  const doc = new PDFDocument({ size: 'A4', margin: 48, bufferPages: true, info: { Title: title, Producer: 'Quiltline', Creator: 'Quiltline' } });
+/** Page margin of every PDF, points (A4 is 595 × 842 pt). */
+export const MARGIN = 48;
+
+/**
+ * The base of every PDF (quote, invoice, job sheet, handover pack): A4, the same margins, the
+ * app's fonts ('ui' Inter, 'ui-bold' Inter SemiBold, 'ui-heavy' Inter Bold, 'mono' JetBrains
+ * Mono), graphite ink, and a "page n of m" footer added by `done()`, which resolves to the bytes.
+ */
+export function newDocument(title: string, opts: { author?: string } = {}) {
+  const doc = new PDFDocument({
+    size: 'A4',
+    margin: MARGIN,
+    bufferPages: true,
+    info: { Title: title, Producer: 'Quiltline', Creator: 'Quiltline', ...(opts.author ? { Author: opts.author } : {}) },
+  });
   doc.registerFont('ui', FONTS.regular);
   doc.registerFont('ui-bold', FONTS.semibold);
+  doc.registerFont('ui-heavy', FONTS.bold);
   doc.registerFont('mono', FONTS.mono);
   noContextualAlternates(doc);
-  doc.font('ui').fontSize(10).fillColor(INK.graphite);
+  doc.font('ui').fontSize(10).fillColor(PALETTE.graphite);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const finished = new Promise<Buffer>((resolve, reject) => {
@@ -28,8 +42,12 @@ export function newDocument(title: string) {
         doc
           .font('ui')
           .fontSize(7.5)
-          .fillColor(INK.graphiteLight)
-          .text(`${footer} · page ${i - range.start + 1} of ${range.count}`, 48, bottom, { width: doc.page.width - 96, align: 'center', lineBreak: false });
+          .fillColor(PALETTE.graphiteLight)
+          .text(`${footer} · page ${i - range.start + 1} of ${range.count}`, MARGIN, bottom, {
+            width: doc.page.width - 2 * MARGIN,
+            align: 'center',
+            lineBreak: false,
+          });
         doc.page.margins.bottom = oldBottom;
       }
       doc.end();
@@ -63,6 +81,52 @@ function noContextualAlternates(doc: PDFKit.PDFDocument) {
   (doc as unknown as { widthOfString: unknown }).widthOfString = (...a: unknown[]) => widthOfString(...withFeatures(a));
 }
 
+export interface Letterhead {
+  company: { name: string; lines: Array<string | undefined>; logo?: Buffer | null };
+  /** The document's name in large type on the right ("Quote", "Invoice", "Credit note"). */
+  title: string;
+  titleColor?: string;
+  /** Number, dates and references under the title, one a line. */
+  facts: string[];
+}
+
+/**
+ * The header of the documents a customer receives: logo and company on the left, the document's
+ * title and facts on the right. Leaves `doc.y` below the taller of the two columns.
+ */
+export function letterhead(doc: PDFKit.PDFDocument, h: Letterhead) {
+  const left = doc.page.margins.left;
+  const width = doc.page.width - left - doc.page.margins.right;
+  let top = doc.page.margins.top;
+  if (h.company.logo) {
+    try {
+      doc.image(h.company.logo, left, top, { fit: [120, 48] });
+      top += 54;
+    } catch {
+      // A logo pdfkit cannot read is left out rather than failing the document.
+    }
+  }
+  doc
+    .font('ui-bold')
+    .fontSize(15)
+    .fillColor(PALETTE.graphite)
+    .text(h.company.name, left, top, { width: width * 0.55 });
+  doc.font('ui').fontSize(9).fillColor(PALETTE.graphiteLight);
+  for (const l of h.company.lines) if (l) doc.text(l, left, doc.y, { width: width * 0.55 });
+  const leftBottom = doc.y;
+  const rx = left + width * 0.6;
+  doc
+    .font('ui-bold')
+    .fontSize(20)
+    .fillColor(h.titleColor ?? PALETTE.timber)
+    .text(h.title, rx, doc.page.margins.top, { width: width * 0.4, align: 'right' });
+  doc.font('mono').fontSize(9).fillColor(PALETTE.graphite);
+  for (const l of h.facts) doc.text(l, rx, doc.y, { width: width * 0.4, align: 'right' });
+  doc.y = Math.max(leftBottom, doc.y) + 14;
+  doc.x = left;
+  doc.font('ui').fontSize(10).fillColor(PALETTE.graphite);
+}
+
 /** Starts a new page when fewer than `needed` points remain above the bottom margin. */
 export function ensureSpace(doc: PDFKit.PDFDocument, needed: number) {
   if (doc.y + needed > doc.page.height - doc.page.margins.bottom - 20) doc.addPage();
@@ -71,16 +135,16 @@ export function ensureSpace(doc: PDFKit.PDFDocument, needed: number) {
 export function heading(doc: PDFKit.PDFDocument, text: string) {
   ensureSpace(doc, 40);
   doc.moveDown(0.6);
-  doc.font('ui-bold').fontSize(12).fillColor(INK.graphite).text(text, doc.page.margins.left);
+  doc.font('ui-bold').fontSize(12).fillColor(PALETTE.graphite).text(text, doc.page.margins.left);
   const y = doc.y + 2;
   doc
     .moveTo(doc.page.margins.left, y)
     .lineTo(doc.page.width - doc.page.margins.right, y)
     .lineWidth(0.6)
-    .strokeColor(INK.paperLine)
+    .strokeColor(PALETTE.paperLine)
     .stroke();
   doc.moveDown(0.5);
-  doc.font('ui').fontSize(9.5).fillColor(INK.graphite);
+  doc.font('ui').fontSize(9.5).fillColor(PALETTE.graphite);
 }
 
 export function bullets(doc: PDFKit.PDFDocument, items: string[]) {
@@ -88,7 +152,7 @@ export function bullets(doc: PDFKit.PDFDocument, items: string[]) {
   const width = doc.page.width - left - doc.page.margins.right;
   for (const item of items) {
     ensureSpace(doc, 24);
-    doc.font('ui').fontSize(9.5).fillColor(INK.graphite).text(`•  ${item}`, left, doc.y, { width, indent: 0 });
+    doc.font('ui').fontSize(9.5).fillColor(PALETTE.graphite).text(`•  ${item}`, left, doc.y, { width, indent: 0 });
     doc.moveDown(0.25);
   }
 }
@@ -105,7 +169,7 @@ export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[]
   const left = doc.page.margins.left;
   const drawHeader = () => {
     let x = left;
-    doc.font('ui-bold').fontSize(8.5).fillColor(INK.graphiteLight);
+    doc.font('ui-bold').fontSize(8.5).fillColor(PALETTE.graphiteLight);
     const y = doc.y;
     for (const c of columns) {
       doc.text(c.header, x + 2, y, { width: c.width - 4, align: c.align ?? 'left', lineBreak: false });
@@ -116,7 +180,7 @@ export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[]
       .moveTo(left, doc.y - 2)
       .lineTo(left + columns.reduce((a, c) => a + c.width, 0), doc.y - 2)
       .lineWidth(0.6)
-      .strokeColor(INK.graphiteLight)
+      .strokeColor(PALETTE.graphiteLight)
       .stroke();
   };
   ensureSpace(doc, 40);
@@ -139,12 +203,12 @@ export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[]
       doc
         .font(c.mono ? 'mono' : bold ? 'ui-bold' : 'ui')
         .fontSize(9)
-        .fillColor(INK.graphite)
+        .fillColor(PALETTE.graphite)
         .text(cell, x + 2, y + 2, { width: c.width - 4, align: c.align ?? 'left' });
       x += c.width;
     });
     doc.y = y + h;
-    doc.moveTo(left, doc.y).lineTo(x, doc.y).lineWidth(0.3).strokeColor(INK.paperLine).stroke();
+    doc.moveTo(left, doc.y).lineTo(x, doc.y).lineWidth(0.3).strokeColor(PALETTE.paperLine).stroke();
   });
   doc.x = left;
 }

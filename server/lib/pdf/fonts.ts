@@ -12,16 +12,3 @@ export const FONTS = {
   bold: require.resolve('@expo-google-fonts/inter/700Bold/Inter_700Bold.ttf'),
   mono: require.resolve('@expo-google-fonts/jetbrains-mono/400Regular/JetBrainsMono_400Regular.ttf'),
 };
-
-/** The notebook palette (tailwind.config.ts), as hex for pdfkit. */
-export const INK = {
-  graphite: '#33363b',
-  graphiteLight: '#6b7078',
-  timber: '#8a5a2b',
-  straw: '#d9b45a',
-  teal: '#2f7f7a',
-  brick: '#b0462f',
-  sky: '#9cc7e4',
-  paperLine: '#e7e0cf',
-  paper: '#fbf8f1',
-};

@@ -1,7 +1,7 @@
 import type { JobSheet } from '../../../shared/api/job-sheet';
 import { formatDate } from '../../../shared/dates';
 import { bullets, ensureSpace, heading, newDocument, table } from './document';
-import { INK } from './fonts';
+import { PALETTE } from '../../../shared/palette';
 import { drawPlan, type PlanForDrawing, type StripForDrawing } from './plan-drawing';
 
 const mm = (n: number) => `${Math.round(n)} mm`;
@@ -33,35 +33,35 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
   const width = doc.page.width - left - doc.page.margins.right;
   const a = sheet.job.propertyAddress;
 
-  doc.font('ui-bold').fontSize(18).fillColor(INK.timber).text('Job sheet', left, doc.y);
+  doc.font('ui-bold').fontSize(18).fillColor(PALETTE.timber).text('Job sheet', left, doc.y);
   doc
     .font('mono')
     .fontSize(10)
-    .fillColor(INK.graphite)
+    .fillColor(PALETTE.graphite)
     .text(`${sheet.job.reference} · install ${sheet.job.installDate ? formatDate(sheet.job.installDate) : 'date to be agreed'}`);
   doc.font('ui').fontSize(10).text([a.line1, a.line2, a.town, a.postcode].filter(Boolean).join(', '));
   doc
     .fontSize(9.5)
-    .fillColor(INK.graphiteLight)
+    .fillColor(PALETTE.graphiteLight)
     .text(`Customer: ${sheet.job.customer.name}${sheet.job.customer.phone ? ` · ${sheet.job.customer.phone}` : ''}`);
   doc.text(`Installer: ${sheet.job.installer?.name ?? 'not assigned yet'} · ${companyName}`);
-  if (sheet.job.accessNotes) doc.fillColor(INK.graphite).text(`Access: ${sheet.job.accessNotes}`, { width });
-  if (sheet.job.notes) doc.fillColor(INK.graphite).text(`Notes: ${sheet.job.notes}`, { width });
+  if (sheet.job.accessNotes) doc.fillColor(PALETTE.graphite).text(`Access: ${sheet.job.accessNotes}`, { width });
+  if (sheet.job.notes) doc.fillColor(PALETTE.graphite).text(`Notes: ${sheet.job.notes}`, { width });
 
   heading(doc, 'Safety first');
   bullets(doc, sheet.cautions);
 
   for (const space of sheet.spaces) {
     doc.addPage();
-    doc.font('ui-bold').fontSize(15).fillColor(INK.graphite).text(space.name, left, doc.y);
+    doc.font('ui-bold').fontSize(15).fillColor(PALETTE.graphite).text(space.name, left, doc.y);
     const facts = [
       space.netAreaM2 !== null ? `${space.netAreaM2.toFixed(1)} m² net` : '',
       space.uValueBefore !== null && space.uValueAfter !== null ? `U ${space.uValueBefore.toFixed(2)} → ${space.uValueAfter.toFixed(2)} W/m²K` : '',
       space.revision ? `plan revision ${space.revision}` : '',
     ].filter(Boolean);
-    doc.font('ui').fontSize(9).fillColor(INK.graphiteLight).text(facts.join(' · '));
+    doc.font('ui').fontSize(9).fillColor(PALETTE.graphiteLight).text(facts.join(' · '));
     if (space.problem) {
-      doc.moveDown(0.5).fillColor(INK.brick).fontSize(10).text(space.problem, { width });
+      doc.moveDown(0.5).fillColor(PALETTE.brick).fontSize(10).text(space.problem, { width });
       continue;
     }
     if (space.plan) {
@@ -70,14 +70,14 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
       );
       const boxY = doc.y + 6;
       const box = { x: left, y: boxY, width, height: 300 };
-      doc.rect(box.x, box.y, box.width, box.height).lineWidth(0.5).strokeColor(INK.paperLine).stroke();
+      doc.rect(box.x, box.y, box.width, box.height).lineWidth(0.5).strokeColor(PALETTE.paperLine).stroke();
       drawPlan(doc, space.plan as PlanForDrawing, box, { strips, showArrow: true });
       doc.y = boxY + box.height + 6;
       doc.x = left;
       doc
         .font('ui')
         .fontSize(7.5)
-        .fillColor(INK.graphiteLight)
+        .fillColor(PALETTE.graphiteLight)
         .text(
           'Straw: base strips between the joists. Teal: cross strips. Numbers are the laying order (from the eaves inward, finishing at the hatch). Red hatching: do not cover. Blue: eaves, keep the ventilation gap. Arrow: base lay direction.',
           left,
@@ -121,24 +121,24 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
       doc
         .rect(left, y + 1, 9, 9)
         .lineWidth(0.8)
-        .strokeColor(INK.graphite)
+        .strokeColor(PALETTE.graphite)
         .stroke();
       doc
         .font('ui-bold')
         .fontSize(9.5)
-        .fillColor(INK.graphite)
+        .fillColor(PALETTE.graphite)
         .text(c.title, left + 16, y, { width: width - 16 });
       doc
         .font('ui')
         .fontSize(8.5)
-        .fillColor(INK.graphiteLight)
+        .fillColor(PALETTE.graphiteLight)
         .text(c.detail, left + 16, doc.y, { width: width - 16 });
       doc.moveDown(0.3);
     }
   }
 
   doc.addPage();
-  doc.font('ui-bold').fontSize(15).fillColor(INK.graphite).text('Van load', left, doc.y);
+  doc.font('ui-bold').fontSize(15).fillColor(PALETTE.graphite).text('Van load', left, doc.y);
   doc.moveDown(0.3);
   table(
     doc,

@@ -1,5 +1,5 @@
 import type PDFKit from 'pdfkit';
-import { INK } from './fonts';
+import { PALETTE } from '../../../shared/palette';
 
 type Pt = [number, number];
 
@@ -59,7 +59,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
 
   doc.save();
   pathOf(doc, outline);
-  doc.fillColor(INK.paper).fill();
+  doc.fillColor(PALETTE.paper).fill();
   doc.restore();
 
   // Joists and strips, clipped to the outline.
@@ -73,7 +73,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
       doc
         .fillOpacity(s.role === 'base' ? 0.55 : 0.35)
         .lineWidth(0.3)
-        .fillAndStroke(s.role === 'base' ? INK.straw : INK.teal, INK.graphiteLight);
+        .fillAndStroke(s.role === 'base' ? PALETTE.straw : PALETTE.teal, PALETTE.graphiteLight);
     }
   }
   doc.fillOpacity(1);
@@ -95,7 +95,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
     const kMax = Math.floor((Math.max(...pn) - off) / j.centresMm);
     const t0 = Math.min(...pd),
       t1 = Math.max(...pd);
-    doc.lineWidth(0.4).strokeColor(INK.timber);
+    doc.lineWidth(0.4).strokeColor(PALETTE.timber);
     for (let k = kMin; k <= kMax && k - kMin < 2000; k += 1) {
       const c = off + k * j.centresMm;
       const p0 = map([n[0] * c + d[0] * t0, n[1] * c + d[1] * t0]);
@@ -107,7 +107,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
 
   // Strip numbers on top of the joists.
   if (opts.strips?.length) {
-    doc.fontSize(5.5).fillColor(INK.graphite);
+    doc.fontSize(5.5).fillColor(PALETTE.graphite);
     for (const s of opts.strips) {
       const first = s.parts[0] ?? [];
       if (!s.labelAt && first.length === 0) continue;
@@ -124,7 +124,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
       const pts = e.polygon.map(map);
       doc.save();
       pathOf(doc, pts);
-      doc.fillOpacity(0.15).fill(INK.brick);
+      doc.fillOpacity(0.15).fill(PALETTE.brick);
       doc.restore();
       doc.save();
       pathOf(doc, pts);
@@ -135,7 +135,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
         x1 = Math.max(...xs),
         y0 = Math.min(...ys),
         y1 = Math.max(...ys);
-      doc.lineWidth(0.5).strokeColor(INK.brick);
+      doc.lineWidth(0.5).strokeColor(PALETTE.brick);
       for (let s = x0 - (y1 - y0); s < x1; s += 4)
         doc
           .moveTo(s, y1)
@@ -143,15 +143,15 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
           .stroke();
       doc.restore();
       pathOf(doc, pts);
-      doc.lineWidth(0.8).strokeColor(INK.brick).stroke();
+      doc.lineWidth(0.8).strokeColor(PALETTE.brick).stroke();
     } else if (e.at) {
       const [x, y] = map(e.at);
-      doc.circle(x, y, 2.5).lineWidth(0.8).fillAndStroke('#ffffff', INK.brick);
+      doc.circle(x, y, 2.5).lineWidth(0.8).fillAndStroke('#ffffff', PALETTE.brick);
     }
   }
 
   // Eaves edges.
-  doc.lineWidth(3).strokeColor(INK.sky);
+  doc.lineWidth(3).strokeColor(PALETTE.sky);
   for (const i of plan.eavesEdges ?? []) {
     const a = outline[i],
       b = outline[(i + 1) % outline.length];
@@ -159,7 +159,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   }
 
   pathOf(doc, outline);
-  doc.lineWidth(1.2).strokeColor(INK.graphite).stroke();
+  doc.lineWidth(1.2).strokeColor(PALETTE.graphite).stroke();
 
   if (opts.showArrow && j) {
     // Lay direction of the base layer: along the joists.
@@ -171,7 +171,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
       dy = Math.sin(a) * r;
     doc
       .lineWidth(1)
-      .strokeColor(INK.graphite)
+      .strokeColor(PALETTE.graphite)
       .moveTo(cx - dx, cy - dy)
       .lineTo(cx + dx, cy + dy)
       .stroke();
@@ -181,7 +181,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
       .lineTo(cx + dx - 4 * Math.cos(ha - 0.5), cy + dy - 4 * Math.sin(ha - 0.5))
       .lineTo(cx + dx - 4 * Math.cos(ha + 0.5), cy + dy - 4 * Math.sin(ha + 0.5))
       .closePath()
-      .fill(INK.graphite);
+      .fill(PALETTE.graphite);
   }
-  doc.lineWidth(1).strokeColor(INK.graphite).fillColor(INK.graphite).fillOpacity(1);
+  doc.lineWidth(1).strokeColor(PALETTE.graphite).fillColor(PALETTE.graphite).fillOpacity(1);
 }

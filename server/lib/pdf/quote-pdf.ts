@@ -1,9 +1,9 @@
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
 import { ROUNDING_NOTE } from '../../../shared/quote/totals';
-import { bullets, ensureSpace, heading, newDocument, table } from './document';
+import { bullets, ensureSpace, heading, letterhead, newDocument, table } from './document';
 import { formatDate } from '../../../shared/dates';
-import { INK } from './fonts';
+import { PALETTE } from '../../../shared/palette';
 import { drawPlan, type PlanForDrawing } from './plan-drawing';
 
 /** Everything the customer's quote PDF prints. Money in minor units. */
@@ -37,60 +37,37 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;
 
-  // Header: logo and company on the left, the quote's facts on the right.
-  let top = doc.y;
-  if (d.company.logo) {
-    try {
-      doc.image(d.company.logo, left, top, { fit: [120, 48] });
-      top += 54;
-    } catch {
-      // A logo pdfkit cannot read is left out rather than failing the quote.
-    }
-  }
-  doc
-    .font('ui-bold')
-    .fontSize(15)
-    .fillColor(INK.graphite)
-    .text(d.company.name, left, top, { width: width * 0.55 });
-  doc.font('ui').fontSize(9).fillColor(INK.graphiteLight);
-  for (const l of [...d.company.addressLines, d.company.email, d.company.phone, d.company.taxNumber ? `VAT/tax no. ${d.company.taxNumber}` : ''].filter(
-    Boolean,
-  )) {
-    doc.text(l, left, doc.y, { width: width * 0.55 });
-  }
-  const leftBottom = doc.y;
-  const rx = left + width * 0.6;
-  doc
-    .font('ui-bold')
-    .fontSize(20)
-    .fillColor(INK.timber)
-    .text('Quote', rx, doc.page.margins.top, { width: width * 0.4, align: 'right' });
-  doc.font('mono').fontSize(9).fillColor(INK.graphite);
-  for (const l of [
-    `${d.quote.number}${d.quote.version > 1 ? ` v${d.quote.version}` : ''}`,
-    `Job ${d.quote.jobReference}`,
-    `Issued ${formatDate(d.quote.issueDate)}`,
-    `Valid until ${formatDate(d.quote.validUntil)}`,
-  ])
-    doc.text(l, rx, doc.y, { width: width * 0.4, align: 'right' });
-  doc.y = Math.max(leftBottom, doc.y) + 14;
+  letterhead(doc, {
+    company: {
+      name: d.company.name,
+      lines: [...d.company.addressLines, d.company.email, d.company.phone, d.company.taxNumber ? `VAT/tax no. ${d.company.taxNumber}` : ''],
+      logo: d.company.logo,
+    },
+    title: 'Quote',
+    facts: [
+      `${d.quote.number}${d.quote.version > 1 ? ` v${d.quote.version}` : ''}`,
+      `Job ${d.quote.jobReference}`,
+      `Issued ${formatDate(d.quote.issueDate)}`,
+      `Valid until ${formatDate(d.quote.validUntil)}`,
+    ],
+  });
 
   // Customer and property.
   const y0 = doc.y;
-  doc.font('ui-bold').fontSize(9).fillColor(INK.graphiteLight).text('FOR', left, y0);
+  doc.font('ui-bold').fontSize(9).fillColor(PALETTE.graphiteLight).text('FOR', left, y0);
   doc
     .font('ui')
     .fontSize(10)
-    .fillColor(INK.graphite)
+    .fillColor(PALETTE.graphite)
     .text(d.customer.name, left, doc.y, { width: width / 2 - 10 });
   for (const l of [d.customer.email, d.customer.phone].filter(Boolean)) doc.fontSize(9).text(l, left, doc.y, { width: width / 2 - 10 });
   const yl = doc.y;
   doc
     .font('ui-bold')
     .fontSize(9)
-    .fillColor(INK.graphiteLight)
+    .fillColor(PALETTE.graphiteLight)
     .text('PROPERTY', left + width / 2, y0);
-  doc.font('ui').fontSize(10).fillColor(INK.graphite);
+  doc.font('ui').fontSize(10).fillColor(PALETTE.graphite);
   for (const l of d.propertyAddressLines) doc.text(l, left + width / 2, doc.y, { width: width / 2 });
   doc.y = Math.max(yl, doc.y) + 6;
   doc.x = left;
@@ -107,19 +84,19 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
       for (let k = 0; k < 2 && i + k < d.spaces.length; k += 1) {
         const s = d.spaces[i + k];
         const bx = left + k * (boxW + 12);
-        doc.rect(bx, rowY, boxW, boxH).lineWidth(0.5).strokeColor(INK.paperLine).stroke();
+        doc.rect(bx, rowY, boxW, boxH).lineWidth(0.5).strokeColor(PALETTE.paperLine).stroke();
         drawPlan(doc, s.plan as PlanForDrawing, { x: bx, y: rowY, width: boxW, height: boxH });
         doc
           .font('ui-bold')
           .fontSize(9.5)
-          .fillColor(INK.graphite)
+          .fillColor(PALETTE.graphite)
           .text(s.name, bx, rowY + boxH + 4, { width: boxW });
         const facts = [
           s.netAreaM2 !== null ? `${s.netAreaM2.toFixed(1)} m² to insulate` : '',
           s.uBefore !== null && s.uAfter !== null ? `U-value ${s.uBefore.toFixed(2)} → ${s.uAfter.toFixed(2)} W/m²K` : '',
           ...s.layers,
         ].filter(Boolean);
-        doc.font('ui').fontSize(8.5).fillColor(INK.graphiteLight).text(facts.join(' · '), bx, doc.y, { width: boxW });
+        doc.font('ui').fontSize(8.5).fillColor(PALETTE.graphiteLight).text(facts.join(' · '), bx, doc.y, { width: boxW });
         maxY = Math.max(maxY, doc.y);
       }
       doc.y = maxY + 8;
@@ -128,7 +105,7 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     doc
       .font('ui')
       .fontSize(7.5)
-      .fillColor(INK.graphiteLight)
+      .fillColor(PALETTE.graphiteLight)
       .text(
         'Timber lines: joists. Red hatching: areas not covered (tank, hatch, boarded, clearances). Blue: the eaves, where the ventilation gap is kept.',
         left,
@@ -164,12 +141,12 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
   doc
     .font('ui')
     .fontSize(7.5)
-    .fillColor(INK.graphiteLight)
+    .fillColor(PALETTE.graphiteLight)
     .text(`${ROUNDING_NOTE} VAT at the rates in force on ${formatDate(d.quote.issueDate)}.`, left, doc.y + 2, { width });
   if (d.siteHours > 0) {
     doc
       .fontSize(9)
-      .fillColor(INK.graphite)
+      .fillColor(PALETTE.graphite)
       .text(`About ${d.siteHours} hours on site for a crew of ${d.crewSize}.`, left, doc.y + 4, { width });
   }
   if (d.notes) doc.fontSize(9).text(d.notes, left, doc.y + 4, { width });
@@ -185,14 +162,14 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     );
     doc
       .fontSize(7.5)
-      .fillColor(INK.graphiteLight)
+      .fillColor(PALETTE.graphiteLight)
       .text(
         "An estimate from the change in U-value, the area, a standard year's heating degree days and your heating system's efficiency; real savings depend on how the home is heated and used.",
         left,
         doc.y + 2,
         { width },
       );
-    doc.fillColor(INK.graphite);
+    doc.fillColor(PALETTE.graphite);
   }
 
   heading(doc, 'Safety and cautions');
@@ -217,7 +194,7 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     doc
       .font('mono')
       .fontSize(8)
-      .fillColor(INK.teal)
+      .fillColor(PALETTE.teal)
       .text(d.acceptUrl, left, doc.y + 4, { width, link: d.acceptUrl, underline: true });
   } else {
     doc.text('We will e-mail you a private link to accept or decline this quote online.', left, doc.y, { width });
@@ -225,7 +202,7 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
   doc
     .font('ui')
     .fontSize(9)
-    .fillColor(INK.graphite)
+    .fillColor(PALETTE.graphite)
     .text(
       `Or reply to ${d.company.email || 'us'}${d.company.phone ? `, or call ${d.company.phone}` : ''}, quoting ${d.quote.number}. This quote is valid until ${formatDate(d.quote.validUntil)}.`,
       left,

@@ -1,5 +1,5 @@
-import PDFDocument from 'pdfkit';
-import { FONTS } from '../../lib/pdf/fonts';
+import { PALETTE } from '../../../shared/palette';
+import { MARGIN, newDocument } from '../../lib/pdf/document';
 
 /** R_IP (h·ft²·°F/Btu) per R_SI (m²K/W); the usual conversion factor. */
 export const R_SI_TO_IP = 5.678263;
@@ -40,8 +40,8 @@ export const CARE_ADVICE = [
   'Wear gloves, goggles and a dust mask if you move the insulation, and tread only on joists or boards.',
 ];
 
-const INK = '#2b2b2b';
-const MUTED = '#5c5c5c';
+const INK = PALETTE.graphite;
+const MUTED = PALETTE.graphiteLight;
 
 /** R-value (m²K/W) of a layer of this thickness and conductivity; null when the conductivity is unknown. */
 export function layerRValueSI(thicknessMm: number, lambdaWmK: number | null): number | null {
@@ -53,27 +53,19 @@ const fmt = (n: number | null, digits: number, unit = '') => (n === null ? '—'
 
 /** Renders the customer's handover pack as a PDF (A4, Inter), returned as one Buffer. */
 export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `Handover pack ${d.reference}`, Author: d.companyName } });
-  doc.registerFont('body', FONTS.regular);
-  doc.registerFont('bold', FONTS.bold);
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
-  const width = doc.page.width - 96;
+  const { doc, done } = newDocument(`Handover pack ${d.reference}`, { author: d.companyName });
+  const width = doc.page.width - 2 * MARGIN;
 
-  doc.font('bold').fontSize(20).fillColor(INK).text('Loft insulation handover pack');
-  doc.font('body').fontSize(10).fillColor(MUTED).text(`${d.companyName} · job ${d.reference}`);
+  doc.font('ui-heavy').fontSize(20).fillColor(INK).text('Loft insulation handover pack');
+  doc.font('ui').fontSize(10).fillColor(MUTED).text(`${d.companyName} · job ${d.reference}`);
   doc.moveDown(0.6).fillColor(INK).fontSize(11);
   doc.text(`Customer: ${d.customerName}`);
   doc.text(`Property: ${d.address}`);
   doc.text(`Installed by ${d.installerName} on ${d.installedOn}`);
 
   for (const s of d.spaces) {
-    doc.moveDown(1).font('bold').fontSize(14).fillColor(INK).text(s.name);
-    doc.font('body').fontSize(10.5);
+    doc.moveDown(1).font('ui-heavy').fontSize(14).fillColor(INK).text(s.name);
+    doc.font('ui').fontSize(10.5);
     doc.text(`Area insulated: ${fmt(s.netAreaM2, 1, ' m²')}`);
     doc.text(`U-value before: ${fmt(s.uValueBefore, 2, ' W/m²K')}   after: ${fmt(s.uValueAfter, 2, ' W/m²K')}`);
     for (const l of s.layers) {
@@ -87,8 +79,8 @@ export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
     drawPhotos(doc, s.photos, width);
   }
 
-  doc.moveDown(1).font('bold').fontSize(13).fillColor(INK).text('Looking after your insulation', 48);
-  doc.font('body').fontSize(10.5);
+  doc.moveDown(1).font('ui-heavy').fontSize(13).fillColor(INK).text('Looking after your insulation', MARGIN);
+  doc.font('ui').fontSize(10.5);
   for (const line of CARE_ADVICE) doc.text(`• ${line}`, { width });
   doc
     .moveDown(0.4)
@@ -100,8 +92,7 @@ export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
     );
 
   if (d.signedReceipt) drawReceipt(doc, d, width);
-  doc.end();
-  return done;
+  return done(`${d.companyName} · Handover pack ${d.reference}`);
 }
 
 function drawPhotos(doc: PDFKit.PDFDocument, photos: HandoverData['spaces'][number]['photos'], width: number) {
@@ -109,18 +100,18 @@ function drawPhotos(doc: PDFKit.PDFDocument, photos: HandoverData['spaces'][numb
   const boxW = (width - 12) / 2;
   const boxH = 150;
   for (let i = 0; i < photos.length; i += 2) {
-    if (doc.y + boxH + 30 > doc.page.height - 48) doc.addPage();
+    if (doc.y + boxH + 30 > doc.page.height - MARGIN) doc.addPage();
     const top = doc.y + 6;
     photos.slice(i, i + 2).forEach((p, j) => {
-      const x = 48 + j * (boxW + 12);
+      const x = MARGIN + j * (boxW + 12);
       doc.image(p.jpeg, x, top, { fit: [boxW, boxH], align: 'center', valign: 'center' });
       doc
-        .font('body')
+        .font('ui')
         .fontSize(8.5)
         .fillColor(MUTED)
         .text(`${p.stage === 'before' ? 'Before' : 'After'}${p.caption ? ` — ${p.caption}` : ''}`, x, top + boxH + 2, { width: boxW });
     });
-    doc.x = 48;
+    doc.x = MARGIN;
     doc.y = top + boxH + 16;
   }
   doc.fillColor(INK);
@@ -128,8 +119,8 @@ function drawPhotos(doc: PDFKit.PDFDocument, photos: HandoverData['spaces'][numb
 
 function drawReceipt(doc: PDFKit.PDFDocument, d: HandoverData, width: number) {
   doc.addPage();
-  doc.font('bold').fontSize(14).fillColor(INK).text('Receipt of insulation installed');
-  doc.font('body').fontSize(10.5).moveDown(0.4);
+  doc.font('ui-heavy').fontSize(14).fillColor(INK).text('Receipt of insulation installed');
+  doc.font('ui').fontSize(10.5).moveDown(0.4);
   doc.text(`Job ${d.reference}, ${d.address}, installed on ${d.installedOn} by ${d.installerName}.`, { width });
   doc.moveDown(0.5);
   for (const s of d.spaces) {
@@ -144,7 +135,7 @@ function drawReceipt(doc: PDFKit.PDFDocument, d: HandoverData, width: number) {
   doc.moveDown(2);
   const y = doc.y;
   doc
-    .moveTo(48, y + 24)
+    .moveTo(MARGIN, y + 24)
     .lineTo(248, y + 24)
     .strokeColor(INK)
     .stroke();
@@ -155,7 +146,7 @@ function drawReceipt(doc: PDFKit.PDFDocument, d: HandoverData, width: number) {
   doc
     .fontSize(9)
     .fillColor(MUTED)
-    .text('Installer signature', 48, y + 28)
+    .text('Installer signature', MARGIN, y + 28)
     .text('Customer signature', 300, y + 28);
-  doc.x = 48;
+  doc.x = MARGIN;
 }

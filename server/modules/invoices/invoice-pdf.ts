@@ -5,11 +5,11 @@
  * here because fontkit fails on its ligature glyphs ("//", "->", "==") in URLs and notes. Every amount printed is the integer minor units of the invoice formatted
  * once, so the PDF, the API and the payment service agree to the penny.
  */
-import PDFDocument from 'pdfkit';
 import type { Invoice } from '../../../shared/api/invoices';
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
-import { FONTS, INK } from '../../lib/pdf/fonts';
+import { letterhead, MARGIN, newDocument } from '../../lib/pdf/document';
+import { PALETTE } from '../../../shared/palette';
 import { formatDate } from '../../../shared/dates';
 
 export interface CompanyDetails {
@@ -27,67 +27,45 @@ export function formatQuantity(quantity: number): string {
 
 /** Render the invoice (or credit note) to a PDF buffer. */
 export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {
-  const doc = new PDFDocument({
-    size: 'A4',
-    margin: 50,
-    info: { Title: `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`, Author: company.name },
-  });
-  doc.registerFont('regular', FONTS.regular);
-  doc.registerFont('semibold', FONTS.semibold);
-  // 'mono' = Inter with tabular figures, so columns of amounts line up.
-  doc.registerFont('mono', FONTS.regular);
+  const title = `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`;
+  const { doc, done } = newDocument(title, { author: company.name });
+  // Amounts in Inter with tabular figures, so columns line up.
   const TNUM = { features: ['tnum' as const] };
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
   const money = (m: number) => formatMoney(m, invoice.currency);
-  const left = 50;
-  const right = doc.page.width - 50;
+  const left = MARGIN;
+  const right = doc.page.width - MARGIN;
   const width = right - left;
   const isCredit = invoice.kind === 'credit_note';
 
-  // Header: company on the left, document title and number on the right.
-  doc
-    .font('semibold')
-    .fontSize(16)
-    .fillColor(INK.graphite)
-    .text(company.name, left, 50, { width: width / 2 });
-  doc.font('regular').fontSize(9).fillColor(INK.graphiteLight);
-  for (const l of [...company.addressLines, company.email, company.phone, company.taxNumber ? `VAT no. ${company.taxNumber}` : undefined]) {
-    if (l) doc.text(l, { width: width / 2 });
-  }
-  doc
-    .font('semibold')
-    .fontSize(20)
-    .fillColor(isCredit ? INK.brick : INK.timber)
-    .text(isCredit ? 'Credit note' : 'Invoice', left + width / 2, 50, { width: width / 2, align: 'right', ...TNUM });
-  doc
-    .font('mono')
-    .fontSize(11)
-    .fillColor(INK.graphite)
-    .text(invoice.number, { width: width / 2, align: 'right', ...TNUM });
-  doc.font('regular').fontSize(9).fillColor(INK.graphiteLight);
-  doc.text(`Issued ${formatDate(invoice.issueDate)}`, { width: width / 2, align: 'right', ...TNUM });
-  if (!isCredit && invoice.dueDate) doc.text(`Due ${formatDate(invoice.dueDate)}`, { width: width / 2, align: 'right', ...TNUM });
-  doc.text(`Job ${invoice.jobReference}`, { width: width / 2, align: 'right', ...TNUM });
-  if (invoice.quoteReference) doc.text(`Quote ${invoice.quoteReference}`, { width: width / 2, align: 'right', ...TNUM });
-  if (invoice.creditedInvoiceNumber) doc.text(`Credits invoice ${invoice.creditedInvoiceNumber}`, { width: width / 2, align: 'right', ...TNUM });
+  letterhead(doc, {
+    company: {
+      name: company.name,
+      lines: [...company.addressLines, company.email, company.phone, company.taxNumber ? `VAT no. ${company.taxNumber}` : undefined],
+    },
+    title: isCredit ? 'Credit note' : 'Invoice',
+    titleColor: isCredit ? PALETTE.brick : PALETTE.timber,
+    facts: [
+      invoice.number,
+      `Issued ${formatDate(invoice.issueDate)}`,
+      ...(!isCredit && invoice.dueDate ? [`Due ${formatDate(invoice.dueDate)}`] : []),
+      `Job ${invoice.jobReference}`,
+      ...(invoice.quoteReference ? [`Quote ${invoice.quoteReference}`] : []),
+      ...(invoice.creditedInvoiceNumber ? [`Credits invoice ${invoice.creditedInvoiceNumber}`] : []),
+    ],
+  });
 
   // Bill to
   let y = Math.max(doc.y, 150) + 16;
-  doc.font('semibold').fontSize(9).fillColor(INK.graphiteLight).text('BILL TO', left, y);
+  doc.font('ui-bold').fontSize(9).fillColor(PALETTE.graphiteLight).text('BILL TO', left, y);
   doc
-    .font('regular')
+    .font('ui')
     .fontSize(10)
-    .fillColor(INK.graphite)
+    .fillColor(PALETTE.graphite)
     .text(invoice.customerName, left, doc.y + 2);
   for (const l of invoice.billingAddress) doc.text(l);
   if (isCredit && invoice.reason) {
-    doc.moveDown(0.6).font('semibold').fontSize(9).fillColor(INK.graphiteLight).text('REASON');
-    doc.font('regular').fontSize(10).fillColor(INK.graphite).text(invoice.reason, { width });
+    doc.moveDown(0.6).font('ui-bold').fontSize(9).fillColor(PALETTE.graphiteLight).text('REASON');
+    doc.font('ui').fontSize(10).fillColor(PALETTE.graphite).text(invoice.reason, { width });
   }
 
   // Lines table
@@ -96,7 +74,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   const descWidth = cols.qty - left - 8;
   y = doc.y + 20;
   const header = () => {
-    doc.font('semibold').fontSize(8).fillColor(INK.graphiteLight);
+    doc.font('ui-bold').fontSize(8).fillColor(PALETTE.graphiteLight);
     doc.text('DESCRIPTION', cols.desc, y);
     doc.text('QTY', cols.qty, y, { width: 40, align: 'right', ...TNUM });
     doc.text('UNIT', cols.unit, y, { width: 65, align: 'right', ...TNUM });
@@ -104,20 +82,20 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     doc.text('NET', cols.net, y, { width: 65, align: 'right', ...TNUM });
     doc.text('TOTAL', cols.total, y, { width: 75, align: 'right', ...TNUM });
     y += 14;
-    doc.moveTo(left, y).lineTo(right, y).lineWidth(0.8).strokeColor(INK.graphite).stroke();
+    doc.moveTo(left, y).lineTo(right, y).lineWidth(0.8).strokeColor(PALETTE.graphite).stroke();
     y += 6;
   };
   header();
   for (const line of invoice.lines) {
-    doc.font('regular').fontSize(9.5);
+    doc.font('ui').fontSize(9.5);
     const descHeight = doc.heightOfString(line.description, { width: descWidth });
     if (y + descHeight > doc.page.height - 160) {
       doc.addPage();
-      y = 50;
+      y = MARGIN;
       header();
     }
-    doc.fillColor(INK.graphite).text(line.description, cols.desc, y, { width: descWidth });
-    doc.font('mono').fontSize(9);
+    doc.fillColor(PALETTE.graphite).text(line.description, cols.desc, y, { width: descWidth });
+    doc.font('ui').fontSize(9);
     doc.text(formatQuantity(line.quantity), cols.qty, y, { width: 40, align: 'right', ...TNUM });
     doc.text(money(line.unitPriceMinor), cols.unit, y, { width: 65, align: 'right', ...TNUM });
     doc.text(formatRateBp(line.rateBp), cols.rate, y, { width: 40, align: 'right', ...TNUM });
@@ -128,7 +106,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
       .moveTo(left, y - 3)
       .lineTo(right, y - 3)
       .lineWidth(0.4)
-      .strokeColor(INK.paperLine)
+      .strokeColor(PALETTE.paperLine)
       .stroke();
   }
 
@@ -136,12 +114,12 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   y += 8;
   const row = (label: string, value: string, bold = false) => {
     doc
-      .font(bold ? 'semibold' : 'regular')
+      .font(bold ? 'ui-bold' : 'ui')
       .fontSize(bold ? 11 : 9.5)
-      .fillColor(INK.graphite)
+      .fillColor(PALETTE.graphite)
       .text(label, right - 260, y, { width: 170, align: 'right', ...TNUM });
     doc
-      .font(bold ? 'semibold' : 'mono')
+      .font(bold ? 'ui-bold' : 'ui')
       .fontSize(bold ? 11 : 9.5)
       .text(value, right - 85, y, { width: 85, align: 'right', ...TNUM });
     y += bold ? 18 : 14;
@@ -158,24 +136,23 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   // How to pay
   if (!isCredit && invoice.status !== 'paid' && invoice.balanceMinor > 0 && invoice.payUrl) {
     y += 12;
-    doc.font('semibold').fontSize(10).fillColor(INK.timber).text('Pay online', left, y);
+    doc.font('ui-bold').fontSize(10).fillColor(PALETTE.timber).text('Pay online', left, y);
     doc
-      .font('regular')
+      .font('ui')
       .fontSize(9)
-      .fillColor(INK.graphite)
+      .fillColor(PALETTE.graphite)
       .text('Pay the balance by card at this private link:', left, doc.y + 2, { width });
-    doc.font('regular').fontSize(8.5).fillColor(INK.graphite).text(invoice.payUrl, { width, link: invoice.payUrl, underline: false });
+    doc.font('ui').fontSize(8.5).fillColor(PALETTE.graphite).text(invoice.payUrl, { width, link: invoice.payUrl, underline: false });
   } else if (!isCredit && invoice.status === 'paid' && invoice.paidAt) {
     y += 12;
     doc
-      .font('semibold')
+      .font('ui-bold')
       .fontSize(10)
-      .fillColor(INK.timber)
+      .fillColor(PALETTE.timber)
       .text(`Paid in full on ${formatDate(invoice.paidAt)}. Thank you.`, left, y);
   }
   if (invoice.notes) {
-    doc.moveDown(1).font('regular').fontSize(9).fillColor(INK.graphiteLight).text(invoice.notes, left, doc.y, { width });
+    doc.moveDown(1).font('ui').fontSize(9).fillColor(PALETTE.graphiteLight).text(invoice.notes, left, doc.y, { width });
   }
-  doc.end();
-  return done;
+  return done(`${company.name} · ${title}`);
 }

@@ -1,27 +1,7 @@
 import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 
-// The "site notebook" palette, the same values as tailwind.config.ts.
-export const PALETTE = {
-  paper: '#faf7f0',
-  paperLine: '#e7e0cf',
-  paperLineStrong: '#d8cfb8',
-  graphite: '#33363b',
-  graphiteLight: '#5b6068',
-  graphiteFaint: '#9aa0a8',
-  timber: '#8a5a2b',
-  straw: '#e2b94b',
-  strawLight: '#f3dc93',
-  strawDark: '#a57e16',
-  teal: '#1f8a84',
-  tealLight: '#9fd6d1',
-  tealDark: '#135e5a',
-  brick: '#b0462f',
-  brickLight: '#e8b4a6',
-  sky: '#a9d4ef',
-  skyLight: '#dceefa',
-  skyDark: '#3d86b8',
-  select: '#1f6fd1',
-} as const;
+// The canvas draws with the app's one palette (shared/palette.ts, also the Tailwind theme's).
+export { PALETTE } from '../../../shared/palette';
 
 export const MONO = '"JetBrains Mono", ui-monospace, monospace';
 export const SANS = 'Inter, system-ui, sans-serif';
