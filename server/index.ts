@@ -5,6 +5,7 @@ import { runMigrations } from './db/migrate';
 import { seedDemo } from './db/seeders/demo';
 import { seedQuotesDemo } from './db/seeders/quotes-demo';
 import { createDeps } from './deps';
+import { backfillStoredTakeoffs } from './modules/plan-revisions/plan-takeoff';
 
 /** Boots the API: config → deps → migrations → demo seed → listen. Listening only; the app is in app.ts. */
 async function main() {
@@ -25,6 +26,9 @@ async function main() {
     if (seeded) console.log('[server] demo data created (sign in as office@demo.example.com / quiltline-demo)');
     await seedQuotesDemo(); // demo company details, catalogue prices, tax rates (idempotent)
   }
+  // Revisions stored without a takeoff of the current format (older data, a format bump) get one.
+  const backfill = await backfillStoredTakeoffs((line) => console.warn(`[server] ${line}`));
+  if (backfill.updated || backfill.failed) console.log(`[server] takeoffs backfilled: ${backfill.updated} updated, ${backfill.failed} could not be worked out`);
   const app = createApp(deps);
   const server = app.listen(config.port, config.host, () => {
     console.log(`[server] Quiltline listening on http://${config.host}:${config.port}`);

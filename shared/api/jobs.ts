@@ -48,6 +48,8 @@ export const spaceSummarySchema = z.object({
   id: z.string(),
   name: z.string(),
   latestRevision: z.number().int().nullable(),
+  /** When the latest revision was saved (ISO); null when no plan was saved yet. */
+  latestRevisionAt: z.string().nullable(),
   updatedAt: z.string(),
 });
 export type SpaceSummary = z.infer<typeof spaceSummarySchema>;

@@ -1,5 +1,5 @@
-import type { Extra, ExtraKind, ExtraRules, LabourSettings, Product } from '../api/settings';
-import type { ExclusionKind } from '../plan/plan-schema';
+import type { Extra, ExtraRules, LabourSettings, Product } from '../api/settings';
+import { extrasFor, type SpaceForExtras } from './extras';
 import { multiplyMinor } from './money';
 import type { QuoteLineInput } from './totals';
 
@@ -17,17 +17,10 @@ export interface LayerForQuote {
   rollsByArea: number;
 }
 
-/** What the quote takes from one space's takeoff. */
-export interface SpaceForQuote {
+/** What the quote takes from one space's takeoff (the extras part is read by `extrasFor`). */
+export interface SpaceForQuote extends SpaceForExtras {
   spaceName: string;
   layers: LayerForQuote[];
-  exclusionCounts: Partial<Record<ExclusionKind, number>>;
-  /** Boarded area inside the outline, m² (board-raising legs are counted from it). */
-  boardedAreaM2: number;
-  /** Total length of the eaves edges, mm. */
-  eavesLengthMm: number;
-  /** Rafter spacing along the eaves, mm; taken as the joist centres (common practice). */
-  rafterCentresMm: number;
   yearlySaving?: { kwh: number; minor: number } | null;
 }
 
@@ -117,31 +110,9 @@ export function buildQuoteLines(
     });
   }
 
-  // Extras.
-  const count = (k: ExclusionKind) => spaces.reduce((n, s) => n + (s.exclusionCounts[k] ?? 0), 0);
-  const tanks = count('tank');
-  const r = settings.extraRules;
-  const boardedM2 = spaces.reduce((a, s) => a + s.boardedAreaM2, 0);
-  const trays = r.eavesTrays
-    ? spaces.reduce((n, s) => n + (s.eavesLengthMm > 0 && s.rafterCentresMm > 0 ? Math.ceil(s.eavesLengthMm / s.rafterCentresMm - 1e-9) : 0), 0)
-    : 0;
-  const wanted: Array<[ExtraKind, number, string]> = [
-    ['hatch_kit', count('hatch'), 'per loft hatch'],
-    ['tank_jacket', tanks, 'per cold water tank'],
-    ['pipe_lagging', Math.round(tanks * r.pipeLaggingMPerTank * 1000) / 1000, `${fmt(r.pipeLaggingMPerTank)} m per tank`],
-    ['walkway_board', tanks * r.walkwayBoardsPerTank, `${r.walkwayBoardsPerTank} per tank, spanning several joists`],
-    ['downlight_cover', count('downlight'), 'one fire-rated cover per downlight'],
-    ['eaves_tray', trays, 'one per rafter space along the eaves'],
-    [
-      'board_leg',
-      boardedM2 > 0 ? Math.ceil(Number((boardedM2 * r.boardLegsPerM2).toFixed(6))) : 0,
-      `${fmt(r.boardLegsPerM2)} per m² of boarded area (${fmt(boardedM2)} m²)`,
-    ],
-    ['disposal', r.disposalPerJob, 'offcuts and packaging'],
-  ];
+  // Extras, by the rule the van load uses too.
   let extraMinutes = 0;
-  for (const [kind, quantity, why] of wanted) {
-    if (!(quantity > 0)) continue;
+  for (const { kind, quantity, why } of extrasFor(spaces, settings.extraRules)) {
     const extra = catalogue.extras.find((e) => e.kind === kind && e.active);
     if (!extra) {
       warnings.push(`no active ${kind.replace('_', ' ')} in the catalogue: ${quantity} needed (${why})`);

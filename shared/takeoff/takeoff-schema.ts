@@ -205,6 +205,20 @@ export function readStoredTakeoff(value: unknown): Takeoff | null {
   return r.success ? (r.data as Takeoff) : null;
 }
 
+/**
+ * The artefact with every price zeroed (per layer, per product, the yearly saving in money and
+ * the fuel price), for viewers who never see prices; quantities and the product choice unchanged.
+ */
+export function takeoffWithoutPrices(t: Takeoff): Takeoff {
+  return {
+    ...t,
+    layers: t.layers.map((l) => ({ ...l, priceMinor: 0 })),
+    rollsPerProduct: t.rollsPerProduct.map((r) => ({ ...r, priceMinor: 0 })),
+    savings: { ...t.savings, moneyMinorPerYear: 0, fuelPriceMinorPerKwh: 0 },
+    settings: { ...t.settings, fuelPriceMinorPerKwh: 0 },
+  };
+}
+
 // Compile-time: the schema and the interfaces describe the same shape, both ways.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
 const sameTakeoff: Same<z.infer<typeof takeoffSchema>, Takeoff> = true;

@@ -21,7 +21,7 @@ const baseJob: Job = {
   installDate: '2027-01-18',
   accessNotes: 'Key with the neighbour at no. 4.',
   notes: '',
-  spaces: [{ id: 's1', name: 'Main loft', latestRevision: 3, updatedAt: '2026-11-20T10:00:00Z' }],
+  spaces: [{ id: 's1', name: 'Main loft', latestRevision: 3, latestRevisionAt: '2026-11-20T10:00:00Z', updatedAt: '2026-11-20T10:00:00Z' }],
   createdAt: '2026-11-01T10:00:00Z',
   updatedAt: '2026-11-20T10:00:00Z',
 };
@@ -54,7 +54,7 @@ function jobApi(over: Partial<Job> = {}, quotes: { status: string }[] = []) {
     }
     if (url.pathname === `/api/jobs/${JOB_ID}/events`) return { body: { events: [] } };
     if (url.pathname === `/api/jobs/${JOB_ID}/spaces` && method === 'POST') {
-      const space = { id: 's2', name: (body as { name: string }).name, latestRevision: null, updatedAt: '2026-12-01T10:00:00Z' };
+      const space = { id: 's2', name: (body as { name: string }).name, latestRevision: null, latestRevisionAt: null, updatedAt: '2026-12-01T10:00:00Z' };
       job = { ...job, spaces: [...job.spaces, space] };
       return { status: 201, body: { space } };
     }

@@ -17,6 +17,7 @@ import { createSequelize } from '../../server/db/sequelize';
 import type { Sequelize } from 'sequelize';
 import type { FakeSmtp } from '../../server/lib/fake-smtp';
 import { nextJobReference } from '../../server/modules/jobs/job-reference';
+import { storePlanRevision } from '../../server/modules/plan-revisions/plan-takeoff';
 import type { Plan } from '../../shared/plan/plan-schema';
 import '../../server/types';
 
@@ -169,9 +170,8 @@ export async function createJob(
     createdById: null,
   });
   const space = await Space.create({ organisationId: org.id, jobId: job.id, name: opts.spaceName ?? 'Main loft' });
-  if (opts.plan) {
-    await PlanRevision.create({ organisationId: org.id, spaceId: space.id, revision: 1, plan: opts.plan, authorId: null });
-  }
+  // Stored the way every writer stores a revision: with its takeoff from the company's catalogue and settings.
+  if (opts.plan) await storePlanRevision(Job.sequelize!, { organisationId: org.id, spaceId: space.id, authorId: null, plan: opts.plan });
   return { customer, job, space };
 }
 

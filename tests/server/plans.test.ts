@@ -24,14 +24,17 @@ beforeAll(async () => {
 afterAll(async () => ctx.close());
 
 describe('GET /api/spaces/:id/plan', () => {
-  it('returns a starter plan at revision 0 when nothing was saved, with the takeoff inputs', async () => {
+  it('returns a starter plan at revision 0 when nothing was saved, with the company takeoff inputs (no fallback catalogue)', async () => {
     const { space } = await createJob(org, { spaceName: 'Garage loft' });
     const agent = await loginAs(ctx.app, org.estimator);
     const res = await agent.get(`/api/spaces/${space.id}/plan`);
     expect(res.status).toBe(200);
     expect(res.body.revision).toBe(0);
     expect(res.body.plan).toMatchObject({ format: 'quiltline-plan/1', name: 'Garage loft', outline: [] });
-    expect(res.body.takeoffInputs.products.length).toBeGreaterThan(0);
+    expect(res.body.takeoff).toBeNull();
+    // This company has no products yet: the inputs say so instead of borrowing examples/products.json.
+    expect(res.body.takeoffInputs.products).toEqual([]);
+    expect(res.body.takeoffInputs.settings).toMatchObject({ wasteAllowancePct: 10 });
     expect(res.body.canWrite).toBe(true);
   });
 
@@ -87,12 +90,15 @@ describe('GET /api/spaces/:id/plan', () => {
     expect((await estimator.put(`/api/spaces/${space.id}/plan`).send({ plan, baseRevision: 0 })).status).toBe(201);
     // Act
     const res = await (await loginAs(ctx.app, priced.installer)).get(`/api/spaces/${space.id}/plan`);
-    // Assert: the installer's own computation from what it was given picks the office's roll.
-    const live = computeTakeoff(planSchema.parse(res.body.plan), {
-      products: parseProductCatalogue(res.body.takeoffInputs.products),
-      settings: res.body.takeoffInputs.settings,
-    });
-    expect(live.layers.filter((l) => l.role === 'cross').map((l) => l.productId)).toEqual([cheap.id]);
+    // Assert: the installer is shown the stored artefact with the office's choice; the plan is not patched.
+    expect(res.body.plan.products).toBeUndefined();
+    expect(res.body.takeoff.productChoice).toEqual({ source: 'catalogue', baseProductId: null, crossProductIds: [cheap.id] });
+    expect(res.body.takeoff.layers.filter((l: { role: string }) => l.role === 'cross').map((l: { productId: string }) => l.productId)).toEqual([cheap.id]);
+    // …and no price on the way.
+    expect(res.body.takeoff.layers.every((l: { priceMinor: number }) => l.priceMinor === 0)).toBe(true);
+    expect(res.body.takeoff.savings.moneyMinorPerYear).toBe(0);
+    const office = (await (await loginAs(ctx.app, priced.office)).get(`/api/spaces/${space.id}/plan`)).body.takeoff;
+    expect(office.layers.find((l: { role: string }) => l.role === 'cross').priceMinor).toBeGreaterThan(0);
   });
 });
 
@@ -184,6 +190,9 @@ describe('revisions', () => {
     expect(restored.body.revision).toBe(3);
     const now = await agent.get(`/api/spaces/${space.id}/plan`);
     expect(now.body.plan).toEqual(lShape());
+    // The restored revision carries the takeoff of the plan it restores, like any other save.
+    expect(now.body.takeoff.planName).toBe(lShape().name);
+    expect(now.body.takeoff.netAreaM2).toBe(computeTakeoff(lShape(), { products: [] }).netAreaM2);
     expect(await PlanRevision.count({ where: { spaceId: space.id } })).toBe(3);
 
     const stale = await agent.post(`/api/spaces/${space.id}/revisions/2/restore`).send({ baseRevision: 2 });

@@ -3,7 +3,11 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PlanRevision } from '../../server/db/models';
-import { addPlanRevision, getLatestRevision, parsePlanOr422 } from '../../server/modules/spaces/spaces.service';
+import { storePlanRevision } from '../../server/modules/plan-revisions/plan-takeoff';
+import { latestRevision, latestRevisions } from '../../server/modules/plan-revisions/revisions.repository';
+import { parsePlanOr422 } from '../../server/modules/spaces/spaces.service';
+import type { Plan } from '../../shared/plan/plan-schema';
+import { readStoredTakeoff } from '../../shared/takeoff/takeoff-schema';
 import { createJob, createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 
 let ctx: TestContext;
@@ -22,6 +26,17 @@ const plan = {
   joists: { angleDeg: 90, centresMm: 400, widthMm: 47, depthMm: 100 },
 };
 
+/** Stores a revision the way every writer does (with its takeoff). */
+function addPlanRevision(
+  seq: NonNullable<typeof PlanRevision.sequelize>,
+  actor: { id: string; organisationId: string },
+  spaceId: string,
+  p: Plan,
+  opts: { baseRevision?: number } = {},
+) {
+  return storePlanRevision(seq, { organisationId: actor.organisationId, spaceId, authorId: actor.id, plan: p, ...opts });
+}
+
 beforeAll(async () => {
   ctx = await createTestContext();
   org = await createOrgWithUsers(ctx);
@@ -38,6 +53,10 @@ describe('spaces', () => {
     const rev = await PlanRevision.findOne({ where: { spaceId: res.body.space.id } });
     expect(rev?.authorId).toBe(org.estimator.id);
     expect((rev?.plan as { eavesGapMm: number }).eavesGapMm).toBe(50); // schema default filled in
+    // Stored with its takeoff like every revision: 4 × 3 m, no exclusions.
+    const takeoff = readStoredTakeoff(rev?.takeoff);
+    expect(takeoff?.format).toBe('quiltline-takeoff/2');
+    expect(takeoff?.grossAreaM2).toBe(12);
     const jobRes = await estimator.get(`/api/jobs/${job.id}`);
     expect(jobRes.body.job.spaces.map((s: { name: string; latestRevision: number | null }) => [s.name, s.latestRevision])).toEqual([
       ['Main loft', null],
@@ -110,7 +129,7 @@ describe('plan revisions (service used by the plans module)', () => {
       [2, 'second'],
       [3, 'third'],
     ]);
-    expect((await getLatestRevision(space.id))?.revision).toBe(3);
+    expect((await latestRevision(space.id))?.revision).toBe(3);
   });
 
   it('refuses a save based on a stale revision (409)', async () => {
@@ -162,4 +181,25 @@ it('the example plans the seed uses exist and parse (examples/)', () => {
       }
     });
   expect(valid.length).toBeGreaterThan(0);
+});
+
+describe('latest revisions (one repository)', () => {
+  it('gives the latest revision of each space in one call, skipping spaces without a plan', async () => {
+    const a = await createJob(org);
+    const b = await createJob(org);
+    const actor = { id: org.office.id, organisationId: org.id };
+    const seq = PlanRevision.sequelize!;
+    const p = parsePlanOr422(plan);
+    await addPlanRevision(seq, actor, a.space.id, p);
+    await addPlanRevision(seq, actor, a.space.id, { ...p, name: 'a2' });
+    await addPlanRevision(seq, actor, b.space.id, { ...p, name: 'b1' });
+    const empty = await createJob(org);
+    const m = await latestRevisions([a.space.id, b.space.id, empty.space.id]);
+    expect([...m.keys()].sort()).toEqual([a.space.id, b.space.id].sort());
+    expect([m.get(a.space.id)?.revision, (m.get(a.space.id)?.plan as Plan).name]).toEqual([2, 'a2']);
+    expect([m.get(b.space.id)?.revision, (m.get(b.space.id)?.plan as Plan).name]).toEqual([1, 'b1']);
+    const light = await latestRevisions([a.space.id], { bodies: false });
+    expect(light.get(a.space.id)?.revision).toBe(2);
+    expect(light.get(a.space.id)?.plan).toBeUndefined();
+  });
 });

@@ -7,8 +7,10 @@ import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
 import { validatePlan } from '../../../shared/plan/validate-plan';
 import { REPO_ROOT } from '../../config';
 import type { AppDeps } from '../../deps';
-import { Customer, Job, JobEvent, Organisation, PlanRevision, Space, User } from '../models';
+import { Customer, Job, JobEvent, Organisation, Space, User } from '../models';
 import { nextJobReference } from '../../modules/jobs/job-reference';
+import { companyTakeoffInputs, storePlanRevision } from '../../modules/plan-revisions/plan-takeoff';
+import { seedDemoCatalogue } from '../../modules/settings/settings.service';
 
 /** Demo-only password, shown in the README. */
 export const DEMO_PASSWORD = 'quiltline-demo';
@@ -246,7 +248,8 @@ export function loadExamplePlans(dir = path.join(REPO_ROOT, 'examples')): Array<
 
 async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS, jobs: DemoJob[], plans: Plan[], passwordHash: string) {
   const { sequelize } = deps;
-  await sequelize.transaction(async (transaction) => {
+  const firstPlans: { spaceId: string; authorId: string | null; plan: Plan }[] = [];
+  const orgId = await sequelize.transaction(async (transaction) => {
     const org = await Organisation.create({ name }, { transaction });
     const byKey = new Map<string, User>();
     for (const u of users) {
@@ -305,21 +308,15 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
       for (const [position, spaceName] of j.spaces.entries()) {
         const space = await Space.create({ organisationId: org.id, jobId: job.id, name: spaceName, position }, { transaction });
         const plan = plans[planIndex++ % plans.length];
-        await PlanRevision.create(
-          {
-            organisationId: org.id,
-            spaceId: space.id,
-            revision: 1,
-            plan: { ...plan, name: spaceName },
-            takeoff: null,
-            authorId: author?.id ?? null,
-            note: 'demo plan',
-          },
-          { transaction },
-        );
+        firstPlans.push({ spaceId: space.id, authorId: author?.id ?? null, plan: { ...plan, name: spaceName } });
       }
     }
+    return org.id;
   });
+  // Plans are stored like any other revision, with their takeoff: that needs the company's catalogue first.
+  await seedDemoCatalogue(orgId);
+  const inputs = await companyTakeoffInputs(orgId);
+  for (const p of firstPlans) await storePlanRevision(sequelize, { organisationId: orgId, ...p, note: 'demo plan' }, { inputs });
 }
 
 /**

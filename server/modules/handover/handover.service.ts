@@ -5,7 +5,9 @@ import { formatDate } from '../../../shared/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
-import { isTakeoff, latestRevisionRows, sheetChecks } from '../job-sheet/takeoff-view';
+import { sheetChecks } from '../job-sheet/takeoff-view';
+import { latestRevisions } from '../plan-revisions/revisions.repository';
+import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
 import { loadInstallSettings } from '../schedule/schedule.service';
 import { loadCompanySettings } from '../settings/settings.service';
 import { renderHandoverPdf, type HandoverData } from './handover-pdf';
@@ -30,11 +32,11 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         ['createdAt', 'ASC'],
       ],
     });
-    const revisions = await latestRevisionRows(spaces.map((s) => s.id));
+    const revisions = await latestRevisions(spaces.map((s) => s.id));
     const photoRows = await JobPhoto.findAll({ where: { jobId: job.id }, order: [['takenAt', 'ASC']] });
     const out: HandoverData['spaces'] = [];
     for (const s of spaces) {
-      const t = revisions.get(s.id)?.takeoff;
+      const t = readStoredTakeoff(revisions.get(s.id)?.takeoff);
       const chosen = (['before', 'after'] as const).flatMap((stage) =>
         photoRows.filter((p) => p.spaceId === s.id && p.stage === stage).slice(0, PHOTOS_PER_STAGE),
       );
@@ -42,10 +44,10 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
       for (const p of chosen) photos.push({ stage: p.stage as 'before' | 'after', caption: p.caption, jpeg: await storage.get(p.storageKey) });
       out.push({
         name: s.name,
-        netAreaM2: isTakeoff(t) ? t.netAreaM2 : null,
-        uValueBefore: isTakeoff(t) ? t.uValueBefore : null,
-        uValueAfter: isTakeoff(t) ? t.uValueAfter : null,
-        layers: isTakeoff(t)
+        netAreaM2: t ? t.netAreaM2 : null,
+        uValueBefore: t ? t.uValueBefore : null,
+        uValueAfter: t ? t.uValueAfter : null,
+        layers: t
           ? t.layers.map((l) => ({
               productName: l.productName,
               role: l.role,
@@ -84,14 +86,18 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         await Job.findByPk(j.id, { transaction: t, lock: t.LOCK.UPDATE });
         const spaces = await Space.findAll({ where: { jobId: j.id }, transaction: t });
         if (spaces.length === 0) throw new ConflictError('this job has no spaces to finish', 'not_ready');
-        const revisions = await latestRevisionRows(spaces.map((s) => s.id));
+        const revisions = await latestRevisions(
+          spaces.map((s) => s.id),
+          { transaction: t },
+        );
         const ticks = await JobTick.findAll({ where: { jobId: j.id, kind: 'check' }, transaction: t });
         const afterPhotos = await JobPhoto.findAll({ where: { jobId: j.id, stage: 'after' }, transaction: t });
         const missing: { path: string; message: string }[] = [];
         const now = new Date();
         for (const s of spaces) {
           const row = revisions.get(s.id);
-          const checks = isTakeoff(row?.takeoff) ? sheetChecks(row.takeoff) : [];
+          const stored = readStoredTakeoff(row?.takeoff);
+          const checks = stored ? sheetChecks(stored) : [];
           for (const c of checks) {
             const tick = ticks.find((x) => x.spaceId === s.id && x.ref === c.code);
             const given = (reasons[`${s.id}:${c.code}`] ?? '').trim();

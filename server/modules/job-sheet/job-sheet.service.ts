@@ -7,7 +7,10 @@ import type { SessionUser } from '../../types';
 import { createPhotosService } from '../photos/photos.service';
 import { findSheetJob } from './job-access';
 import { createSiteRecordsService } from './site-records.service';
-import { latestRevisionRows, sheetSpace, vanLoad } from './takeoff-view';
+import { loadCatalogue } from '../catalogue/catalogue.service';
+import { latestRevisions } from '../plan-revisions/revisions.repository';
+import { loadCompanySettings } from '../settings/settings.service';
+import { sheetSpace, vanLoad } from './takeoff-view';
 
 /** Shown on every job sheet above the checks: the usual site cautions; local regulations and licensed practice come first. */
 export const SHEET_CAUTIONS = [
@@ -33,7 +36,8 @@ export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage
           ['createdAt', 'ASC'],
         ],
       });
-      const revisions = await latestRevisionRows(spaces.map((s) => s.id));
+      const revisions = await latestRevisions(spaces.map((s) => s.id));
+      const [settings, catalogue] = await Promise.all([loadCompanySettings(job.organisationId), loadCatalogue(job.organisationId)]);
       const completion = await JobCompletion.findByPk(job.id, { include: ['user'] });
       return {
         job: {
@@ -48,7 +52,7 @@ export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage
           installer: job.assignedInstaller ? { id: job.assignedInstaller.id, name: job.assignedInstaller.name } : null,
         },
         spaces: spaces.map((s) => sheetSpace(s, revisions.get(s.id))),
-        vanLoad: vanLoad([...revisions.values()]),
+        vanLoad: vanLoad([...revisions.values()], settings.extraRules, catalogue.extras),
         cautions: SHEET_CAUTIONS,
         ticks: await records.listTicks(job.id),
         notes: await records.listNotes(job.id),

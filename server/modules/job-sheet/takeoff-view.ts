@@ -1,29 +1,19 @@
-import { QueryTypes } from 'sequelize';
 import type { SheetCheck, SheetCut, SheetLayer, SheetRoll, SheetSpace, SheetStrip, VanLoad } from '../../../shared/api/job-sheet';
+import { EXTRA_KIND_LABELS, type Extra, type ExtraKind, type ExtraRules } from '../../../shared/api/settings';
 import type { ExclusionKind } from '../../../shared/plan/plan-schema';
+import { extrasFor } from '../../../shared/quote/extras';
+import { spaceForQuote } from '../../../shared/quote/from-takeoff';
+import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
 import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/takeoff-types';
-import { Job } from '../../db/models';
-import { isTakeoff } from '../plans/plans.takeoff';
+import { latestRevisionsOfJobs } from '../plan-revisions/revisions.repository';
 
 /**
- * The installer's view of saved takeoffs. Every field is copied by name: a takeoff also carries
- * prices (per layer, per product, yearly savings in money) and none of that may reach an installer.
+ * The installer's view of stored takeoff artefacts. Every field is copied by name: a takeoff also
+ * carries prices (per layer, per product, yearly savings in money) and none of that may reach an installer.
  */
 
-export type RevisionRow = { space_id: string; revision: number; plan: unknown; takeoff: unknown };
-
-/** The latest plan revision of each space (one query). */
-export async function latestRevisionRows(spaceIds: string[]): Promise<Map<string, RevisionRow>> {
-  if (spaceIds.length === 0) return new Map();
-  const rows = await Job.sequelize!.query<RevisionRow>(
-    `SELECT DISTINCT ON (space_id) space_id, revision, plan, takeoff
-       FROM plan_revisions WHERE space_id IN (:ids) ORDER BY space_id, revision DESC`,
-    { replacements: { ids: spaceIds }, type: QueryTypes.SELECT },
-  );
-  return new Map(rows.map((r) => [r.space_id, r]));
-}
-
-export { isTakeoff };
+/** What the sheet reads from a space's latest revision. */
+export type RevisionRow = { revision: number; plan: unknown; takeoff: unknown };
 
 export const layerKeyOf = (l: Pick<TakeoffLayer, 'role' | 'roleIndex'>) => (l.role === 'base' ? 'base' : `cross${l.roleIndex + 1}`);
 const layerLabel = (l: TakeoffLayer) => (l.role === 'base' ? 'Base layer' : `Cross layer ${l.roleIndex + 1}`);
@@ -53,13 +43,6 @@ export function sheetChecks(takeoff: Takeoff): SheetCheck[] {
     .map((c) => ({ code: String(c.code), title: CHECK_TITLES[c.code] ?? String(c.message).split(/[.:;]/)[0], detail: String(c.message) }));
 }
 
-type Pair = [number, number];
-/** A strip's shape: `polygons` in current takeoffs, a single `polygon` in ones saved before that change. */
-function stripPolygons(s: TakeoffLayer['strips'][number]): Pair[][] {
-  const loose = s as unknown as { polygons?: Pair[][]; polygon?: Pair[] };
-  return loose.polygons ?? (loose.polygon ? [loose.polygon] : []);
-}
-
 function sheetLayer(l: TakeoffLayer): SheetLayer {
   const key = layerKeyOf(l);
   return {
@@ -75,7 +58,7 @@ function sheetLayer(l: TakeoffLayer): SheetLayer {
 }
 
 function sheetStrip(key: string, s: TakeoffLayer['strips'][number]): SheetStrip {
-  const polygons = stripPolygons(s).map((poly) => poly.map((p) => [Number(p[0]), Number(p[1])] as [number, number]));
+  const polygons = s.polygons.map((poly) => poly.map((p) => [Number(p[0]), Number(p[1])] as [number, number]));
   return {
     id: `${key}:${s.number}`,
     number: s.number,
@@ -152,7 +135,8 @@ export function sheetSpace(space: { id: string; name: string }, row: RevisionRow
   if (!row)
     return { id: space.id, name: space.name, revision: null, plan: null, ...empty, problem: 'No plan has been drawn for this space yet: ask the office.' };
   const plan = sheetPlan(row.plan);
-  if (!isTakeoff(row.takeoff)) {
+  const t = readStoredTakeoff(row.takeoff);
+  if (!t) {
     return {
       id: space.id,
       name: space.name,
@@ -162,7 +146,6 @@ export function sheetSpace(space: { id: string; name: string }, row: RevisionRow
       problem: 'The takeoff for this plan has not been worked out: ask the office to open and save the plan.',
     };
   }
-  const t = row.takeoff;
   return {
     id: space.id,
     name: space.name,
@@ -178,63 +161,45 @@ export function sheetSpace(space: { id: string; name: string }, row: RevisionRow
   };
 }
 
+const EXTRA_UNITS: Partial<Record<ExtraKind, string>> = { pipe_lagging: 'm', disposal: 'job' };
+
 /**
- * Rolls per product over all spaces (from the roll plan) and the extras the plans call for.
- * Extras: one hatch kit per hatch, a jacket per tank, a cover per downlight, an eaves tray per
- * rafter space along the eaves with rafters taken at the joist centres, three walkway boards per
- * tank — common practice, not a standard; the office's quote may list more.
+ * Rolls per product over all spaces (from the roll plan) and the extras, by the same rule and the
+ * company settings the quote uses (shared/quote/extras.ts), named as in the company catalogue.
  */
-export function vanLoad(rows: RevisionRow[]): VanLoad {
+export function vanLoad(rows: RevisionRow[], rules: ExtraRules, catalogueExtras: readonly Pick<Extra, 'kind' | 'name' | 'unit' | 'active'>[]): VanLoad {
   const rolls = new Map<string, { productName: string; thicknessMm: number; count: number }>();
-  const counts: Record<string, number> = {};
-  let eavesTrays = 0;
-  let boardedM2 = 0;
+  const spaces = [];
   for (const row of rows) {
-    if (!isTakeoff(row.takeoff)) continue;
-    const t = row.takeoff;
+    const t = readStoredTakeoff(row.takeoff);
+    if (!t) continue;
     for (const l of t.layers) {
       const k = `${l.productName}|${l.thicknessMm}`;
       const r = rolls.get(k) ?? { productName: String(l.productName), thicknessMm: Number(l.thicknessMm), count: 0 };
       r.count += Number(l.rollsByPacking);
       rolls.set(k, r);
     }
-    for (const [kind, n] of Object.entries(t.exclusions?.countsByKind ?? {})) counts[kind] = (counts[kind] ?? 0) + Number(n);
-    const centres = (row.plan as PlanLike | null)?.joists?.centresMm ?? 400;
-    eavesTrays += Math.ceil((t.eaves?.totalLengthMm ?? 0) / centres);
-    boardedM2 += Number(t.exclusions?.boardedAreaM2 ?? 0);
+    spaces.push(spaceForQuote('', t, (row.plan as PlanLike | null)?.joists?.centresMm));
   }
-  const extras: VanLoad['extras'] = [];
-  const add = (label: string, quantity: number, unit: string) => quantity > 0 && extras.push({ label, quantity, unit });
-  add('Hatch insulation and draught-seal kit', counts.hatch ?? 0, 'each');
-  add('Tank jacket', counts.tank ?? 0, 'each');
-  add('Pipe lagging for the tank pipes', counts.tank ? 1 : 0, 'set');
-  add('Fire-rated downlight cover', counts.downlight ?? 0, 'each');
-  add('Eaves ventilation tray', eavesTrays, 'each');
-  add('Walkway board', (counts.tank ?? 0) * 3, 'each');
-  add('Board-raising legs for the boarded area', Math.round(boardedM2 * 10) / 10, 'm²');
+  const extras: VanLoad['extras'] = extrasFor(spaces, rules).map(({ kind, quantity }) => {
+    const item = catalogueExtras.find((e) => e.kind === kind && e.active);
+    return { label: item?.name ?? EXTRA_KIND_LABELS[kind], quantity, unit: item?.unit ?? EXTRA_UNITS[kind] ?? 'each' };
+  });
   return { rolls: [...rolls.values()].sort((a, b) => a.productName.localeCompare(b.productName)), extras };
 }
 
-/** Net area to insulate per job, m², summed over the latest takeoffs of its spaces (jobs with none are absent). */
+/** Net area to insulate per job, m², summed over the stored takeoffs of its spaces' latest revisions (jobs with none are absent). */
 export async function jobAreasM2(jobIds: string[]): Promise<Map<string, number>> {
-  if (jobIds.length === 0) return new Map();
-  const rows = await Job.sequelize!.query<{ job_id: string; takeoff: unknown }>(
-    `SELECT DISTINCT ON (r.space_id) s.job_id, r.takeoff
-       FROM plan_revisions r JOIN spaces s ON s.id = r.space_id
-      WHERE s.job_id IN (:ids) ORDER BY r.space_id, r.revision DESC`,
-    { replacements: { ids: jobIds }, type: QueryTypes.SELECT },
-  );
   const out = new Map<string, number>();
-  for (const r of rows) if (isTakeoff(r.takeoff)) out.set(r.job_id, (out.get(r.job_id) ?? 0) + Number(r.takeoff.netAreaM2));
+  for (const { space, revision } of await latestRevisionsOfJobs(jobIds)) {
+    const t = readStoredTakeoff(revision?.takeoff);
+    if (t) out.set(space.jobId, (out.get(space.jobId) ?? 0) + t.netAreaM2);
+  }
   return out;
 }
 
 /** Exclusion kinds in the latest plans of a job's spaces (for the customer's preparation e-mail). */
 export async function planExclusionKinds(jobId: string): Promise<ExclusionKind[]> {
-  const rows = await Job.sequelize!.query<{ plan: PlanLike }>(
-    `SELECT DISTINCT ON (r.space_id) r.plan FROM plan_revisions r JOIN spaces s ON s.id = r.space_id
-      WHERE s.job_id = :jobId ORDER BY r.space_id, r.revision DESC`,
-    { replacements: { jobId }, type: QueryTypes.SELECT },
-  );
-  return [...new Set(rows.flatMap((r) => (r.plan?.exclusions ?? []).map((e) => e.kind as ExclusionKind)))];
+  const rows = await latestRevisionsOfJobs([jobId]);
+  return [...new Set(rows.flatMap((r) => ((r.revision?.plan as PlanLike | undefined)?.exclusions ?? []).map((e) => e.kind as ExclusionKind)))];
 }

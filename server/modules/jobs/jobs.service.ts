@@ -1,4 +1,4 @@
-import { Op, QueryTypes, type Includeable, type Order, type WhereOptions } from 'sequelize';
+import { Op, type Includeable, type Order, type WhereOptions } from 'sequelize';
 import type { Job as JobDto, JobBody, JobEvent as JobEventDto, JobListQuery, JobPatch, InstallerOption, JobStage } from '../../../shared/api/jobs';
 import { JOB_STAGES } from '../../../shared/api/jobs';
 import { can } from '../../../shared/auth/policies';
@@ -8,6 +8,7 @@ import { ForbiddenError, NotFoundError, fieldError } from '../../lib/errors';
 import { redactPrices } from '../../lib/redact';
 import type { SessionUser } from '../../types';
 import { likePattern } from '../customers/customers.service';
+import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { nextJobReference } from './job-reference';
 
 const INCLUDE: Includeable[] = [
@@ -44,17 +45,11 @@ export async function recordJobEvent(
   await JobEvent.create({ organisationId: job.organisationId, jobId: job.id, userId: actor?.id ?? null, kind, data });
 }
 
-async function latestRevisions(spaceIds: string[]): Promise<Map<string, number>> {
-  if (!spaceIds.length) return new Map();
-  const rows = await Job.sequelize!.query<{ space_id: string; latest: number }>(
-    'SELECT space_id, max(revision)::int AS latest FROM plan_revisions WHERE space_id IN (:ids) GROUP BY space_id',
-    { replacements: { ids: spaceIds }, type: QueryTypes.SELECT },
-  );
-  return new Map(rows.map((r) => [r.space_id, r.latest]));
-}
-
 async function toDtos(jobs: Job[], actor: SessionUser): Promise<JobDto[]> {
-  const latest = await latestRevisions(jobs.flatMap((j) => (j.spaces ?? []).map((s) => s.id)));
+  const latest = await latestRevisions(
+    jobs.flatMap((j) => (j.spaces ?? []).map((s) => s.id)),
+    { bodies: false },
+  );
   const dtos = jobs.map<JobDto>((j) => ({
     id: j.id,
     reference: j.reference,
@@ -67,7 +62,16 @@ async function toDtos(jobs: Job[], actor: SessionUser): Promise<JobDto[]> {
     notes: j.notes,
     spaces: [...(j.spaces ?? [])]
       .sort((a, b) => a.position - b.position || a.createdAt.getTime() - b.createdAt.getTime())
-      .map((s) => ({ id: s.id, name: s.name, latestRevision: latest.get(s.id) ?? null, updatedAt: s.updatedAt.toISOString() })),
+      .map((s) => {
+        const rev = latest.get(s.id);
+        return {
+          id: s.id,
+          name: s.name,
+          latestRevision: rev?.revision ?? null,
+          latestRevisionAt: rev?.createdAt.toISOString() ?? null,
+          updatedAt: s.updatedAt.toISOString(),
+        };
+      }),
     createdAt: j.createdAt.toISOString(),
     updatedAt: j.updatedAt.toISOString(),
   }));

@@ -4,13 +4,14 @@ import { can } from '../../../shared/auth/policies';
 import { PLAN_FORMAT, type Plan } from '../../../shared/plan/plan-schema';
 import { InvalidPlanError } from '../../../shared/plan/plan-messages';
 import { validatePlan, type PlanMessage } from '../../../shared/plan/validate-plan';
-import { computeTakeoff, type Takeoff } from '../../../shared/takeoff/compute-takeoff';
+import { readStoredTakeoff, takeoffWithoutPrices } from '../../../shared/takeoff/takeoff-schema';
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { AppError, ValidationError, type ErrorDetail } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { addPlanRevision, findSpaceForUser, getLatestRevision, getRevision, listRevisions } from '../spaces/spaces.service';
-import { isTakeoff, takeoffInputsFor } from './plans.takeoff';
+import { companyTakeoffInputs, storePlanRevision, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
+import { getRevision, latestRevision, listRevisions } from '../plan-revisions/revisions.repository';
+import { findSpaceForUser } from '../spaces/spaces.service';
 
 export const BACKGROUND_MAX_BYTES = 8 * 1024 * 1024;
 const IMAGE_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp', 'image/gif': 'gif' };
@@ -50,40 +51,40 @@ function invalidPlan(errors: PlanMessage[]): ValidationError {
 export function createPlansService(deps: AppDeps) {
   const { sequelize, storage } = deps;
 
-  /** Validates with the engine and computes the takeoff the revision keeps; 422 with the engine's messages. */
-  async function checkedTakeoff(actor: SessionUser, input: unknown): Promise<{ plan: Plan; takeoff: Takeoff }> {
+  /** Validates, computes the takeoff and stores both as the next revision; 422 with the engine's messages. */
+  async function save(actor: SessionUser, spaceId: string, input: unknown, opts: { baseRevision?: number; note?: string }) {
     const v = validatePlan(input);
     if (!v.ok) throw invalidPlan(v.errors);
-    const { products, settings } = await takeoffInputsFor(actor.organisationId, { withPrices: true });
     try {
-      return { plan: v.plan, takeoff: computeTakeoff(v.plan, { products, settings }) };
+      const { revision: row, takeoff } = await storePlanRevision(sequelize, {
+        organisationId: actor.organisationId,
+        spaceId,
+        authorId: actor.id,
+        plan: v.plan,
+        ...opts,
+      });
+      return { plan: v.plan, revision: row.revision, createdAt: row.createdAt.toISOString(), netAreaM2: takeoff.netAreaM2 };
     } catch (e) {
       if (e instanceof InvalidPlanError) throw invalidPlan(e.errors);
       throw e;
     }
   }
 
-  async function save(actor: SessionUser, spaceId: string, input: unknown, opts: { baseRevision?: number; note?: string }) {
-    const { plan, takeoff } = await checkedTakeoff(actor, input);
-    const row = await addPlanRevision(sequelize, actor, spaceId, plan, { ...opts, takeoff: takeoff as unknown as Record<string, unknown> });
-    return { plan, revision: row.revision, createdAt: row.createdAt.toISOString(), netAreaM2: takeoff.netAreaM2 };
-  }
-
   return {
     async get(actor: SessionUser, spaceId: string) {
       const space = await findSpaceForUser(actor, spaceId);
-      const latest = await getLatestRevision(space.id);
+      const latest = await latestRevision(space.id);
       const withPrices = can(actor, 'prices:read');
-      const inputs = await takeoffInputsFor(actor.organisationId, { withPrices });
-      const plan = (latest?.plan as Plan | undefined) ?? starterPlan(space.name);
+      const stored = readStoredTakeoff(latest?.takeoff);
       return {
-        // Without prices the engine could rank products differently; pin the saved choice instead.
-        plan: withPrices ? plan : pinSavedProducts(plan, latest?.takeoff),
+        plan: (latest?.plan as Plan | undefined) ?? starterPlan(space.name),
         revision: latest?.revision ?? 0,
         savedAt: latest?.createdAt.toISOString() ?? null,
         space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.job.reference },
         canWrite: can(actor, 'plans:write'),
-        takeoffInputs: inputs,
+        // The artefact stored with the revision: read-only viewers are shown it as it is (no recomputing, no pinning).
+        takeoff: stored && !withPrices ? takeoffWithoutPrices(stored) : stored,
+        takeoffInputs: withPrices ? await companyTakeoffInputs(actor.organisationId) : withoutPrices(await companyTakeoffInputs(actor.organisationId)),
       };
     },
 
@@ -143,14 +144,7 @@ export function createPlansService(deps: AppDeps) {
 
 export type PlansService = ReturnType<typeof createPlansService>;
 
-/**
- * The plan with its automatic product choice pinned to what the saved takeoff chose, so a
- * viewer given a catalogue without prices (installers) sees the same layers as the office.
- * Products the estimator pinned are kept as they are.
- */
-export function pinSavedProducts(plan: Plan, savedTakeoff: unknown): Plan {
-  if (plan.products || !isTakeoff(savedTakeoff)) return plan;
-  const baseProductId = savedTakeoff.layers.find((l) => l.role === 'base')?.productId;
-  const crossProductIds = savedTakeoff.layers.filter((l) => l.role === 'cross').map((l) => l.productId);
-  return { ...plan, products: { ...(baseProductId ? { baseProductId } : {}), ...(crossProductIds.length ? { crossProductIds } : {}) } };
+/** Inputs with every price zeroed, the fuel price included (installers never see prices). */
+function withoutPrices(inputs: TakeoffInputs): TakeoffInputs {
+  return { products: inputs.products.map((p) => ({ ...p, priceMinor: 0 })), settings: { ...inputs.settings, fuelPriceMinorPerKwh: 0 } };
 }

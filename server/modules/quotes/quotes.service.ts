@@ -5,7 +5,8 @@ import { quoteCautions } from '../../../shared/quote/cautions';
 import { computeQuoteTotals } from '../../../shared/quote/totals';
 import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 import type { AppDeps } from '../../deps';
-import { Customer, Job, JobEvent, PlanRevision, Space } from '../../db/models';
+import { Customer, Job, JobEvent } from '../../db/models';
+import { latestRevisionsOfJobs } from '../plan-revisions/revisions.repository';
 import { Quote } from '../../db/models/quote';
 import { QuoteLine } from '../../db/models/quote-line';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
@@ -49,19 +50,7 @@ export async function recordEvent(organisationId: string, jobId: string, userId:
 
 /** Every space of a job with its latest plan revision (spaces without a plan are skipped with a warning). */
 export async function latestPlans(job: Job) {
-  const spaces = await Space.findAll({
-    where: { jobId: job.id, organisationId: job.organisationId },
-    order: [
-      ['position', 'ASC'],
-      ['createdAt', 'ASC'],
-    ],
-  });
-  const out: Array<{ space: Space; revision: PlanRevision | null }> = [];
-  for (const space of spaces) {
-    const revision = await PlanRevision.findOne({ where: { spaceId: space.id }, order: [['revision', 'DESC']] });
-    out.push({ space, revision });
-  }
-  return out;
+  return latestRevisionsOfJobs([job.id]);
 }
 
 async function nextQuoteNumber(organisationId: string, t: Transaction): Promise<string> {
@@ -88,8 +77,8 @@ export async function quoteDto(q: Quote) {
 }
 
 /**
- * Builds what a new draft needs from a job: the lines from every space's takeoff (the saved one, or
- * computed now from the latest plan revision when none is stored), the snapshot and the dates.
+ * Builds what a new draft needs from a job: the lines from the takeoff stored with every space's
+ * latest plan revision, the snapshot and the dates.
  */
 export async function buildDraft(job: Job) {
   const org = job.organisationId;
@@ -107,7 +96,7 @@ export async function buildDraft(job: Job) {
       warnings.push(`${space.name} has no plan yet: nothing is quoted for it`);
       continue;
     }
-    const t = takeoffForSpace(space.name, revision.plan, revision.takeoff, catalogue.products, settings);
+    const t = takeoffForSpace(space.name, revision.plan, revision.takeoff);
     if (!t.ok) {
       warnings.push(`${space.name}: ${t.message}`);
       continue;

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Plan } from '../../../shared/plan/plan-schema';
-import type { TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
+import type { Takeoff, TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
 import { api } from '../../lib/api-client';
 
 export type PlanResponse = {
@@ -9,7 +9,10 @@ export type PlanResponse = {
   savedAt: string | null;
   space: { id: string; name: string; jobId: string; jobReference: string };
   canWrite: boolean;
-  takeoffInputs: { products: TakeoffProduct[]; settings: Partial<TakeoffSettings>; catalogue: 'company' | 'default' };
+  /** The takeoff artefact stored with this revision (prices zeroed for viewers without them); null before the first save. */
+  takeoff: Takeoff | null;
+  /** The company's catalogue and settings: the editor's live takeoff uses the same inputs as the server. */
+  takeoffInputs: { products: TakeoffProduct[]; settings: Partial<TakeoffSettings> };
 };
 
 export const planKeys = {

@@ -76,7 +76,7 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
               <div>
                 <div className="font-medium">{s.name}</div>
                 <div className="font-mono text-xs text-graphite-light">
-                  {s.latestRevision ? `revision ${s.latestRevision}` : 'no plan yet'} · {formatDateTime(s.updatedAt)}
+                  {s.latestRevision ? `revision ${s.latestRevision} · saved ${formatDateTime(s.latestRevisionAt ?? s.updatedAt)}` : 'no plan yet'}
                 </div>
               </div>
               <Link to={`/spaces/${s.id}/edit`} className="text-sm font-medium text-teal-dark hover:underline">

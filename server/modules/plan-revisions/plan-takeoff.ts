@@ -1,0 +1,100 @@
+import { Op, type Sequelize, type Transaction } from 'sequelize';
+import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
+import { computeTakeoff } from '../../../shared/takeoff/compute-takeoff';
+import { parseProductCatalogue, type TakeoffProduct } from '../../../shared/takeoff/products';
+import type { TakeoffSettings } from '../../../shared/takeoff/settings';
+import { TAKEOFF_FORMAT, type Takeoff } from '../../../shared/takeoff/takeoff-types';
+import { PlanRevision } from '../../db/models';
+import { Product } from '../../db/models/product';
+import { loadCompanySettings } from '../settings/settings.service';
+import { insertRevision } from './revisions.repository';
+
+/** What the takeoff needs besides the plan: the company's active roll products and its settings. */
+export type TakeoffInputs = { products: TakeoffProduct[]; settings: Partial<TakeoffSettings> };
+
+type SettingsForTakeoff = { wasteAllowance: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
+
+/** The company's settings as the takeoff reads them (the company keeps waste as a fraction; the takeoff reads a percentage). */
+export function takeoffSettingsOf(settings: SettingsForTakeoff): Partial<TakeoffSettings> {
+  return {
+    wasteAllowancePct: settings.wasteAllowance * 100,
+    degreeDays: settings.degreeDays,
+    fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
+    heatingEfficiency: settings.heatingEfficiency,
+  };
+}
+
+/**
+ * The one set of takeoff inputs of a company: its catalogue (inactive products left out) and its
+ * settings. A company without products gets a takeoff without layers that says so; there is no
+ * fallback catalogue. The editor receives the same inputs, so its live takeoff equals the stored one.
+ */
+export async function companyTakeoffInputs(organisationId: string, transaction?: Transaction): Promise<TakeoffInputs> {
+  const [settingsRow, rows] = await Promise.all([
+    loadCompanySettings(organisationId),
+    Product.findAll({ where: { organisationId }, order: [['name', 'ASC']], transaction }),
+  ]);
+  // parseProductCatalogue reads the catalogue's own field names (lanes, coverageM2, lambdaWmK…).
+  const products = parseProductCatalogue(rows.map((r) => ({ ...r.get({ plain: true }), id: r.id })));
+  return { products, settings: takeoffSettingsOf(settingsRow) };
+}
+
+/**
+ * The takeoff artefact of a parsed plan: the one function every stored revision's takeoff comes
+ * from. Throws InvalidPlanError (with the engine's messages) when the geometry cannot be worked out.
+ */
+export function computePlanTakeoff(plan: Plan, inputs: TakeoffInputs): Takeoff {
+  return computeTakeoff(plan, { products: inputs.products, settings: inputs.settings });
+}
+
+/**
+ * Stores a plan as the next revision of a space with its takeoff, however it is written (editor
+ * save, restore, a new space with a plan, the demo data). See insertRevision for the conflict rule.
+ */
+export async function storePlanRevision(
+  sequelize: Sequelize,
+  row: { organisationId: string; spaceId: string; authorId: string | null; plan: Plan; note?: string; baseRevision?: number },
+  opts: { transaction?: Transaction; inputs?: TakeoffInputs } = {},
+): Promise<{ revision: PlanRevision; takeoff: Takeoff }> {
+  const inputs = opts.inputs ?? (await companyTakeoffInputs(row.organisationId, opts.transaction));
+  const takeoff = computePlanTakeoff(row.plan, inputs);
+  const run = async (transaction: Transaction) => ({ revision: await insertRevision(transaction, { ...row, takeoff }), takeoff });
+  return opts.transaction ? run(opts.transaction) : sequelize.transaction(run);
+}
+
+const STALE = { [Op.or]: [{ takeoff: null }, { takeoff: { format: { [Op.ne]: TAKEOFF_FORMAT } } }, { takeoff: { format: null } }] };
+
+/**
+ * Start-up backfill: every stored revision without a takeoff of the current format (written before
+ * takeoffs were stored everywhere, or of an older format) gets one, computed from its own plan and
+ * its company's inputs. A conditional UPDATE (still stale) keeps two starting servers from racing.
+ * A plan that cannot be worked out keeps its takeoff as it is and is reported. Returns the counts.
+ */
+export async function backfillStoredTakeoffs(log: (line: string) => void = () => {}): Promise<{ updated: number; failed: number }> {
+  const inputsByOrg = new Map<string, Promise<TakeoffInputs>>();
+  let updated = 0;
+  let failed = 0;
+  let afterId: string | null = null;
+  for (;;) {
+    const batch: PlanRevision[] = await PlanRevision.findAll({
+      where: { ...STALE, ...(afterId ? { id: { [Op.gt]: afterId } } : {}) } as never,
+      attributes: ['id', 'organisationId', 'spaceId', 'revision', 'plan'],
+      order: [['id', 'ASC']],
+      limit: 50,
+    });
+    if (batch.length === 0) break;
+    for (const row of batch) {
+      try {
+        if (!inputsByOrg.has(row.organisationId)) inputsByOrg.set(row.organisationId, companyTakeoffInputs(row.organisationId));
+        const takeoff = computePlanTakeoff(planSchema.parse(row.plan), await inputsByOrg.get(row.organisationId)!);
+        const [n] = await PlanRevision.update({ takeoff: takeoff as never }, { where: { id: row.id, ...STALE } as never });
+        updated += n;
+      } catch (e) {
+        failed++;
+        log(`revision ${row.revision} of space ${row.spaceId}: the takeoff could not be worked out (${(e as Error).message})`);
+      }
+    }
+    afterId = batch[batch.length - 1].id;
+  }
+  return { updated, failed };
+}
