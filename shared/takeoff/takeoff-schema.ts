@@ -11,7 +11,8 @@ import type { SiteCheck } from './site-checks';
  * interfaces in takeoff-types.ts are checked against it at compile time (bottom of this file) and
  * every example's takeoff must parse to itself (tests/shared/takeoff-schema.test.ts), so a field
  * added to the engine without being added here fails both. A change of stored shape bumps
- * TAKEOFF_FORMAT; stored revisions of an older format are recomputed at start-up.
+ * TAKEOFF_FORMAT (the shape of each format is recorded in that test); stored revisions of an
+ * older format are recomputed at start-up (server/modules/plan-revisions/plan-takeoff.ts).
  */
 
 const num = z.number().finite();

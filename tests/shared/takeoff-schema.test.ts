@@ -1,4 +1,6 @@
+import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
+import { z } from 'zod';
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { validatePlan } from '../../shared/plan/validate-plan';
@@ -18,7 +20,22 @@ function planFiles(dir: string): string[] {
 }
 const files = planFiles(examples);
 
+/**
+ * The stored shape of each format, as a hash of the schema's JSON Schema. Stored artefacts are
+ * recomputed at start-up only when their format differs from TAKEOFF_FORMAT, so a change of the
+ * schema after a format has been released must come with a new format (and a new line here).
+ */
+const SHAPE_OF_FORMAT: Record<string, string> = { 'quiltline-takeoff/2': '3a2d5e3bf6310b7f' };
+
 describe('the takeoff artefact schema', () => {
+  it('has the stored shape recorded for its format (a changed shape bumps TAKEOFF_FORMAT)', () => {
+    const shape = createHash('sha256')
+      .update(JSON.stringify(z.toJSONSchema(takeoffSchema)))
+      .digest('hex')
+      .slice(0, 16);
+    expect({ [TAKEOFF_FORMAT]: shape }).toEqual({ [TAKEOFF_FORMAT]: SHAPE_OF_FORMAT[TAKEOFF_FORMAT] });
+  });
+
   it('finds the example plans', () => expect(files.length).toBeGreaterThanOrEqual(8));
 
   it.each(files.map((f) => [f.slice(examples.length + 1), f]))('%s: computeTakeoff output parses to itself (no field missing from the schema)', (_n, f) => {
