@@ -19,15 +19,13 @@ const ALLOWED_MODULE_EDGES = new Set([
   // quotes <-> exports
   'quotes -> exports',
   'exports -> quotes',
-  // jobs <-> spaces, jobs <-> job-sheet, job-sheet <-> photos, and job-sheet -> plans -> spaces -> jobs
+  // jobs <-> spaces, jobs <-> job-sheet, job-sheet <-> photos
   'jobs -> spaces',
   'spaces -> jobs',
   'jobs -> job-sheet',
   'job-sheet -> jobs',
   'job-sheet -> photos',
   'photos -> job-sheet',
-  'job-sheet -> plans',
-  'plans -> spaces',
   // job-sheet -> handover -> schedule -> job-sheet
   'job-sheet -> handover',
   'handover -> schedule',

@@ -11,7 +11,7 @@ import type { JobStage } from '../../shared/api/jobs';
 import type { Role } from '../../shared/auth/roles';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
-import { Customer, Job, Organisation, PlanRevision, Space, User } from '../../server/db/models';
+import { Customer, Job, Organisation, Space, User } from '../../server/db/models';
 import { createDeps, type AppDeps } from '../../server/deps';
 import { createSequelize } from '../../server/db/sequelize';
 import type { Sequelize } from 'sequelize';
