@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PlanRevision } from '../../server/db/models';
-import { addDaysIso as addDays, mondayOf } from '../../shared/dates';
+import { addDaysIso as addDays, formatDate, mondayOf } from '../../shared/dates';
 import { isOverCapacity } from '../../server/modules/schedule/schedule.service';
 import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { createJob, createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
@@ -90,6 +90,9 @@ describe('scheduling', () => {
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('over_capacity');
     expect(refused.body.error.message).toMatch(/would have 2 jobs/);
+    // The date as people write it, not ISO: "on 8 Dec 2026".
+    expect(refused.body.error.message).toContain(`on ${formatDate(tuesday)};`);
+    expect(refused.body.error.message).not.toContain(tuesday);
 
     const forced = await office
       .post('/api/schedule/assign')

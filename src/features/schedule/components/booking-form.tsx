@@ -1,27 +1,35 @@
 import { useState } from 'react';
-import type { ScheduleJob } from '../../../../shared/api/schedule';
+import type { AssignResult, ScheduleJob } from '../../../../shared/api/schedule';
 import { Alert, Button, Input, Select } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { useAssignJob } from '../api/assign-job';
 
-/** Installer + date for one accepted job; over capacity it asks before booking anyway. */
-export function BookingForm({ job, installers, defaultDate }: { job: ScheduleJob; installers: { id: string; name: string }[]; defaultDate: string }) {
+/**
+ * Installer + date for one accepted job; over capacity it asks before booking anyway. A booked job
+ * leaves the waiting list at once (this form with it), so the confirmation is the page's: `onBooked`.
+ */
+export function BookingForm({
+  job,
+  installers,
+  defaultDate,
+  onBooked,
+}: {
+  job: ScheduleJob;
+  installers: { id: string; name: string }[];
+  defaultDate: string;
+  onBooked: (result: AssignResult, job: ScheduleJob, installerName: string) => void;
+}) {
   const [installerId, setInstallerId] = useState(installers[0]?.id ?? '');
   const [date, setDate] = useState(defaultDate);
   const assign = useAssignJob();
   const overCapacity = isApiError(assign.error) && assign.error.code === 'over_capacity';
-  const book = (allowOverCapacity: boolean) => assign.mutate({ jobId: job.id, installerId, date, allowOverCapacity });
-
-  if (assign.isSuccess) {
-    return (
-      <Alert tone="success">
-        Booked for {assign.data.installDate}. E-mailed: {assign.data.emailed.join(', ') || 'nobody'}.
-        {assign.data.warnings.map((w) => (
-          <div key={w}>{w}</div>
-        ))}
-      </Alert>
+  // mutateAsync, not mutate's onSuccess: the refetch after booking unmounts this form before mutate's callbacks would run.
+  const book = (allowOverCapacity: boolean) =>
+    assign.mutateAsync({ jobId: job.id, installerId, date, allowOverCapacity }).then(
+      (result) => onBooked(result, job, installers.find((i) => i.id === installerId)?.name ?? 'the installer'),
+      () => undefined,
     );
-  }
+
   return (
     <form
       className="flex flex-col gap-2 sm:flex-row sm:items-end"

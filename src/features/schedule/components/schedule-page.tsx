@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { can } from '../../../../shared/auth/policies';
-import { addDaysIso, mondayOf, todayIso } from '../../../../shared/dates';
+import type { AssignResult } from '../../../../shared/api/schedule';
+import { addDaysIso, formatDate, mondayOf, todayIso } from '../../../../shared/dates';
 import { Alert, Button, Card, CardTitle, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
 import { useCurrentUser } from '../../auth';
 import { useWeek } from '../api/get-week';
@@ -9,12 +10,15 @@ import { BookingForm } from './booking-form';
 import { InstallSettingsCard } from './install-settings-card';
 import { WeekGrid } from './week-grid';
 
+type Booked = { result: AssignResult; reference: string; customerName: string; installerName: string };
+
 /** The office's week of installs: installers by day with their jobs, accepted jobs to book, capacity warnings. */
 export default function SchedulePage() {
   const user = useCurrentUser();
   const [weekStart, setWeekStart] = useState(() => mondayOf(todayIso()));
   const week = useWeek(weekStart);
   const canBook = can(user, 'jobs:assign');
+  const [booked, setBooked] = useState<Booked | null>(null);
 
   return (
     <div>
@@ -42,6 +46,22 @@ export default function SchedulePage() {
         <ErrorState error={week.error} onRetry={() => week.refetch()} />
       ) : (
         <div className="flex flex-col gap-5">
+          {booked && (
+            <div role="status" data-testid="booking-confirmation">
+              <Alert tone="success">
+                <span className="font-semibold">
+                  {booked.reference} ({booked.customerName}) booked for {booked.installerName} on {formatDate(booked.result.installDate)}.
+                </span>{' '}
+                {booked.result.emailed.length > 0 ? `E-mailed: ${booked.result.emailed.join(', ')}.` : 'Nobody was e-mailed.'}
+                {booked.result.warnings.map((w) => (
+                  <div key={w}>{w}</div>
+                ))}
+                <Button variant="secondary" size="sm" className="mt-2" onClick={() => setBooked(null)}>
+                  Dismiss
+                </Button>
+              </Alert>
+            </div>
+          )}
           {week.data.loads.some((l) => l.overCapacity) && (
             <Alert tone="caution">
               Some installer-days this week are over capacity ({week.data.capacity.maxJobsPerDay} job(s) or {week.data.capacity.maxAreaM2PerDay} m² a day).
@@ -67,7 +87,14 @@ export default function SchedulePage() {
                       </div>
                     </div>
                     {canBook && (
-                      <BookingForm job={job} installers={week.data.installers} defaultDate={week.data.days[0] < todayIso() ? todayIso() : week.data.days[0]} />
+                      <BookingForm
+                        job={job}
+                        installers={week.data.installers}
+                        defaultDate={week.data.days[0] < todayIso() ? todayIso() : week.data.days[0]}
+                        onBooked={(result, booked, installerName) =>
+                          setBooked({ result, reference: booked.reference, customerName: booked.customerName, installerName })
+                        }
+                      />
                     )}
                   </li>
                 ))}
