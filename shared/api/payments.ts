@@ -45,7 +45,8 @@ export const paymentSettingsViewSchema = z.object({
 });
 export type PaymentSettingsView = z.infer<typeof paymentSettingsViewSchema>;
 
-export const PAYMENT_STATUSES = ['open', 'paid', 'expired'] as const;
+/** `refunded`: the service took the money but it was not counted (expired or replaced checkout, a second deposit) and was paid back automatically. */
+export const PAYMENT_STATUSES = ['open', 'paid', 'expired', 'refunded'] as const;
 export const PAYMENT_PURPOSES = ['deposit', 'balance'] as const;
 
 /** One attempt to collect money through the hosted checkout. */

@@ -11,7 +11,8 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare quoteId: string | null;
   declare invoiceId: string | null;
   declare purpose: 'deposit' | 'balance';
-  declare status: CreationOptional<'open' | 'paid' | 'expired'>;
+  /** `refunded`: a completion that was not counted (expired or replaced checkout, second deposit) and was paid back. */
+  declare status: CreationOptional<'open' | 'paid' | 'expired' | 'refunded'>;
   declare amountMinor: number;
   declare currency: string;
   /** random, for the public success/cancel/retry pages */

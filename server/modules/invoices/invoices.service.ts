@@ -328,7 +328,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
 
     /** Change an unpaid invoice; a paid one (or one with credit notes) is corrected by a credit note. */
     async update(actor: Actor, id: string, body: InvoicePatch): Promise<InvoiceDto> {
-      await sequelize.transaction(async (t) => {
+      const expireAtService = await sequelize.transaction(async (t) => {
         const inv = await find(actor, id, t);
         if (inv.kind !== 'invoice') throw new ConflictError('a credit note cannot be changed', 'credit_note_final');
         if (inv.status === 'paid') throw new ConflictError('a paid invoice cannot be changed: issue a credit note instead', 'invoice_paid');
@@ -357,9 +357,10 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           });
         }
         await inv.update(patch, { transaction: t });
+        // Any checkout opened for the old amount must not be paid now (a late completion is refunded).
+        return payments.expireBalanceCheckouts(inv.id, t);
       });
-      // Any checkout opened for the old amount must not be paid now.
-      await Payment.update({ status: 'expired' }, { where: { invoiceId: id, status: 'open' } });
+      await expireAtService();
       return dto(await find(actor, id));
     },
 
@@ -374,6 +375,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
       const rows = priceInputs(body.lines, 'credit', rates, issueDate, 'lines');
       const totals = sumLines(rows);
       if (totals.totalMinor <= 0) throw new ValidationError([{ path: 'lines', message: 'a credit note must credit more than nothing' }]);
+      let expireAtService = async () => {};
       const created = await sequelize.transaction(async (t) => {
         const inv = await find(actor, invoiceId, t);
         if (inv.kind !== 'invoice') throw new ConflictError('credit notes are issued against invoices', 'not_an_invoice');
@@ -430,9 +432,10 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           },
           t,
         );
+        expireAtService = await payments.expireBalanceCheckouts(inv.id, t);
         return cn;
       });
-      await Payment.update({ status: 'expired' }, { where: { invoiceId, status: 'open' } });
+      await expireAtService();
       if (body.refund) await refundCredit(actor, invoiceId, created);
       await mailDocument(created);
       return dto(created);
@@ -447,7 +450,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
 
     async startPayByToken(token: string): Promise<string | null> {
       const inv = await service.byPayToken(token);
-      return payments.startBalance(inv, balanceOf(inv, await creditNotesOf(inv)));
+      return payments.startBalance(inv, async (locked, t) => balanceOf(locked, await creditNotesOf(locked, t)));
     },
   };
 

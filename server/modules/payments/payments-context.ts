@@ -1,4 +1,5 @@
 import type { AppDeps } from '../../deps';
+import { ConflictError } from '../../lib/errors';
 import { createPaymentsGateway, type PaymentsGateway } from '../../lib/payments/gateway';
 import { paymentsConfigFromEnv } from '../../lib/payments/payments-config';
 
@@ -35,4 +36,10 @@ export function paymentsContext(deps: AppDeps): PaymentsContext {
   };
   cache.set(deps, ctx);
   return ctx;
+}
+
+export class PaymentsOffError extends ConflictError {
+  constructor() {
+    super('card payments are not set up on this server (STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET)', 'payments_off');
+  }
 }

@@ -1,8 +1,6 @@
 import { randomBytes } from 'node:crypto';
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { DepositStatus, PaymentSettings, PaymentSettingsBody, PaymentTimelineEntry } from '../../../shared/api/payments';
-import { formatDate } from '../../../shared/dates';
-import { formatMoney } from '../../../shared/quote/money';
 import type { AppDeps } from '../../deps';
 import { Invoice } from '../../db/models/invoice';
 import { Job } from '../../db/models/job';
@@ -13,20 +11,13 @@ import { Quote } from '../../db/models/quote';
 import { BadRequestError, ConflictError, NotFoundError } from '../../lib/errors';
 import { loadCompanySettings } from '../settings/settings.service';
 import { depositFor } from '../invoices/invoice-totals';
-import { mailOffice } from './office-mail';
-import { paymentsContext } from './payments-context';
+import { PaymentsOffError, paymentsContext } from './payments-context';
+import { createWebhookHandler } from './payments-webhook';
 import { quoteGrossMinor } from './quote-money';
 
 const newToken = () => randomBytes(24).toString('base64url');
 
-export class PaymentsOffError extends ConflictError {
-  constructor() {
-    super('card payments are not set up on this server (STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET)', 'payments_off');
-  }
-}
-
-/** Webhook events that mean "the money arrived". */
-const PAID_EVENTS = new Set(['checkout.session.completed', 'checkout.session.async_payment_succeeded']);
+export { PaymentsOffError };
 
 export function createPaymentsService(deps: AppDeps) {
   const ctx = paymentsContext(deps);
@@ -50,7 +41,7 @@ export function createPaymentsService(deps: AppDeps) {
   }
 
   /** Open a Checkout Session for a payment row and store its id and url. */
-  async function openCheckout(p: Payment, description: string, reference: string, customerEmail: string | null): Promise<string> {
+  async function openCheckout(p: Payment, description: string, reference: string, customerEmail: string | null): Promise<string | null> {
     if (!ctx.gateway) throw new PaymentsOffError();
     const session = await ctx.gateway.createCheckout({
       amountMinor: p.amountMinor,
@@ -70,24 +61,41 @@ export function createPaymentsService(deps: AppDeps) {
       idempotencyKey: `quiltline-payment-${p.id}`,
     });
     if (!session.url) throw new BadRequestError('the payment service returned no checkout page');
-    await p.update({ checkoutSessionId: session.id, checkoutUrl: session.url });
+    // Guarded: a newer checkout of the same thing may have replaced this row meanwhile; then this
+    // session must not stay payable.
+    const [n] = await Payment.update({ checkoutSessionId: session.id, checkoutUrl: session.url }, { where: { id: p.id, status: 'open' } });
+    if (n !== 1) {
+      await Payment.update({ checkoutSessionId: session.id }, { where: { id: p.id } });
+      await expireAtService([session.id]);
+      return null;
+    }
     return session.url;
   }
 
-  /** Expire older open sessions of the same thing, so an old tab cannot take a second payment. */
-  async function expireOpen(where: { quoteId?: string; invoiceId?: string; purpose: 'deposit' | 'balance' }) {
-    const open = await Payment.findAll({ where: { ...where, status: 'open' } });
-    for (const p of open) {
-      if (p.checkoutSessionId && ctx.gateway) {
-        try {
-          await ctx.gateway.expireCheckout(p.checkoutSessionId);
-        } catch {
-          // Already completed or expired at the service: the webhook decides; leave the row as it is.
-          continue;
-        }
+  /** Expires hosted sessions; one that is no longer open (paid meanwhile) is left to the webhook, which refunds it. */
+  async function expireAtService(sessionIds: Array<string | null>) {
+    for (const id of sessionIds) {
+      if (!id || !ctx.gateway) continue;
+      try {
+        await ctx.gateway.expireCheckout(id);
+      } catch (e) {
+        console.warn(`payments: could not expire checkout ${id}: ${e instanceof Error ? e.message : e}`);
       }
-      await p.update({ status: 'expired' });
     }
+  }
+
+  /**
+   * Marks every open checkout of one thing expired inside the caller's transaction (the thing's row
+   * is locked by the caller) and returns the hosted sessions to expire once it commits. From then on
+   * a completion of any of them is refunded by the webhook instead of counted.
+   */
+  async function expireOpenRows(
+    where: { quoteId?: string; invoiceId?: string; purpose: 'deposit' | 'balance' },
+    t: Transaction,
+  ): Promise<Array<string | null>> {
+    const open = await Payment.findAll({ where: { ...where, status: 'open' }, transaction: t, lock: t.LOCK.UPDATE });
+    for (const p of open) await p.update({ status: 'expired' }, { transaction: t });
+    return open.map((p) => p.checkoutSessionId);
   }
 
   async function customerEmailOfJob(jobId: string): Promise<string | null> {
@@ -118,8 +126,8 @@ export function createPaymentsService(deps: AppDeps) {
       return service.depositStatusOf(quote);
     },
 
-    async depositStatusOf(quote: Quote): Promise<DepositStatus> {
-      const payments = await Payment.findAll({ where: { quoteId: quote.id, purpose: 'deposit' }, order: [['createdAt', 'ASC']] });
+    async depositStatusOf(quote: Quote, t?: Transaction): Promise<DepositStatus> {
+      const payments = await Payment.findAll({ where: { quoteId: quote.id, purpose: 'deposit' }, order: [['createdAt', 'ASC']], transaction: t });
       const paid = payments.find((p) => p.status === 'paid');
       if (paid)
         return {
@@ -139,44 +147,78 @@ export function createPaymentsService(deps: AppDeps) {
      * Returns the hosted checkout's url, or null when nothing is due (none asked, or already paid).
      */
     async startDeposit(quote: Quote): Promise<string | null> {
-      if (quote.status !== 'accepted') throw new ConflictError('the deposit is taken once the quote is accepted', 'quote_not_accepted');
-      const status = await service.depositStatusOf(quote);
-      if (status.state !== 'due') return null;
       if (!ctx.gateway) throw new PaymentsOffError();
-      await expireOpen({ quoteId: quote.id, purpose: 'deposit' });
-      const p = await Payment.create({
-        organisationId: quote.organisationId,
-        jobId: quote.jobId,
-        quoteId: quote.id,
-        invoiceId: null,
-        purpose: 'deposit',
-        amountMinor: status.amountMinor,
-        currency: quote.currency,
-        token: newToken(),
-        checkoutSessionId: null,
-        checkoutUrl: null,
+      // Two tabs starting at once queue on the quote's row: the later one replaces the earlier.
+      const started = await sequelize.transaction(async (t) => {
+        const q = await Quote.findByPk(quote.id, { transaction: t, lock: t.LOCK.UPDATE });
+        if (!q || q.status !== 'accepted') throw new ConflictError('the deposit is taken once the quote is accepted', 'quote_not_accepted');
+        const status = await service.depositStatusOf(q, t);
+        if (status.state !== 'due') return null;
+        const stale = await expireOpenRows({ quoteId: q.id, purpose: 'deposit' }, t);
+        const p = await Payment.create(
+          {
+            organisationId: q.organisationId,
+            jobId: q.jobId,
+            quoteId: q.id,
+            invoiceId: null,
+            purpose: 'deposit',
+            amountMinor: status.amountMinor,
+            currency: q.currency,
+            token: newToken(),
+            checkoutSessionId: null,
+            checkoutUrl: null,
+          },
+          { transaction: t },
+        );
+        return { p, stale, q };
       });
-      return openCheckout(p, `Deposit for quote ${quote.number}`, quote.number, await customerEmailOfJob(quote.jobId));
+      if (!started) return null;
+      await expireAtService(started.stale);
+      return openCheckout(started.p, `Deposit for quote ${started.q.number}`, started.q.number, await customerEmailOfJob(started.q.jobId));
     },
 
-    /** Start paying an invoice's balance; null when nothing is left to pay. */
-    async startBalance(invoice: Invoice, balanceMinor: number): Promise<string | null> {
-      if (invoice.kind !== 'invoice' || invoice.status === 'paid' || balanceMinor <= 0) return null;
+    /**
+     * Start paying an invoice's balance; null when nothing is left to pay. `balanceOf` works the
+     * balance out from the invoice row as locked here, so an edit or credit note cannot slip between.
+     */
+    async startBalance(invoice: Invoice, balanceOf: (locked: Invoice, t: Transaction) => Promise<number>): Promise<string | null> {
+      if (invoice.kind !== 'invoice' || invoice.status === 'paid') return null;
       if (!ctx.gateway) throw new PaymentsOffError();
-      await expireOpen({ invoiceId: invoice.id, purpose: 'balance' });
-      const p = await Payment.create({
-        organisationId: invoice.organisationId,
-        jobId: invoice.jobId,
-        quoteId: invoice.quoteId,
-        invoiceId: invoice.id,
-        purpose: 'balance',
-        amountMinor: balanceMinor,
-        currency: invoice.currency,
-        token: newToken(),
-        checkoutSessionId: null,
-        checkoutUrl: null,
+      const started = await sequelize.transaction(async (t) => {
+        const inv = await Invoice.findByPk(invoice.id, { transaction: t, lock: t.LOCK.UPDATE });
+        if (!inv || inv.status !== 'issued') return null;
+        const balanceMinor = await balanceOf(inv, t);
+        if (balanceMinor <= 0) return null;
+        const stale = await expireOpenRows({ invoiceId: inv.id, purpose: 'balance' }, t);
+        const p = await Payment.create(
+          {
+            organisationId: inv.organisationId,
+            jobId: inv.jobId,
+            quoteId: inv.quoteId,
+            invoiceId: inv.id,
+            purpose: 'balance',
+            amountMinor: balanceMinor,
+            currency: inv.currency,
+            token: newToken(),
+            checkoutSessionId: null,
+            checkoutUrl: null,
+          },
+          { transaction: t },
+        );
+        return { p, stale };
       });
-      return openCheckout(p, `Invoice ${invoice.number}`, invoice.number, invoice.customerEmail || null);
+      if (!started) return null;
+      await expireAtService(started.stale);
+      return openCheckout(started.p, `Invoice ${invoice.number}`, invoice.number, invoice.customerEmail || null);
+    },
+
+    /**
+     * For edits that change what is owed (invoice changes, credit notes): call inside the edit's
+     * transaction, with the invoice row locked; run the returned function after commit.
+     */
+    async expireBalanceCheckouts(invoiceId: string, t: Transaction): Promise<() => Promise<void>> {
+      const stale = await expireOpenRows({ invoiceId, purpose: 'balance' }, t);
+      return () => expireAtService(stale);
     },
 
     async paymentByToken(token: string): Promise<Payment> {
@@ -185,70 +227,8 @@ export function createPaymentsService(deps: AppDeps) {
       return p;
     },
 
-    /**
-     * Verify and apply one webhook delivery. Throws BadRequestError (→ 400) when the signature is
-     * missing, wrong or stale — nothing is read or changed then. Each event id is applied once.
-     */
-    async handleWebhook(rawBody: Buffer, signature: string | undefined): Promise<{ duplicate: boolean; handled: boolean }> {
-      if (!ctx.gateway) throw new PaymentsOffError();
-      let event;
-      try {
-        event = ctx.gateway.verifyWebhook(rawBody, signature);
-      } catch (e) {
-        throw new BadRequestError(`webhook signature check failed: ${e instanceof Error ? e.message : 'invalid'}`, 'bad_signature');
-      }
-      const after: Array<() => Promise<void>> = [];
-      const result = await sequelize.transaction(async (t) => {
-        const inserted = await sequelize.query<{ event_id: string }>(
-          'INSERT INTO payment_events (event_id, type, created_at) VALUES (:id, :type, now()) ON CONFLICT (event_id) DO NOTHING RETURNING event_id',
-          { replacements: { id: event.id, type: event.type }, type: QueryTypes.SELECT, transaction: t },
-        );
-        if (inserted.length === 0) return { duplicate: true, handled: false };
-        const session = event.data.object as { id?: string; payment_status?: string; amount_total?: number; currency?: string; payment_intent?: string | null };
-        if (!session.id || !event.type.startsWith('checkout.session.')) return { duplicate: false, handled: false };
-        const p = await Payment.findOne({ where: { checkoutSessionId: session.id }, transaction: t, lock: t.LOCK.UPDATE });
-        if (!p) return { duplicate: false, handled: false };
-        await sequelize.query('UPDATE payment_events SET organisation_id = :org, payment_id = :pid WHERE event_id = :id', {
-          replacements: { org: p.organisationId, pid: p.id, id: event.id },
-          transaction: t,
-        });
-        if (event.type === 'checkout.session.expired') {
-          if (p.status === 'open') await p.update({ status: 'expired' }, { transaction: t });
-          return { duplicate: false, handled: true };
-        }
-        if (!PAID_EVENTS.has(event.type) || session.payment_status !== 'paid' || p.status === 'paid') return { duplicate: false, handled: false };
-        if (session.amount_total !== p.amountMinor || (session.currency ?? '').toLowerCase() !== p.currency.toLowerCase()) {
-          // Never count money we did not ask for; the office sees it and sorts it out by hand.
-          await recordJobEvent(
-            p,
-            'payment_mismatch',
-            { paymentId: p.id, expectedMinor: p.amountMinor, receivedMinor: session.amount_total ?? null, currency: session.currency ?? null },
-            t,
-          );
-          after.push(() =>
-            mailOffice(
-              deps.mailer,
-              p.organisationId,
-              'Payment received with an unexpected amount',
-              `A card payment for ${p.purpose} arrived for ${session.amount_total} ${session.currency} but ${p.amountMinor} ${p.currency} was asked. Check it in the payment service's dashboard.`,
-            ),
-          );
-          return { duplicate: false, handled: true };
-        }
-        const paidAt = new Date();
-        await p.update({ status: 'paid', paidAt, paymentIntentId: session.payment_intent ?? null }, { transaction: t });
-        await applyPaid(p, paidAt, t, after);
-        return { duplicate: false, handled: true };
-      });
-      for (const job of after) {
-        try {
-          await job();
-        } catch (e) {
-          console.error('payments: follow-up after webhook failed:', e instanceof Error ? e.message : e);
-        }
-      }
-      return result;
-    },
+    /** Verify and apply one webhook delivery (payments-webhook.ts). */
+    handleWebhook: createWebhookHandler(deps, ctx),
 
     /** The money events of a job, oldest first. */
     async timeline(organisationId: string, jobId: string): Promise<PaymentTimelineEntry[]> {
@@ -277,84 +257,6 @@ export function createPaymentsService(deps: AppDeps) {
       });
     },
   };
-
-  async function recordJobEvent(p: Payment, kind: string, data: Record<string, unknown>, t: Transaction) {
-    await JobEvent.create({ organisationId: p.organisationId, jobId: p.jobId, userId: null, kind, data } as never, { transaction: t });
-  }
-
-  async function applyPaid(p: Payment, paidAt: Date, t: Transaction, after: Array<() => Promise<void>>) {
-    const money = formatMoney(p.amountMinor, p.currency);
-    if (p.purpose === 'deposit') {
-      const quote = p.quoteId ? await Quote.findByPk(p.quoteId, { transaction: t }) : null;
-      const others = await Payment.count({ where: { quoteId: p.quoteId, purpose: 'deposit', status: 'paid', id: { [Op.ne]: p.id } }, transaction: t });
-      if (others > 0) {
-        // Paid twice (two tabs): give the second one back at once.
-        await recordJobEvent(
-          p,
-          'payment_refunded',
-          { paymentId: p.id, amountMinor: p.amountMinor, currency: p.currency, paymentText: `Second deposit payment of ${money} refunded` },
-          t,
-        );
-        after.push(async () => {
-          if (ctx.gateway && p.paymentIntentId) await ctx.gateway.refund(p.paymentIntentId, p.amountMinor, { reason: 'duplicate deposit', paymentId: p.id });
-        });
-        return;
-      }
-      const text = `Deposit of ${money} paid for quote ${quote?.number ?? ''}`.trim();
-      await recordJobEvent(
-        p,
-        'deposit_paid',
-        {
-          paymentId: p.id,
-          quoteId: p.quoteId,
-          quoteNumber: quote?.number ?? null,
-          amountMinor: p.amountMinor,
-          currency: p.currency,
-          paidAt: paidAt.toISOString(),
-          paymentText: text,
-        },
-        t,
-      );
-      const job = await Job.findByPk(p.jobId, { include: ['customer'], transaction: t });
-      after.push(() =>
-        mailOffice(
-          deps.mailer,
-          p.organisationId,
-          `Deposit paid: ${money} for quote ${quote?.number ?? ''}`,
-          `${job?.customer?.name ?? 'The customer'} paid a deposit of ${money} for quote ${quote?.number ?? ''} (job ${job?.reference ?? ''}) on ${formatDate(paidAt)}.\n\nThe payment service's reference: ${p.paymentIntentId ?? p.checkoutSessionId}.`,
-        ),
-      );
-      return;
-    }
-    if (p.invoiceId) {
-      const inv = await Invoice.findByPk(p.invoiceId, { transaction: t, lock: t.LOCK.UPDATE });
-      if (!inv) return;
-      if (inv.status !== 'paid') await inv.update({ status: 'paid', paidAt }, { transaction: t });
-      const text = `Invoice ${inv.number} paid: ${money}`;
-      await recordJobEvent(
-        p,
-        'invoice_paid',
-        {
-          paymentId: p.id,
-          invoiceId: inv.id,
-          invoiceNumber: inv.number,
-          amountMinor: p.amountMinor,
-          currency: p.currency,
-          paidAt: paidAt.toISOString(),
-          paymentText: text,
-        },
-        t,
-      );
-      after.push(() =>
-        mailOffice(
-          deps.mailer,
-          p.organisationId,
-          `Invoice ${inv.number} paid: ${money}`,
-          `${inv.customerName} paid the balance of invoice ${inv.number}, ${money}, on ${formatDate(paidAt)}.`,
-        ),
-      );
-    }
-  }
 
   return service;
 }
