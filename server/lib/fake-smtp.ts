@@ -1,6 +1,7 @@
 import type { AddressInfo } from 'node:net';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+import { ORGANISATION_HEADER } from './mailer';
 
 /** A message as the fake SMTP server received it. */
 export interface CapturedMail {
@@ -10,6 +11,10 @@ export interface CapturedMail {
   envelopeTo: string[];
   from: string;
   to: string;
+  /** The Reply-To address, '' when none. */
+  replyTo: string;
+  /** The sending company (the `X-Quiltline-Organisation` header), null when the message names none. */
+  organisationId: string | null;
   subject: string;
   text: string;
   html: string;
@@ -61,6 +66,8 @@ export class FakeSmtp implements Outbox {
                 envelopeTo: session.envelope.rcptTo.map((r) => r.address),
                 from: addr(parsed.from),
                 to: addr(parsed.to),
+                replyTo: addr(parsed.replyTo),
+                organisationId: (parsed.headers.get(ORGANISATION_HEADER.toLowerCase()) as string | undefined) ?? null,
                 subject: parsed.subject ?? '',
                 text,
                 html,

@@ -2,11 +2,21 @@ import nodemailer, { type Transporter } from 'nodemailer';
 
 export interface MailMessage {
   to: string;
+  /** Where the reader's reply goes: the company's own address on customer e-mail (the sender is a no-reply address). */
+  replyTo?: string;
+  /**
+   * The company that sends it. Sent as the `X-Quiltline-Organisation` header, so the development
+   * Outbox shows each company only its own mail, whoever it was addressed to.
+   */
+  organisationId?: string;
   subject: string;
   text: string;
   html?: string;
   attachments?: Array<{ filename: string; content: Buffer; contentType?: string }>;
 }
+
+/** Header naming the sending company on every message (read back by the local fake's Outbox). */
+export const ORGANISATION_HEADER = 'X-Quiltline-Organisation';
 
 /** The app's one way to send e-mail; services receive it through deps. */
 export interface Mailer {
@@ -23,8 +33,8 @@ export function createSmtpMailer(target: SmtpTarget, from: string): Mailer {
       ? nodemailer.createTransport(target.url)
       : nodemailer.createTransport({ host: target.host, port: target.port, secure: false, ignoreTLS: true });
   return {
-    async send(message) {
-      await transport.sendMail({ from, ...message });
+    async send({ organisationId, ...message }) {
+      await transport.sendMail({ from, ...message, headers: organisationId ? { [ORGANISATION_HEADER]: organisationId } : undefined });
     },
     close() {
       transport.close();

@@ -6,6 +6,8 @@ export const outboxMessageSchema = z.object({
   receivedAt: z.string(),
   from: z.string(),
   to: z.string(),
+  /** Where replies go ('' when the message sets no Reply-To). */
+  replyTo: z.string(),
   subject: z.string(),
   text: z.string(),
   html: z.string(),

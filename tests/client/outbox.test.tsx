@@ -9,11 +9,12 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const message = (id: number, subject: string, text: string) => ({
+const message = (id: number, subject: string, text: string, replyTo = '') => ({
   id,
   receivedAt: `2026-12-01T10:0${id}:00Z`,
   from: 'Quiltline <no-reply@quiltline.example.com>',
   to: 'nell@demo.example.com',
+  replyTo,
   subject,
   text,
   html: '',
@@ -29,7 +30,7 @@ describe('outbox page', () => {
               enabled: true,
               messages: [
                 message(2, 'Reset your password', 'Choose a new one: http://127.0.0.1:3000/reset-password?token=abc123DEF456.\n<b>not bold</b>'),
-                message(1, "You're invited", 'Join here: http://127.0.0.1:3000/set-password?token=xyz'),
+                message(1, "You're invited", 'Join here: http://127.0.0.1:3000/set-password?token=xyz', 'hello@hearthfold.example.com'),
               ],
             },
           }
@@ -44,9 +45,12 @@ describe('outbox page', () => {
     expect(screen.getByText(/<b>not bold<\/b>/)).toBeTruthy();
     expect(document.querySelector('pre b')).toBeNull();
 
+    expect(screen.getByTestId('outbox-reply-to').textContent).toBe('no Reply-To: replies go to the sender');
     expect(screen.queryByRole('link', { name: /\/set-password/ })).toBeNull();
     fireEvent.click(screen.getByRole('button', { name: /You're invited/ }));
     expect(screen.getByRole('link', { name: /\/set-password/ }).getAttribute('href')).toBe('http://127.0.0.1:3000/set-password?token=xyz');
+    // The open message says where replies go.
+    expect(screen.getByTestId('outbox-reply-to').textContent).toBe('replies go to hello@hearthfold.example.com');
   });
 
   it('says so when the server has no outbox (production)', async () => {

@@ -74,6 +74,7 @@ export function createAuthService(deps: Pick<AppDeps, 'config' | 'mailer' | 'seq
     const link = linkFor('invite', await issueToken(user, 'invite'));
     await mailer.send({
       to: user.email,
+      organisationId: user.organisationId,
       subject: `You're invited to ${organisationName} on Quiltline`,
       text:
         `Hello ${user.name},\n\n${invitedBy} has invited you to join ${organisationName} on Quiltline as ${user.role}.\n\n` +
@@ -89,6 +90,7 @@ export function createAuthService(deps: Pick<AppDeps, 'config' | 'mailer' | 'seq
     const link = linkFor('reset', await issueToken(user, 'reset'));
     await mailer.send({
       to: user.email,
+      organisationId: user.organisationId,
       subject: 'Reset your Quiltline password',
       text:
         `Hello ${user.name},\n\nSomeone (hopefully you) asked to reset your Quiltline password.\n\n` +

@@ -10,7 +10,7 @@ import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
 import type { SessionUser } from '../../types';
 import { createJobSheetService } from '../job-sheet/job-sheet.service';
-import { sendRecordedMail } from '../quotes/quote-send.service';
+import { sendCompanyMail } from '../mail/mail.service';
 import { recordEvent } from '../quotes/quotes.service';
 import { loadCompanySettings } from '../settings/settings.service';
 
@@ -41,9 +41,9 @@ export function jobSheetExportRouter(deps: AppDeps) {
     if (!row?.email) throw new ValidationError([{ path: 'assignedInstallerId', message: 'the assigned installer has no e-mail address' }]);
     const a = sheet.job.propertyAddress;
     const subject = `Job sheet ${sheet.job.reference}: ${a.line1}, ${a.town}${sheet.job.installDate ? ` on ${formatDate(sheet.job.installDate)}` : ''}`;
-    await sendRecordedMail(
+    await sendCompanyMail(
       deps,
-      { organisationId: user.organisationId, jobId: sheet.job.id, userId: user.id, purpose: 'job_sheet' },
+      { organisationId: user.organisationId, jobId: sheet.job.id, userId: user.id, purpose: 'job_sheet', audience: 'staff' },
       {
         to: row.email,
         subject,

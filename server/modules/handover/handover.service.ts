@@ -1,4 +1,5 @@
 import type { AppDeps } from '../../deps';
+import { sendCompanyMail } from '../mail/mail.service';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { JobCompletion, JobPhoto, JobTick } from '../../db/models';
 import { formatDate } from '../../../shared/dates';
@@ -15,7 +16,7 @@ import { renderHandoverPdf, type HandoverData } from './handover-pdf';
 const PHOTOS_PER_STAGE = 2;
 
 export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage' | 'mailer'>) {
-  const { sequelize, storage, mailer } = deps;
+  const { sequelize, storage } = deps;
 
   async function handoverData(job: Job): Promise<HandoverData> {
     const [company, customer, completion, settings] = await Promise.all([
@@ -147,12 +148,16 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         await JobCompletion.update({ handoverKey: key }, { where: { jobId: job.id } });
         const customer = await Customer.findByPk(job.customerId);
         if (customer?.email) {
-          await mailer.send({
-            to: customer.email,
-            subject: `Your loft insulation handover pack (${job.reference})`,
-            text: `Dear ${customer.name},\n\nYour loft insulation was installed on ${data.installedOn} by ${data.installerName}. The handover pack attached lists what was installed, the U-values before and after, photos, and how to look after the insulation.\n\n${data.companyName}`,
-            attachments: [{ filename: `handover-${job.reference}.pdf`, content: pdf, contentType: 'application/pdf' }],
-          });
+          await sendCompanyMail(
+            deps,
+            { organisationId: job.organisationId, jobId: job.id, userId: user.id, purpose: 'handover', audience: 'customer' },
+            {
+              to: customer.email,
+              subject: `Your loft insulation handover pack (${job.reference})`,
+              text: `Dear ${customer.name},\n\nYour loft insulation was installed on ${data.installedOn} by ${data.installerName}. The handover pack attached lists what was installed, the U-values before and after, photos, and how to look after the insulation.\n\n${data.companyName}`,
+              attachments: [{ filename: `handover-${job.reference}.pdf`, content: pdf, contentType: 'application/pdf' }],
+            },
+          );
           emailed = true;
         } else {
           warnings.push('the customer has no e-mail address: the office can download the handover pack and send it');

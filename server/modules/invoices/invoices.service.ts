@@ -12,6 +12,7 @@ import type {
 import { formatMoney } from '../../../shared/quote/money';
 import { taxRateOn, type DatedTaxRate } from '../../../shared/quote/tax';
 import type { AppDeps } from '../../deps';
+import { sendCompanyMail } from '../mail/mail.service';
 import { Customer } from '../../db/models/customer';
 import { Invoice } from '../../db/models/invoice';
 import { InvoiceLine } from '../../db/models/invoice-line';
@@ -180,12 +181,16 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           '',
           company.name,
         ].join('\n');
-    await deps.mailer.send({
-      to: inv.customerEmail,
-      subject: `${title} from ${company.name}`,
-      text: body,
-      attachments: [{ filename: `${d.number}.pdf`, content: pdf, contentType: 'application/pdf' }],
-    });
+    await sendCompanyMail(
+      deps,
+      { organisationId: inv.organisationId, jobId: inv.jobId, userId: null, purpose: isCredit ? 'credit_note' : 'invoice', audience: 'customer' },
+      {
+        to: inv.customerEmail,
+        subject: `${title} from ${company.name}`,
+        text: body,
+        attachments: [{ filename: `${d.number}.pdf`, content: pdf, contentType: 'application/pdf' }],
+      },
+    );
     await inv.update({ sentAt: new Date() });
     return true;
   }

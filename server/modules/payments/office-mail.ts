@@ -1,16 +1,9 @@
-import { Op } from 'sequelize';
 import type { Mailer } from '../../lib/mailer';
-import { User } from '../../db/models/user';
-import { CompanySetting } from '../../db/models/company-setting';
+import { officeRecipients } from '../mail/mail.service';
 
-/** E-mail every active office user of the company (or the company address when there are none). */
+/** E-mail the office about a payment (the company's one notification address; see officeRecipients). */
 export async function mailOffice(mailer: Mailer, organisationId: string, subject: string, text: string): Promise<void> {
-  const users = await User.findAll({ where: { organisationId, role: 'office', active: true, email: { [Op.ne]: '' } }, attributes: ['email'] });
-  let to = users.map((u) => u.email);
-  if (to.length === 0) {
-    const company = await CompanySetting.findByPk(organisationId);
-    if (company?.email) to = [company.email];
-  }
+  const to = await officeRecipients(organisationId);
   if (to.length === 0) return;
-  await mailer.send({ to: to.join(', '), subject, text });
+  await mailer.send({ to: to.join(', '), organisationId, subject, text });
 }

@@ -7,7 +7,8 @@ import { loadCompanySettings } from '../settings/settings.service';
 import { addressLines, quoteFileName, quotePdf } from '../quotes/quote-document';
 import { priceQuote } from '../quotes/quote-dto';
 import { verifyQuoteLink } from '../quotes/quote-link';
-import { linkSecret, officeRecipients, quoteLinkUrl, sendRecordedMail } from '../quotes/quote-send.service';
+import { mailOffice } from '../mail/mail.service';
+import { linkSecret, quoteLinkUrl } from '../quotes/quote-send.service';
 import { expireIfDue, findJobInOrg, linesOf, recordEvent } from '../quotes/quotes.service';
 
 const PROBLEM: Record<LinkProblem, { status: number; message: string }> = {
@@ -88,13 +89,7 @@ export function createPublicQuoteService(deps: AppDeps) {
    */
   async function notifyOffice(q: Quote, subject: string, text: string) {
     try {
-      for (const to of await officeRecipients(q.organisationId)) {
-        await sendRecordedMail(
-          deps,
-          { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id },
-          { to, subject, text },
-        );
-      }
+      await mailOffice(deps, { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id }, subject, text);
     } catch (e) {
       console.error(`[public-quote] office notice for quote ${q.number} not sent:`, e instanceof Error ? e.message : e);
     }

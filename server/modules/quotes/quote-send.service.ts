@@ -1,5 +1,5 @@
 import type { AppDeps } from '../../deps';
-import { JobEvent, User } from '../../db/models';
+import { sendCompanyMail } from '../mail/mail.service';
 import { ConflictError, ValidationError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { formatMoney } from '../../../shared/quote/money';
@@ -17,37 +17,6 @@ export function linkSecret(deps: AppDeps): string {
 
 export function quoteLinkUrl(deps: AppDeps, token: string): string {
   return `${deps.config.appUrl}/q/${encodeURIComponent(token)}`;
-}
-
-/** Sends an e-mail and records it on the job's timeline (kind `email_sent`). */
-export async function sendRecordedMail(
-  deps: AppDeps,
-  ctx: { organisationId: string; jobId: string; userId: string | null; purpose: string; quoteId?: string },
-  message: { to: string; subject: string; text: string; attachments?: Array<{ filename: string; content: Buffer; contentType?: string }> },
-) {
-  await deps.mailer.send(message);
-  await JobEvent.create({
-    organisationId: ctx.organisationId,
-    jobId: ctx.jobId,
-    userId: ctx.userId,
-    kind: 'email_sent',
-    data: {
-      text: `E-mail to ${message.to}: ${message.subject}`,
-      to: message.to,
-      subject: message.subject,
-      purpose: ctx.purpose,
-      quoteId: ctx.quoteId ?? null,
-      attachments: (message.attachments ?? []).map((a) => a.filename),
-    },
-  } as never);
-}
-
-/** Where office notifications go: the company's e-mail, else every active office user. */
-export async function officeRecipients(organisationId: string): Promise<string[]> {
-  const settings = await loadCompanySettings(organisationId);
-  if (settings.email) return [settings.email];
-  const office = await User.findAll({ where: { organisationId, role: 'office', active: true } });
-  return office.map((u) => u.email);
 }
 
 export function createQuoteSendService(deps: AppDeps) {
@@ -101,9 +70,9 @@ export function createQuoteSendService(deps: AppDeps) {
         const locked = await findQuoteInOrg(actor, id, t, { lock: true });
         if (locked.status !== q.status || locked.linkNonce !== q.linkNonce)
           throw new ConflictError(`this quote changed meanwhile (it is ${locked.status} now); reload it`, 'quote_changed');
-        await sendRecordedMail(
+        await sendCompanyMail(
           deps,
-          { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id },
+          { organisationId: actor.organisationId, jobId: job.id, userId: actor.id, purpose: 'quote', quoteId: q.id, audience: 'customer' },
           {
             to: customer.email,
             subject,

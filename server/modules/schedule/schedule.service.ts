@@ -2,6 +2,7 @@ import { Op } from 'sequelize';
 import type { AssignResult, Capacity, InstallSettings, ScheduleJob, ScheduleWeek } from '../../../shared/api/schedule';
 import { quoteCautions } from '../../../shared/quote/cautions';
 import type { AppDeps } from '../../deps';
+import { sendCompanyMail } from '../mail/mail.service';
 import { addDaysIso, formatDate, mondayOf, todayIso } from '../../../shared/dates';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { InstallSetting } from '../../db/models';
@@ -30,7 +31,7 @@ const jobInclude = [
 ];
 
 export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer' | 'config'>) {
-  const { mailer, config } = deps;
+  const { config } = deps;
 
   async function toScheduleJobs(jobs: Job[]): Promise<ScheduleJob[]> {
     const areas = await jobAreasM2(jobs.map((j) => j.id));
@@ -147,47 +148,56 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
       const address = [job.addressLine1, job.addressLine2, job.town, job.postcode].filter(Boolean).join(', ');
       const when = formatDate(body.date, { weekday: true });
       const customer = job.customer;
+      const mailCtx = { organisationId: user.organisationId, jobId: job.id, userId: user.id };
       try {
         if (customer?.email) {
           const kinds = await planExclusionKinds(job.id);
           const { cautions, customerBeforeInstall } = quoteCautions(kinds);
-          await mailer.send({
-            to: customer.email,
-            subject: `Your loft insulation is booked for ${when} (${job.reference})`,
-            text: [
-              `Dear ${customer.name},`,
-              '',
-              `Your loft insulation at ${address} is booked for ${when}. ${installer.name} will install it.`,
-              '',
-              'How to prepare:',
-              '- Clear the area under the loft hatch and the way to it (landing, stairs) so the installer can work safely.',
-              ...customerBeforeInstall.map((l) => `- ${l}`),
-              '',
-              'What will happen: the installer checks the loft, lifts cables to lie over the insulation, lays the rolls between and then across the joists, keeps the ventilation gap at the eaves, insulates and seals the hatch, and takes before and after photos. You receive a handover pack when the job is done.',
-              '',
-              'Cautions:',
-              ...cautions.map((l) => `- ${l}`),
-              '',
-              'If the date does not suit you, reply to this e-mail.',
-            ].join('\n'),
-          });
+          await sendCompanyMail(
+            deps,
+            { ...mailCtx, purpose: 'booking', audience: 'customer' },
+            {
+              to: customer.email,
+              subject: `Your loft insulation is booked for ${when} (${job.reference})`,
+              text: [
+                `Dear ${customer.name},`,
+                '',
+                `Your loft insulation at ${address} is booked for ${when}. ${installer.name} will install it.`,
+                '',
+                'How to prepare:',
+                '- Clear the area under the loft hatch and the way to it (landing, stairs) so the installer can work safely.',
+                ...customerBeforeInstall.map((l) => `- ${l}`),
+                '',
+                'What will happen: the installer checks the loft, lifts cables to lie over the insulation, lays the rolls between and then across the joists, keeps the ventilation gap at the eaves, insulates and seals the hatch, and takes before and after photos. You receive a handover pack when the job is done.',
+                '',
+                'Cautions:',
+                ...cautions.map((l) => `- ${l}`),
+                '',
+                'If the date does not suit you, reply to this e-mail.',
+              ].join('\n'),
+            },
+          );
           emailed.push(customer.email);
         } else {
           warnings.push('the customer has no e-mail address: tell them the date another way');
         }
         const sheetUrl = `${config.appUrl}/jobs/${job.id}/sheet`;
-        await mailer.send({
-          to: installer.email,
-          subject: `Job ${job.reference} on ${when}: ${job.town}`,
-          text: [
-            `Hello ${installer.name},`,
-            '',
-            `You are booked for job ${job.reference} on ${when} at ${address}.`,
-            `Job sheet (open it once with signal; it then works offline): ${sheetUrl}`,
-            `Printable job sheet: ${config.appUrl}/api/jobs/${job.id}/sheet.pdf`,
-            job.accessNotes ? `\nAccess notes: ${job.accessNotes}` : '',
-          ].join('\n'),
-        });
+        await sendCompanyMail(
+          deps,
+          { ...mailCtx, purpose: 'booking_installer', audience: 'staff' },
+          {
+            to: installer.email,
+            subject: `Job ${job.reference} on ${when}: ${job.town}`,
+            text: [
+              `Hello ${installer.name},`,
+              '',
+              `You are booked for job ${job.reference} on ${when} at ${address}.`,
+              `Job sheet (open it once with signal; it then works offline): ${sheetUrl}`,
+              `Printable job sheet: ${config.appUrl}/api/jobs/${job.id}/sheet.pdf`,
+              job.accessNotes ? `\nAccess notes: ${job.accessNotes}` : '',
+            ].join('\n'),
+          },
+        );
         emailed.push(installer.email);
       } catch (e) {
         warnings.push(`the booking is saved, but an e-mail could not be sent: ${(e as Error).message}`);

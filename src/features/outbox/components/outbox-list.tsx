@@ -24,7 +24,10 @@ export function OutboxList({ messages }: { messages: OutboxMessage[] }) {
             </button>
             {isOpen && (
               <div className="border-t border-paper-line px-4 py-3">
-                {m.from && <div className="mb-2 text-xs text-graphite-light">from {m.from}</div>}
+                {m.from && <div className="text-xs text-graphite-light">from {m.from}</div>}
+                <div className="mb-2 text-xs text-graphite-light" data-testid="outbox-reply-to">
+                  {m.replyTo ? `replies go to ${m.replyTo}` : 'no Reply-To: replies go to the sender'}
+                </div>
                 <pre className="whitespace-pre-wrap break-words font-mono text-[13px] leading-relaxed text-graphite">
                   <LinkifiedText text={m.text || '(no text body)'} />
                 </pre>

@@ -1,0 +1,62 @@
+import { Op } from 'sequelize';
+import type { AppDeps } from '../../deps';
+import { JobEvent, User } from '../../db/models';
+import type { MailMessage } from '../../lib/mailer';
+import { loadCompanySettings } from '../settings/settings.service';
+
+/** Who a message is for: customers reply to the company; office and staff mail needs no Reply-To. */
+export type MailAudience = 'customer' | 'office' | 'staff';
+
+export interface MailContext {
+  organisationId: string;
+  /** The job the message is about: it is recorded on that job's history. */
+  jobId: string | null;
+  /** Who caused it (null for the customer's own actions and the system). */
+  userId: string | null;
+  /** What it is, e.g. 'quote', 'invoice', 'booking', 'handover', 'quote_accepted'. */
+  purpose: string;
+  audience: MailAudience;
+  quoteId?: string;
+}
+
+type Message = Pick<MailMessage, 'to' | 'subject' | 'text' | 'html' | 'attachments'>;
+
+/**
+ * The one way a company's e-mail goes out: tagged with the sending company, Reply-To the company's
+ * address on customer mail (the From is a no-reply address, and the booking e-mail says "reply to
+ * this e-mail"), and recorded on the job's history (`email_sent`) when it is about a job.
+ */
+export async function sendCompanyMail(deps: Pick<AppDeps, 'mailer'>, ctx: MailContext, message: Message): Promise<void> {
+  const company = ctx.audience === 'customer' ? await loadCompanySettings(ctx.organisationId) : null;
+  await deps.mailer.send({ ...message, organisationId: ctx.organisationId, replyTo: company?.email || undefined });
+  if (!ctx.jobId) return;
+  await JobEvent.create({
+    organisationId: ctx.organisationId,
+    jobId: ctx.jobId,
+    userId: ctx.userId,
+    kind: 'email_sent',
+    data: {
+      text: `E-mail to ${message.to}: ${message.subject}`,
+      to: message.to,
+      subject: message.subject,
+      purpose: ctx.purpose,
+      quoteId: ctx.quoteId ?? null,
+      attachments: (message.attachments ?? []).map((a) => a.filename),
+    },
+  } as never);
+}
+
+/** The one office notification address: the company's e-mail, else every active office user. */
+export async function officeRecipients(organisationId: string): Promise<string[]> {
+  const settings = await loadCompanySettings(organisationId);
+  if (settings.email) return [settings.email];
+  const office = await User.findAll({ where: { organisationId, role: 'office', active: true, email: { [Op.ne]: '' } }, attributes: ['email'] });
+  return office.map((u) => u.email);
+}
+
+/** Tells the office (see `officeRecipients`); recorded on the job's history when it is about one. Nobody to tell: nothing sent. */
+export async function mailOffice(deps: Pick<AppDeps, 'mailer'>, ctx: Omit<MailContext, 'audience'>, subject: string, text: string): Promise<void> {
+  const to = await officeRecipients(ctx.organisationId);
+  if (to.length === 0) return;
+  await sendCompanyMail(deps, { ...ctx, audience: 'office' }, { to: to.join(', '), subject, text });
+}
