@@ -28,6 +28,9 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
   // apps pass the shared instance in (and close it themselves).
   const sequelize = opts.sequelize ?? createSequelize(config.databaseUrl, { logSql: config.logSql });
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  // An idle client whose server went away (PostgreSQL restarted) emits 'error' on the pool; unheard,
+  // it would end the process. The pool drops that client and connects afresh on the next request.
+  pool.on('error', (err) => console.warn(`[db] session pool: idle connection lost (${err.message})`));
   let fake: FakeSmtp | null = null;
   let mailer: Mailer;
   if (config.smtpUrl) {

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '../lib/db-unavailable';
 import { AppError } from '../lib/errors';
 import { zodDetails } from './validate';
 
@@ -32,6 +33,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
   }
   if (status >= 400 && status < 500) {
     res.status(status).json({ error: { code: String(err.code ?? 'bad_request').toLowerCase(), message: String(err.message ?? 'bad request') } });
+    return;
+  }
+  if (isDatabaseUnavailable(err)) {
+    console.warn(`[db] ${req.method} ${req.path}: database unavailable (${err?.message ?? err})`);
+    res.setHeader('Retry-After', String(DB_RETRY_AFTER_SECONDS));
+    res.status(503).json({ error: { code: 'service_unavailable', message: 'the service is briefly unavailable; try again in a few seconds' } });
     return;
   }
   console.error(`[error] ${req.method} ${req.originalUrl}:`, err);

@@ -7,7 +7,8 @@ import { CompanySetting } from '../../db/models/company-setting';
 import { Invoice } from '../../db/models/invoice';
 import { Quote } from '../../db/models/quote';
 import { formatDate } from '../../../shared/dates';
-import { AppError } from '../../lib/errors';
+import { DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '../../lib/db-unavailable';
+import { AppError, NotFoundError } from '../../lib/errors';
 import type { InvoicesService } from '../invoices/invoices.service';
 import { escapeHtml, money, payLayout, payPageCsp } from './pay-pages';
 import { paymentsContext } from './payments-context';
@@ -22,6 +23,12 @@ import { quoteFromLink } from './quote-link-resolver';
  *   GET /pay/cancelled/:token           our cancel page: nothing paid, try again
  *   POST /pay/retry/:token              a new checkout for the same thing
  */
+/** A link that names nothing is a page saying so; any other failure (the database away) is not. */
+function onlyNotFound(e: unknown): null {
+  if (e instanceof NotFoundError) return null;
+  throw e;
+}
+
 export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: InvoicesService) {
   const ctx = paymentsContext(deps);
   const r = Router();
@@ -118,7 +125,8 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   });
 
   // An unknown or malformed pay token is a page saying so, not an error.
-  const invoiceFromToken = (token: string) => invoices.byPayToken(token).catch(() => null);
+  const invoiceFromToken = (token: string) => invoices.byPayToken(token).catch(onlyNotFound);
+  const paymentFromToken = (token: string) => payments.paymentByToken(token).catch(onlyNotFound);
 
   r.get('/invoice/:token', async (req, res) => {
     const inv = await invoiceFromToken(String(req.params.token));
@@ -174,7 +182,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   });
 
   r.get('/done/:token', async (req, res) => {
-    const p = await payments.paymentByToken(String(req.params.token)).catch(() => null);
+    const p = await paymentFromToken(String(req.params.token));
     if (!p) return notFound(res);
     const company = await companyName(p.organisationId);
     const what = p.purpose === 'deposit' ? 'deposit' : 'payment';
@@ -201,7 +209,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   });
 
   r.get('/cancelled/:token', async (req, res) => {
-    const p = await payments.paymentByToken(String(req.params.token)).catch(() => null);
+    const p = await paymentFromToken(String(req.params.token));
     if (!p) return notFound(res);
     const company = await companyName(p.organisationId);
     send(
@@ -218,7 +226,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   });
 
   r.post('/retry/:token', async (req, res) => {
-    const p = await payments.paymentByToken(String(req.params.token)).catch(() => null);
+    const p = await paymentFromToken(String(req.params.token));
     if (!p) return notFound(res);
     let url: string | null = null;
     if (p.purpose === 'deposit' && p.quoteId) {
@@ -234,6 +242,18 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
   // The customer sees a page, not JSON, when something goes wrong here.
   r.use((err: unknown, _req: express.Request, res: Response, next: express.NextFunction) => {
     if (res.headersSent) return next(err);
+    if (isDatabaseUnavailable(err)) {
+      res.setHeader('Retry-After', String(DB_RETRY_AFTER_SECONDS));
+      return send(
+        res,
+        503,
+        payLayout(
+          'Briefly unavailable',
+          '<p class="warn" data-testid="unavailable">Our service is briefly unavailable, so nothing was paid or changed. Please try again in a minute: your link still works.</p>',
+          { refreshSeconds: 30 },
+        ),
+      );
+    }
     if (err instanceof AppError && err.status < 500) {
       return send(res, err.status, payLayout('Payment not available', `<p class="warn">${escapeHtml(err.message)}</p>`));
     }
