@@ -57,6 +57,9 @@ export const quoteSavingSchema = z.object({
   paybackYears: z.number().nullable(),
 });
 
+/** A deposit asked on acceptance (shared/quote/deposit.ts): amount in minor units, and the percentage when it is one. */
+export const depositTermsSchema = z.object({ amountMinor: z.number().int(), percentBp: z.number().int().nullable() });
+
 export const quoteSchema = z.object({
   id: z.string(),
   jobId: z.string(),
@@ -70,6 +73,8 @@ export const quoteSchema = z.object({
   lines: z.array(quoteLineSchema),
   totals: quoteTotalsSchema,
   saving: quoteSavingSchema.nullable(),
+  /** The deposit the customer is asked when accepting, under the company's current payment settings; null when none. */
+  deposit: depositTermsSchema.nullable(),
   /** The dated tax rates the quote was priced with (frozen with the quote), for live previews. */
   taxRates: z.array(z.object({ taxClass: taxClassSchema, rateBp: z.number().int(), validFrom: z.string(), label: z.string().optional() })),
   personHours: z.number(),
@@ -141,6 +146,7 @@ export const publicQuoteSchema = z.object({
   ),
   totals: quoteTotalsSchema.pick({ netMinor: true, taxByRate: true, taxMinor: true, grossMinor: true }),
   saving: quoteSavingSchema.nullable(),
+  deposit: depositTermsSchema.nullable(),
   cautions: z.array(z.string()),
   customerBeforeInstall: z.array(z.string()),
   terms: z.string(),

@@ -49,8 +49,10 @@ describe('customer pays the deposit', () => {
     await page.goto(`${server.url}/q/${link}`);
     await page.getByLabel(/Your full name/).fill('Ada Fenwick');
     await page.getByLabel(/I have read the quote/).check();
+    // The deposit is said before accepting (25 % of £575.76 = £143.94), on the button too.
+    expect(await page.getByTestId('deposit-before-accept').textContent()).toContain('A deposit of £143.94 (25% of the total) is paid by card when you accept');
     await screenshot(page, 'payments-0-accepting');
-    await page.getByRole('button', { name: /Accept the quote/ }).click();
+    await page.getByRole('button', { name: 'Accept and pay the £143.94 deposit' }).click();
     await page.waitForURL((u) => u.pathname.startsWith('/pay/deposit/'), { timeout: 30_000 });
     await expect.poll(() => page.getByTestId('deposit-amount').textContent()).toBe('£143.94');
     await screenshot(page, 'payments-1-deposit-page');

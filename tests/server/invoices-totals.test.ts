@@ -3,7 +3,8 @@
 // sums themselves were worked by hand, line by line, and are written out beside each row.
 import { describe, expect, it } from 'vitest';
 import { addDaysIso as addDays } from '../../shared/dates';
-import { balanceDue, depositFor, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';
+import { balanceDue, isOverdue, lineAmounts, sumLines } from '../../server/modules/invoices/invoice-totals';
+import { depositFor } from '../../shared/quote/deposit';
 import { computeQuoteTotals } from '../../shared/quote/totals';
 import { UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 

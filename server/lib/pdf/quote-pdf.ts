@@ -1,6 +1,6 @@
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
-import { ROUNDING_NOTE } from '../../../shared/quote/totals';
+import { depositSentence, type DepositTerms } from '../../../shared/quote/deposit';
 import { bullets, ensureSpace, heading, letterhead, newDocument, table } from './document';
 import { formatDate } from '../../../shared/dates';
 import { PALETTE } from '../../../shared/palette';
@@ -13,6 +13,8 @@ export interface QuotePdfData {
   propertyAddressLines: string[];
   quote: { number: string; version: number; issueDate: string; validUntil: string; currency: string; locale: string; jobReference: string };
   lines: Array<{ description: string; quantity: number; unit: string; unitPriceMinor: number; netMinor: number; rateBp: number; note?: string | null }>;
+  /** The deposit asked on acceptance, said before the customer accepts; null when none. */
+  deposit: DepositTerms | null;
   totals: { netMinor: number; taxByRate: Array<{ rateBp: number; netMinor: number; taxMinor: number }>; taxMinor: number; grossMinor: number };
   saving: { kwhPerYear: number; minorPerYear: number; paybackYears: number | null } | null;
   spaces: Array<{ name: string; plan: unknown; netAreaM2: number | null; uBefore: number | null; uAfter: number | null; layers: string[] }>;
@@ -138,11 +140,20 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     totalRows,
     { boldLastRows: 1 },
   );
+  // How the pennies are rounded is the office's concern (it is on the quote builder), not the customer's.
   doc
     .font('ui')
     .fontSize(7.5)
     .fillColor(PALETTE.graphiteLight)
-    .text(`${ROUNDING_NOTE} VAT at the rates in force on ${formatDate(d.quote.issueDate)}.`, left, doc.y + 2, { width });
+    .text(`VAT at the rates in force on ${formatDate(d.quote.issueDate)}.`, left, doc.y + 2, { width });
+  if (d.deposit) {
+    doc
+      .font('ui-bold')
+      .fontSize(9.5)
+      .fillColor(PALETTE.graphite)
+      .text(depositSentence(d.deposit, money), left, doc.y + 6, { width });
+    doc.font('ui');
+  }
   if (d.siteHours > 0) {
     doc
       .fontSize(9)

@@ -47,17 +47,6 @@ export function balanceDue(totalMinor: number, depositMinor: number, creditedMin
   return Math.max(0, totalMinor - depositMinor - creditedMinor);
 }
 
-/**
- * The deposit asked on a quote total: a percentage (basis points, rounded half away from zero like
- * every rate) or a fixed amount capped at the total. 0 when no deposit is asked.
- */
-export function depositFor(totalMinor: number, mode: 'none' | 'percent' | 'fixed', percentBp: number | null, fixedMinor: number | null): number {
-  if (totalMinor <= 0) return 0;
-  if (mode === 'percent' && percentBp) return applyRateBp(totalMinor, percentBp);
-  if (mode === 'fixed' && fixedMinor) return Math.min(fixedMinor, totalMinor);
-  return 0;
-}
-
 /** An unpaid invoice is overdue from the day after its due date. */
 export function isOverdue(status: string, dueDate: string | null, today: string): boolean {
   return status !== 'paid' && !!dueDate && today > dueDate;

@@ -9,8 +9,8 @@ import { Payment } from '../../db/models/payment';
 import { PaymentSetting } from '../../db/models/payment-setting';
 import { Quote } from '../../db/models/quote';
 import { BadRequestError, ConflictError, NotFoundError } from '../../lib/errors';
-import { loadCompanySettings } from '../settings/settings.service';
-import { depositFor } from '../invoices/invoice-totals';
+import { depositFor } from '../../../shared/quote/deposit';
+import { loadPaymentSettings } from '../settings/payment-settings';
 import { PaymentsOffError, paymentsContext } from './payments-context';
 import { createWebhookHandler } from './payments-webhook';
 import { quoteGrossMinor } from './quote-money';
@@ -23,17 +23,7 @@ export function createPaymentsService(deps: AppDeps) {
   const ctx = paymentsContext(deps);
   const sequelize = deps.sequelize;
 
-  async function settingsOf(organisationId: string): Promise<PaymentSettings> {
-    const row = await PaymentSetting.findByPk(organisationId);
-    const company = await loadCompanySettings(organisationId);
-    return {
-      depositMode: row?.depositMode ?? 'none',
-      depositPercentBp: row?.depositPercentBp ?? null,
-      depositFixedMinor: row?.depositFixedMinor ?? null,
-      paymentTermsDays: row?.paymentTermsDays ?? 14,
-      currency: company.currency,
-    };
-  }
+  const settingsOf = loadPaymentSettings;
 
   async function depositDue(quote: Quote): Promise<number> {
     const s = await settingsOf(quote.organisationId);

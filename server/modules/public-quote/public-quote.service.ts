@@ -7,7 +7,9 @@ import { loadCompanySettings } from '../settings/settings.service';
 import { addressLines, quoteFileName, quotePdf } from '../quotes/quote-document';
 import { priceQuote } from '../quotes/quote-dto';
 import { verifyQuoteLink } from '../quotes/quote-link';
+import { depositTerms } from '../../../shared/quote/deposit';
 import { mailOffice } from '../mail/mail.service';
+import { loadPaymentSettings } from '../settings/payment-settings';
 import { linkSecret, quoteLinkUrl } from '../quotes/quote-send.service';
 import { expireIfDue, findJobInOrg, linesOf, recordEvent } from '../quotes/quotes.service';
 
@@ -74,6 +76,7 @@ export function createPublicQuoteService(deps: AppDeps) {
       })),
       totals: { netMinor: totals.netMinor, taxByRate: totals.taxByRate, taxMinor: totals.taxMinor, grossMinor: totals.grossMinor },
       saving,
+      deposit: depositTerms(totals.grossMinor, await loadPaymentSettings(q.organisationId)),
       cautions: snap.cautions,
       customerBeforeInstall: snap.customerBeforeInstall,
       terms: s.terms,

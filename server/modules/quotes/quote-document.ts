@@ -4,6 +4,8 @@ import type { QuoteLine } from '../../db/models/quote-line';
 import type { CompanySetting } from '../../db/models/company-setting';
 import type { Storage } from '../../lib/storage';
 import { renderQuotePdf, type QuotePdfData } from '../../lib/pdf/quote-pdf';
+import { depositTerms } from '../../../shared/quote/deposit';
+import { loadPaymentSettings } from '../settings/payment-settings';
 import { priceQuote } from './quote-dto';
 
 export function addressLines(a: { line1: string; line2?: string; town: string; postcode: string }): string[] {
@@ -53,6 +55,7 @@ export async function quotePdfData(
       note: p.line.note,
     })),
     totals: { netMinor: totals.netMinor, taxByRate: totals.taxByRate, taxMinor: totals.taxMinor, grossMinor: totals.grossMinor },
+    deposit: depositTerms(totals.grossMinor, await loadPaymentSettings(q.organisationId)),
     saving,
     spaces: snap.spaces,
     siteHours: snap.siteHours,

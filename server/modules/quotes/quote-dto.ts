@@ -91,7 +91,7 @@ export function priceQuote(q: Quote, lines: QuoteLine[]) {
   return { snap, totals, saving };
 }
 
-export function toQuoteDto(q: Quote, lines: QuoteLine[], versions: Array<{ id: string; version: number; status: Quote['status'] }>): QuoteDto {
+export function toQuoteDto(q: Quote, lines: QuoteLine[], versions: Array<{ id: string; version: number; status: Quote['status'] }>): Omit<QuoteDto, 'deposit'> {
   const { snap, totals, saving } = priceQuote(q, lines);
   return {
     id: q.id,

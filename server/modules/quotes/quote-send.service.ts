@@ -1,5 +1,7 @@
 import type { AppDeps } from '../../deps';
+import { depositSentence, depositTerms } from '../../../shared/quote/deposit';
 import { sendCompanyMail } from '../mail/mail.service';
+import { loadPaymentSettings } from '../settings/payment-settings';
 import { ConflictError, ValidationError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { formatMoney } from '../../../shared/quote/money';
@@ -48,12 +50,14 @@ export function createQuoteSendService(deps: AppDeps) {
       const url = quoteLinkUrl(deps, token);
       const { totals } = priceQuote(q, lines);
       const pdf = await quotePdf(q, lines, job, settings, deps.storage, url);
+      const deposit = depositTerms(totals.grossMinor, await loadPaymentSettings(q.organisationId));
       const total = formatMoney(totals.grossMinor, q.currency, q.locale);
       const subject = `Your loft insulation quote ${q.number}${q.version > 1 ? ` (version ${q.version})` : ''} from ${settings.companyName}`;
       const text = [
         `Dear ${customer.name},`,
         '',
         `Thank you for letting us survey your loft at ${job.addressLine1}, ${job.town}. Your quote ${q.number} is attached as a PDF: ${total} in total, valid until ${formatDate(q.validUntil)}.`,
+        ...(deposit ? ['', depositSentence(deposit, (m) => formatMoney(m, q.currency, q.locale))] : []),
         ...(body.message ? ['', body.message] : []),
         '',
         'You can read it, accept it or decline it online at your private link:',

@@ -5,6 +5,8 @@ import { quoteCautions } from '../../../shared/quote/cautions';
 import { computeQuoteTotals } from '../../../shared/quote/totals';
 import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 import type { AppDeps } from '../../deps';
+import { depositTerms } from '../../../shared/quote/deposit';
+import { loadPaymentSettings } from '../settings/payment-settings';
 import { Customer, Job, JobEvent } from '../../db/models';
 import { latestRevisionsOfJobs } from '../plan-revisions/revisions.repository';
 import { Quote } from '../../db/models/quote';
@@ -73,7 +75,8 @@ async function versionsOf(q: Quote) {
 }
 
 export async function quoteDto(q: Quote) {
-  return toQuoteDto(q, await linesOf(q), await versionsOf(q));
+  const dto = toQuoteDto(q, await linesOf(q), await versionsOf(q));
+  return { ...dto, deposit: depositTerms(dto.totals.grossMinor, await loadPaymentSettings(q.organisationId)) };
 }
 
 /**

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import type { PublicQuote } from '../../../../shared/api/quotes';
+import { depositSentence } from '../../../../shared/quote/deposit';
 import { formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
 import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea, formatDate } from '../../../components/ui';
@@ -205,9 +206,16 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
             <input type="checkbox" className="mt-1" checked={agree} onChange={(e) => setAgree(e.target.checked)} />
             <span>I have read the quote and its terms and I accept them.</span>
           </label>
+          {q.deposit && (
+            <p className="text-sm font-medium" data-testid="deposit-before-accept">
+              {depositSentence(q.deposit, (m) => formatMoney(m, q.currency, q.locale))} You go on to the card payment after accepting.
+            </p>
+          )}
           <div>
             <Button type="submit" busy={answer.isPending}>
-              Accept the quote ({formatMoney(q.totals.grossMinor, q.currency, q.locale)})
+              {q.deposit
+                ? `Accept and pay the ${formatMoney(q.deposit.amountMinor, q.currency, q.locale)} deposit`
+                : `Accept the quote (${formatMoney(q.totals.grossMinor, q.currency, q.locale)})`}
             </Button>
           </div>
         </form>

@@ -180,6 +180,7 @@ export default function QuotePage() {
             saving={q.saving}
             siteHours={q.siteHours}
             showMargin={can(user, 'prices:read')}
+            deposit={q.deposit}
           />
           {q.versions.length > 1 && (
             <Card>

@@ -1,4 +1,5 @@
-import { formatMoney } from '../../../../shared/quote/money';
+import type { DepositTerms } from '../../../../shared/quote/deposit';
+import { applyRateBp, formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
 import { paybackYears, ROUNDING_NOTE, type QuoteTotals } from '../../../../shared/quote/totals';
 import { Card, CardTitle } from '../../../components/ui';
@@ -10,10 +11,12 @@ type Props = {
   saving: { kwhPerYear: number; minorPerYear: number } | null;
   siteHours: number;
   showMargin: boolean;
+  /** The deposit the customer is asked on acceptance (company settings), null when none. */
+  deposit: DepositTerms | null;
 };
 
 /** Totals before tax, tax by rate, total, margin against cost, and the saving with its payback. */
-export function QuoteTotalsPanel({ totals, currency, locale, saving, siteHours, showMargin }: Props) {
+export function QuoteTotalsPanel({ totals, currency, locale, saving, siteHours, showMargin, deposit }: Props) {
   const m = (x: number) => formatMoney(x, currency, locale);
   if (!totals) return <Card>Fix the lines marked in red to see the totals.</Card>;
   const payback = saving ? paybackYears(totals.grossMinor, saving.minorPerYear) : null;
@@ -32,6 +35,14 @@ export function QuoteTotalsPanel({ totals, currency, locale, saving, siteHours, 
         {row('Before tax', m(totals.netMinor), false, 'total-net')}
         {totals.taxByRate.map((b) => row(`Tax at ${formatRateBp(b.rateBp)} on ${m(b.netMinor)}`, m(b.taxMinor)))}
         {row('Total', m(totals.grossMinor), true, 'total-gross')}
+        {deposit &&
+          row(
+            `Deposit on acceptance${deposit.percentBp ? ` (${deposit.percentBp / 100}%)` : ''}`,
+            // A percentage follows the lines being edited; a fixed amount is capped at the total.
+            m(deposit.percentBp ? applyRateBp(totals.grossMinor, deposit.percentBp) : Math.min(deposit.amountMinor, totals.grossMinor)),
+            false,
+            'total-deposit',
+          )}
         {showMargin && (
           <>
             {row('Cost', m(totals.costMinor))}
