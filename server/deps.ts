@@ -5,6 +5,7 @@ import { createSequelize } from './db/sequelize';
 import { FakeSmtp, type Outbox } from './lib/fake-smtp';
 import { createSmtpMailer, type Mailer } from './lib/mailer';
 import { DiskStorage, type Storage } from './lib/storage';
+import { createPlanPool, type PlanPool } from './lib/takeoff-pool';
 
 /** Everything createApp needs from the outside world; tests build their own. */
 export interface AppDeps {
@@ -16,12 +17,14 @@ export interface AppDeps {
   storage: Storage;
   /** The local fake SMTP's messages, when it runs (development and tests); null with a real relay. */
   outbox: Outbox | null;
+  /** Worker threads that validate plans and compute takeoffs off the request thread. */
+  planPool: PlanPool;
   close(): Promise<void>;
 }
 
 /**
  * Builds the deps from config: Sequelize + pool on DATABASE_URL, a mailer to SMTP_URL or to an
- * in-process fake SMTP server on 127.0.0.1, and disk storage in UPLOAD_DIR.
+ * in-process fake SMTP server on 127.0.0.1, disk storage in UPLOAD_DIR and the takeoff worker pool.
  */
 export async function createDeps(config: Config, opts: { sequelize?: Sequelize } = {}): Promise<AppDeps> {
   // Sequelize models are classes bound to one instance: one per process. Tests that build several
@@ -42,6 +45,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
     mailer = createSmtpMailer({ host: '127.0.0.1', port }, config.mailFrom);
   }
   const storage = new DiskStorage(config.uploadDir);
+  const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });
   return {
     config,
     sequelize,
@@ -49,7 +53,9 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
     mailer,
     storage,
     outbox: fake,
+    planPool,
     async close() {
+      await planPool.close();
       mailer.close();
       await fake?.stop();
       await pool.end();

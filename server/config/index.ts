@@ -32,6 +32,10 @@ const envSchema = z
     LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(20),
     LOG_SQL: bool(false),
     BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).optional(),
+    /** Worker threads for plan checks and takeoffs (default: CPUs − 1, 1 to 4). */
+    TAKEOFF_WORKERS: z.coerce.number().int().min(1).max(16).optional(),
+    /** Time limit of one plan check or takeoff, ms; past it the plan is refused as too complex. */
+    TAKEOFF_TIME_LIMIT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -58,6 +62,8 @@ export interface Config {
   logSql: boolean;
   /** bcrypt cost; 10 by default, 4 in tests (speed only: the algorithm is the same). */
   bcryptRounds: number;
+  takeoffWorkers?: number;
+  takeoffTimeLimitMs: number;
   /** Prune expired sessions on a timer (off in tests so nothing keeps the process alive). */
   pruneSessions: boolean;
 }
@@ -90,5 +96,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logSql: e.LOG_SQL,
     bcryptRounds: e.BCRYPT_ROUNDS ?? (e.NODE_ENV === 'test' ? 4 : 10),
     pruneSessions: e.NODE_ENV !== 'test',
+    takeoffWorkers: e.TAKEOFF_WORKERS,
+    takeoffTimeLimitMs: e.TAKEOFF_TIME_LIMIT_MS,
   };
 }

@@ -1,6 +1,7 @@
 import type { Plan } from './plan-schema';
 import type { PlanCheckResult, PlanMessage } from './plan-messages';
 import { findRingSelfIntersections, ringEdgeLength } from '../geometry/segment';
+import { checkImpliedBays } from './plan-limits';
 import { polygonArea, polygonBounds, polygonContainsPoint, type Ring } from '../geometry/polygon';
 
 /** Shortest edge accepted, mm: anything shorter is a slip of the pointer. */
@@ -75,6 +76,8 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
   }
 
   const j = plan.joists;
+  const bays = outlineUsable ? checkImpliedBays(outline, j) : null;
+  if (bays) errors.push(bays);
   if (j.centresMm <= j.widthMm) {
     errors.push({
       code: 'joists.centres-not-above-width',

@@ -1,10 +1,12 @@
 import { z } from 'zod';
+import { PLAN_LIMITS } from './plan-limits';
 
 /** The only plan format this version reads and writes. */
 export const PLAN_FORMAT = 'quiltline-plan/1' as const;
 
-/** A point in plan space: [x, y] in millimetres, y pointing down as on a screen. */
-export const pointSchema = z.tuple([z.number().finite(), z.number().finite()]);
+const coordinateSchema = z.number().finite().min(-PLAN_LIMITS.coordinateMm).max(PLAN_LIMITS.coordinateMm);
+/** A point in plan space: [x, y] in millimetres, y pointing down as on a screen; within ±`PLAN_LIMITS.coordinateMm`. */
+export const pointSchema = z.tuple([coordinateSchema, coordinateSchema]);
 export type PointMm = z.infer<typeof pointSchema>;
 
 /** Kinds of area or point not to be covered; each has its own site rule and default clearance. */
@@ -19,7 +21,7 @@ export const exclusionSchema = z
   .object({
     kind: exclusionKindSchema,
     label: z.string().max(120).optional(),
-    polygon: z.array(pointSchema).min(3).optional(),
+    polygon: z.array(pointSchema).min(3).max(PLAN_LIMITS.exclusionCorners).optional(),
     at: pointSchema.optional(),
     /** Extra clearance around this exclusion, mm; when absent the kind's default applies. */
     clearanceMm: z.number().min(0).max(2000).optional(),
@@ -33,12 +35,12 @@ export type Exclusion = z.infer<typeof exclusionSchema>;
 /** The ceiling joists: direction, spacing and size, mm. */
 export const joistsSchema = z.object({
   /** Direction the joists run, degrees from the plan's x axis. */
-  angleDeg: z.number().finite(),
+  angleDeg: z.number().finite().min(-3600).max(3600),
   centresMm: z.number().positive().max(2000),
   widthMm: z.number().positive().max(500),
   depthMm: z.number().positive().max(1000),
   /** Perpendicular offset of the first joist centre from the plan origin, mm. */
-  offsetMm: z.number().finite().default(0),
+  offsetMm: coordinateSchema.default(0),
 });
 /** Parsed joists (offset defaults to 0). */
 export type Joists = z.infer<typeof joistsSchema>;
@@ -67,7 +69,7 @@ export type Target = z.infer<typeof targetSchema>;
 export const backgroundSchema = z.object({
   url: z.string().max(2000),
   /** Millimetres per image pixel, from a two-point calibration. */
-  mmPerPx: z.number().positive(),
+  mmPerPx: z.number().positive().max(1e6),
   originMm: pointSchema.default([0, 0]),
   opacity: z.number().min(0).max(1).default(0.5),
   locked: z.boolean().default(false),
@@ -85,11 +87,11 @@ export const planSchema = z.object({
     error: (issue) => `unknown plan format ${JSON.stringify(issue.input)}: this version reads "${PLAN_FORMAT}"`,
   }),
   name: z.string().min(1).max(120),
-  outline: z.array(pointSchema),
-  eavesEdges: z.array(z.number().int().min(0)).default([]),
+  outline: z.array(pointSchema).max(PLAN_LIMITS.outlineCorners),
+  eavesEdges: z.array(z.number().int().min(0)).max(PLAN_LIMITS.outlineCorners).default([]),
   eavesGapMm: z.number().min(0).max(500).default(50),
   joists: joistsSchema,
-  exclusions: z.array(exclusionSchema).default([]),
+  exclusions: z.array(exclusionSchema).max(PLAN_LIMITS.exclusions).default([]),
   existing: existingSchema.default({ depthMm: 0, condition: 'none' }),
   target: targetSchema.default({ depthMm: 270 }),
   background: backgroundSchema.optional(),

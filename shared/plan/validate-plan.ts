@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import { PLAN_FORMAT, planSchema, type Plan } from './plan-schema';
 import type { PlanMessage } from './plan-messages';
 import { checkPlanGeometry } from './plan-geometry-checks';
+import { checkPlanCounts } from './plan-limits';
 
 export type { PlanMessage } from './plan-messages';
 
@@ -10,7 +11,8 @@ export type ValidatePlanResult = { ok: true; plan: Plan; warnings: PlanMessage[]
 
 /**
  * Validates anything claiming to be a `quiltline-plan/1` plan: first the format (an unknown
- * format stops here with one message), then the zod schema (defaults filled in), then the
+ * format stops here with one message), then the sizes against `PLAN_LIMITS` (array lengths only,
+ * before anything is parsed), then the zod schema (defaults filled in), then the
  * geometry (`checkPlanGeometry`). Every message has a stable `code` and, where it can, the
  * outline point, edge or exclusion it is about, so the editor can show it in place.
  */
@@ -26,6 +28,9 @@ export function validatePlan(input: unknown): ValidatePlanResult {
         : `unknown plan format ${JSON.stringify(format)}: this version reads "${PLAN_FORMAT}"`;
     return { ok: false, errors: [{ code: 'format.unknown', message, path: 'format' }], warnings: [] };
   }
+  // Sizes first, reading only array lengths: an oversized plan costs nothing to refuse.
+  const tooBig = checkPlanCounts(input);
+  if (tooBig.length) return { ok: false, errors: tooBig, warnings: [] };
   const parsed = planSchema.safeParse(input);
   if (!parsed.success) return { ok: false, errors: parsed.error.issues.map(issueToMessage), warnings: [] };
   const { errors, warnings } = checkPlanGeometry(parsed.data);

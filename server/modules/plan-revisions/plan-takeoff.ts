@@ -9,8 +9,9 @@ import { Product } from '../../db/models/product';
 import { loadCompanySettings } from '../settings/settings.service';
 import { insertRevision } from './revisions.repository';
 
-/** What the takeoff needs besides the plan: the company's active roll products and its settings. */
-export type TakeoffInputs = { products: TakeoffProduct[]; settings: Partial<TakeoffSettings> };
+import { computePlanTakeoff, type TakeoffInputs } from './compute-plan-takeoff';
+
+export { computePlanTakeoff, type TakeoffInputs };
 
 type SettingsForTakeoff = { wasteAllowance: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
 
@@ -40,24 +41,16 @@ export async function companyTakeoffInputs(organisationId: string, transaction?:
 }
 
 /**
- * The takeoff artefact of a parsed plan: the one function every stored revision's takeoff comes
- * from. Throws InvalidPlanError (with the engine's messages) when the geometry cannot be worked out.
- */
-export function computePlanTakeoff(plan: Plan, inputs: TakeoffInputs): Takeoff {
-  return computeTakeoff(plan, { products: inputs.products, settings: inputs.settings });
-}
-
-/**
  * Stores a plan as the next revision of a space with its takeoff, however it is written (editor
  * save, restore, a new space with a plan, the demo data). See insertRevision for the conflict rule.
  */
 export async function storePlanRevision(
   sequelize: Sequelize,
   row: { organisationId: string; spaceId: string; authorId: string | null; plan: Plan; note?: string; baseRevision?: number },
-  opts: { transaction?: Transaction; inputs?: TakeoffInputs } = {},
+  opts: { transaction?: Transaction; inputs?: TakeoffInputs; takeoff?: Takeoff } = {},
 ): Promise<{ revision: PlanRevision; takeoff: Takeoff }> {
-  const inputs = opts.inputs ?? (await companyTakeoffInputs(row.organisationId, opts.transaction));
-  const takeoff = computePlanTakeoff(row.plan, inputs);
+  // Request paths pass the takeoff the worker pool computed from these same inputs (computePlanTakeoff).
+  const takeoff = opts.takeoff ?? computePlanTakeoff(row.plan, opts.inputs ?? (await companyTakeoffInputs(row.organisationId, opts.transaction)));
   const run = async (transaction: Transaction) => ({ revision: await insertRevision(transaction, { ...row, takeoff }), takeoff });
   return opts.transaction ? run(opts.transaction) : sequelize.transaction(run);
 }

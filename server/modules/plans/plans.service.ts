@@ -2,12 +2,11 @@ import { randomUUID } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import { can } from '../../../shared/auth/policies';
 import { PLAN_FORMAT, type Plan } from '../../../shared/plan/plan-schema';
-import { InvalidPlanError } from '../../../shared/plan/plan-messages';
-import { validatePlan, type PlanMessage } from '../../../shared/plan/validate-plan';
 import { readStoredTakeoff, takeoffWithoutPrices } from '../../../shared/takeoff/takeoff-schema';
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
-import { AppError, ValidationError, type ErrorDetail } from '../../lib/errors';
+import { AppError, ValidationError } from '../../lib/errors';
+import { runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
 import { companyTakeoffInputs, storePlanRevision, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
 import { getRevision, latestRevision, listRevisions } from '../plan-revisions/revisions.repository';
@@ -31,43 +30,22 @@ export function starterPlan(name: string): Plan {
   };
 }
 
-function messageDetail(m: PlanMessage): ErrorDetail {
-  const where =
-    m.path ??
-    (m.edgeIndex !== undefined
-      ? `outline.edge.${m.edgeIndex}`
-      : m.pointIndex !== undefined
-        ? `outline.${m.pointIndex}`
-        : m.exclusionIndex !== undefined
-          ? `exclusions.${m.exclusionIndex}`
-          : '');
-  return { path: where ? `plan.${where}` : 'plan', message: m.message };
-}
-
-function invalidPlan(errors: PlanMessage[]): ValidationError {
-  return new ValidationError(errors.map(messageDetail), `the plan is not valid: ${errors.map((e) => e.message).join('; ')}`);
-}
-
 export function createPlansService(deps: AppDeps) {
-  const { sequelize, storage } = deps;
+  const { sequelize, storage, planPool } = deps;
 
-  /** Validates, computes the takeoff and stores both as the next revision; 422 with the engine's messages. */
+  /**
+   * Validates and computes the takeoff in the worker pool (422 with the engine's messages, or when
+   * the plan passes the time limit), then stores both as the next revision.
+   */
   async function save(actor: SessionUser, spaceId: string, input: unknown, opts: { baseRevision?: number; note?: string }) {
-    const v = validatePlan(input);
-    if (!v.ok) throw invalidPlan(v.errors);
-    try {
-      const { revision: row, takeoff } = await storePlanRevision(sequelize, {
-        organisationId: actor.organisationId,
-        spaceId,
-        authorId: actor.id,
-        plan: v.plan,
-        ...opts,
-      });
-      return { plan: v.plan, revision: row.revision, createdAt: row.createdAt.toISOString(), netAreaM2: takeoff.netAreaM2 };
-    } catch (e) {
-      if (e instanceof InvalidPlanError) throw invalidPlan(e.errors);
-      throw e;
-    }
+    const inputs = await companyTakeoffInputs(actor.organisationId);
+    const { plan, takeoff } = await runPlanTaskOr422(planPool, { kind: 'takeoff', plan: input, ...inputs });
+    const { revision: row } = await storePlanRevision(
+      sequelize,
+      { organisationId: actor.organisationId, spaceId, authorId: actor.id, plan, ...opts },
+      { inputs, takeoff: takeoff! },
+    );
+    return { plan, revision: row.revision, createdAt: row.createdAt.toISOString(), netAreaM2: takeoff!.netAreaM2 };
   }
 
   return {

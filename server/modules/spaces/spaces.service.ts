@@ -5,10 +5,11 @@ import type { Plan } from '../../../shared/plan/plan-schema';
 import { validatePlan } from '../../../shared/plan/validate-plan';
 import type { AppDeps } from '../../deps';
 import { Job, Space } from '../../db/models';
-import { NotFoundError, ValidationError } from '../../lib/errors';
+import { NotFoundError } from '../../lib/errors';
+import { invalidPlan, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
 import { findJobForUser, recordJobEvent } from '../jobs/jobs.service';
-import { storePlanRevision } from '../plan-revisions/plan-takeoff';
+import { companyTakeoffInputs, storePlanRevision } from '../plan-revisions/plan-takeoff';
 import { latestRevision } from '../plan-revisions/revisions.repository';
 
 /**
@@ -28,12 +29,12 @@ export async function findSpaceForUser(actor: SessionUser, spaceId: string, tran
 }
 
 /**
- * Validates a plan with the shared validatePlan (schema, then geometry: self-intersection,
- * zero-length edges...); 422 naming the place (`plan.outline.0`, `plan.format`) when it is not valid.
+ * Validates a plan on this thread with the shared validatePlan (sizes, schema, geometry); 422 naming
+ * the place (`plan.outline.0`, `plan.format`). For scripts and tests: request paths use the pool.
  */
 export function parsePlanOr422(input: unknown): Plan {
   const r = validatePlan(input);
-  if (!r.ok) throw new ValidationError(r.errors.map((e) => ({ path: e.path ? `plan.${e.path}` : 'plan', message: e.message })));
+  if (!r.ok) throw invalidPlan(r.errors);
   return r.plan;
 }
 
@@ -52,20 +53,22 @@ async function toDto(space: Space & { job: Job }): Promise<SpaceDto> {
 }
 
 export function createSpacesService(deps: AppDeps) {
-  const { sequelize } = deps;
+  const { sequelize, planPool } = deps;
   return {
     async create(actor: SessionUser, jobId: string, body: SpaceCreateBody): Promise<SpaceDto> {
       const job = await findJobForUser(actor, jobId);
-      const plan = body.plan === undefined ? null : parsePlanOr422(body.plan);
+      // Checked and worked out exactly as a saved plan is: in the worker pool, same limits and messages.
+      const inputs = body.plan === undefined ? null : await companyTakeoffInputs(actor.organisationId);
+      const first = inputs ? await runPlanTaskOr422(planPool, { kind: 'takeoff', plan: body.plan, ...inputs }) : null;
       const spaceId = await sequelize.transaction(async (transaction) => {
         const position = await Space.count({ where: { jobId: job.id }, transaction });
         const space = await Space.create({ organisationId: actor.organisationId, jobId: job.id, name: body.name.trim(), position }, { transaction });
         // Stored with its takeoff, like every other revision.
-        if (plan)
+        if (first)
           await storePlanRevision(
             sequelize,
-            { organisationId: actor.organisationId, spaceId: space.id, authorId: actor.id, plan, note: 'first plan' },
-            { transaction },
+            { organisationId: actor.organisationId, spaceId: space.id, authorId: actor.id, plan: first.plan, note: 'first plan' },
+            { transaction, takeoff: first.takeoff },
           );
         return space.id;
       });
