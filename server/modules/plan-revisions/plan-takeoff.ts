@@ -1,15 +1,13 @@
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
-import { computeTakeoff } from '../../../shared/takeoff/compute-takeoff';
-import { parseProductCatalogue, type TakeoffProduct } from '../../../shared/takeoff/products';
+import { parseProductCatalogue } from '../../../shared/takeoff/products';
 import type { TakeoffSettings } from '../../../shared/takeoff/settings';
 import { TAKEOFF_FORMAT, type Takeoff } from '../../../shared/takeoff/takeoff-types';
 import { PlanRevision } from '../../db/models';
 import { Product } from '../../db/models/product';
 import { loadCompanySettings } from '../settings/settings.service';
-import { insertRevision } from './revisions.repository';
-
 import { computePlanTakeoff, type TakeoffInputs } from './compute-plan-takeoff';
+import { insertRevision } from './revisions.repository';
 
 export { computePlanTakeoff, type TakeoffInputs };
 
