@@ -1,6 +1,7 @@
 // @vitest-environment happy-dom
 import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import { formatDateTime } from '../../shared/dates';
 import type { Job } from '../../shared/api/jobs';
 import JobDetailPage from '../../src/app/routes/job-detail';
 import { demoUser, fakeApi, renderPage } from './render';
@@ -21,7 +22,7 @@ const baseJob: Job = {
   installDate: '2027-01-18',
   accessNotes: 'Key with the neighbour at no. 4.',
   notes: '',
-  spaces: [{ id: 's1', name: 'Main loft', latestRevision: 3, latestRevisionAt: '2026-11-20T10:00:00Z', updatedAt: '2026-11-20T10:00:00Z' }],
+  spaces: [{ id: 's1', name: 'Main loft', latestRevision: 3, latestRevisionAt: '2026-11-25T15:30:00Z', updatedAt: '2026-11-20T10:00:00Z' }],
   createdAt: '2026-11-01T10:00:00Z',
   updatedAt: '2026-11-20T10:00:00Z',
 };
@@ -75,6 +76,8 @@ describe('job detail', () => {
     expect(screen.getByText('Ian Calder')).toBeTruthy();
     expect(screen.getByText('18 Jan 2027')).toBeTruthy();
     expect(screen.getByRole('link', { name: /Open plan/ }).getAttribute('href')).toBe('/spaces/s1/edit');
+    // The latest revision with the time it was saved, not the space's own time.
+    expect(screen.getByText(`revision 3 · saved ${formatDateTime('2026-11-25T15:30:00Z')}`)).toBeTruthy();
   });
 
   it('moves the job to another stage with a PATCH of the stage alone', async () => {

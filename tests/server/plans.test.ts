@@ -31,7 +31,7 @@ describe('GET /api/spaces/:id/plan', () => {
     expect(res.status).toBe(200);
     expect(res.body.revision).toBe(0);
     expect(res.body.plan).toMatchObject({ format: 'quiltline-plan/1', name: 'Garage loft', outline: [] });
-    expect(res.body.takeoff).toBeNull();
+    expect([res.body.takeoff, res.body.takeoffStored]).toEqual([null, false]);
     // This company has no products yet: the inputs say so instead of borrowing examples/products.json.
     expect(res.body.takeoffInputs.products).toEqual([]);
     expect(res.body.takeoffInputs.settings).toMatchObject({ wasteAllowancePct: 10 });
@@ -97,8 +97,9 @@ describe('GET /api/spaces/:id/plan', () => {
     // …and no price on the way.
     expect(res.body.takeoff.layers.every((l: { priceMinor: number }) => l.priceMinor === 0)).toBe(true);
     expect(res.body.takeoff.savings.moneyMinorPerYear).toBe(0);
-    const office = (await (await loginAs(ctx.app, priced.office)).get(`/api/spaces/${space.id}/plan`)).body.takeoff;
-    expect(office.layers.find((l: { role: string }) => l.role === 'cross').priceMinor).toBeGreaterThan(0);
+    // Writers compute it live from the same inputs and are told it is stored.
+    const office = (await (await loginAs(ctx.app, priced.office)).get(`/api/spaces/${space.id}/plan`)).body;
+    expect([office.takeoff, office.takeoffStored]).toEqual([null, true]);
   });
 });
 
@@ -191,8 +192,9 @@ describe('revisions', () => {
     const now = await agent.get(`/api/spaces/${space.id}/plan`);
     expect(now.body.plan).toEqual(lShape());
     // The restored revision carries the takeoff of the plan it restores, like any other save.
-    expect(now.body.takeoff.planName).toBe(lShape().name);
-    expect(now.body.takeoff.netAreaM2).toBe(computeTakeoff(lShape(), { products: [] }).netAreaM2);
+    expect(now.body.takeoffStored).toBe(true);
+    const row3 = (await PlanRevision.findOne({ where: { spaceId: space.id, revision: 3 } }))!.takeoff as { planName: string; netAreaM2: number };
+    expect([row3.planName, row3.netAreaM2]).toEqual([lShape().name, computeTakeoff(lShape(), { products: [] }).netAreaM2]);
     expect(await PlanRevision.count({ where: { spaceId: space.id } })).toBe(3);
 
     const stale = await agent.post(`/api/spaces/${space.id}/revisions/2/restore`).send({ baseRevision: 2 });

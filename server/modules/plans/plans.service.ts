@@ -54,14 +54,18 @@ export function createPlansService(deps: AppDeps) {
       const latest = await latestRevision(space.id);
       const withPrices = can(actor, 'prices:read');
       const stored = readStoredTakeoff(latest?.takeoff);
+      const canWrite = can(actor, 'plans:write');
       return {
         plan: (latest?.plan as Plan | undefined) ?? starterPlan(space.name),
         revision: latest?.revision ?? 0,
         savedAt: latest?.createdAt.toISOString() ?? null,
         space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.job.reference },
-        canWrite: can(actor, 'plans:write'),
-        // The artefact stored with the revision: read-only viewers are shown it as it is (no recomputing, no pinning).
-        takeoff: stored && !withPrices ? takeoffWithoutPrices(stored) : stored,
+        canWrite,
+        /** Whether this revision has its takeoff stored (the editor offers Save when it has not). */
+        takeoffStored: stored !== null,
+        // Read-only viewers are shown the stored artefact as it is (no recomputing, no pinning);
+        // writers compute it live from the same inputs, so they are not sent a second copy.
+        takeoff: canWrite || !stored ? null : withPrices ? stored : takeoffWithoutPrices(stored),
         takeoffInputs: withPrices ? await companyTakeoffInputs(actor.organisationId) : withoutPrices(await companyTakeoffInputs(actor.organisationId)),
       };
     },

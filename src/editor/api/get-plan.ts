@@ -9,7 +9,9 @@ export type PlanResponse = {
   savedAt: string | null;
   space: { id: string; name: string; jobId: string; jobReference: string };
   canWrite: boolean;
-  /** The takeoff artefact stored with this revision (prices zeroed for viewers without them); null before the first save. */
+  /** Whether this revision has its takeoff stored; Save stays available until it has. */
+  takeoffStored: boolean;
+  /** For read-only viewers, the takeoff artefact stored with this revision (prices zeroed for viewers without them); writers compute it live. */
   takeoff: Takeoff | null;
   /** The company's catalogue and settings: the editor's live takeoff uses the same inputs as the server. */
   takeoffInputs: { products: TakeoffProduct[]; settings: Partial<TakeoffSettings> };

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../lib/api-client';
-import { planKeys } from './get-plan';
+import { adoptSavedRevision } from './plan-cache';
 import type { SaveResult } from './save-plan';
 
 export function restoreRevision(spaceId: string, revision: number, baseRevision: number) {
@@ -12,6 +12,6 @@ export function useRestoreRevision(spaceId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: ({ revision, baseRevision }: { revision: number; baseRevision: number }) => restoreRevision(spaceId, revision, baseRevision),
-    onSuccess: () => qc.invalidateQueries({ queryKey: planKeys.revisions(spaceId) }),
+    onSuccess: (res) => adoptSavedRevision(qc, spaceId, res),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Plan } from '../../../shared/plan/plan-schema';
 import { api } from '../../lib/api-client';
-import { planKeys } from './get-plan';
+import { adoptSavedRevision } from './plan-cache';
 
 export type SaveResult = { plan: Plan; revision: number; createdAt: string; netAreaM2: number };
 
@@ -14,6 +14,6 @@ export function useSavePlan(spaceId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: { plan: Plan; baseRevision: number; note?: string }) => savePlan(spaceId, body),
-    onSuccess: () => qc.invalidateQueries({ queryKey: planKeys.revisions(spaceId) }),
+    onSuccess: (res) => adoptSavedRevision(qc, spaceId, res),
   });
 }

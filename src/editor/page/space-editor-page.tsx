@@ -30,7 +30,7 @@ export default function SpaceEditorPage() {
 
 function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }) {
   const [editor] = useState(() => createEditor(data.plan, data.canWrite ? {} : { step: 'review' }, { readOnly: !data.canWrite }));
-  const p = usePlanPersistence(editor, spaceId, { plan: data.plan, revision: data.revision }, data.canWrite);
+  const p = usePlanPersistence(editor, spaceId, { plan: data.plan, revision: data.revision, takeoffStored: data.takeoffStored }, data.canWrite);
   const importInput = useRef<HTMLInputElement>(null);
 
   const btn = 'h-8 rounded border border-graphite/25 bg-white px-2 text-sm';
@@ -79,7 +79,7 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
           <button
             type="button"
             className="h-8 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50"
-            disabled={p.saving || !p.dirty}
+            disabled={p.saving || !p.canSave}
             onClick={() => void p.save()}
             data-testid="save"
           >
@@ -122,6 +122,7 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
           editor={editor}
           products={data.takeoffInputs.products}
           settings={data.takeoffInputs.settings}
+          storedTakeoff={data.canWrite ? undefined : data.takeoff}
           toolbar={toolbar}
           onUploadBackground={data.canWrite ? (f) => uploadBackground(spaceId, f) : undefined}
         />

@@ -1,8 +1,10 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { Plan } from '../../../shared/plan/plan-schema';
 import { validatePlan } from '../../../shared/plan/validate-plan';
 import { isApiError } from '../../lib/api-client';
 import { getPlan } from '../api/get-plan';
+import { adoptSavedRevision } from '../api/plan-cache';
 import { useRestoreRevision } from '../api/restore-revision';
 import { useSavePlan } from '../api/save-plan';
 import { cmd, replacePlan } from '../commands';
@@ -19,12 +21,15 @@ export type SaveStatus = 'saved' | 'unsaved' | 'saving' | 'conflict' | 'error';
  * valid), unsaved edits mirrored to localStorage and offered back after a reload, 409 handled by
  * a conflict the estimator resolves (keep mine / load theirs), restore as a new revision.
  */
-export function usePlanPersistence(editor: Editor, spaceId: string, initial: { plan: Plan; revision: number }, canWrite: boolean) {
+export function usePlanPersistence(editor: Editor, spaceId: string, initial: { plan: Plan; revision: number; takeoffStored: boolean }, canWrite: boolean) {
   const plan = useEditorState(editor.store, (s) => s.plan);
+  const qc = useQueryClient();
   const base = useRef(initial.revision);
   const [revision, setRevision] = useState(initial.revision);
+  // A saved plan whose takeoff was never stored (it cannot be worked out on the server yet) can be saved again as it is.
+  const [takeoffStored, setTakeoffStored] = useState(initial.revision === 0 || initial.takeoffStored);
   const [savedPlan, setSavedPlan] = useState<Plan>(initial.plan);
-  const [conflict, setConflict] = useState<{ theirs: Plan; theirRevision: number } | null>(null);
+  const [conflict, setConflict] = useState<{ theirs: Plan; theirRevision: number; theirSavedAt: string | null } | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const [autosave, setAutosave] = useState(true);
   const [recoverable, setRecoverable] = useState<PlanDraft | null>(() => {
@@ -63,12 +68,13 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
         base.current = res.revision;
         setRevision(res.revision);
         setSavedPlan(sent);
+        setTakeoffStored(true);
         setConflict(null);
         if (editor.store.getState().plan === sent) clearDraft(spaceId);
       } catch (e) {
         if (isApiError(e) && e.status === 409) {
           const latest = await getPlan(spaceId);
-          setConflict({ theirs: latest.plan, theirRevision: latest.revision });
+          setConflict({ theirs: latest.plan, theirRevision: latest.revision, theirSavedAt: latest.savedAt });
         } else {
           setMessage(isApiError(e) ? e.message : (e as Error).message);
         }
@@ -91,6 +97,8 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
     message,
     revision,
     dirty,
+    /** Something to save: unsaved edits, or a saved plan without its stored takeoff. */
+    canSave: canWrite && (dirty || !takeoffStored),
     autosave,
     setAutosave,
     save: () => doSave(),
@@ -101,6 +109,11 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
       if (!conflict) return;
       // Recorded as an edit, so Undo brings the estimator's own version back.
       adopt(conflict.theirs, conflict.theirRevision, { intoEditor: true });
+      adoptSavedRevision(qc, spaceId, {
+        plan: conflict.theirs,
+        revision: conflict.theirRevision,
+        createdAt: conflict.theirSavedAt ?? new Date().toISOString(),
+      });
       setConflict(null);
     },
     dismissConflict: () => setConflict(null),
@@ -120,10 +133,11 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
       try {
         const res = await restore.mutateAsync({ revision: rev, baseRevision: base.current });
         adopt(res.plan, res.revision, { intoEditor: true });
+        setTakeoffStored(true);
       } catch (e) {
         if (isApiError(e) && e.status === 409) {
           const latest = await getPlan(spaceId);
-          setConflict({ theirs: latest.plan, theirRevision: latest.revision });
+          setConflict({ theirs: latest.plan, theirRevision: latest.revision, theirSavedAt: latest.savedAt });
         } else setMessage((e as Error).message);
       }
     },

@@ -11,9 +11,16 @@ const LIVE_DURING_DRAG_MS = 40;
  * the newest plan is sent when it comes back, so a fast drag never queues stale work. While a
  * drag is in progress, a plan whose takeoff is slow (a very large loft) is recomputed when the
  * drag ends instead, so the worker does not compete with drawing for the CPU. Falls back to
- * computing in place where workers are missing (tests).
+ * computing in place where workers are missing (tests). `enabled: false` computes nothing (a
+ * read-only viewer is shown the stored takeoff instead).
  */
-export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?: Partial<TakeoffSettings>, dragging = false): TakeoffRun | null {
+export function useLiveTakeoff(
+  plan: Plan,
+  products: TakeoffProduct[],
+  settings?: Partial<TakeoffSettings>,
+  dragging = false,
+  enabled = true,
+): TakeoffRun | null {
   const [run, setRun] = useState<TakeoffRun | null>(null);
   const worker = useRef<Worker | null>(null);
   const busy = useRef(false);
@@ -67,11 +74,12 @@ export function useLiveTakeoff(plan: Plan, products: TakeoffProduct[], settings?
   }, [run]);
 
   useEffect(() => {
+    if (!enabled) return;
     if (dragging && lastElapsed.current > LIVE_DURING_DRAG_MS) return;
     const input = { plan, products, settings };
     if (busy.current) pending.current = input;
     else send(input);
-  }, [plan, products, settings, dragging]);
+  }, [plan, products, settings, dragging, enabled]);
 
   return run;
 }

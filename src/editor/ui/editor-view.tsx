@@ -1,5 +1,6 @@
 import { useMemo, type ReactNode } from 'react';
-import type { TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
+import type { Takeoff, TakeoffProduct, TakeoffSettings } from '../../../shared/takeoff/compute-takeoff';
+import type { TakeoffRun } from '../takeoff/run-takeoff';
 import type { Editor } from '../create-editor';
 import { PlanStage } from '../canvas/plan-stage';
 import { placeMessage, type PlacedIssue } from '../canvas/draw-issues';
@@ -27,16 +28,24 @@ type Props = {
   /** The page's own toolbar controls (save, revisions, import/export). */
   toolbar?: ReactNode;
   onUploadBackground?: (file: File) => Promise<{ url: string }>;
+  /**
+   * For a read-only viewer: the takeoff stored with the revision, shown as it is instead of a live
+   * one (null when none is stored). Left out, the takeoff is computed live from `products`.
+   */
+  storedTakeoff?: Takeoff | null;
 };
 
 /** The whole editor screen: toolbar, canvas, live takeoff, step tools and the steps bar. */
-export function EditorView({ editor, products, settings, toolbar, onUploadBackground }: Props) {
+export function EditorView({ editor, products, settings, toolbar, onUploadBackground, storedTakeoff }: Props) {
   const plan = useEditorState(editor.store, (s) => s.plan);
   const step = useEditorState(editor.store, (s) => s.session.step);
   const units = useEditorState(editor.store, (s) => s.session.units);
   const error = useEditorState(editor.store, (s) => s.session.error);
   const dragging = useEditorState(editor.store, (s) => s.inGesture);
-  const run = useLiveTakeoff(plan, products, settings, dragging);
+  const fixed = storedTakeoff !== undefined;
+  const live = useLiveTakeoff(plan, products, settings, dragging, !fixed);
+  const stored = useMemo<TakeoffRun | null>(() => (fixed ? { takeoff: storedTakeoff, errors: [], warnings: [], elapsedMs: 0 } : null), [fixed, storedTakeoff]);
+  const run = fixed ? stored : live;
   useEditorKeys(editor);
   const drawn = useMemo(() => (run?.takeoff ? toDrawnTakeoff(run.takeoff) : null), [run]);
   const issues = useMemo(() => {
