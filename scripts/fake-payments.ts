@@ -2,7 +2,7 @@
 //   tsx scripts/fake-payments.ts   (FAKE_PAYMENTS_PORT default 12111, PAYMENTS_WEBHOOK_URL = our webhook)
 // It moves no money. The app finds it through PAYMENTS_API_URL (default http://127.0.0.1:12111).
 import { createFakePaymentService } from '../server/lib/payments/fake-service';
-import { LOCAL_PAYMENTS_PORT, LOCAL_WEBHOOK_SECRET } from '../server/lib/payments/payments-config';
+import { LOCAL_PAYMENTS_PORT, localDataDir, localWebhookSecret } from '../server/lib/payments/payments-config';
 
 const port = Number(process.env.FAKE_PAYMENTS_PORT ?? LOCAL_PAYMENTS_PORT);
 const webhookUrl = process.env.PAYMENTS_WEBHOOK_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}/api/payments/webhook`;
@@ -10,7 +10,7 @@ if (process.env.STRIPE_SECRET_KEY) {
   console.error('[payments] STRIPE_SECRET_KEY is set: the real service is used, the local stand-in is not needed');
   process.exit(1);
 }
-const fake = createFakePaymentService({ webhookSecret: LOCAL_WEBHOOK_SECRET, webhookUrl });
+const fake = createFakePaymentService({ webhookSecret: localWebhookSecret(localDataDir()), webhookUrl });
 fake
   .listen(port)
   .then((h) => {

@@ -21,7 +21,7 @@ const cache = new WeakMap<object, PaymentsContext>();
 export function paymentsContext(deps: AppDeps): PaymentsContext {
   const hit = cache.get(deps);
   if (hit) return hit;
-  const cfg = paymentsConfigFromEnv(process.env, deps.config.isProduction);
+  const cfg = paymentsConfigFromEnv(process.env, deps.config.isProduction, deps.config.uploadDir);
   const gateway = (deps as AppDeps & { payments?: PaymentsGateway }).payments ?? (cfg ? createPaymentsGateway(cfg) : null);
   const origins = ['https://checkout.stripe.com'];
   if (cfg?.apiUrl) origins.push(new URL(cfg.apiUrl).origin);
