@@ -136,4 +136,28 @@ describe('invoice PDF', () => {
     expect(text).toContain('Walkway boards not fitted');
     expect(text).toContain('Total credited');
   });
+
+  it('prints each quantity with its unit and marks the variations found on site', async () => {
+    const inv = sampleInvoice();
+    inv.lines[0] = { ...inv.lines[0], unit: 'roll' };
+    const text = (await pdfText(await renderInvoicePdf(inv, company))).replace(/\s+/g, ' ');
+    expect(text).toContain('12 roll');
+    expect(text).toContain('6.5 each');
+    expect(text.match(/VARIATION · found on site/g)).toHaveLength(2);
+  });
+
+  it.each([14, 18, 22, 26, 40])('keeps the totals on the page of the last of %i lines, never on a page of their own', async (n) => {
+    const base = sampleInvoice();
+    const lines = Array.from({ length: n }, (_, i) => ({ ...base.lines[i % 4], id: `x${i}`, description: `${base.lines[i % 4].description} no. ${i + 1}` }));
+    const parser = new PDFParse({ data: new Uint8Array(await renderInvoicePdf({ ...base, lines }, company)) });
+    try {
+      const pages = (await parser.getText()).pages.map((p) => p.text);
+      const last = pages[pages.length - 1];
+      expect(last).toContain('Balance due');
+      expect(last).toContain(`no. ${n}`);
+      expect(pages.filter((p) => p.includes('Balance due'))).toHaveLength(1);
+    } finally {
+      await parser.destroy();
+    }
+  });
 });

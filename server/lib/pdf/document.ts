@@ -165,7 +165,7 @@ export interface Column {
 }
 
 /** A simple table that breaks across pages and repeats its header. */
-export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[][], opts: { boldLastRows?: number } = {}) {
+export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[][], opts: { boldLastRows?: number; keepLastRowWithPt?: number } = {}) {
   const left = doc.page.margins.left;
   const drawHeader = () => {
     let x = left;
@@ -192,7 +192,9 @@ export function table(doc: PDFKit.PDFDocument, columns: Column[], rows: string[]
       return doc.heightOfString(cell, { width: columns[i].width - 4 });
     });
     const h = Math.max(...heights, 10) + 5;
-    if (doc.y + h > doc.page.height - doc.page.margins.bottom - 20) {
+    // The last row takes what must follow it (a totals block) onto the next page with it.
+    const after = ri === rows.length - 1 ? (opts.keepLastRowWithPt ?? 0) : 0;
+    if (doc.y + h + after > doc.page.height - doc.page.margins.bottom - 20) {
       doc.addPage();
       drawHeader();
     }

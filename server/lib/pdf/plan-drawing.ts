@@ -118,7 +118,11 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
     }
   }
 
-  // Exclusions: brick red, hatched.
+  // Exclusions: brick red, hatched, clipped to the outline (a chimney breast drawn across the wall
+  // must not spill into the page margin; only the part inside the loft matters to the takeoff).
+  doc.save();
+  pathOf(doc, outline);
+  doc.clip();
   for (const e of plan.exclusions ?? []) {
     if (e.polygon && e.polygon.length >= 3) {
       const pts = e.polygon.map(map);
@@ -149,6 +153,7 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
       doc.circle(x, y, 2.5).lineWidth(0.8).fillAndStroke('#ffffff', PALETTE.brick);
     }
   }
+  doc.restore();
 
   // Eaves edges.
   doc.lineWidth(3).strokeColor(PALETTE.sky);

@@ -125,10 +125,13 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     { header: 'VAT', width: 45, align: 'right' as const, mono: true },
     { header: 'Amount', width: 80, align: 'right' as const, mono: true },
   ];
+  // Totals (header, net, a row per rate, total), the VAT note and the deposit sentence stay with the last line.
+  const totalsHeightPt = 14 + (2 + d.totals.taxByRate.length) * 16 + 14 + (d.deposit ? 30 : 0);
   table(
     doc,
     cols,
     d.lines.map((l) => [l.description, `${qty(l.quantity)} ${l.unit}`, money(l.unitPriceMinor), formatRateBp(l.rateBp), money(l.netMinor)]),
+    { keepLastRowWithPt: totalsHeightPt },
   );
   doc.moveDown(0.4);
   const totalRows: string[][] = [['Total before VAT', '', '', '', money(d.totals.netMinor)]];

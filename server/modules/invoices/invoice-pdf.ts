@@ -5,6 +5,7 @@
  * here because fontkit fails on its ligature glyphs ("//", "->", "==") in URLs and notes. Every amount printed is the integer minor units of the invoice formatted
  * once, so the PDF, the API and the payment service agree to the penny.
  */
+import type PDFKit from 'pdfkit';
 import type { Invoice } from '../../../shared/api/invoices';
 import { formatMoney } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
@@ -26,6 +27,17 @@ export function formatQuantity(quantity: number): string {
 }
 
 /** Render the invoice (or credit note) to a PDF buffer. */
+/** Height of what follows the lines (totals, the pay link, notes), so it can be kept with the last line. */
+function tailHeightOf(doc: PDFKit.PDFDocument, invoice: Invoice, width: number): number {
+  const isCredit = invoice.kind === 'credit_note';
+  const totalRows = 1 + invoice.taxBreakdown.length + (isCredit ? 0 : (invoice.depositMinor ? 1 : 0) + (invoice.creditedMinor ? 1 : 0));
+  let h = 8 + totalRows * 14 + (isCredit ? 18 : 36);
+  if (!isCredit && invoice.status !== 'paid' && invoice.balanceMinor > 0 && invoice.payUrl) h += 12 + 40;
+  else if (!isCredit && invoice.status === 'paid') h += 26;
+  if (invoice.notes) h += 14 + doc.font('ui').fontSize(9).heightOfString(invoice.notes, { width });
+  return h;
+}
+
 export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Promise<Buffer> {
   const title = `${invoice.kind === 'credit_note' ? 'Credit note' : 'Invoice'} ${invoice.number}`;
   const { doc, done } = newDocument(title, { author: company.name });
@@ -69,14 +81,14 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
   }
 
   // Lines table
-  // Right-aligned numeric columns from the right edge: total 75, net 70, VAT 40, unit 65, qty 40.
-  const cols = { desc: left, qty: right - 305, unit: right - 260, rate: right - 190, net: right - 145, total: right - 75 };
+  // Right-aligned numeric columns from the right edge: total 75, net 70, VAT 40, unit 65, qty with its unit 70.
+  const cols = { desc: left, qty: right - 335, unit: right - 260, rate: right - 190, net: right - 145, total: right - 75 };
   const descWidth = cols.qty - left - 8;
   y = doc.y + 20;
   const header = () => {
     doc.font('ui-bold').fontSize(8).fillColor(PALETTE.graphiteLight);
     doc.text('DESCRIPTION', cols.desc, y);
-    doc.text('QTY', cols.qty, y, { width: 40, align: 'right', ...TNUM });
+    doc.text('QTY', cols.qty, y, { width: 70, align: 'right', ...TNUM });
     doc.text('UNIT', cols.unit, y, { width: 65, align: 'right', ...TNUM });
     doc.text('VAT', cols.rate, y, { width: 40, align: 'right', ...TNUM });
     doc.text('NET', cols.net, y, { width: 65, align: 'right', ...TNUM });
@@ -86,17 +98,28 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     y += 6;
   };
   header();
-  for (const line of invoice.lines) {
+  // The totals and what follows them stay on the page of the last line: never a page of its own.
+  const bottom = doc.page.height - doc.page.margins.bottom - 24;
+  const tailHeight = tailHeightOf(doc, invoice, width);
+  invoice.lines.forEach((line, i) => {
     doc.font('ui').fontSize(9.5);
-    const descHeight = doc.heightOfString(line.description, { width: descWidth });
-    if (y + descHeight > doc.page.height - 160) {
+    const isVariation = line.source === 'variation';
+    const descHeight = doc.heightOfString(line.description, { width: descWidth }) + (isVariation ? 11 : 0);
+    const isLast = i === invoice.lines.length - 1;
+    if (y + descHeight + (isLast ? tailHeight : 0) > bottom) {
       doc.addPage();
       y = MARGIN;
       header();
     }
     doc.fillColor(PALETTE.graphite).text(line.description, cols.desc, y, { width: descWidth });
-    doc.font('ui').fontSize(9);
-    doc.text(formatQuantity(line.quantity), cols.qty, y, { width: 40, align: 'right', ...TNUM });
+    if (isVariation)
+      doc
+        .font('ui-bold')
+        .fontSize(7.5)
+        .fillColor(PALETTE.timber)
+        .text('VARIATION · found on site', cols.desc, doc.y + 1, { width: descWidth });
+    doc.font('ui').fontSize(9).fillColor(PALETTE.graphite);
+    doc.text(`${formatQuantity(line.quantity)} ${line.unit}`, cols.qty, y, { width: 70, align: 'right', ...TNUM });
     doc.text(money(line.unitPriceMinor), cols.unit, y, { width: 65, align: 'right', ...TNUM });
     doc.text(formatRateBp(line.rateBp), cols.rate, y, { width: 40, align: 'right', ...TNUM });
     doc.text(money(line.netMinor), cols.net, y, { width: 65, align: 'right', ...TNUM });
@@ -108,7 +131,7 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
       .lineWidth(0.4)
       .strokeColor(PALETTE.paperLine)
       .stroke();
-  }
+  });
 
   // Totals
   y += 8;
