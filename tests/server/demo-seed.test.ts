@@ -2,7 +2,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { JOB_STAGES } from '../../shared/api/jobs';
-import { Job, Organisation, PlanRevision, Space, User } from '../../server/db/models';
+import { Invoice, Job, Organisation, PlanRevision, Quote, Space, User } from '../../server/db/models';
 import { DEMO_COMPANY, DEMO_PASSWORD, OTHER_COMPANY, loadExamplePlans, seedDemo } from '../../server/db/seeders/demo';
 import { createTestContext, loginAs, type TestContext } from '../helpers/test-app';
 
@@ -88,5 +88,28 @@ describe('demo seed', () => {
     const otherSpace = await Space.findOne({ where: { organisationId: other!.id } });
     const office = await loginAs(ctx.app, { email: 'office@demo.example.com', password: DEMO_PASSWORD });
     expect((await office.get(`/api/spaces/${otherSpace!.id}`)).status).toBe(404);
+  });
+
+  it('gives each job the quote and invoice its stage implies (a quoted job has a sent quote, a closed one a paid invoice)', async () => {
+    const org = (await Organisation.findOne({ where: { name: DEMO_COMPANY } }))!;
+    const expected: Record<string, { quote: string | null; invoice: string | null }> = {
+      enquiry: { quote: null, invoice: null },
+      surveyed: { quote: null, invoice: null },
+      quoted: { quote: 'sent', invoice: null },
+      declined: { quote: 'declined', invoice: null },
+      accepted: { quote: 'accepted', invoice: null },
+      scheduled: { quote: 'accepted', invoice: null },
+      installed: { quote: 'accepted', invoice: null },
+      closed: { quote: 'accepted', invoice: 'paid' },
+    };
+    for (const job of await Job.findAll({ where: { organisationId: org.id } })) {
+      const quotes = await Quote.findAll({ where: { jobId: job.id } });
+      const invoices = await Invoice.findAll({ where: { jobId: job.id, kind: 'invoice' } });
+      const got = {
+        quote: quotes.length ? quotes.map((q) => q.status).join(',') : null,
+        invoice: invoices.length ? invoices.map((i) => i.status).join(',') : null,
+      };
+      expect(got, `${job.reference} (${job.stage})`).toEqual(expected[job.stage]);
+    }
   });
 });

@@ -11,6 +11,7 @@ import { Customer, Job, JobEvent, Organisation, Space, User } from '../models';
 import { nextJobReference } from '../../modules/jobs/job-reference';
 import { companyTakeoffInputs, storePlanRevision } from '../../modules/plan-revisions/plan-takeoff';
 import { seedDemoCatalogue } from '../../modules/settings/settings.service';
+import { seedDemoDocuments } from './documents-demo';
 
 /** Demo-only password, shown in the README. */
 export const DEMO_PASSWORD = 'quiltline-demo';
@@ -330,5 +331,6 @@ export async function seedDemo(deps: AppDeps): Promise<boolean> {
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, deps.config.bcryptRounds);
   await seedCompany(deps, DEMO_COMPANY, DEMO_USERS, DEMO_JOBS, plans, passwordHash);
   await seedCompany(deps, OTHER_COMPANY, OTHER_USERS, OTHER_JOBS, plans, passwordHash);
+  await seedDemoDocuments(deps, [DEMO_COMPANY, OTHER_COMPANY]);
   return true;
 }
