@@ -40,8 +40,3 @@ const GRANTS: Record<Role, ReadonlySet<Action>> = {
 export function can(user: { role: Role } | null | undefined, action: Action): boolean {
   return !!user && GRANTS[user.role].has(action);
 }
-
-/** Roles holding an action; for `requireRole`-style guards. */
-export function rolesFor(action: Action): Role[] {
-  return (Object.keys(GRANTS) as Role[]).filter((r) => GRANTS[r].has(action));
-}

@@ -7,45 +7,9 @@
 /** A point or vector `[x, y]` in millimetres (plan space unless a name says otherwise). */
 export type Vec2 = [number, number];
 
-/** `a + b`. */
-export function vecAdd(a: readonly number[], b: readonly number[]): Vec2 {
-  return [a[0] + b[0], a[1] + b[1]];
-}
-
-/** `a − b`. */
-export function vecSub(a: readonly number[], b: readonly number[]): Vec2 {
-  return [a[0] - b[0], a[1] - b[1]];
-}
-
-/** `a × k`. */
-export function vecScale(a: readonly number[], k: number): Vec2 {
-  return [a[0] * k, a[1] * k];
-}
-
 /** Dot product. */
 export function vecDot(a: readonly number[], b: readonly number[]): number {
   return a[0] * b[0] + a[1] * b[1];
-}
-
-/** z-component of the cross product `a × b` (twice the signed area of the triangle 0, a, b). */
-export function vecCross(a: readonly number[], b: readonly number[]): number {
-  return a[0] * b[1] - a[1] * b[0];
-}
-
-/** Euclidean length. */
-export function vecLength(a: readonly number[]): number {
-  return Math.hypot(a[0], a[1]);
-}
-
-/** Distance between two points, mm. */
-export function pointDistance(a: readonly number[], b: readonly number[]): number {
-  return Math.hypot(a[0] - b[0], a[1] - b[1]);
-}
-
-/** Unit vector of `a`; the zero vector stays `[0, 0]` rather than becoming NaN. */
-export function vecNormalize(a: readonly number[]): Vec2 {
-  const len = Math.hypot(a[0], a[1]);
-  return len === 0 ? [0, 0] : [a[0] / len, a[1] / len];
 }
 
 /** Unit vector at `angleDeg` from the +x axis (towards +y for positive angles). */

@@ -1,6 +1,6 @@
 export { Button, ButtonLink, buttonClass } from './button';
 export { Card, CardTitle } from './card';
-export { Field, useFieldControl } from './field';
+export { Field } from './field';
 export { Input, Textarea } from './input';
 export { Select } from './select';
 export { Spinner, LoadingState } from './spinner';

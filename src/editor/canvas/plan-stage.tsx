@@ -3,7 +3,6 @@ import { Layer, Shape, Stage } from 'react-konva';
 import type { Context } from 'konva/lib/Context';
 import type { Plan } from '../../../shared/plan/plan-schema';
 import type { Editor } from '../create-editor';
-import type { Camera } from '../geometry/coords';
 import type { Session } from '../store/session';
 import { useEditorState } from '../store/use-editor-state';
 import type { DrawContext } from './draw-context';
@@ -117,5 +116,3 @@ function cursorFor(editor: Editor, session: Session): string {
   if (session.step === 'outline' || session.step === 'exclusions' || editor.isCalibrating()) return 'crosshair';
   return 'default';
 }
-
-export type { Camera };

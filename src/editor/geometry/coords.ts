@@ -21,8 +21,6 @@ export const MAX_ZOOM = 2; // 1 px = 0.5 mm
 
 export const world = (x: number, y: number): WorldPt => ({ x, y }) as WorldPt;
 export const screen = (x: number, y: number): ScreenPt => ({ x, y }) as ScreenPt;
-export const worldFromTuple = (p: readonly [number, number]): WorldPt => world(p[0], p[1]);
-export const worldToTuple = (p: WorldPt): [number, number] => [p.x, p.y];
 
 export function worldToScreen(cam: Camera, p: WorldPt): ScreenPt {
   return screen(p.x * cam.zoom + cam.panX, p.y * cam.zoom + cam.panY);
@@ -98,10 +96,6 @@ export function gridStepMm(cam: Camera, minPx = 8): number {
   let step = 100;
   while (step * cam.zoom < minPx) step *= 10;
   return step;
-}
-
-export function distanceMm(a: WorldPt, b: WorldPt): number {
-  return Math.hypot(a.x - b.x, a.y - b.y);
 }
 
 /** Distance (mm) from `p` to the segment a–b, and the parameter t ∈ [0,1] of the nearest point. */

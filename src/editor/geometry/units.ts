@@ -18,11 +18,6 @@ export function formatLength(mm: number, units: Units): string {
   return `${ft}′ ${inches}${frac ? ` ${frac}/${den}` : ''}″`;
 }
 
-/** Unit suffix shown beside metric numbers (imperial strings carry their own marks). */
-export function lengthUnit(units: Units): string {
-  return units === 'metric' ? 'mm' : '';
-}
-
 /** An area: m² or ft². */
 export function formatArea(m2: number, units: Units): string {
   return units === 'metric' ? `${m2.toFixed(2)} m²` : `${(m2 * 10.7639).toFixed(1)} ft²`;

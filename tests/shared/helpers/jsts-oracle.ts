@@ -32,11 +32,6 @@ export function jstsPolygon(rings: readonly (readonly Pt[])[]): JstsGeometry {
   return reader.read({ type: 'Polygon', coordinates: rings.map(close) });
 }
 
-/** A jsts multipolygon from polygons-with-holes. */
-export function jstsMultiPolygon(polys: readonly (readonly (readonly Pt[])[])[]): JstsGeometry {
-  return reader.read({ type: 'MultiPolygon', coordinates: polys.map((p) => p.map(close)) });
-}
-
 /** Union of many jsts geometries (empty list: an empty polygon). */
 export function jstsUnionAll(geoms: JstsGeometry[]): JstsGeometry {
   if (!geoms.length) return reader.read({ type: 'Polygon', coordinates: [] });

@@ -50,11 +50,6 @@ export async function enqueue(item: Omit<OutboxItem, 'key' | 'createdAt' | 'stat
   return full;
 }
 
-export async function discard(key: string) {
-  await deleteItem(key);
-  await reload();
-}
-
 async function send(item: OutboxItem): Promise<Response> {
   const headers: Record<string, string> = { [IDEMPOTENCY_HEADER]: item.key, Accept: 'application/json' };
   let body: BodyInit;

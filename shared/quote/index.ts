@@ -1,7 +1,0 @@
-export * from './money';
-export * from './tax';
-export * from './totals';
-export * from './build-lines';
-export * from './cautions';
-export * from './extras';
-export * from './from-takeoff';
