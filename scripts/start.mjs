@@ -1,13 +1,15 @@
 #!/usr/bin/env node
-// `npm start`: build the client if needed, start the project PostgreSQL (unless DATABASE_URL is
-// set), then the API server, which runs migrations, seeds the demo data once, starts the fake
-// SMTP server (unless SMTP_URL is set) and serves dist/ + /api on PORT (default 3000).
-// `npm run dev` (--dev): the API under `tsx watch` plus the Vite dev server with its /api proxy.
+// `npm start`: install npm packages if node_modules is missing, build the client (dist/) and
+// compile the server (dist-server/) if needed, start the project PostgreSQL (unless DATABASE_URL is
+// set), then the API server with plain node, which runs migrations, seeds the demo data once,
+// starts the fake SMTP server (unless SMTP_URL is set) and serves dist/ + /api on PORT (default 3000).
+// `npm run dev` (--dev): the API from source under `tsx watch` plus the Vite dev server with its /api proxy.
 // Ctrl-C / SIGTERM stops the server, then the cluster (if this script started it).
-import { spawn } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { buildClient } from './client-build.mjs';
+import { buildServer } from './server-build.mjs';
 import { APP_DB, REPO_ROOT, databaseUrl, ensureDatabase, ensurePgRunning, psql, stopPg } from './pg.mjs';
 
 const dev = process.argv.includes('--dev');
@@ -24,12 +26,18 @@ const log = (m) => process.stderr.write(`[start] ${m}\n`);
 const bin = (name) => path.join(REPO_ROOT, 'node_modules', '.bin', name);
 
 async function main() {
-  if (!fs.existsSync(bin('tsx'))) {
-    log('node_modules is missing: run `npm install` first (the README command does: npm install && npm start)');
-    process.exit(1);
+  if (!fs.existsSync(path.join(REPO_ROOT, 'node_modules'))) {
+    log('node_modules is missing: npm install');
+    const r = spawnSync('npm', ['install'], { cwd: REPO_ROOT, stdio: 'inherit' });
+    if (r.status !== 0) throw new Error('npm install failed');
   }
   const port = Number(process.env.PORT ?? 3000);
-  if (!dev) buildClient();
+  // Compiled server: only the runtime dependencies are loaded (tsx and esbuild are dev tools).
+  let serverMain = null;
+  if (!dev) {
+    buildClient();
+    serverMain = await buildServer({ log });
+  }
 
   let pg = null;
   const env = { ...process.env };
@@ -44,15 +52,20 @@ async function main() {
 
   const children = [];
   const apiPort = dev ? Number(process.env.API_PORT ?? port + 1) : port;
-  // tsx directly (not npx) so signals reach the server process.
-  const serverArgs = dev ? ['watch', '--clear-screen=false', 'server/index.ts'] : ['server/index.ts'];
+  // node or tsx directly (not npx) so signals reach the server process.
+  const [serverCmd, serverArgs] = dev
+    ? [bin('tsx'), ['watch', '--clear-screen=false', 'server/index.ts']]
+    : [process.execPath, ['--enable-source-maps', serverMain]];
   // Without real keys the app's SDK talks to the local stand-in started below.
   if (!env.STRIPE_SECRET_KEY && !env.PAYMENTS_API_URL) env.PAYMENTS_API_URL = `http://127.0.0.1:${env.FAKE_PAYMENTS_PORT ?? 12111}`;
-  const server = spawn(bin('tsx'), serverArgs, { cwd: REPO_ROOT, stdio: 'inherit', env: { ...env, PORT: String(apiPort) } });
+  const server = spawn(serverCmd, serverArgs, { cwd: REPO_ROOT, stdio: 'inherit', env: { ...env, PORT: String(apiPort) } });
   children.push(server);
   // With no real payment keys, the local checkout stand-in (no money moves).
   if (!env.STRIPE_SECRET_KEY) {
-    const payments = spawn(bin('tsx'), ['scripts/fake-payments.ts'], {
+    const [paymentsCmd, paymentsArgs] = dev
+      ? [bin('tsx'), ['scripts/fake-payments.ts']]
+      : [process.execPath, [path.join(REPO_ROOT, 'dist-server', 'fake-payments.js')]];
+    const payments = spawn(paymentsCmd, paymentsArgs, {
       cwd: REPO_ROOT,
       stdio: 'inherit',
       env: { ...env, PAYMENTS_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/payments/webhook` },

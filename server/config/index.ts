@@ -1,8 +1,17 @@
+import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
 
-export const REPO_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+/** The repository: the nearest folder above this module with a package.json (server/config/ when run from source, dist-server/ when compiled). */
+export const REPO_ROOT = findRepoRoot(path.dirname(fileURLToPath(import.meta.url)));
+
+function findRepoRoot(from: string): string {
+  for (let dir = from; ; dir = path.dirname(dir)) {
+    if (fs.existsSync(path.join(dir, 'package.json'))) return dir;
+    if (path.dirname(dir) === dir) throw new Error(`no package.json above ${from}`);
+  }
+}
 
 const bool = (fallback: boolean) =>
   z
