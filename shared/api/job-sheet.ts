@@ -51,6 +51,10 @@ export const sheetCutSchema = z.object({
   piece: z.number().int(),
   pieceCount: z.number().int(),
   lengthMm: z.number(),
+  /** Width to cut where it is less than the lane (cut lengthwise), mm; absent for a full-width cut. */
+  widthMm: z.number().optional(),
+  /** Cut from an offcut of this lane rather than the roll itself: which one (`roll 2 lane 1 end`, `lengthwise rest of C1.9`…). */
+  fromOffcut: z.string().optional(),
 });
 export type SheetCut = z.infer<typeof sheetCutSchema>;
 
@@ -59,7 +63,16 @@ export const sheetRollSchema = z.object({
   layerKey: z.string(),
   rollNo: z.number().int(),
   productName: z.string(),
-  lanes: z.array(z.object({ lane: z.number().int(), widthMm: z.number(), cuts: z.array(sheetCutSchema), offcutMm: z.number() })),
+  lanes: z.array(
+    z.object({
+      lane: z.number().int(),
+      widthMm: z.number(),
+      cuts: z.array(sheetCutSchema),
+      offcutMm: z.number(),
+      /** Whether the end left is worth keeping (at least the minimum usable length) or only fills slivers. */
+      offcutKeep: z.boolean().optional(),
+    }),
+  ),
 });
 export type SheetRoll = z.infer<typeof sheetRollSchema>;
 

@@ -43,6 +43,27 @@ export interface BandPiece {
    * middle of the extent it never falls in a hole, outside a partly covered band or in a notch.
    */
   insideAt: Vec2;
+  /**
+   * The piece cut lengthwise at every sub-slab boundary: one ribbon per sub-slab `t0..t1` with the
+   * mean of its left and right ends (`sLoMm`, `sHiMm`: an end cut on the angle counts at its
+   * middle) and the length actually covered (`coveredMm`, less than `sHiMm − sLoMm` where the
+   * piece forks around an obstacle). Ordered by `t0`.
+   */
+  ribbons: Ribbon[];
+}
+
+/** One sub-slab of a band piece (see `BandPiece.ribbons`), frame coordinates, mm. */
+export interface Ribbon {
+  t0: number;
+  t1: number;
+  sLoMm: number;
+  sHiMm: number;
+  /** The left end at `t0` and `t1`, and the right end at `t0` and `t1`. */
+  lo0: number;
+  lo1: number;
+  hi0: number;
+  hi1: number;
+  coveredMm: number;
 }
 
 interface Edge {
@@ -255,9 +276,30 @@ function bandPieces(bi: number, traps: Trap[], slabStart: number[], minAreaMm2: 
     let sMax = -Infinity;
     let largest = g.traps[0];
     let largestArea = -1;
+    const ribbons: Ribbon[] = [];
+    let rib: Ribbon | null = null;
     for (const t of g.traps) {
       const a = ((t.r0 - t.l0 + (t.r1 - t.l1)) / 2) * (t.y1 - t.y0);
       area += a;
+      // Trapezoids come slab by slab, so those of one sub-slab are consecutive.
+      const lm = (t.l0 + t.l1) / 2;
+      const rm = (t.r0 + t.r1) / 2;
+      if (!rib || rib.t0 !== t.y0) {
+        rib = { t0: t.y0, t1: t.y1, sLoMm: lm, sHiMm: rm, lo0: t.l0, lo1: t.l1, hi0: t.r0, hi1: t.r1, coveredMm: rm - lm };
+        ribbons.push(rib);
+      } else {
+        if (lm < rib.sLoMm) {
+          rib.sLoMm = lm;
+          rib.lo0 = t.l0;
+          rib.lo1 = t.l1;
+        }
+        if (rm > rib.sHiMm) {
+          rib.sHiMm = rm;
+          rib.hi0 = t.r0;
+          rib.hi1 = t.r1;
+        }
+        rib.coveredMm += rm - lm;
+      }
       if (a > largestArea) {
         largestArea = a;
         largest = t;
@@ -270,7 +312,7 @@ function bandPieces(bi: number, traps: Trap[], slabStart: number[], minAreaMm2: 
     if (area < minAreaMm2) continue;
     const t = largest;
     const insideAt: Vec2 = [(t.l0 + t.l1 + t.r0 + t.r1) / 4, (t.y0 + t.y1) / 2];
-    out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons: g.runs.map(runOutline), insideAt });
+    out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons: g.runs.map(runOutline), insideAt, ribbons });
   }
   if (out.length - start > 1) {
     const mine = out.splice(start).sort(bySMin);

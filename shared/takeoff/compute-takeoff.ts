@@ -5,14 +5,14 @@ import { multiPolygonArea, polygonCentroid, type MultiPolygon } from '../geometr
 import { vecDot, type Vec2 } from '../geometry/vector';
 import { computePlanRegions, countExclusionsByKind } from './regions';
 import { chooseLayers, existingInsulation, insulationBuildUp, thermalContext, type LayerChoice } from './layers';
-import { cutStrips, layerBands, layingOrder } from './strips';
-import { packPieces, rollsByArea, type PieceToCut } from './roll-plan';
+import { buildLayer } from './build-layer';
+import { applyRollPlans } from './layer-roll-plan';
 import { depthForTargetU, loftCombinedMethod, rdsapRoofUValue, rValueImperial, type InsulationLayer, type LoftThermalContext } from './thermal';
 import { yearlySavings } from './savings';
 import { siteChecksFor } from './site-checks';
 import { resolveSettings, type TakeoffSettings } from './settings';
-import { productLaneWidthMm, type TakeoffProduct } from './products';
-import { TAKEOFF_FORMAT, type PlanPointMm, type Takeoff, type TakeoffLayer, type TakeoffStrip, type TakeoffThermalState } from './takeoff-types';
+import type { TakeoffProduct } from './products';
+import { TAKEOFF_FORMAT, type PlanPointMm, type Takeoff, type TakeoffThermalState } from './takeoff-types';
 
 export * from './takeoff-types';
 export { DEFAULT_TAKEOFF_SETTINGS } from './settings';
@@ -59,7 +59,10 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const hatch = plan.exclusions[hatchIndex];
   const reference: Vec2 = hatch ? (hatch.at ? [hatch.at[0], hatch.at[1]] : polygonCentroid(hatch.polygon!)) : outlineCentre;
 
-  const layers = layerPlan.layers.map((choice) => buildLayer(plan, choice, regions.layerRegion, regions.layerAreaMm2, reference, outlineCentre, settings));
+  const built = layerPlan.layers.map((choice) => buildLayer(plan, choice, regions.layerRegion, regions.layerAreaMm2, reference, outlineCentre, settings));
+  const prices = new Map(layerPlan.layers.map((c) => [c.product.id, c.product.priceMinor]));
+  const rollPlan = applyRollPlans(built, settings, (id) => prices.get(id) ?? 0);
+  const layers = built.map((b) => b.layer);
 
   const ctx = thermalContext(plan, settings);
   const beforeLayers = existingInsulation(plan, settings);
@@ -108,7 +111,14 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
 
   const byProduct = new Map<string, Takeoff['rollsPerProduct'][number]>();
   for (const l of layers) {
-    const row = byProduct.get(l.productId) ?? { productId: l.productId, productName: l.productName, rollsByPacking: 0, rollsByArea: 0, priceMinor: 0 };
+    const row = byProduct.get(l.productId) ?? {
+      productId: l.productId,
+      productName: l.productName,
+      rollsByPacking: 0,
+      rollsByArea: 0,
+      rollsLowerBound: rollPlan.find((r) => r.productId === l.productId)?.rollsLowerBound ?? 0,
+      priceMinor: 0,
+    };
     row.rollsByPacking += l.rollsByPacking;
     row.rollsByArea += l.rollsByArea;
     row.priceMinor += l.priceMinor;
@@ -139,6 +149,7 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     },
     layers,
     rollsPerProduct: [...byProduct.values()],
+    rollPlan,
     uValueBefore: before.uValue,
     uValueAfter: after.uValue,
     rValueBeforeImperial: before.rTotalImperial,
@@ -195,102 +206,5 @@ function thermalState(layers: InsulationLayer[], ctx: LoftThermalContext, credit
     rTotalImperial: r3(rValueImperial(res.rTotal)),
     uValue: r4(res.uValue),
     rdsapU: rdsapRoofUValue(depth),
-  };
-}
-
-function buildLayer(
-  plan: Plan,
-  choice: LayerChoice,
-  region: MultiPolygon,
-  regionAreaMm2: number,
-  reference: Vec2,
-  outlineCentre: Vec2,
-  s: TakeoffSettings,
-): TakeoffLayer {
-  const p = choice.product;
-  const laneWidthMm = productLaneWidthMm(p);
-  const stagger = choice.role === 'cross' ? (choice.roleIndex * laneWidthMm) / 2 : 0;
-  const lb = layerBands(plan, choice.role, laneWidthMm, region, stagger);
-  const raw = cutStrips(region, lb, s.cuttingAllowanceMm);
-  const order = layingOrder(raw, lb.frame, reference);
-  const prefix = choice.role === 'base' ? 'B' : `C${choice.roleIndex + 1}.`;
-
-  const pieces: PieceToCut[] = [];
-  const strips: TakeoffStrip[] = order.map((rawIndex, k) => {
-    const r = raw[rawIndex];
-    const number = k + 1;
-    const count = Math.ceil(r.lengthMm / p.rollLengthMm - 1e-9);
-    for (let i = 0; i < count; i++) {
-      pieces.push({ stripNumber: number, pieceIndex: i, lengthMm: i < count - 1 ? p.rollLengthMm : r.lengthMm - (count - 1) * p.rollLengthMm });
-    }
-    return {
-      number,
-      label: `${prefix}${number}`,
-      bandIndex: r.bandIndex,
-      lengthMm: r1(r.lengthMm),
-      widthMm: r1(laneWidthMm),
-      bandWidthMm: r1(lb.bandWidthMm),
-      extentMm: r1(r.extentMm),
-      areaM2: r4(m2(r.areaMm2)),
-      polygons: r.polygons.map((poly) => poly.map(pt)),
-      labelAt: pt(r.insideAt),
-      pieces: [],
-    };
-  });
-  const packing = packPieces(pieces, { rollLengthMm: p.rollLengthMm, lanesPerRoll: p.lanesPerRoll, minOffcutMm: s.minOffcutMm });
-  for (const lane of packing.lanes) {
-    for (const cut of lane.cuts) {
-      strips[cut.stripNumber - 1].pieces.push({
-        pieceIndex: cut.pieceIndex,
-        lengthMm: r1(cut.lengthMm),
-        roll: lane.roll,
-        lane: lane.lane,
-        offsetMm: r1(cut.offsetMm),
-      });
-    }
-  }
-  for (const st of strips) st.pieces.sort((a, b) => a.pieceIndex - b.pieceIndex);
-
-  let dir: Vec2 = [lb.frame.along[0], lb.frame.along[1]];
-  const toRef: Vec2 = [reference[0] - outlineCentre[0], reference[1] - outlineCentre[1]];
-  const d = vecDot(dir, toRef);
-  if (d < -1e-6 || (Math.abs(d) <= 1e-6 && (dir[0] < -1e-12 || (Math.abs(dir[0]) <= 1e-12 && dir[1] < 0)))) dir = [-dir[0], -dir[1]];
-
-  const areaM2 = m2(regionAreaMm2);
-  const rollsArea = rollsByArea(areaM2, s.wasteAllowancePct, p.coverageM2PerRoll);
-  return {
-    role: choice.role,
-    roleIndex: choice.roleIndex,
-    productId: p.id,
-    productName: p.name,
-    thicknessMm: p.thicknessMm,
-    lambda: p.lambda,
-    areaM2: r3(areaM2),
-    rollLengthMm: p.rollLengthMm,
-    laneWidthMm: r1(laneWidthMm),
-    lanesPerRoll: p.lanesPerRoll,
-    coverageM2PerRoll: p.coverageM2PerRoll,
-    bandWidthMm: r1(lb.bandWidthMm),
-    layDirection: [r4(dir[0]), r4(dir[1])],
-    strips,
-    totalStripLengthMm: r1(raw.reduce((t, x) => t + x.lengthMm, 0)),
-    coveredAreaM2: r3(m2(raw.reduce((t, x) => t + x.areaMm2, 0))),
-    rollsByPacking: packing.rolls,
-    rollsByArea: rollsArea,
-    wastePct: r1(packing.wastePct),
-    packing: {
-      method: packing.method,
-      lanesUsed: packing.lanesUsed,
-      lanesLowerBound: packing.lanesLowerBound,
-      lanes: packing.lanes.map((l) => ({
-        roll: l.roll,
-        lane: l.lane,
-        usedMm: r1(l.usedMm),
-        leftoverMm: r1(l.leftoverMm),
-        cuts: l.cuts.map((c) => ({ stripNumber: c.stripNumber, pieceIndex: c.pieceIndex, lengthMm: r1(c.lengthMm), offsetMm: r1(c.offsetMm) })),
-      })),
-      offcuts: packing.offcuts.map((o) => ({ ...o, lengthMm: r1(o.lengthMm) })),
-    },
-    priceMinor: packing.rolls * p.priceMinor,
   };
 }

@@ -1,26 +1,61 @@
 /**
- * Packing strip pieces into roll lanes: a one-dimensional cutting-stock problem (Gilmore and
- * Gomory, 1961, from memory). Each lane of a roll is a stock length of `rollLengthMm`; a split
- * roll gives `lanesPerRoll` lanes that can be used independently. Heuristics: first-fit and
- * best-fit decreasing (Johnson, 1974: FFD uses at most 11/9·OPT + 6/9 bins); the better of the two
- * is kept. A lane's leftover is offered to later pieces only while it is at least the minimum
- * useful offcut — shorter ends are waste. All lengths in mm.
+ * The roll plan: how the strips of one product are cut from its rolls, the way an installer lays
+ * them. Each lane of a roll (a split roll gives `lanesPerRoll` narrower rolls) is laid
+ * continuously: where a roll runs out mid-strip the next roll continues it with a butt joint, and
+ * where a strip ends the rest of the roll starts the next strip. A piece is never shorter than
+ * the minimum usable length (a shorter end is not worth butting in; it is kept for filling).
+ * Strips narrower than the lane are cut lengthwise — from an offcut that is wide and long enough,
+ * else from a lane, whose lengthwise rest joins the offcuts. Pieces below the minimum strip
+ * width or area are not cut as strips: they are filled from offcuts by area. Offcuts (lane ends,
+ * lengthwise rests, cut-outs at steps and around obstacles) are shared by every strip given to
+ * one call, so the server pools the layers and spaces of a job per product by passing them all.
+ * Pure; lengths and widths in mm, areas in mm².
  */
+import { takeButted, takeFills, takeFromOffcuts, type Offcut, type OffcutPool } from './offcut-pool';
 
-/** One piece to cut: which strip (by number) and which piece of it, and how long. */
-export interface PieceToCut {
-  stripNumber: number;
-  pieceIndex: number;
-  lengthMm: number;
+export type { Offcut } from './offcut-pool';
+
+/** A roll product as the roll plan needs it. */
+export interface RollStock {
+  productId: string;
+  rollLengthMm: number;
+  lanesPerRoll: number;
+  /** Width of one lane (the roll width over the lanes), mm. */
+  laneWidthMm: number;
+  coverageM2PerRoll: number;
 }
 
-/** A cut placed in a lane, starting `offsetMm` from the lane's start. */
-export interface LaneCut extends PieceToCut {
+/** One strip to cut (or a sliver to fill). `key` is unique in the call (`B7`, `Garage C1.3`). */
+export interface PieceDemand {
+  key: string;
+  /** Whose rolls these are (a layer, or a layer of one space): rolls opened are counted per group. */
+  group: string;
+  /** Cut length (true length, rounded), mm. */
+  lengthMm: number;
+  /** Cut width: the lane width, or less for a narrow strip, mm. */
+  widthMm: number;
+  /** Area the piece covers, mm². */
+  areaMm2: number;
+  /** `fill`: below the minimum width or area, filled from offcuts, not numbered. */
+  kind: 'strip' | 'fill';
+  /** What cutting it leaves (steps, gaps around obstacles), length × width in mm. */
+  cutOuts?: { lengthMm: number; widthMm: number }[];
+}
+
+/** One cut in a lane, `offsetMm` from the lane's start; `part` of `parts` where butt-jointed. */
+export interface LaneCut {
+  key: string;
+  group: string;
+  part: number;
+  parts: number;
+  lengthMm: number;
+  /** Below the lane width: cut lengthwise, the rest kept as an offcut. */
+  widthMm: number;
   offsetMm: number;
 }
 
-/** One lane of one roll with its cuts. `roll` and `lane` count from 1. */
-export interface PackedLane {
+/** One lane of one roll (both from 1) with its cuts in cutting order and what is left. */
+export interface PlannedLane {
   roll: number;
   lane: number;
   cuts: LaneCut[];
@@ -28,148 +63,239 @@ export interface PackedLane {
   leftoverMm: number;
 }
 
-/** What is left at the end of a lane (or a lane never opened). */
-export interface Offcut {
+/** A strip (or part of one) cut from an offcut rather than a lane. */
+export interface OffcutCut {
+  key: string;
+  group: string;
+  part: number;
+  parts: number;
+  lengthMm: number;
+  widthMm: number;
+  /** Where the offcut came from (`roll 2 lane 1 end`, `lengthwise rest of C1.9`…). */
+  from: string;
   roll: number;
   lane: number;
-  lengthMm: number;
-  /** At least the minimum useful offcut: keep it for another job. */
-  reusable: boolean;
 }
 
-/** A packing of pieces into rolls. */
-export interface RollPacking {
-  method: 'first-fit-decreasing' | 'best-fit-decreasing';
-  lanes: PackedLane[];
-  lanesUsed: number;
+/** The roll plan of one product. */
+export interface ProductRollPlan {
+  productId: string;
   rolls: number;
-  /** ceil(Σ lengths / lane length): no packing can use fewer lanes. */
-  lanesLowerBound: number;
+  lanesUsed: number;
+  lanes: PlannedLane[];
+  fromOffcuts: OffcutCut[];
+  /** Slivers filled from offcuts: per group, how many and their area. */
+  fills: { group: string; count: number; areaMm2: number }[];
+  /** Offcuts nothing used (reusable: at least the minimum usable length and strip width). */
   offcuts: Offcut[];
-  /** Total length of the rolls bought, of the pieces, and the rest, mm. */
-  boughtMm: number;
-  cutMm: number;
-  /** (bought − cut) / bought × 100: everything bought and not laid, reusable offcuts included. */
+  /** Rolls opened per group, in the order groups were given: they add up to `rolls`. */
+  rollsByGroup: Record<string, number>;
+  /** ceil(area covered ÷ coverage per roll): no plan can buy fewer rolls. */
+  rollsLowerBound: number;
+  coveredMm2: number;
+  boughtMm2: number;
+  /** Bought but not laid (left offcuts, waste included) over bought, %. */
   wastePct: number;
 }
 
-/** Options of `packPieces`. */
-export interface PackOptions {
-  rollLengthMm: number;
-  lanesPerRoll: number;
-  /** Lane ends shorter than this are not reused. 0 reuses any end. */
+/** Settings of the roll plan (see `TakeoffSettings`). */
+export interface RollPlanSettings {
   minOffcutMm: number;
+  minStripWidthMm: number;
 }
+
+const EPS = 1e-6;
 
 /**
- * Packs pieces into lanes with first-fit decreasing and best-fit decreasing and returns the one
- * using fewer lanes (then less waste). Pieces longer than a lane must be split by the caller;
- * one that still is longer throws. Deterministic: ties keep input order.
+ * Plans the rolls of every product over all the pieces given (one call per job pools its
+ * spaces). Pieces of a product are cut in the order given (laying order); a lane end too short
+ * for the next strip takes the longest later strip that fits. Throws on a piece wider than its
+ * lane. Deterministic.
  */
-export function packPieces(pieces: PieceToCut[], opts: PackOptions): RollPacking {
-  const ffd = packWith(pieces, opts, 'first-fit-decreasing');
-  if (ffd.lanesUsed === ffd.lanesLowerBound) return ffd;
-  const bfd = packWith(pieces, opts, 'best-fit-decreasing');
-  return bfd.lanesUsed < ffd.lanesUsed || (bfd.lanesUsed === ffd.lanesUsed && bfd.rolls < ffd.rolls) ? bfd : ffd;
+export function planRolls(products: { stock: RollStock; pieces: PieceDemand[] }[], settings: RollPlanSettings): ProductRollPlan[] {
+  return products.map(({ stock, pieces }) => planProduct(stock, pieces, settings));
 }
 
-function packWith(pieces: PieceToCut[], opts: PackOptions, method: RollPacking['method']): RollPacking {
-  const L = opts.rollLengthMm;
-  const sorted = pieces.map((p, i) => ({ p, i })).sort((a, b) => b.p.lengthMm - a.p.lengthMm || a.i - b.i);
-  const lanes: { cuts: LaneCut[]; used: number }[] = [];
-  const EPS = 1e-6;
-  for (const { p } of sorted) {
-    if (p.lengthMm > L + EPS) throw new Error(`piece of ${p.lengthMm} mm is longer than the ${L} mm roll`);
-    let target = -1;
-    let bestLeft = Infinity;
-    for (let k = 0; k < lanes.length; k++) {
-      const left = L - lanes[k].used;
-      if (left + EPS < p.lengthMm) continue;
-      // A used lane's end is only reused while it is a useful offcut.
-      if (lanes[k].cuts.length && left + EPS < opts.minOffcutMm) continue;
-      if (method === 'first-fit-decreasing') {
-        target = k;
+function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettings): ProductRollPlan {
+  const L = stock.rollLengthMm;
+  const W = stock.laneWidthMm;
+  const minUse = Math.min(st.minOffcutMm, L / 2);
+  const lanes: PlannedLane[] = [];
+  const pool: OffcutPool = { items: [], minLengthMm: st.minOffcutMm, minWidthMm: st.minStripWidthMm };
+  const fromOffcuts: OffcutCut[] = [];
+  const openedBy: string[] = [];
+  const parts = new Map<string, number>();
+  let cur: PlannedLane | null = null;
+  // Read through a function: TypeScript does not see the closures below reassign `cur`.
+  const current = (): PlannedLane | null => cur;
+
+  const open = (group: string): PlannedLane => {
+    if (cur && cur.leftoverMm > EPS) pool.items.push(laneEnd(cur, W));
+    const i = lanes.length;
+    cur = { roll: Math.floor(i / stock.lanesPerRoll) + 1, lane: (i % stock.lanesPerRoll) + 1, cuts: [], usedMm: 0, leftoverMm: L };
+    lanes.push(cur);
+    if (i % stock.lanesPerRoll === 0) openedBy.push(group);
+    return cur;
+  };
+  const cutIn = (lane: PlannedLane, p: PieceDemand, len: number) => {
+    const part = (parts.get(p.key) ?? 0) + 1;
+    parts.set(p.key, part);
+    lane.cuts.push({ key: p.key, group: p.group, part, parts: 0, lengthMm: len, widthMm: p.widthMm, offsetMm: lane.usedMm });
+    lane.usedMm += len;
+    lane.leftoverMm = L - lane.usedMm;
+    if (p.widthMm < W - 0.5) pool.items.push({ lengthMm: len, widthMm: W - p.widthMm, from: `lengthwise rest of ${p.key}`, roll: lane.roll, lane: lane.lane });
+    if (part === 1)
+      for (const c of p.cutOuts ?? [])
+        if (c.lengthMm > 1 && c.widthMm > 1) pool.items.push({ ...c, from: `cut-out of ${p.key}`, roll: lane.roll, lane: lane.lane });
+  };
+
+  // Full-width strips first, in laying order; the longest later one that fits takes a short end.
+  const wide = pieces.filter((p) => p.kind === 'strip' && p.widthMm >= W - 0.5);
+  const narrow = pieces.filter((p) => p.kind === 'strip' && p.widthMm < W - 0.5).sort((a, b) => b.lengthMm * b.widthMm - a.lengthMm * a.widthMm);
+  const byLength = wide.map((_, i) => i).sort((a, b) => wide[a].lengthMm - wide[b].lengthMm || a - b);
+  const done = new Uint8Array(wide.length);
+  for (const p of pieces) if (p.widthMm > W + 0.5) throw new Error(`${p.key}: ${p.widthMm} mm is wider than the ${W} mm lane of ${stock.productId}`);
+
+  const layInStream = (p: PieceDemand, fillShortEnds: boolean) => {
+    let left = p.lengthMm;
+    while (left > EPS) {
+      const lane: PlannedLane = cur && cur.leftoverMm > EPS ? cur : open(p.group);
+      const rem = lane.leftoverMm;
+      if (rem + EPS >= left) {
+        cutIn(lane, p, left);
+        return;
+      }
+      const tail = left - rem;
+      if (rem + EPS >= minUse && tail + EPS >= minUse) {
+        cutIn(lane, p, rem);
+        left = tail;
+      } else if (rem + EPS >= minUse && left - minUse + EPS >= minUse) {
+        // Cut a little less here so that the piece finishing the strip is not a scrap.
+        cutIn(lane, p, left - minUse);
+        left = minUse;
+      } else {
+        if (fillShortEnds) fillEnd(lane);
+        open(p.group);
+      }
+    }
+  };
+  // A lane end too short for the next strip: the longest strip still to cut that fits it.
+  const fillEnd = (lane: PlannedLane) => {
+    for (;;) {
+      const k = longestFitting(byLength, wide, done, lane.leftoverMm);
+      if (k < 0) return;
+      done[k] = 1;
+      cutIn(lane, wide[k], wide[k].lengthMm);
+    }
+  };
+
+  for (let i = 0; i < wide.length; i++) {
+    if (done[i]) continue;
+    done[i] = 1;
+    layInStream(wide[i], true);
+  }
+  // Narrow strips: from an offcut (whole, else butted), else a length off a lane cut lengthwise,
+  // whose rest (often several widths of the same strip) goes back to the offcuts.
+  const fromPool = (p: PieceDemand, o: Offcut, len: number) => {
+    const part = (parts.get(p.key) ?? 0) + 1;
+    parts.set(p.key, part);
+    fromOffcuts.push({ key: p.key, group: p.group, part, parts: 0, lengthMm: len, widthMm: p.widthMm, from: o.from, roll: o.roll, lane: o.lane });
+  };
+  for (const p of narrow) {
+    let left = p.lengthMm;
+    while (left > EPS) {
+      const got = takeFromOffcuts(pool, left, p.widthMm);
+      if (got) {
+        fromPool(p, got, left);
         break;
       }
-      if (left - p.lengthMm < bestLeft) {
-        bestLeft = left - p.lengthMm;
-        target = k;
+      const butted = takeButted(pool, left, p.widthMm, minUse);
+      if (butted) {
+        for (const b of butted) fromPool(p, b.from, b.lengthMm);
+        break;
       }
+      const c = current();
+      let lane: PlannedLane = c && c.leftoverMm + EPS >= Math.min(minUse, left) ? c : open(p.group);
+      let take = Math.min(left, lane.leftoverMm);
+      if (left - take > EPS && left - take < minUse) take = left - minUse;
+      if (take + EPS < Math.min(minUse, left)) {
+        lane = open(p.group);
+        take = Math.min(left, L);
+        if (left - take > EPS && left - take < minUse) take = left - minUse;
+      }
+      cutIn(lane, p, take);
+      left -= take;
     }
-    if (target < 0) {
-      lanes.push({ cuts: [], used: 0 });
-      target = lanes.length - 1;
-    }
-    const lane = lanes[target];
-    lane.cuts.push({ ...p, offsetMm: lane.used });
-    lane.used += p.lengthMm;
   }
-  const k = opts.lanesPerRoll;
-  const rolls = Math.ceil(lanes.length / k);
-  const packed: PackedLane[] = lanes.map((l, i) => ({
-    roll: Math.floor(i / k) + 1,
-    lane: (i % k) + 1,
-    cuts: l.cuts,
-    usedMm: l.used,
-    leftoverMm: Math.max(0, L - l.used),
-  }));
-  const offcuts: Offcut[] = packed
-    .filter((l) => l.leftoverMm > EPS)
-    .map((l) => ({ roll: l.roll, lane: l.lane, lengthMm: l.leftoverMm, reusable: l.leftoverMm + EPS >= opts.minOffcutMm }));
-  for (let i = lanes.length; i < rolls * k; i++) offcuts.push({ roll: Math.floor(i / k) + 1, lane: (i % k) + 1, lengthMm: L, reusable: true });
-  const cutMm = pieces.reduce((t, p) => t + p.lengthMm, 0);
-  const boughtMm = rolls * k * L;
+  const last = current();
+  if (last && last.leftoverMm > EPS) pool.items.push(laneEnd(last, W));
+  // Its end is an offcut now: what still needs material opens a new lane.
+  cur = null;
+
+  // Slivers: packed in from whatever offcut area there is; material bought only for the shortfall.
+  const fillPieces = pieces.filter((p) => p.kind === 'fill');
+  const fillArea = fillPieces.reduce((t, p) => t + p.areaMm2, 0);
+  const short = takeFills(pool, fillArea);
+  if (short > EPS) {
+    const len = Math.ceil(short / W / 10) * 10;
+    const p: PieceDemand = { key: 'fill', group: fillPieces[0].group, lengthMm: len, widthMm: W, areaMm2: 0, kind: 'strip' };
+    layInStream(p, false);
+    const c = current();
+    if (c && c.leftoverMm > EPS) pool.items.push(laneEnd(c, W));
+  }
+  const fills = new Map<string, { group: string; count: number; areaMm2: number }>();
+  for (const p of fillPieces) {
+    const f = fills.get(p.group) ?? { group: p.group, count: 0, areaMm2: 0 };
+    f.count++;
+    f.areaMm2 += p.areaMm2;
+    fills.set(p.group, f);
+  }
+
+  for (const l of lanes) for (const c of l.cuts) c.parts = parts.get(c.key) ?? 1;
+  for (const c of fromOffcuts) c.parts = parts.get(c.key) ?? 1;
+  const rolls = Math.ceil(lanes.length / stock.lanesPerRoll);
+  for (let i = lanes.length; i < rolls * stock.lanesPerRoll; i++) {
+    pool.items.push({ lengthMm: L, widthMm: W, from: 'unopened lane', roll: rolls, lane: (i % stock.lanesPerRoll) + 1 });
+  }
+  const rollsByGroup: Record<string, number> = {};
+  for (const p of pieces) rollsByGroup[p.group] ??= 0;
+  for (const g of openedBy) rollsByGroup[g] = (rollsByGroup[g] ?? 0) + 1;
+  const coveredMm2 = pieces.reduce((t, p) => t + p.areaMm2, 0);
+  const boughtMm2 = rolls * stock.lanesPerRoll * L * W;
+  const leftMm2 = pool.items.reduce((t, o) => t + o.lengthMm * o.widthMm, 0);
   return {
-    method,
-    lanes: packed,
-    lanesUsed: lanes.length,
+    productId: stock.productId,
     rolls,
-    lanesLowerBound: Math.ceil(cutMm / L - 1e-9),
-    offcuts,
-    boughtMm,
-    cutMm,
-    wastePct: boughtMm > 0 ? ((boughtMm - cutMm) / boughtMm) * 100 : 0,
+    lanesUsed: lanes.length,
+    lanes,
+    fromOffcuts,
+    fills: [...fills.values()],
+    offcuts: pool.items
+      .filter((o) => o.lengthMm > EPS && o.widthMm > EPS)
+      .map((o) => ({ ...o, reusable: o.lengthMm + EPS >= st.minOffcutMm && o.widthMm + EPS >= st.minStripWidthMm })),
+    rollsByGroup,
+    rollsLowerBound: Math.ceil(coveredMm2 / 1e6 / stock.coverageM2PerRoll - 1e-9),
+    coveredMm2,
+    boughtMm2,
+    wastePct: boughtMm2 > 0 ? (leftMm2 / boughtMm2) * 100 : 0,
   };
 }
 
-/**
- * The fewest lanes any packing can use (exact branch and bound over bins, pieces in decreasing
- * order, symmetric bins skipped). Exponential: meant for small instances (about 15 pieces) in
- * tests that measure the heuristic's gap; returns `null` when `maxNodes` is exceeded.
- */
-export function exactMinLanes(lengthsMm: number[], laneMm: number, maxNodes = 2_000_000): number | null {
-  const items = lengthsMm.slice().sort((a, b) => b - a);
-  if (items.some((x) => x > laneMm)) return null;
-  const lower = Math.ceil(items.reduce((t, x) => t + x, 0) / laneMm - 1e-9);
-  let best = items.length;
-  let nodes = 0;
-  const bins: number[] = [];
-  const rec = (i: number): boolean => {
-    if (++nodes > maxNodes) return false;
-    if (i === items.length) {
-      best = Math.min(best, bins.length);
-      return true;
-    }
-    if (bins.length >= best) return true;
-    const seen = new Set<number>();
-    for (let b = 0; b < bins.length; b++) {
-      if (bins[b] + items[i] > laneMm + 1e-9 || seen.has(bins[b])) continue;
-      seen.add(bins[b]);
-      bins[b] += items[i];
-      const ok = rec(i + 1);
-      bins[b] -= items[i];
-      if (!ok) return false;
-      if (best === lower) return true;
-    }
-    if (bins.length + 1 < best) {
-      bins.push(items[i]);
-      const ok = rec(i + 1);
-      bins.pop();
-      if (!ok) return false;
-    }
-    return true;
-  };
-  return rec(0) ? best : null;
+function laneEnd(l: PlannedLane, W: number): Offcut {
+  return { lengthMm: l.leftoverMm, widthMm: W, from: `roll ${l.roll} lane ${l.lane} end`, roll: l.roll, lane: l.lane };
+}
+
+/** Index into `pieces` of the longest not yet `done` with length ≤ `maxMm`, or −1 (`order` sorts by length). */
+function longestFitting(order: number[], pieces: PieceDemand[], done: Uint8Array, maxMm: number): number {
+  let lo = 0;
+  let hi = order.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (pieces[order[mid]].lengthMm <= maxMm + EPS) lo = mid + 1;
+    else hi = mid;
+  }
+  for (let i = lo - 1; i >= 0; i--) if (!done[order[i]]) return order[i];
+  return -1;
 }
 
 /**

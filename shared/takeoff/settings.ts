@@ -8,10 +8,18 @@ import type { ExclusionKind } from '../plan/plan-schema';
 export interface TakeoffSettings {
   /** Waste allowance for the rule-of-thumb roll count, percent. Default 10 (common practice: 5–10%, more for awkward lofts). */
   wasteAllowancePct: number;
-  /** Strip lengths are rounded up to a multiple of this, mm. Default 50 (common practice). */
+  /** Strip lengths are rounded up to a multiple of this (a length within 1 mm of a step stays), mm. Default 10: a tape read to the centimetre. */
   cuttingAllowanceMm: number;
-  /** Offcuts at least this long are kept for reuse; shorter ones are waste, mm. Default 500 (common practice). */
+  /**
+   * Minimum usable offcut length, mm: no butt-jointed piece is shorter, and only offcuts at least
+   * this long are kept for other strips; shorter ends fill slivers. Default 500 (common practice:
+   * a shorter length of roll does not stay butted tight and is fiddly to place between joists).
+   */
   minOffcutMm: number;
+  /** Narrower pieces are not cut as strips but filled from offcuts, mm. Default 100 (common practice: a hand's width). */
+  minStripWidthMm: number;
+  /** Smaller pieces are filled from offcuts, m². Default 0.05 (about a 250 × 200 mm piece; common practice). */
+  minStripAreaM2: number;
   /** Heating degree days a year, K·day. Default 2462: UK standard year, base 15.5 °C (CIBSE TM41 degree-day convention; the 15.5 °C base already allows for typical internal and solar gains). */
   degreeDays: number;
   /** Fuel price, minor units per kWh (may have decimals). Default 6.5 p/kWh, a UK mains-gas figure from memory: set your own. */
@@ -70,8 +78,10 @@ export interface TakeoffSettings {
  */
 export const DEFAULT_TAKEOFF_SETTINGS: TakeoffSettings = Object.freeze({
   wasteAllowancePct: 10,
-  cuttingAllowanceMm: 50,
+  cuttingAllowanceMm: 10,
   minOffcutMm: 500,
+  minStripWidthMm: 100,
+  minStripAreaM2: 0.05,
   degreeDays: 2462,
   fuelPriceMinorPerKwh: 6.5,
   heatingEfficiency: 0.85,

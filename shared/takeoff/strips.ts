@@ -4,14 +4,28 @@ import { fromFrame, makeStripFrame, toFrame, type StripFrame } from '../geometry
 import { unitVectorFromDeg, vecPerp, type Vec2 } from '../geometry/vector';
 import type { MultiPolygon } from '../geometry/polygon';
 import type { LayerRole } from './products';
+import { stripSegments } from './strip-segments';
 
 /** A strip before numbering and packing: one connected piece of a layer inside one band. */
 export interface RawStrip {
   bandIndex: number;
-  /** Extent along the band (unrounded), mm. */
+  /** Extent along the band (unrounded): the long side where an end is cut on the angle, mm. */
   extentMm: number;
-  /** Cut length: the extent rounded up to the cutting allowance, mm. */
+  /** True length (unrounded): Σ segment lengths (an end cut on the angle counts at its middle), mm. At most `extentMm`. */
+  trueLengthMm: number;
+  /** Cut length: Σ segment cut lengths, mm. */
   lengthMm: number;
+  /** Width across the band the piece covers at its widest, mm. */
+  coveredWidthMm: number;
+  /** Whether the piece covers the band's whole width (within 1 mm) somewhere. */
+  fullWidth: boolean;
+  /**
+   * The strip along its length by covered width (see `stripSegments`): cut length (rounded up
+   * to the cutting step), the width covered and whether that is the band's whole width, mm.
+   */
+  segments: { lengthMm: number; coveredWidthMm: number; fullWidth: boolean }[];
+  /** Gaps where the piece forks around an obstacle in its band: cut out and kept, length × width across, mm. */
+  cutOuts: { lengthMm: number; acrossMm: number }[];
   /** Area the strip covers (clipped to the layer), mm². */
   areaMm2: number;
   /** Frame coordinates of the piece's middle (s along the band, t across). */
@@ -68,28 +82,55 @@ export function layerBands(plan: Plan, role: LayerRole, laneWidthMm: number, reg
   return { frame, bands, bandWidthMm: laneWidthMm };
 }
 
-/** Rounds `x` up to a multiple of `stepMm` (ignoring float dust of 1e-6 mm). Step 0 leaves it. */
-export function roundUpToStep(x: number, stepMm: number): number {
+/**
+ * Rounds `x` up to a multiple of `stepMm`, except that a length within `toleranceMm` above a
+ * whole step stays at that step (a 4000.4 mm strip is cut at 4000 mm, not 4010 mm: no tape
+ * measure reads finer than a millimetre). Step 0 leaves `x`; the result is never negative.
+ */
+export function roundUpToStep(x: number, stepMm: number, toleranceMm = 1): number {
   if (!(stepMm > 0)) return x;
-  return Math.ceil(x / stepMm - 1e-9) * stepMm;
+  // The tolerance is inclusive with 0.1 µm to spare, so float dust on a length of whole
+  // millimetres (a turned plan) cannot move it across a step.
+  return Math.max(0, Math.ceil((x - toleranceMm - 1e-4) / stepMm) * stepMm);
 }
+
+const EDGE_TOL_MM = 1;
 
 /**
  * Cuts a layer's region into strips along its bands. Each connected piece of the region in a
- * band is one strip; its length is its extent along the band rounded up to `cuttingAllowanceMm`.
+ * band is one strip, split along its length where its covered width changes (lengths under
+ * `minSegmentMm` join the wider neighbour); each length is rounded up to `cuttingAllowanceMm`.
  * Slivers under 1 mm² (a band grazing a corner) are dropped.
  */
-export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowanceMm: number): RawStrip[] {
+export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowanceMm: number, minSegmentMm = 500): RawStrip[] {
   const rings: Vec2[][] = [];
   for (const poly of region) for (const ring of poly) rings.push(ring.map((p) => toFrame(lb.frame, p)));
   const pieces = clipRegionToBands(rings, lb.bands);
   return pieces.map((pc) => {
     const band = lb.bands[pc.bandIndex];
     const extentMm = pc.sMaxMm - pc.sMinMm;
+    const bandWidth = band.hiMm - band.loMm;
+    const { segments, gaps } = stripSegments(pc.ribbons, minSegmentMm);
+    let trueLengthMm = 0;
+    let lengthMm = 0;
+    let coveredWidthMm = 0;
+    const segs: RawStrip['segments'] = [];
+    for (const g of segments) {
+      const len = roundUpToStep(g.lengthMm, cuttingAllowanceMm);
+      trueLengthMm += g.lengthMm;
+      lengthMm += len;
+      if (g.coveredWidthMm > coveredWidthMm) coveredWidthMm = g.coveredWidthMm;
+      segs.push({ lengthMm: len, coveredWidthMm: g.coveredWidthMm, fullWidth: g.coveredWidthMm >= bandWidth - EDGE_TOL_MM });
+    }
     return {
       bandIndex: pc.bandIndex,
       extentMm,
-      lengthMm: roundUpToStep(extentMm, cuttingAllowanceMm),
+      trueLengthMm,
+      lengthMm,
+      coveredWidthMm,
+      fullWidth: coveredWidthMm >= bandWidth - EDGE_TOL_MM,
+      segments: segs,
+      cutOuts: gaps,
       areaMm2: pc.areaMm2,
       midS: (pc.sMinMm + pc.sMaxMm) / 2,
       midT: (band.loMm + band.hiMm) / 2,

@@ -13,14 +13,20 @@ export const TAKEOFF_FORMAT = 'quiltline-takeoff/2' as const;
 /** `[x, y]` in plan millimetres. */
 export type PlanPointMm = [number, number];
 
-/** One cut of a strip taken from a roll lane. Rolls and lanes count from 1. */
+/** One cut of a strip taken from a roll lane (or from an offcut of it). Rolls and lanes count from 1. */
 export interface TakeoffStripPiece {
   pieceIndex: number;
   lengthMm: number;
+  /** Width cut, mm: the lane width, or less where cut lengthwise. */
+  widthMm: number;
   roll: number;
   lane: number;
-  /** Where the cut starts along the lane, mm. */
+  /** Where the cut starts along the lane, mm (0 for a piece cut from an offcut). */
   offsetMm: number;
+  /** `lane`: straight off the roll; `lengthwise`: off the roll, cut narrower; `offcut`: from an offcut (see `from`). */
+  source: 'lane' | 'lengthwise' | 'offcut';
+  /** For `offcut`: which one (`roll 2 lane 1 end`, `lengthwise rest of C1.9`…). */
+  from?: string;
 }
 
 /** One strip of a layer: what to cut, where it lies, and where it comes from. */
@@ -31,16 +37,23 @@ export interface TakeoffStrip {
   label: string;
   /** Band the strip lies in (a bay for base layers), counting across the layer. */
   bandIndex: number;
-  /** Cut length: the extent along the band rounded up to the cutting allowance, mm. */
+  /**
+   * Cut length, mm: the true length (an end against a sloping wall cut on the angle counts at its
+   * middle) rounded up to the cutting step, a length within 1 mm of a step not rounded up.
+   */
   lengthMm: number;
-  /** Width cut from the roll (the lane width), mm. */
+  /** Width cut from the roll, mm: the lane width, or the width actually covered (plus the bay's friction fit) for a narrow strip. */
   widthMm: number;
+  /** Whether the strip covers its band's whole width (otherwise it is cut lengthwise). */
+  fullWidth: boolean;
   /** Width of the band it fills (the bay for base layers), mm. */
   bandWidthMm: number;
-  /** Extent along the band before rounding, mm. */
+  /** Extent along the band before rounding: the long side where an end is cut on the angle, mm. */
   extentMm: number;
   /** Area it covers, clipped to the layer, m². */
   areaM2: number;
+  /** Area cut out of it around obstacles inside its band (kept as offcuts), m². */
+  cutOutM2: number;
   /**
    * The strip's shape in plan mm (rounded to 0.1 mm): usually one polygon; several parts whose
    * union is the strip where it forks around an obstacle inside its band.
@@ -52,13 +65,46 @@ export interface TakeoffStrip {
   pieces: TakeoffStripPiece[];
 }
 
-/** A roll lane after packing. */
+/** A roll lane after packing (in a layer's `packing`, only that layer's cuts). */
 export interface TakeoffLane {
   roll: number;
   lane: number;
   usedMm: number;
   leftoverMm: number;
-  cuts: { stripNumber: number; pieceIndex: number; lengthMm: number; offsetMm: number }[];
+  cuts: { stripNumber: number; pieceIndex: number; lengthMm: number; widthMm: number; offsetMm: number }[];
+}
+
+/** One cut in the per-roll cut list: strip label, which part of it (butt joints), length, width. */
+export interface TakeoffCut {
+  label: string;
+  part: number;
+  parts: number;
+  lengthMm: number;
+  widthMm: number;
+  /** Below the lane width: cut lengthwise, the rest kept. */
+  lengthwise: boolean;
+}
+
+/**
+ * The cut list of one product, roll by roll: in each lane the cuts in order and what is left,
+ * then the strips cut from offcuts and the slivers to fill. Rolls are pooled over the layers of
+ * the space (the server pools a job's spaces with `planRolls`).
+ */
+export interface TakeoffRollPlan {
+  productId: string;
+  productName: string;
+  laneWidthMm: number;
+  rollLengthMm: number;
+  rolls: number;
+  /** ceil(area covered ÷ coverage per roll). */
+  rollsLowerBound: number;
+  rollsByArea: number;
+  lanes: { roll: number; lane: number; cuts: TakeoffCut[]; leftoverMm: number; leftover: 'keep' | 'waste' | 'none' }[];
+  fromOffcuts: { label: string; part: number; parts: number; lengthMm: number; widthMm: number; from: string }[];
+  fills: { layer: string; count: number; areaM2: number }[];
+  /** Offcuts worth keeping when the job is done: length × width, mm. */
+  keep: { lengthMm: number; widthMm: number; from: string }[];
+  wastePct: number;
 }
 
 /** One layer of the takeoff. */
@@ -80,21 +126,26 @@ export interface TakeoffLayer {
   /** Unit vector along which strips are unrolled (towards the hatch where there is one). */
   layDirection: PlanPointMm;
   strips: TakeoffStrip[];
+  /** Pieces below the minimum strip width or area: not numbered, filled from offcuts (`at`: a point inside, plan mm). */
+  fills: { areaM2: number; widthMm: number; lengthMm: number; at: PlanPointMm }[];
   /** Σ strip lengths, mm. */
   totalStripLengthMm: number;
   /** Σ strip areas, m² (base layers leave the joist tops bare). */
   coveredAreaM2: number;
+  /** Rolls this layer opens in the space's roll plan (offcuts of earlier layers of the product used first). */
   rollsByPacking: number;
   rollsByArea: number;
-  /** Bought but not laid, % of the rolls bought (reusable offcuts included). */
+  /** ceil(covered area ÷ coverage per roll): no plan buys fewer for this layer alone. */
+  rollsLowerBound: number;
+  /** Bought but not laid, % of the product's rolls bought in the space (reusable offcuts included). */
   wastePct: number;
   packing: {
     method: string;
     lanesUsed: number;
-    /** No packing can use fewer lanes than this. */
+    /** ceil(Σ cut area ÷ lane area): no plan uses fewer lanes for this layer. */
     lanesLowerBound: number;
     lanes: TakeoffLane[];
-    offcuts: { roll: number; lane: number; lengthMm: number; reusable: boolean }[];
+    offcuts: { roll: number; lane: number; lengthMm: number; widthMm: number; reusable: boolean }[];
   };
   /** rollsByPacking × price per roll, minor units. */
   priceMinor: number;
@@ -132,7 +183,9 @@ export interface Takeoff {
   /** Products chosen for the layers: pinned in the plan, or chosen by the engine from the catalogue. */
   productChoice: { source: 'plan' | 'catalogue'; baseProductId: string | null; crossProductIds: string[] };
   layers: TakeoffLayer[];
-  rollsPerProduct: { productId: string; productName: string; rollsByPacking: number; rollsByArea: number; priceMinor: number }[];
+  rollsPerProduct: { productId: string; productName: string; rollsByPacking: number; rollsByArea: number; rollsLowerBound: number; priceMinor: number }[];
+  /** The cut list per product and roll (see `TakeoffRollPlan`). */
+  rollPlan: TakeoffRollPlan[];
   uValueBefore: number;
   uValueAfter: number;
   rValueBeforeImperial: number;

@@ -140,6 +140,46 @@ describe('takeoff properties on random plans (fast-check; jsts as the planar ora
   });
 });
 
+describe('roll plan on random plans (jsts measures the loft)', () => {
+  it('buys at least the area covered, cuts every strip exactly once and uses no roll beyond its length', () => {
+    fc.assert(
+      fc.property(arbPlan, (plan) => {
+        const t = computeTakeoff(plan, { products });
+        const outline = jstsPolygon([plan.outline]);
+        const region = plan.exclusions.length ? outline.difference(jstsUnionAll(plan.exclusions.map((e) => jstsPolygon([e.polygon!])))) : outline;
+        const loftM2 = region.getArea() / 1e6;
+        for (const rp of t.rollPlan) {
+          const layers = t.layers.filter((l) => l.productId === rp.productId);
+          const l0 = layers[0];
+          // Material bought ≥ area covered: cross layers cover the loft as jsts measures it (no eaves here).
+          const boughtM2 = (rp.rolls * l0.lanesPerRoll * l0.rollLengthMm * l0.laneWidthMm) / 1e6;
+          const covered = layers.reduce((n, l) => n + (l.role === 'cross' ? loftM2 : l.coveredAreaM2), 0);
+          expect(boughtM2).toBeGreaterThanOrEqual(covered - 0.002);
+          for (const lane of rp.lanes) {
+            const used = lane.cuts.reduce((n, c) => n + c.lengthMm, 0);
+            expect(used).toBeLessThanOrEqual(l0.rollLengthMm + 0.1);
+            expect(lane.roll).toBeLessThanOrEqual(rp.rolls);
+          }
+          // Every strip: its pieces (from lanes and offcuts) add up to its length, numbered 1..n once each.
+          const cut = new Map<string, number[]>();
+          for (const lane of rp.lanes) for (const c of lane.cuts) if (c.label !== 'fill material') cut.set(c.label, [...(cut.get(c.label) ?? []), c.part]);
+          for (const c of rp.fromOffcuts) cut.set(c.label, [...(cut.get(c.label) ?? []), c.part]);
+          for (const l of layers) {
+            for (const s of l.strips) {
+              const parts = (cut.get(s.label) ?? []).sort((a, b) => a - b);
+              expect(parts).toEqual(parts.map((_, i) => i + 1));
+              expect(parts.length).toBe(s.pieces.length);
+              expect(s.pieces.reduce((n, p) => n + p.lengthMm, 0)).toBeCloseTo(s.lengthMm, 1);
+            }
+          }
+          expect(rp.rolls).toBeGreaterThanOrEqual(rp.rollsLowerBound);
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+});
+
 describe('eaves bands on random plans', () => {
   it('keeps the net area of jsts (eaves do not change it) and takes the bands out of the layer area', () => {
     fc.assert(

@@ -14,8 +14,13 @@ function cutListRows(space: JobSheet['spaces'][number]): string[][] {
       rows.push([
         `Roll ${roll.rollNo}${roll.lanes.length > 1 ? ` lane ${lane.lane}` : ''}`,
         `${roll.productName}${lane.widthMm ? `, ${mm(lane.widthMm)} wide` : ''}`,
-        lane.cuts.map((c) => `${c.stripLabel}${c.pieceCount > 1 ? ` (${c.piece}/${c.pieceCount})` : ''} ${mm(c.lengthMm)}`).join(' · ') || '—',
-        lane.offcutMm > 0 ? mm(lane.offcutMm) : '—',
+        lane.cuts
+          .map(
+            (c) =>
+              `${c.stripLabel}${c.pieceCount > 1 ? ` (${c.piece}/${c.pieceCount})` : ''} ${mm(c.lengthMm)}${c.widthMm !== undefined ? ` × ${mm(c.widthMm)} lengthwise` : ''}${c.fromOffcut ? ` from ${c.fromOffcut}` : ''}`,
+          )
+          .join(' · ') || '—',
+        lane.offcutMm > 0 ? `${mm(lane.offcutMm)}${lane.offcutKeep === false ? ' (fill)' : ' (keep)'}` : '—',
       ]);
     }
   }

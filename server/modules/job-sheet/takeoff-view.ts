@@ -71,29 +71,44 @@ function sheetStrip(key: string, s: TakeoffLayer['strips'][number]): SheetStrip 
   };
 }
 
-/** Rolls of a layer with their lanes; in each lane the pieces in laying order (strip number, then piece). */
-function sheetRolls(l: TakeoffLayer): SheetRoll[] {
+/**
+ * Rolls of a layer with their lanes; in each lane the pieces in cutting order (the roll plan's),
+ * then the pieces cut from that lane's offcuts, with the width where a piece is cut narrower.
+ */
+function sheetRolls(l: TakeoffLayer, minOffcutMm: number): SheetRoll[] {
   const key = layerKeyOf(l);
   const byNumber = new Map(l.strips.map((s) => [s.number, s]));
   const rolls = new Map<number, SheetRoll>();
+  const laneWidth = Number(l.laneWidthMm);
+  const cutOf = (number: number, pieceIndex: number, lengthMm: number, widthMm: number | undefined, from?: string): SheetCut => {
+    const strip = byNumber.get(number);
+    return {
+      id: `${key}:${number}/${pieceIndex + 1}`,
+      stripId: `${key}:${number}`,
+      stripNumber: number,
+      stripLabel: String(strip?.label ?? number),
+      piece: pieceIndex + 1,
+      pieceCount: strip?.pieces.length ?? 1,
+      lengthMm: Number(lengthMm),
+      ...(widthMm !== undefined && widthMm < laneWidth - 0.5 ? { widthMm: Number(widthMm) } : {}),
+      ...(from ? { fromOffcut: String(from) } : {}),
+    };
+  };
+  const laneOf = (roll: number, lane: number) => {
+    const r = rolls.get(roll) ?? { layerKey: key, rollNo: roll, productName: String(l.productName), lanes: [] };
+    rolls.set(roll, r);
+    let ln = r.lanes.find((x) => x.lane === lane);
+    if (!ln) r.lanes.push((ln = { lane, widthMm: laneWidth, cuts: [], offcutMm: 0 }));
+    return ln;
+  };
   for (const lane of l.packing.lanes) {
-    const roll = rolls.get(lane.roll) ?? { layerKey: key, rollNo: lane.roll, productName: String(l.productName), lanes: [] };
-    const cuts: SheetCut[] = [...lane.cuts]
-      .sort((a, b) => a.stripNumber - b.stripNumber || a.pieceIndex - b.pieceIndex)
-      .map((c) => {
-        const strip = byNumber.get(c.stripNumber);
-        return {
-          id: `${key}:${c.stripNumber}/${c.pieceIndex + 1}`,
-          stripId: `${key}:${c.stripNumber}`,
-          stripNumber: c.stripNumber,
-          stripLabel: String(strip?.label ?? c.stripNumber),
-          piece: c.pieceIndex + 1,
-          pieceCount: strip?.pieces.length ?? 1,
-          lengthMm: Number(c.lengthMm),
-        };
-      });
-    roll.lanes.push({ lane: lane.lane, widthMm: Number(l.laneWidthMm), cuts, offcutMm: Number(lane.leftoverMm) });
-    rolls.set(lane.roll, roll);
+    const ln = laneOf(lane.roll, lane.lane);
+    ln.cuts.push(...lane.cuts.map((c) => cutOf(c.stripNumber, c.pieceIndex, c.lengthMm, c.widthMm)));
+    ln.offcutMm = Number(lane.leftoverMm);
+    ln.offcutKeep = Number(lane.leftoverMm) + 1e-6 >= minOffcutMm;
+  }
+  for (const s of l.strips) {
+    for (const p of s.pieces) if (p.source === 'offcut') laneOf(p.roll, p.lane).cuts.push(cutOf(s.number, p.pieceIndex, p.lengthMm, p.widthMm, p.from));
   }
   for (const r of rolls.values()) r.lanes.sort((a, b) => a.lane - b.lane);
   return [...rolls.values()].sort((a, b) => a.rollNo - b.rollNo);
@@ -155,7 +170,7 @@ export function sheetSpace(space: { id: string; name: string }, row: RevisionRow
     uValueBefore: Number(t.uValueBefore),
     uValueAfter: Number(t.uValueAfter),
     layers: t.layers.map(sheetLayer),
-    rolls: t.layers.flatMap(sheetRolls),
+    rolls: t.layers.flatMap((l) => sheetRolls(l, Number(t.settings?.minOffcutMm ?? 500))),
     checks: sheetChecks(t),
     problem: null,
   };

@@ -43,13 +43,18 @@ export function CutList({ space, ticks, onTick }: Props) {
                         <li key={cut.id} className="py-2">
                           <div className="flex items-baseline gap-3">
                             <span className="min-w-[3.5ch] font-mono text-xl font-bold">{cut.stripLabel}</span>
-                            <span className="whitespace-nowrap font-mono text-xl">{mm(cut.lengthMm)}</span>
+                            <span className="whitespace-nowrap font-mono text-xl">
+                              {mm(cut.lengthMm)}
+                              {cut.widthMm !== undefined && ` × ${mm(cut.widthMm)}`}
+                            </span>
+                            {cut.widthMm !== undefined && <span className="text-base text-graphite-light">cut lengthwise</span>}
                             {cut.pieceCount > 1 && (
                               <span className="text-base text-graphite-light">
                                 piece {cut.piece} of {cut.pieceCount}
                               </span>
                             )}
                           </div>
+                          {cut.fromOffcut && <div className="text-base text-graphite-light">from the offcut: {cut.fromOffcut}</div>}
                           <div className="mt-1 flex gap-2">
                             <TickButton
                               label="Cut"
@@ -73,7 +78,12 @@ export function CutList({ space, ticks, onTick }: Props) {
                         </li>
                       ))}
                     </ol>
-                    {lane.offcutMm > 0 && <div className="text-base text-graphite-light">Offcut left: {mm(lane.offcutMm)}</div>}
+                    {lane.offcutMm > 0 && (
+                      <div className="text-base text-graphite-light">
+                        Left: {mm(lane.offcutMm)}
+                        {lane.offcutKeep === false ? ' (for filling gaps)' : ' (keep for the next strips)'}
+                      </div>
+                    )}
                   </div>
                 ))}
               </div>
