@@ -1,10 +1,10 @@
 import type { Plan } from '../plan/plan-schema';
 import { InvalidPlanError } from '../plan/plan-messages';
 import { checkPlanGeometry } from '../plan/plan-geometry-checks';
-import { multiPolygonArea, polygonCentroid, type MultiPolygon } from '../geometry/polygon';
-import { vecDot, type Vec2 } from '../geometry/vector';
+import { multiPolygonArea, polygonCentroid } from '../geometry/polygon';
+import type { Vec2 } from '../geometry/vector';
 import { computePlanRegions, countExclusionsByKind } from './regions';
-import { chooseLayers, existingInsulation, insulationBuildUp, thermalContext, type LayerChoice } from './layers';
+import { chooseLayers, existingInsulation, insulationBuildUp, thermalContext } from './layers';
 import { buildLayer } from './build-layer';
 import { applyRollPlans } from './layer-roll-plan';
 import { depthForTargetU, loftCombinedMethod, rdsapRoofUValue, rValueImperial, type InsulationLayer, type LoftThermalContext } from './thermal';

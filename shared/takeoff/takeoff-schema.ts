@@ -25,6 +25,8 @@ export const takeoffSettingsSchema = z.object({
   wasteAllowancePct: num,
   cuttingAllowanceMm: num,
   minOffcutMm: num,
+  minStripWidthMm: num,
+  minStripAreaM2: num,
   degreeDays: num,
   fuelPriceMinorPerKwh: num,
   heatingEfficiency: num,
@@ -54,7 +56,16 @@ export const siteCheckSchema = z.object({
 });
 
 /** One cut of a strip from a roll lane; rolls and lanes count from 1, lengths mm. */
-export const takeoffStripPieceSchema = z.object({ pieceIndex: z.number().int(), lengthMm: num, roll: z.number().int(), lane: z.number().int(), offsetMm: num });
+export const takeoffStripPieceSchema = z.object({
+  pieceIndex: z.number().int(),
+  lengthMm: num,
+  widthMm: num,
+  roll: z.number().int(),
+  lane: z.number().int(),
+  offsetMm: num,
+  source: z.enum(['lane', 'lengthwise', 'offcut']),
+  from: z.string().optional(),
+});
 
 /** One strip of a layer (`lengthMm`/`widthMm` are the cut, mm; polygons in plan mm). */
 export const takeoffStripSchema = z.object({
@@ -63,9 +74,11 @@ export const takeoffStripSchema = z.object({
   bandIndex: z.number().int(),
   lengthMm: num,
   widthMm: num,
+  fullWidth: z.boolean(),
   bandWidthMm: num,
   extentMm: num,
   areaM2: num,
+  cutOutM2: num,
   polygons: z.array(polygon),
   labelAt: point,
   pieces: z.array(takeoffStripPieceSchema),
@@ -77,7 +90,31 @@ export const takeoffLaneSchema = z.object({
   lane: z.number().int(),
   usedMm: num,
   leftoverMm: num,
-  cuts: z.array(z.object({ stripNumber: z.number().int(), pieceIndex: z.number().int(), lengthMm: num, offsetMm: num })),
+  cuts: z.array(z.object({ stripNumber: z.number().int(), pieceIndex: z.number().int(), lengthMm: num, widthMm: num, offsetMm: num })),
+});
+
+/** The cut list of one product, roll by roll (see `TakeoffRollPlan`), mm and m². */
+export const takeoffRollPlanSchema = z.object({
+  productId: z.string(),
+  productName: z.string(),
+  laneWidthMm: num,
+  rollLengthMm: num,
+  rolls: z.number().int(),
+  rollsLowerBound: z.number().int(),
+  rollsByArea: z.number().int(),
+  lanes: z.array(
+    z.object({
+      roll: z.number().int(),
+      lane: z.number().int(),
+      cuts: z.array(z.object({ label: z.string(), part: z.number().int(), parts: z.number().int(), lengthMm: num, widthMm: num, lengthwise: z.boolean() })),
+      leftoverMm: num,
+      leftover: z.enum(['keep', 'waste', 'none']),
+    }),
+  ),
+  fromOffcuts: z.array(z.object({ label: z.string(), part: z.number().int(), parts: z.number().int(), lengthMm: num, widthMm: num, from: z.string() })),
+  fills: z.array(z.object({ layer: z.string(), count: z.number().int(), areaM2: num })),
+  keep: z.array(z.object({ lengthMm: num, widthMm: num, from: z.string() })),
+  wastePct: num,
 });
 
 /** One layer: the product chosen for it, its strips and its roll plan. */
@@ -96,17 +133,19 @@ export const takeoffLayerSchema = z.object({
   bandWidthMm: num,
   layDirection: point,
   strips: z.array(takeoffStripSchema),
+  fills: z.array(z.object({ areaM2: num, widthMm: num, lengthMm: num, at: point })),
   totalStripLengthMm: num,
   coveredAreaM2: num,
   rollsByPacking: z.number().int(),
   rollsByArea: z.number().int(),
+  rollsLowerBound: z.number().int(),
   wastePct: num,
   packing: z.object({
     method: z.string(),
     lanesUsed: z.number().int(),
     lanesLowerBound: z.number().int(),
     lanes: z.array(takeoffLaneSchema),
-    offcuts: z.array(z.object({ roll: z.number().int(), lane: z.number().int(), lengthMm: num, reusable: z.boolean() })),
+    offcuts: z.array(z.object({ roll: z.number().int(), lane: z.number().int(), lengthMm: num, widthMm: num, reusable: z.boolean() })),
   }),
   priceMinor: num,
 });
@@ -124,7 +163,7 @@ export const takeoffProductChoiceSchema = z.object({
   crossProductIds: z.array(z.string()),
 });
 
-/** The whole `quiltline-takeoff/2` artefact (JSON: no Infinity or NaN). */
+/** The whole `quiltline-takeoff/3` artefact (JSON: no Infinity or NaN). */
 export const takeoffSchema = z.object({
   format: z.literal(TAKEOFF_FORMAT),
   planName: z.string(),
@@ -139,8 +178,16 @@ export const takeoffSchema = z.object({
   productChoice: takeoffProductChoiceSchema,
   layers: z.array(takeoffLayerSchema),
   rollsPerProduct: z.array(
-    z.object({ productId: z.string(), productName: z.string(), rollsByPacking: z.number().int(), rollsByArea: z.number().int(), priceMinor: num }),
+    z.object({
+      productId: z.string(),
+      productName: z.string(),
+      rollsByPacking: z.number().int(),
+      rollsByArea: z.number().int(),
+      rollsLowerBound: z.number().int(),
+      priceMinor: num,
+    }),
   ),
+  rollPlan: z.array(takeoffRollPlanSchema),
   uValueBefore: num,
   uValueAfter: num,
   rValueBeforeImperial: num,

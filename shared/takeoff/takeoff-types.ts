@@ -8,7 +8,7 @@ import type { TakeoffSettings } from './settings';
  * shared/takeoff/takeoff-schema.ts). `/2`: strips carry `polygons` (was one `polygon`) and the
  * artefact records its product choice.
  */
-export const TAKEOFF_FORMAT = 'quiltline-takeoff/2' as const;
+export const TAKEOFF_FORMAT = 'quiltline-takeoff/3' as const;
 
 /** `[x, y]` in plan millimetres. */
 export type PlanPointMm = [number, number];

@@ -82,7 +82,7 @@ describe('every writer stores the takeoff', () => {
     expect(r1.updated + r2.updated).toBe(before - (await stale()));
     expect(r1.updated + r2.updated).toBeGreaterThanOrEqual(2);
     for (const id of [a.id, b.id])
-      expect(readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: id } }))!.takeoff)?.format).toBe('quiltline-takeoff/2');
+      expect(readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: id } }))!.takeoff)?.format).toBe('quiltline-takeoff/3');
     expect((await PlanRevision.findOne({ where: { spaceId: c.id } }))!.takeoff).toEqual(current);
     // Nothing left to do on a second run (a plan that cannot be worked out stays as it is, counted as failed).
     expect((await backfillStoredTakeoffs()).updated).toBe(0);
