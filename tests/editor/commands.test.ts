@@ -148,7 +148,9 @@ describe('plan commands', () => {
   });
 
   it('setJoists refuses a joist wider than its centres', () => {
-    expect(() => setJoists(rectPlan(), { widthMm: 450 })).toThrow(/less than the centres/);
+    expect(() => setJoists(rectPlan(), { widthMm: 450 })).toThrow(/^joist width of 450 mm must be less than the joist centres \(400 mm\)/);
+    // Centres typed too small is a centres problem, named as such (the rule involves both).
+    expect(() => setJoists(rectPlan(), { centresMm: 40 })).toThrow(/^joist centres of 40 mm must be more than the joist width \(47 mm\)/);
   });
 
   it('setJoistsAlongEdge turns the joists parallel to the edge', () => {

@@ -8,6 +8,11 @@ import { emptyPlan, rectPlan } from './fixtures';
 const camera = { zoom: 0.1, panX: 0, panY: 0 };
 const at = (x: number, y: number) => worldToScreen(camera, world(x, y));
 
+function click(ed: ReturnType<typeof createEditor>, p: [number, number], mods = {}) {
+  ed.pointerDown({ ...at(...p), ...mods });
+  ed.pointerUp({ ...at(...p), ...mods });
+}
+
 function drag(ed: ReturnType<typeof createEditor>, from: [number, number], to: [number, number], mods = {}) {
   ed.pointerDown({ ...at(...from), ...mods });
   for (let k = 1; k <= 5; k++) {
@@ -128,9 +133,16 @@ describe('joists tool', () => {
 });
 
 describe('exclusions tool', () => {
-  it('draws a rectangle of the chosen kind, moves and resizes it, and deletes it', () => {
+  it('draws a rectangle of the chosen kind by two clicks, moves and resizes it, and deletes it', () => {
     const ed = createEditor(rectPlan(), { camera, step: 'exclusions', exclusionKind: 'hatch' });
-    drag(ed, [3000, 3000], [3600, 3900]);
+    click(ed, [3000, 3000]);
+    expect(ed.toolState()).toBe('drawing-rect');
+    ed.pointerMove(at(3400, 3500));
+    expect(ed.store.getState().session.draft?.points).toEqual([
+      [3000, 3000],
+      [3400, 3500],
+    ]);
+    click(ed, [3600, 3900]);
     let ex = ed.store.getState().plan.exclusions;
     expect(ex).toHaveLength(3);
     expect(ex[2]).toEqual({

@@ -57,7 +57,7 @@ describe('takeoff CLI', () => {
     [
       'the deliberately invalid example',
       ['examples/invalid-crossed-outline.json'],
-      /^takeoff: examples\/invalid-crossed-outline\.json is not a valid plan: .*edge 3 has no length.*\(and 3 more problems\)\n$/,
+      /^takeoff: examples\/invalid-crossed-outline\.json is not a valid plan: .*edge 4 has no length.*\(and 3 more problems\)\n$/,
     ],
     ['a file that is not a plan', ['package.json'], /^takeoff: package\.json is not a valid plan: the file has no "format"/],
     [

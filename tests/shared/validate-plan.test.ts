@@ -131,7 +131,7 @@ describe('validatePlan', () => {
     );
     expect(errs).toHaveLength(1);
     expect(errs[0]).toMatchObject({ code: 'outline.self-intersection', edgeIndex: 1, otherEdgeIndex: 3, at: [3000, 2000] });
-    expect(errs[0].message).toBe('the outline crosses itself: edge 1 and edge 3 meet at (3000, 2000)');
+    expect(errs[0].message).toBe('the outline crosses itself: edge 2 and edge 4 meet at (3000, 2000)'); // counted from 1, as the editor's buttons
   });
 
   it('refuses an outline that touches itself at a corner', () => {

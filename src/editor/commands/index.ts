@@ -3,7 +3,7 @@ export { addCorner } from './add-corner';
 export { moveCorner } from './move-corner';
 export { insertCorner } from './insert-corner';
 export { deleteCorner } from './delete-corner';
-export { setEdgeLength } from './set-edge-length';
+export { setEdgeLength, setEdgeLengthDetailed } from './set-edge-length';
 export { closeOutlineFromRun } from './close-outline-from-run';
 export { parseRun, describeDirection } from './parse-run';
 export { setJoists } from './set-joists';

@@ -9,14 +9,16 @@ type State =
   | { name: 'idle' }
   | { name: 'drawing' }
   | { name: 'pointing-corner'; index: number; down: ScreenPt }
+  | { name: 'pointing-midpoint'; edge: number; down: ScreenPt }
   | { name: 'dragging-corner'; index: number }
   | { name: 'panning' };
 
 /**
  * Outline step. With no outline, clicks place corners (each one undoable) until the first corner
- * is clicked again or Enter is pressed. With an outline: drag corners, drag an edge's midpoint
- * handle to insert a corner there, click an edge to select it (its length can then be typed),
- * Delete removes the selected corner.
+ * is clicked again or Enter is pressed. With an outline: drag corners; click anywhere on a wall,
+ * its middle handle included, to select it (its length can then be typed); drag the middle
+ * handle to insert a corner there (only a drag past DRAG_THRESHOLD_PX inserts one); Delete removes
+ * the selected corner.
  */
 export function createOutlineTool(): Tool {
   let s: State = { name: 'idle' };
@@ -52,10 +54,8 @@ export function createOutlineTool(): Tool {
       }
       const mid = hitEdgeMidpoint(plan, e.world, tol, pxToMm(ctx.camera(), MIN_EDGE_PX_FOR_MIDPOINT));
       if (mid >= 0) {
-        ctx.store.beginGesture(`insert corner on edge ${mid + 1}`);
-        ctx.store.dispatch(cmd('insert corner', insertCorner, { edge: mid, at: edgeMidpoint(plan, mid) }), { history: 'gesture' });
-        s = { name: 'dragging-corner', index: mid + 1 };
-        ctx.store.setSession({ selection: { kind: 'corner', index: mid + 1 } });
+        s = { name: 'pointing-midpoint', edge: mid, down: e.screen };
+        ctx.store.setSession({ selection: { kind: 'edge', index: mid } });
         return;
       }
       const edge = hitEdge(plan, e.world, tol);
@@ -76,6 +76,13 @@ export function createOutlineTool(): Tool {
         return;
       }
       if (s.name === 'panning') return panner.move(ctx, e.screen);
+      if (s.name === 'pointing-midpoint') {
+        if (Math.hypot(e.screen.x - s.down.x, e.screen.y - s.down.y) < DRAG_THRESHOLD_PX) return;
+        ctx.store.beginGesture(`insert corner on edge ${s.edge + 1}`);
+        ctx.store.dispatch(cmd('insert corner', insertCorner, { edge: s.edge, at: edgeMidpoint(plan, s.edge) }), { history: 'gesture' });
+        s = { name: 'dragging-corner', index: s.edge + 1 };
+        ctx.store.setSession({ selection: { kind: 'corner', index: s.index } });
+      }
       if (s.name === 'pointing-corner') {
         if (Math.hypot(e.screen.x - s.down.x, e.screen.y - s.down.y) < DRAG_THRESHOLD_PX) return;
         ctx.store.beginGesture(`move corner ${s.index + 1}`);

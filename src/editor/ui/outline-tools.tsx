@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { cmd, deleteCorner, describeDirection, parseRun, closeOutlineFromRun, setEdgeLength, setOutline } from '../commands';
+import { cmd, deleteCorner, describeDirection, parseRun, closeOutlineFromRun, setEdgeLength, setEdgeLengthDetailed, setOutline } from '../commands';
 import { formatLength } from '../geometry/units';
 import { useEditor, useEditorSelect } from './editor-context';
 import { NumberField } from './number-field';
@@ -40,6 +40,15 @@ export function OutlineTools() {
           return Math.round(Math.hypot(b[0] - a[0], b[1] - a[1]));
         })()
       : 0;
+  // Whether typing a length here keeps the other walls' directions (see setEdgeLength).
+  const keepsSquare = useMemo(() => {
+    if (edge === null) return true;
+    try {
+      return setEdgeLengthDetailed(plan, { edge, lengthMm: edgeLen + 1 }).keptSquare;
+    } catch {
+      return true;
+    }
+  }, [plan, edge, edgeLen]);
   return (
     <div className="flex flex-wrap items-end gap-3">
       <form
@@ -87,6 +96,13 @@ export function OutlineTools() {
           onCommit={(v) => editor.store.dispatch(cmd(`edge ${edge + 1} length`, setEdgeLength, { edge, lengthMm: v }))}
           className="w-32"
         />
+      )}
+      {edge !== null && (
+        <p className="max-w-56 text-xs text-graphite-light" data-testid="edge-length-note">
+          {keepsSquare
+            ? 'A new length moves the walls after it along, so every wall keeps its direction.'
+            : 'No other wall is parallel to this one: a new length moves its end corner, and the next wall turns to meet it.'}
+        </p>
       )}
       {sel?.kind === 'corner' && sel.index < plan.outline.length && (
         <button

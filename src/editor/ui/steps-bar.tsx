@@ -12,9 +12,10 @@ export const STEP_LABELS: Record<StepId, string> = {
 };
 
 export const STEP_HINTS: Record<StepId, string> = {
-  outline: 'Click corners on the grid (hold Alt to draw freely) or type the walls as read off the tape; drag corners, drag a ◦ to add one.',
+  outline:
+    'Click corners on the grid (hold Alt to draw freely) or type the walls as read off the tape; click a wall to type its length; drag corners, drag a ◦ to add one.',
   joists: 'Click an edge the joists run along, or type the angle; drag a joist to place the first one.',
-  exclusions: 'Pick a kind, then drag a rectangle (or click corners in polygon mode); downlights are a click.',
+  exclusions: 'Pick a kind, then click two opposite corners (polygon: click each corner, Enter closes); a downlight is one click; drag the paper to pan.',
   eaves: 'Click each edge where the roof meets the wall plate; the blue band is kept clear for air.',
   layers: 'Record what is there now and the target; the strips show in straw (between joists) and teal (across).',
   review: 'Check the takeoff on the right, its site checks and the cautions before saving; go back to any step to change it.',
