@@ -78,7 +78,8 @@ const signedInRoutes = (queryClient?: QueryClient): RouteObject[] => [
   { path: 'invoices', element: page(InvoicesPage) },
   { path: 'invoices/:id', element: page(InvoicePage) },
   { path: 'settings/payments', element: page(PaymentSettingsPage) },
-  { path: 'spaces/:id/edit', element: page(SpaceEditorPage) },
+  // The editor takes the whole window below the header (see AppShell).
+  { path: 'spaces/:id/edit', element: page(SpaceEditorPage), handle: { fullWidth: true } },
 ];
 
 /** Pages anyone may open (signing in and the links in e-mails). */

@@ -16,6 +16,16 @@ export type KeyInput = { key: string; shift?: boolean; ctrl?: boolean; alt?: boo
 export type Editor = ReturnType<typeof createEditor>;
 
 /**
+ * What a blank plan opens on: a 12 × 9 m sheet from the origin, about a large house's loft
+ * (common practice: most UK semis are 8–10 m by 6–8 m), so the first corners are placed at a zoom
+ * where the 100 mm grid snapping is usable and the whole loft will fit without zooming out.
+ */
+export const BLANK_SHEET_MM: [number, number][] = [
+  [0, 0],
+  [12000, 9000],
+];
+
+/**
  * The editor without any view: a store plus the tools, driven by pointer and key events in
  * screen pixels. The canvas forwards its events here; the tests drive it directly.
  */
@@ -32,6 +42,15 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}, opts: {
   };
   let calibrating = false;
   let sized = false;
+  // The pointer's plan position for the read-out: hover state outside the store, so moving the
+  // mouse over the plan re-renders only the read-out, not the canvas.
+  let cursor: [number, number] | null = null;
+  const cursorListeners = new Set<() => void>();
+  const setCursor = (c: [number, number] | null) => {
+    if (c === cursor || (c && cursor && c[0] === cursor[0] && c[1] === cursor[1])) return;
+    cursor = c;
+    for (const l of cursorListeners) l();
+  };
   const ctx: ToolContext = { store, camera: () => store.getState().session.camera };
   // Read only (installers): every step only selects and pans.
   const tool = () => (opts.readOnly ? tools.review : calibrating ? tools.calibrate : tools[store.getState().session.step]);
@@ -55,9 +74,11 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}, opts: {
     store.setSession({ step, selection: null, draft: null, calibration: null });
   }
 
+  /** Shows the whole outline; with none yet, a blank sheet of BLANK_SHEET_MM so a loft fits. */
   function fit() {
     const { plan: p, session: s } = store.getState();
-    store.setSession({ camera: fitCamera(p.outline, s.viewport.width, s.viewport.height) });
+    const pts = p.outline.length > 0 ? p.outline : BLANK_SHEET_MM;
+    store.setSession({ camera: fitCamera(pts, s.viewport.width, s.viewport.height) });
   }
 
   function zoomBy(factor: number, anchor?: ScreenPt) {
@@ -112,7 +133,19 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}, opts: {
   return {
     store,
     pointerDown: (p: PointerInput) => tool().pointerDown(ctx, toPointer(p)),
-    pointerMove: (p: PointerInput) => tool().pointerMove(ctx, toPointer(p)),
+    pointerMove: (p: PointerInput) => {
+      const e = toPointer(p);
+      setCursor([Math.round(e.world.x), Math.round(e.world.y)]);
+      tool().pointerMove(ctx, e);
+    },
+    /** The pointer left the canvas: the read-out goes blank. */
+    pointerLeave: () => setCursor(null),
+    /** Where the pointer is on the plan (mm), for the read-out; null off the canvas. */
+    cursor: () => cursor,
+    subscribeCursor(l: () => void) {
+      cursorListeners.add(l);
+      return () => cursorListeners.delete(l);
+    },
     pointerUp: (p: PointerInput) => tool().pointerUp(ctx, toPointer(p)),
     /** Ends whatever the active tool was doing (pointer lost, window blurred). */
     pointerCancel: () => tool().cancel(ctx),

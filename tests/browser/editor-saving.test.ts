@@ -64,6 +64,10 @@ describe('saving the plan from two tabs', () => {
     await setField(b, 'joists', 'joist-centres', '600');
     await b.getByTestId('save').click();
     await b.getByTestId('conflict-dialog').waitFor();
+    // Same estimator in two tabs: the dialog says so, with the time and what differs.
+    await expect.poll(() => b.getByTestId('conflict-dialog').locator('h2').textContent()).toBe('You saved this plan in another tab or window');
+    expect(await b.getByTestId('conflict-when').textContent()).toMatch(/Revision 2 was saved at \d{1,2} \w{3} \d{4}/);
+    expect(await b.getByTestId('conflict-differences').textContent()).toContain('joist centres: yours 600 mm, theirs 400 mm');
     await screenshot(b, 'editor-conflict-dialog');
     await b.getByTestId('keep-mine').click();
     await saved(b, 3);
@@ -93,6 +97,30 @@ describe('saving the plan from two tabs', () => {
     await screenshot(a, 'editor-revisions');
     await a.close();
     await b.close();
+  });
+});
+
+describe('leaving the editor', () => {
+  it('asks before leaving with unsaved changes, and not once they are saved', { timeout: 60_000 }, async () => {
+    const { space } = await createJob(org, { plan: rect(), spaceName: 'Leaving loft' });
+    const page = await open(space.id);
+    const asked: string[] = [];
+    page.on('dialog', (d) => {
+      asked.push(d.type());
+      void d.dismiss(); // stay on the page
+    });
+    await setField(page, 'eaves', 'eaves-gap', '30');
+    await expect.poll(() => page.getByTestId('save-status').textContent()).toBe('Unsaved changes');
+    // A user gesture happened (typing), which Chromium requires before it shows the prompt.
+    await page.close({ runBeforeUnload: true });
+    await expect.poll(() => asked).toEqual(['beforeunload']);
+    expect(page.isClosed()).toBe(false);
+
+    await page.getByTestId('save').click();
+    await saved(page, 2);
+    await page.close({ runBeforeUnload: true });
+    await expect.poll(() => page.isClosed()).toBe(true);
+    expect(asked).toEqual(['beforeunload']);
   });
 });
 

@@ -1,5 +1,5 @@
 import { Suspense, useEffect, useState } from 'react';
-import { Link, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import { Link, Outlet, useLocation, useMatches, useNavigate } from 'react-router-dom';
 import type { Me } from '../../../shared/api/auth';
 import { ROLE_LABELS } from '../../../shared/auth/roles';
 import { can } from '../../../shared/auth/policies';
@@ -19,6 +19,8 @@ export function AppShell({ user }: { user: Me }) {
   const logout = useLogout();
   const outbox = useOutboxAvailable(can(user, 'outbox:read'));
   const items = navItemsFor(user, { outbox });
+  // A route with handle { fullWidth: true } (the plan editor) gets the whole window below the header.
+  const fullWidth = useMatches().some((m) => (m.handle as { fullWidth?: boolean } | undefined)?.fullWidth);
 
   // Navigating closes the menu (adjusted during render, not in an effect).
   const [menuPath, setMenuPath] = useState(location.pathname);
@@ -40,7 +42,7 @@ export function AppShell({ user }: { user: Me }) {
   return (
     <div className="notebook-paper min-h-dvh">
       <header className="sticky top-0 z-30 border-b border-paper-line bg-paper">
-        <div className="mx-auto flex h-14 max-w-6xl items-center gap-4 px-4">
+        <div className={`mx-auto flex h-14 items-center gap-4 px-4 ${fullWidth ? '' : 'max-w-6xl'}`}>
           <Link to="/" aria-label="Quiltline home" className="shrink-0">
             <Logo />
           </Link>
@@ -87,7 +89,7 @@ export function AppShell({ user }: { user: Me }) {
           </div>
         )}
       </header>
-      <main className="mx-auto max-w-6xl px-4 py-6 sm:py-8">
+      <main className={fullWidth ? 'w-full' : 'mx-auto max-w-6xl px-4 py-6 sm:py-8'}>
         <Suspense fallback={<LoadingState />}>
           <Outlet />
         </Suspense>

@@ -67,6 +67,9 @@ export function usePointerInput(editor: Editor, wrap: RefObject<HTMLDivElement |
       }
       editor.pointerUp({ ...p, shift: e.shiftKey, alt: e.altKey, ctrl: e.ctrlKey || e.metaKey, button: e.button, touch: e.pointerType === 'touch' });
     },
+    onPointerLeave() {
+      editor.pointerLeave();
+    },
     onPointerCancel(e: React.PointerEvent) {
       touches.current.delete(e.pointerId);
       pinch.current = null;

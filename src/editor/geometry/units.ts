@@ -5,6 +5,7 @@ const MM_PER_IN = 25.4;
 /** A length for display: whole millimetres, or feet and inches to the nearest 1/8 in. */
 export function formatLength(mm: number, units: Units): string {
   if (units === 'metric') return `${Math.round(mm)}`;
+  if (mm < 0) return `−${formatLength(-mm, units)}`;
   const eighths = Math.round((mm / MM_PER_IN) * 8);
   const ft = Math.floor(eighths / 96);
   const rest = eighths - ft * 96;

@@ -6,6 +6,8 @@ import { uploadBackground } from '../api/upload-background';
 import { cmd, replacePlan } from '../commands';
 import { createEditor } from '../create-editor';
 import { EditorView } from '../ui/editor-view';
+import { useCurrentUser } from '../../features/auth/use-current-user';
+import { useEditorState } from '../store/use-editor-state';
 import { ConflictDialog } from './conflict-dialog';
 import { exportPlanFile, readPlanFile } from './plan-file';
 import { RevisionsMenu } from './revisions-menu';
@@ -15,7 +17,7 @@ const STATUS_TEXT: Record<SaveStatus, string> = {
   saved: 'Saved',
   unsaved: 'Unsaved changes',
   saving: 'Saving…',
-  conflict: 'Saved elsewhere meanwhile',
+  conflict: 'Saved elsewhere',
   error: 'Not saved',
 };
 
@@ -32,8 +34,10 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
   const [editor] = useState(() => createEditor(data.plan, data.canWrite ? {} : { step: 'review' }, { readOnly: !data.canWrite }));
   const p = usePlanPersistence(editor, spaceId, { plan: data.plan, revision: data.revision, takeoffStored: data.takeoffStored }, data.canWrite);
   const importInput = useRef<HTMLInputElement>(null);
+  const me = useCurrentUser();
+  const livePlan = useEditorState(editor.store, (s) => s.plan);
 
-  const btn = 'h-8 rounded border border-graphite/25 bg-white px-2 text-sm';
+  const btn = 'h-8 shrink-0 rounded border border-graphite/25 bg-white px-2 text-sm';
   const toolbar = (
     <>
       <input
@@ -65,20 +69,21 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
       <RevisionsMenu spaceId={spaceId} current={p.revision} canWrite={data.canWrite} busy={p.saving} onRestore={(r) => void p.restoreRevision(r)} />
       {data.canWrite ? (
         <>
-          <label className="flex items-center gap-1 text-sm">
+          <label className="flex shrink-0 items-center gap-1 text-sm">
             <input type="checkbox" checked={p.autosave} onChange={(e) => p.setAutosave(e.target.checked)} /> Autosave
           </label>
           <span
-            className={`text-sm ${p.status === 'saved' ? 'text-teal-dark' : p.status === 'error' || p.status === 'conflict' ? 'text-brick' : 'text-graphite-light'}`}
+            // A fixed width: a longer status must never push the row, and the canvas, around.
+            className={`w-32 shrink-0 truncate text-right text-sm ${p.status === 'saved' ? 'text-teal-dark' : p.status === 'error' || p.status === 'conflict' ? 'text-brick' : 'text-graphite-light'}`}
             data-testid="save-status"
-            title={p.message ?? undefined}
+            title={p.message ?? STATUS_TEXT[p.status]}
           >
             {STATUS_TEXT[p.status]}
             {p.revision > 0 && p.status === 'saved' ? ` · rev ${p.revision}` : ''}
           </span>
           <button
             type="button"
-            className="h-8 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50"
+            className="h-8 shrink-0 rounded bg-teal-dark px-3 text-sm text-white disabled:opacity-50"
             disabled={p.saving || !p.canSave}
             onClick={() => void p.save()}
             data-testid="save"
@@ -92,18 +97,14 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
     </>
   );
 
-  return (
-    <div className="flex h-[calc(100dvh-7.5rem)] min-h-[480px] flex-col">
-      <div className="flex items-center gap-2 px-3 py-1 text-sm text-graphite-light">
-        <Link to={`/jobs/${data.space.jobId}`} className="underline">
-          Job {data.space.jobReference}
-        </Link>
-        <span>›</span>
-        <span>{data.space.name}</span>
-      </div>
+  const banner = (
+    <>
       {p.recoverable && (
-        <div role="status" className="flex flex-wrap items-center gap-3 bg-straw-light/70 px-3 py-2 text-sm" data-testid="draft-banner">
-          <span>Unsaved changes from {formatDateTime(p.recoverable.savedAt)} were kept in this browser.</span>
+        <div role="status" className="flex flex-wrap items-center gap-3 rounded bg-straw-light px-3 py-2 text-sm shadow" data-testid="draft-banner">
+          <span>
+            Unsaved changes from {formatDateTime(p.recoverable.savedAt)} were kept in this browser.
+            {p.autosavePaused === 'draft' && <b data-testid="autosave-paused"> Autosave is paused until you restore or discard them.</b>}
+          </span>
           <button type="button" className="h-8 rounded bg-graphite px-3 text-paper" onClick={p.recoverDraft} data-testid="recover-draft">
             Restore them
           </button>
@@ -113,10 +114,25 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
         </div>
       )}
       {p.message && (
-        <div role="alert" className="bg-brick-light/60 px-3 py-1.5 text-sm text-brick-dark" data-testid="save-error">
+        <div role="alert" className="rounded bg-brick-light px-3 py-1.5 text-sm text-brick-dark shadow" data-testid="save-error">
           {p.message}
         </div>
       )}
+    </>
+  );
+  const crumb = (
+    <>
+      <Link to={`/jobs/${data.space.jobId}`} className="underline">
+        Job {data.space.jobReference}
+      </Link>
+      <span> › </span>
+      <span>{data.space.name}</span>
+    </>
+  );
+
+  return (
+    // The whole window below the app's header (3.5 rem and its 1 px border).
+    <div className="flex h-[calc(100dvh-3.5rem-1px)] min-h-[480px] flex-col max-sm:h-auto">
       <div className="min-h-0 flex-1">
         <EditorView
           editor={editor}
@@ -124,12 +140,16 @@ function LoadedEditor({ spaceId, data }: { spaceId: string; data: PlanResponse }
           settings={data.takeoffInputs.settings}
           storedTakeoff={data.canWrite ? undefined : data.takeoff}
           toolbar={toolbar}
+          crumb={crumb}
+          banner={banner}
           onUploadBackground={data.canWrite ? (f) => uploadBackground(spaceId, f) : undefined}
         />
       </div>
       {p.conflict && (
         <ConflictDialog
-          theirRevision={p.conflict.theirRevision}
+          conflict={p.conflict}
+          mine={livePlan}
+          meId={me.id}
           busy={p.saving}
           onKeepMine={() => void p.keepMine()}
           onLoadTheirs={p.loadTheirs}

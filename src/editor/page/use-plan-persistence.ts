@@ -3,8 +3,10 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import type { Plan } from '../../../shared/plan/plan-schema';
 import { validatePlan } from '../../../shared/plan/validate-plan';
 import { isApiError } from '../../lib/api-client';
+import type { RevisionSummary } from '../../../shared/api/spaces';
 import { getPlan } from '../api/get-plan';
 import { adoptSavedRevision } from '../api/plan-cache';
+import { getRevisions } from '../api/get-revisions';
 import { useRestoreRevision } from '../api/restore-revision';
 import { useSavePlan } from '../api/save-plan';
 import { cmd, replacePlan } from '../commands';
@@ -15,6 +17,17 @@ import { clearDraft, readDraft, samePlan, writeDraft, type PlanDraft } from './d
 const AUTOSAVE_AFTER_MS = 5000;
 
 export type SaveStatus = 'saved' | 'unsaved' | 'saving' | 'conflict' | 'error';
+
+/** The revision saved meanwhile, with who saved it and when (when the history says). */
+export type PlanConflict = { theirs: Plan; theirRevision: number; author: RevisionSummary['author']; savedAt: string | null };
+
+/** The latest plan and who saved it, for the conflict dialog. */
+async function loadConflict(spaceId: string): Promise<PlanConflict> {
+  const latest = await getPlan(spaceId);
+  const history = await getRevisions(spaceId).catch(() => null);
+  const rev = history?.items.find((r) => r.revision === latest.revision);
+  return { theirs: latest.plan, theirRevision: latest.revision, author: rev?.author ?? null, savedAt: rev?.createdAt ?? latest.savedAt };
+}
 
 /**
  * Saving without loss: explicit save and autosave (5 s after the last change, when the plan is
@@ -29,8 +42,10 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
   // A saved plan whose takeoff was never stored (it cannot be worked out on the server yet) can be saved again as it is.
   const [takeoffStored, setTakeoffStored] = useState(initial.revision === 0 || initial.takeoffStored);
   const [savedPlan, setSavedPlan] = useState<Plan>(initial.plan);
-  const [conflict, setConflict] = useState<{ theirs: Plan; theirRevision: number; theirSavedAt: string | null } | null>(null);
+  const [conflict, setConflict] = useState<PlanConflict | null>(null);
   const [message, setMessage] = useState<string | null>(null);
+  // The plan a save was refused for: once the estimator changes it, the refusal is old news.
+  const refusedPlan = useRef<Plan | null>(null);
   const [autosave, setAutosave] = useState(true);
   const [recoverable, setRecoverable] = useState<PlanDraft | null>(() => {
     const d = readDraft(spaceId);
@@ -73,9 +88,9 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
         if (editor.store.getState().plan === sent) clearDraft(spaceId);
       } catch (e) {
         if (isApiError(e) && e.status === 409) {
-          const latest = await getPlan(spaceId);
-          setConflict({ theirs: latest.plan, theirRevision: latest.revision, theirSavedAt: latest.savedAt });
+          setConflict(await loadConflict(spaceId));
         } else {
+          refusedPlan.current = sent;
           setMessage(isApiError(e) ? e.message : (e as Error).message);
         }
       }
@@ -83,6 +98,30 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
     [editor, save, spaceId],
   );
 
+  // A refused save's bar goes once the plan changes (the fix); the status is then "unsaved" and
+  // the next save, by hand or autosave, tells again if it is still refused.
+  useEffect(() => {
+    if (message && refusedPlan.current && plan !== refusedPlan.current) {
+      refusedPlan.current = null;
+      setMessage(null);
+    }
+  }, [plan, message]);
+
+  // Leaving with unsaved changes asks first (the browser shows its own wording; the draft in
+  // localStorage is the second line of defence).
+  const unsaved = canWrite && (dirty || save.isPending);
+  useEffect(() => {
+    if (!unsaved) return;
+    const onBeforeUnload = (e: BeforeUnloadEvent) => {
+      e.preventDefault();
+      e.returnValue = ''; // older Chromium needs it set
+    };
+    window.addEventListener('beforeunload', onBeforeUnload);
+    return () => window.removeEventListener('beforeunload', onBeforeUnload);
+  }, [unsaved]);
+
+  // Autosave waits while a recovered draft is on offer (saving now would bury it under a new
+  // revision before the estimator chose); the banner says so, and `autosavePaused` tells the page.
   useEffect(() => {
     if (!autosave || !canWrite || !dirty || conflict || recoverable || save.isPending) return;
     if (!validatePlan(plan).ok) return;
@@ -101,6 +140,8 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
     canSave: canWrite && (dirty || !takeoffStored),
     autosave,
     setAutosave,
+    /** Why autosave is not running although it is switched on, if it is not. */
+    autosavePaused: autosave && canWrite ? (recoverable ? 'draft' : conflict ? 'conflict' : null) : null,
     save: () => doSave(),
     saving: save.isPending || restore.isPending,
     conflict,
@@ -112,7 +153,7 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
       adoptSavedRevision(qc, spaceId, {
         plan: conflict.theirs,
         revision: conflict.theirRevision,
-        createdAt: conflict.theirSavedAt ?? new Date().toISOString(),
+        createdAt: conflict.savedAt ?? new Date().toISOString(),
       });
       setConflict(null);
     },
@@ -135,10 +176,8 @@ export function usePlanPersistence(editor: Editor, spaceId: string, initial: { p
         adopt(res.plan, res.revision, { intoEditor: true });
         setTakeoffStored(true);
       } catch (e) {
-        if (isApiError(e) && e.status === 409) {
-          const latest = await getPlan(spaceId);
-          setConflict({ theirs: latest.plan, theirRevision: latest.revision, theirSavedAt: latest.savedAt });
-        } else setMessage((e as Error).message);
+        if (isApiError(e) && e.status === 409) setConflict(await loadConflict(spaceId));
+        else setMessage((e as Error).message);
       }
     },
   };

@@ -4,15 +4,12 @@ import { useEditor, useEditorSelect } from './editor-context';
 
 type Props = { onUpload?: (file: File) => Promise<{ url: string }> };
 
-/** Underlay: upload, two-point calibration, opacity, lock, remove. */
-export function BackgroundControls({ onUpload }: Props) {
+/** The toolbar's underlay button: upload or replace the image (its settings float on the canvas). */
+export function UnderlayButton({ onUpload }: Props) {
   const editor = useEditor();
   const bg = useEditorSelect((s) => s.plan.background);
-  const calibration = useEditorSelect((s) => s.session.calibration);
-  const calibrating = useEditorSelect(() => editor.isCalibrating());
   const file = useRef<HTMLInputElement>(null);
   const [busy, setBusy] = useState(false);
-  const [realMm, setRealMm] = useState('');
   const d = editor.store.dispatch;
 
   const upload = async (f: File) => {
@@ -29,28 +26,46 @@ export function BackgroundControls({ onUpload }: Props) {
     }
   };
 
+  if (!onUpload) return null;
   return (
-    <div className="flex flex-wrap items-center gap-2 text-sm">
-      {onUpload && (
-        <>
-          <input
-            ref={file}
-            type="file"
-            accept="image/png,image/jpeg,image/webp"
-            className="hidden"
-            data-testid="background-file"
-            onChange={(e) => {
-              const f = e.target.files?.[0];
-              if (f) void upload(f);
-              e.target.value = '';
-            }}
-          />
-          <button type="button" className="h-8 rounded border border-graphite/25 bg-white px-2" disabled={busy} onClick={() => file.current?.click()}>
-            {busy ? 'Uploading…' : bg ? 'Replace underlay' : 'Underlay image'}
-          </button>
-        </>
-      )}
-      {bg && (
+    <>
+      <input
+        ref={file}
+        type="file"
+        accept="image/png,image/jpeg,image/webp"
+        className="hidden"
+        data-testid="background-file"
+        onChange={(e) => {
+          const f = e.target.files?.[0];
+          if (f) void upload(f);
+          e.target.value = '';
+        }}
+      />
+      <button
+        type="button"
+        className="h-8 shrink-0 rounded border border-graphite/25 bg-white px-2 text-sm"
+        disabled={busy}
+        onClick={() => file.current?.click()}
+      >
+        {busy ? 'Uploading…' : bg ? 'Replace underlay' : 'Underlay'}
+      </button>
+    </>
+  );
+}
+
+/** Over the canvas while there is an underlay: two-point calibration, opacity, lock, remove. */
+export function UnderlayPanel() {
+  const editor = useEditor();
+  const bg = useEditorSelect((s) => s.plan.background);
+  const calibration = useEditorSelect((s) => s.session.calibration);
+  const calibrating = useEditorSelect(() => editor.isCalibrating());
+  const [realMm, setRealMm] = useState('');
+  const d = editor.store.dispatch;
+  if (!bg) return null;
+  return (
+    <div className="flex flex-wrap items-center gap-2 rounded border border-graphite/20 bg-paper/95 px-2 py-1 text-sm shadow" data-testid="underlay-panel">
+      <span className="text-xs text-graphite-light">Underlay</span>
+      {
         <>
           <button
             type="button"
@@ -115,7 +130,7 @@ export function BackgroundControls({ onUpload }: Props) {
             Remove
           </button>
         </>
-      )}
+      }
     </div>
   );
 }

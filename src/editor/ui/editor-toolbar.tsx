@@ -1,42 +1,67 @@
 import type { ReactNode } from 'react';
 import { useEditor, useEditorSelect } from './editor-context';
 
-const btn = 'h-8 min-w-8 rounded border border-graphite/25 bg-white px-2 text-sm disabled:opacity-40';
+const btn = 'h-8 min-w-8 shrink-0 rounded border border-graphite/25 bg-white px-2 text-sm disabled:opacity-40';
 
-/** Undo/redo, zoom and fit, units, help; `children` adds the page's own controls (save…). */
-export function EditorToolbar({ children }: { children?: ReactNode }) {
+type Props = {
+  /** A line above the plan name (the page's breadcrumb back to the job). */
+  crumb?: ReactNode;
+  /** The page's own controls (save, revisions, import/export), kept at the right. */
+  children?: ReactNode;
+};
+
+/**
+ * Undo/redo, zoom and fit, units, help, then the page's controls. One row that never wraps on a
+ * tablet or wider: the title block shrinks (and truncates) instead, so nothing below it moves
+ * when a label changes. Phones get a wrapping toolbar.
+ */
+export function EditorToolbar({ crumb, children }: Props) {
   const editor = useEditor();
   const canUndo = useEditorSelect((s) => s.undoStack.length > 0);
   const canRedo = useEditorSelect((s) => s.redoStack.length > 0);
   const units = useEditorSelect((s) => s.session.units);
   const name = useEditorSelect((s) => s.plan.name);
   return (
-    <div className="flex flex-wrap items-center gap-2 border-b border-graphite/15 bg-paper-dark/60 px-3 py-1.5">
-      <h1 className="mr-2 truncate font-semibold" data-testid="plan-name">
-        {name}
-      </h1>
+    <div
+      className="flex h-12 shrink-0 flex-nowrap items-center gap-2 border-b border-graphite/15 bg-paper-dark/60 px-3 max-md:h-auto max-md:flex-wrap max-md:py-1.5"
+      data-testid="editor-toolbar"
+    >
+      <div className="mr-1 min-w-0 flex-1 leading-tight max-md:basis-full">
+        {crumb && <div className="truncate text-xs text-graphite-light">{crumb}</div>}
+        <h1 className="truncate text-sm font-semibold" data-testid="plan-name" title={name}>
+          {name}
+        </h1>
+      </div>
       {!editor.readOnly && (
         <>
-          <button type="button" className={btn} disabled={!canUndo} onClick={() => editor.undo()} title="Undo (Ctrl+Z)" data-testid="undo">
-            ↶ Undo
+          <button type="button" className={btn} disabled={!canUndo} onClick={() => editor.undo()} title="Undo (Ctrl+Z)" aria-label="Undo" data-testid="undo">
+            ↶<span className="max-xl:hidden"> Undo</span>
           </button>
-          <button type="button" className={btn} disabled={!canRedo} onClick={() => editor.redo()} title="Redo (Ctrl+Shift+Z)" data-testid="redo">
-            ↷ Redo
+          <button
+            type="button"
+            className={btn}
+            disabled={!canRedo}
+            onClick={() => editor.redo()}
+            title="Redo (Ctrl+Shift+Z)"
+            aria-label="Redo"
+            data-testid="redo"
+          >
+            ↷<span className="max-xl:hidden"> Redo</span>
           </button>
-          <span className="mx-1 h-5 w-px bg-graphite/20" />
+          <span className="mx-0.5 h-5 w-px shrink-0 bg-graphite/20" />
         </>
       )}
-      <button type="button" className={btn} onClick={() => editor.zoomBy(0.8)} title="Zoom out (−)">
+      <button type="button" className={btn} onClick={() => editor.zoomBy(0.8)} title="Zoom out (−)" aria-label="Zoom out">
         −
       </button>
-      <button type="button" className={btn} onClick={() => editor.zoomBy(1.25)} title="Zoom in (+)">
+      <button type="button" className={btn} onClick={() => editor.zoomBy(1.25)} title="Zoom in (+)" aria-label="Zoom in">
         +
       </button>
       <button type="button" className={btn} onClick={() => editor.fit()} title="Fit (F)" data-testid="fit">
         Fit
       </button>
       <select
-        className="h-8 rounded border border-graphite/25 bg-white px-1 text-sm"
+        className="h-8 shrink-0 rounded border border-graphite/25 bg-white px-1 text-sm"
         value={units}
         aria-label="Units"
         onChange={(e) => editor.store.setSession({ units: e.target.value as 'metric' | 'imperial' })}
@@ -44,10 +69,16 @@ export function EditorToolbar({ children }: { children?: ReactNode }) {
         <option value="metric">mm, m²</option>
         <option value="imperial">ft-in, ft²</option>
       </select>
-      <button type="button" className={btn} onClick={() => editor.store.setSession((s) => ({ helpOpen: !s.helpOpen }))} title="Shortcuts (?)">
+      <button
+        type="button"
+        className={btn}
+        onClick={() => editor.store.setSession((s) => ({ helpOpen: !s.helpOpen }))}
+        title="Shortcuts (?)"
+        aria-label="Shortcuts"
+      >
         ?
       </button>
-      <div className="ml-auto flex flex-wrap items-center gap-2">{children}</div>
+      <div className="ml-auto flex shrink-0 flex-nowrap items-center gap-2 max-md:flex-wrap">{children}</div>
     </div>
   );
 }

@@ -7,7 +7,8 @@ import { placeMessage, type PlacedIssue } from '../canvas/draw-issues';
 import { useEditorState } from '../store/use-editor-state';
 import { toDrawnTakeoff } from '../takeoff/to-drawn';
 import { useLiveTakeoff } from '../takeoff/use-live-takeoff';
-import { BackgroundControls } from './background-controls';
+import { UnderlayButton, UnderlayPanel } from './background-controls';
+import { CursorReadout, ScaleBar } from './scale-bar';
 import { EavesTools } from './eaves-tools';
 import { EditorContext } from './editor-context';
 import { EditorToolbar } from './editor-toolbar';
@@ -27,6 +28,10 @@ type Props = {
   settings?: Partial<TakeoffSettings>;
   /** The page's own toolbar controls (save, revisions, import/export). */
   toolbar?: ReactNode;
+  /** The line above the plan name (a link back to the job). */
+  crumb?: ReactNode;
+  /** Notices over the top of the canvas (draft recovery, save errors): they never push it down. */
+  banner?: ReactNode;
   onUploadBackground?: (file: File) => Promise<{ url: string }>;
   /**
    * For a read-only viewer: the takeoff stored with the revision, shown as it is instead of a live
@@ -36,7 +41,7 @@ type Props = {
 };
 
 /** The whole editor screen: toolbar, canvas, live takeoff, step tools and the steps bar. */
-export function EditorView({ editor, products, settings, toolbar, onUploadBackground, storedTakeoff }: Props) {
+export function EditorView({ editor, products, settings, toolbar, crumb, banner, onUploadBackground, storedTakeoff }: Props) {
   const plan = useEditorState(editor.store, (s) => s.plan);
   const step = useEditorState(editor.store, (s) => s.session.step);
   const units = useEditorState(editor.store, (s) => s.session.units);
@@ -66,28 +71,32 @@ export function EditorView({ editor, products, settings, toolbar, onUploadBackgr
   return (
     <EditorContext.Provider value={editor}>
       <div className="flex h-full min-h-0 flex-col bg-paper" data-testid="plan-editor">
-        <EditorToolbar>
-          {!editor.readOnly && <BackgroundControls onUpload={onUploadBackground} />}
+        <EditorToolbar crumb={crumb}>
+          {!editor.readOnly && <UnderlayButton onUpload={onUploadBackground} />}
           {toolbar}
         </EditorToolbar>
-        <div className="flex min-h-0 flex-1">
-          <div className="relative min-w-0 flex-1">
+        <div className="flex min-h-0 flex-1 max-sm:flex-col">
+          <div className="relative min-w-0 flex-1 max-sm:h-[60dvh] max-sm:flex-none" data-testid="canvas-area">
             <PlanStage editor={editor} takeoff={drawn} issues={issues} />
+            <div className="pointer-events-none absolute inset-x-2 top-2 z-10 flex flex-col items-start gap-2 *:pointer-events-auto">
+              {banner}
+              {error && (
+                <div role="alert" data-testid="editor-error" className="self-center rounded bg-brick px-3 py-1.5 text-sm text-white shadow">
+                  {error}
+                  <button type="button" className="ml-3 underline" onClick={() => editor.store.setError(null)}>
+                    dismiss
+                  </button>
+                </div>
+              )}
+              {!editor.readOnly && <UnderlayPanel />}
+            </div>
+            <div className="pointer-events-none absolute bottom-2 right-2 flex items-end gap-2">
+              <ScaleBar />
+              <CursorReadout />
+            </div>
             <HelpSheet />
-            {error && (
-              <div
-                role="alert"
-                data-testid="editor-error"
-                className="absolute left-1/2 top-3 -translate-x-1/2 rounded bg-brick px-3 py-1.5 text-sm text-white shadow"
-              >
-                {error}
-                <button type="button" className="ml-3 underline" onClick={() => editor.store.setError(null)}>
-                  dismiss
-                </button>
-              </div>
-            )}
           </div>
-          <div className="w-80 shrink-0 max-md:w-64">
+          <div className="w-80 shrink-0 max-md:w-64 max-sm:h-64 max-sm:w-full max-sm:border-t max-sm:border-graphite/15">
             <TakeoffPanel run={run} units={units} stale={dragging && run?.takeoff != null} />
           </div>
         </div>

@@ -1,4 +1,4 @@
-import { EXCLUSION_KINDS, type ExclusionKind } from '../../../shared/plan/plan-schema';
+import { type ExclusionKind } from '../../../shared/plan/plan-schema';
 import { KIND_STYLES, PALETTE } from '../canvas/palette';
 
 /** A small swatch drawn the same way as the canvas hatches that kind. */
@@ -28,19 +28,5 @@ export function KindSwatch({ kind, size = 18 }: { kind: ExclusionKind; size?: nu
       ))}
       <rect x="1" y="1" width="16" height="16" fill="none" stroke={PALETTE.brick} strokeWidth="1.5" strokeDasharray={st.dash.join(' ')} />
     </svg>
-  );
-}
-
-/** The legend of exclusion kinds, as drawn on the plan. */
-export function ExclusionLegend() {
-  return (
-    <ul className="flex flex-wrap gap-x-3 gap-y-1 text-xs text-graphite-light" aria-label="Legend">
-      {EXCLUSION_KINDS.map((k) => (
-        <li key={k} className="flex items-center gap-1">
-          <KindSwatch kind={k} size={14} />
-          {KIND_STYLES[k].name}
-        </li>
-      ))}
-    </ul>
   );
 }

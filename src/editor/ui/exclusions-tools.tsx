@@ -3,7 +3,7 @@ import { KIND_STYLES } from '../canvas/palette';
 import { cmd, deleteExclusion, setExclusionKind, setExclusionLabel } from '../commands';
 import { cn } from '../../lib/cn';
 import { useEditor, useEditorSelect } from './editor-context';
-import { ExclusionLegend, KindSwatch } from './exclusion-legend';
+import { KindSwatch } from './exclusion-legend';
 
 /** What each kind asks of the installer (the app's words); shown when one is selected. */
 export const KIND_RULES: Record<ExclusionKind, string> = {
@@ -105,7 +105,6 @@ export function ExclusionsTools() {
           <p className="max-w-xs text-xs text-graphite-light">{KIND_RULES[ex.kind]}</p>
         </div>
       )}
-      <ExclusionLegend />
     </div>
   );
 }
