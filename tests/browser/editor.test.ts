@@ -71,10 +71,21 @@ async function typeLoft(page: Page) {
   await page.getByTestId('joist-angle').press('Enter');
 }
 
+/** The unsaved draft the editor keeps in localStorage (written 200 ms after the last change). */
 async function draftPlan(page: Page, spaceId: string): Promise<Plan | null> {
-  await page.waitForTimeout(400); // the draft is written 200 ms after the last change
   const raw = await page.evaluate((k) => localStorage.getItem(k), `quiltline.plan-draft.${spaceId}`);
   return raw ? (JSON.parse(raw).plan as Plan) : null;
+}
+
+/** The draft once it holds every edit typeLoft made (the tank, 600 mm centres, joists at 0°). */
+async function typedDraft(page: Page, spaceId: string): Promise<Plan> {
+  await expect
+    .poll(async () => {
+      const d = await draftPlan(page, spaceId);
+      return d ? { exclusions: d.exclusions.length, centresMm: d.joists.centresMm, angleDeg: d.joists.angleDeg } : null;
+    })
+    .toEqual({ exclusions: 1, centresMm: 600, angleDeg: 0 });
+  return (await draftPlan(page, spaceId))!;
 }
 
 describe('plan editor in a browser', () => {
@@ -131,7 +142,7 @@ describe('plan editor in a browser', () => {
     const page = await openEditor(space.id);
     await page.getByRole('checkbox', { name: 'Autosave' }).uncheck();
     await typeLoft(page);
-    const edited = await draftPlan(page, space.id);
+    const edited = await typedDraft(page, space.id);
     expect(edited?.exclusions).toHaveLength(1);
     await page
       .getByTestId('plan-canvas')
@@ -140,7 +151,7 @@ describe('plan editor in a browser', () => {
 
     // typed walls, tank, centres, angle: four steps back to the empty starting plan.
     for (let i = 0; i < 4; i++) await page.keyboard.press('Control+z');
-    expect(await draftPlan(page, space.id)).toBeNull(); // back to the loaded plan: nothing unsaved
+    await expect.poll(() => draftPlan(page, space.id)).toBeNull(); // back to the loaded plan: nothing unsaved
     expect(await page.getByTestId('undo').isDisabled()).toBe(true);
     await screenshot(page, 'editor-undo-all');
 
@@ -148,7 +159,7 @@ describe('plan editor in a browser', () => {
     await page.keyboard.press('Control+y');
     await page.getByTestId('redo').click();
     await page.getByTestId('redo').click();
-    expect(await draftPlan(page, space.id)).toEqual(edited);
+    await expect.poll(() => draftPlan(page, space.id)).toEqual(edited);
     expect(await page.getByTestId('redo').isDisabled()).toBe(true);
     await page.close();
   });
@@ -158,7 +169,7 @@ describe('plan editor in a browser', () => {
     const page = await openEditor(space.id);
     await page.getByRole('checkbox', { name: 'Autosave' }).uncheck();
     await typeLoft(page);
-    const before = await draftPlan(page, space.id);
+    const before = await typedDraft(page, space.id);
     const area = await page.getByTestId('net-area').textContent();
 
     await page.reload();
@@ -166,7 +177,7 @@ describe('plan editor in a browser', () => {
     await screenshot(page, 'editor-draft-banner');
     await page.getByTestId('recover-draft').click();
     await expect.poll(() => page.getByTestId('net-area').textContent()).toBe(area);
-    expect(await draftPlan(page, space.id)).toEqual(before);
+    await expect.poll(() => draftPlan(page, space.id)).toEqual(before);
     // Nothing was saved behind the estimator's back.
     const res = await page.request.get(`${server.url}/api/spaces/${space.id}/plan`);
     expect((await res.json()).revision).toBe(0);

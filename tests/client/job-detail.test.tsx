@@ -116,7 +116,10 @@ describe('job detail', () => {
     render('estimator');
     await screen.findByRole('heading', { name: /Samuel Okonjo/ });
     await screen.findByText('Payments');
-    await new Promise((r) => setTimeout(r, 50));
+    // The same card asks for the payment timeline on the same mount as it would ask for invoices:
+    // once the timeline has arrived, an invoices request would have been made too.
+    await screen.findByText('No deposit or invoice yet.');
+    expect(calls.some((c) => c.url.pathname === `/api/payments/jobs/${JOB_ID}/timeline`)).toBe(true);
     expect(calls.filter((c) => c.url.pathname === '/api/invoices')).toHaveLength(0);
   });
 
