@@ -3,9 +3,9 @@ import type { PlanInput } from '../shared/plan/plan-schema';
 /**
  * A generated stress plan for the takeoff benchmark: a wavy 400-point outline of about 600 m²,
  * 100 exclusions (downlights, tanks, hatches, boards, flues, other) and 400 mm joist centres.
- * Deterministic (mulberry32 seeded PRNG) so runs compare.
+ * Deterministic (mulberry32 seeded PRNG) so runs compare; `angleDeg` turns the joists (skewed plans).
  */
-export function stressPlan(seed = 7, points = 400, exclusions = 100): PlanInput {
+export function stressPlan(seed = 7, points = 400, exclusions = 100, angleDeg = 13): PlanInput {
   let a = seed >>> 0;
   const rand = () => {
     a = (a + 0x6d2b79f5) >>> 0;
@@ -51,7 +51,7 @@ export function stressPlan(seed = 7, points = 400, exclusions = 100): PlanInput 
     outline,
     eavesEdges: Array.from({ length: 50 }, (_, i) => i * 2),
     eavesGapMm: 50,
-    joists: { angleDeg: 13, centresMm: 400, widthMm: 47, depthMm: 100, offsetMm: 0 },
+    joists: { angleDeg, centresMm: 400, widthMm: 47, depthMm: 100, offsetMm: 0 },
     exclusions: ex,
     existing: { depthMm: 0, condition: 'none' },
     target: { depthMm: 270 },
