@@ -2,7 +2,7 @@
 //   tsx scripts/fake-payments.ts   (FAKE_PAYMENTS_PORT default 12111, PAYMENTS_WEBHOOK_URL = our webhook)
 // It moves no money. The app finds it through PAYMENTS_API_URL (default http://127.0.0.1:12111).
 import { createFakePaymentService } from '../server/lib/payments/fake-service';
-import { LOCAL_PAYMENTS_PORT, localDataDir, localWebhookSecret } from '../server/lib/payments/payments-config';
+import { LOCAL_PAYMENTS_PORT, localDataDir, localWebhookSecret } from '../server/config/payments';
 
 const port = Number(process.env.FAKE_PAYMENTS_PORT ?? LOCAL_PAYMENTS_PORT);
 const webhookUrl = process.env.PAYMENTS_WEBHOOK_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}/api/payments/webhook`;

@@ -7,22 +7,26 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createSessionStack } from './middleware/session';
 import { createAuthService } from './modules/auth/auth.service';
 import { authRouter } from './modules/auth/auth.router';
+import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { customersRouter } from './modules/customers/customers.router';
 import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
+import { handoverRouter } from './modules/handover/handover.router';
 import { healthRouter } from './modules/health/health.router';
-import { mountPayments, mountPaymentsWebhook } from './modules/payments/mount';
-import { jobSheetRouter } from './modules/job-sheet/job-sheet.router';
+import { invoicesRouter } from './modules/invoices/invoices.router';
+import { createInvoicesService } from './modules/invoices/invoices.service';
+import { jobSheetRouters } from './modules/job-sheet/job-sheet.router';
 import { jobsRouter } from './modules/jobs/jobs.router';
-import { photosRouter } from './modules/photos/photos.router';
-import { scheduleRouter } from './modules/schedule/schedule.router';
-import { spacesRouter } from './modules/spaces/spaces.router';
+import { payRouter } from './modules/payments/pay.router';
+import { paymentsRouter, paymentsWebhookRouter } from './modules/payments/payments.router';
+import { createPaymentsService } from './modules/payments/payments.service';
+import { photosRouters } from './modules/photos/photos.router';
 import { plansRouter } from './modules/plans/plans.router';
-import { usersRouter } from './modules/users/users.router';
-import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
+import { scheduleRouter } from './modules/schedule/schedule.router';
 import { settingsRouter } from './modules/settings/settings.router';
-import { jobSheetExportRouter } from './modules/exports/job-sheet-export.router';
+import { spacesRouters } from './modules/spaces/spaces.router';
+import { usersRouter } from './modules/users/users.router';
 
 /**
  * The Express app, with no listening and no global state: index.ts listens, tests use supertest.
@@ -36,12 +40,18 @@ export function createApp(deps: AppDeps): Express {
   app.set('query parser', 'extended');
 
   app.use(helmet());
+  // Services shared by several routers are built once here.
+  const payments = createPaymentsService(deps);
+  const invoices = createInvoicesService(deps, payments);
   // The webhook verifies a signature over the raw body, so it sits before the JSON parser.
-  mountPaymentsWebhook(app, deps);
+  app.use('/api/payments/webhook', paymentsWebhookRouter(deps, payments));
   app.use(express.json({ limit: '5mb' }));
 
   const auth = createAuthService(deps);
   const { handlers: sessionHandlers, passport } = createSessionStack(deps, auth);
+  const spaces = spacesRouters(deps);
+  const sheets = jobSheetRouters(deps);
+  const photos = photosRouters(deps);
 
   // Health answers without a session (load balancers probe it).
   app.use('/api/health', healthRouter(deps));
@@ -49,23 +59,21 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/auth', authRouter(deps, auth, passport));
   app.use('/api/users', usersRouter(deps, auth));
   app.use('/api/customers', customersRouter(deps));
-  app.use('/api/jobs', jobsRouter(deps));
-  app.use('/api/spaces', spacesRouter(deps));
-  if (!config.isProduction) app.use('/api/dev/outbox', devOutboxRouter(deps));
-
-  mountPayments(app, deps); // /api/payments, /api/invoices, customer pages under /pay
+  // One router on /api/jobs; the other modules' routes about one job are composed into it.
+  app.use('/api/jobs', jobsRouter(deps, [spaces.jobSpaces, jobQuotesRouter(deps), sheets.jobSheet, photos.jobPhotos, handoverRouter(deps)]));
+  app.use('/api/my-jobs', sheets.myJobs);
+  app.use('/api/spaces', spaces.spaces);
+  app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay
+  app.use('/api/photos', photos.photos);
   app.use('/api/schedule', scheduleRouter(deps)); // week view, booking, install settings
-  app.use('/api', jobSheetRouter(deps)); // my-jobs, job sheet, ticks, notes, finish, handover
-  app.use('/api', photosRouter(deps)); // site photos
-
   app.use('/api/settings', settingsRouter(deps)); // company settings, logo
   app.use('/api/catalogue', catalogueRouter(deps)); // products, extras, tax rates
-  app.use('/api/jobs', jobQuotesRouter(deps)); // build and list a job's quotes
   app.use('/api/quotes', quotesRouter(deps)); // quotes, send, PDF/CSV/XLSX
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // the customer's private link (no sign-in)
-  app.use('/api/jobs', jobSheetExportRouter(deps)); // job sheet PDF and e-mailing it to the installer
-
-  app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay
+  app.use('/api/payments', paymentsRouter(deps, payments));
+  app.use('/api/invoices', invoicesRouter(deps, invoices));
+  app.use('/pay', payRouter(deps, payments, invoices)); // the customer's payment pages (no sign-in)
+  if (!config.isProduction) app.use('/api/dev/outbox', devOutboxRouter(deps));
 
   app.use('/api', apiNotFound);
 

@@ -41,7 +41,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
   } else {
     if (config.isProduction) throw new Error('SMTP_URL is required when NODE_ENV=production');
     fake = new FakeSmtp();
-    const port = await fake.start(Number(process.env.FAKE_SMTP_PORT ?? 0));
+    const port = await fake.start(config.fakeSmtpPort);
     mailer = createSmtpMailer({ host: '127.0.0.1', port }, config.mailFrom);
   }
   const storage = new DiskStorage(config.uploadDir);

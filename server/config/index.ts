@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+import { paymentsConfigFromEnv, type ResolvedPaymentsConfig } from './payments';
 
 /** The repository: the nearest folder above this module with a package.json (server/config/ when run from source, dist-server/ when compiled). */
 export const REPO_ROOT = findRepoRoot(path.dirname(fileURLToPath(import.meta.url)));
@@ -45,6 +46,12 @@ const envSchema = z
     TAKEOFF_WORKERS: z.coerce.number().int().min(1).max(16).optional(),
     /** Time limit of one plan check or takeoff, ms; past it the plan is refused as too complex. */
     TAKEOFF_TIME_LIMIT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
+    /** Port of the in-process fake SMTP server when SMTP_URL is unset; 0 picks a free one. */
+    FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+    // Card payments (./payments.ts): both keys together, or neither (the local stand-in outside production).
+    STRIPE_SECRET_KEY: z.string().optional(),
+    STRIPE_WEBHOOK_SECRET: z.string().optional(),
+    PAYMENTS_API_URL: z.string().optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -75,6 +82,9 @@ export interface Config {
   takeoffTimeLimitMs: number;
   /** Prune expired sessions on a timer (off in tests so nothing keeps the process alive). */
   pruneSessions: boolean;
+  fakeSmtpPort: number;
+  /** Card payments; null = switched off (production without keys). */
+  payments: ResolvedPaymentsConfig;
 }
 
 /** Parses the environment; throws one readable error naming every bad variable. */
@@ -107,5 +117,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     pruneSessions: e.NODE_ENV !== 'test',
     takeoffWorkers: e.TAKEOFF_WORKERS,
     takeoffTimeLimitMs: e.TAKEOFF_TIME_LIMIT_MS,
+    fakeSmtpPort: e.FAKE_SMTP_PORT,
+    payments: paymentsConfigFromEnv(
+      { STRIPE_SECRET_KEY: e.STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET: e.STRIPE_WEBHOOK_SECRET, PAYMENTS_API_URL: e.PAYMENTS_API_URL },
+      e.NODE_ENV === 'production',
+      path.resolve(e.UPLOAD_DIR),
+    ),
   };
 }

@@ -18,6 +18,7 @@ import type { Sequelize } from 'sequelize';
 import type { FakeSmtp } from '../../server/lib/fake-smtp';
 import { nextJobReference } from '../../server/modules/jobs/job-reference';
 import { storePlanRevision } from '../../server/modules/plan-revisions/plan-takeoff';
+import { createCompanyDefaults } from '../../server/modules/settings/settings.service';
 import type { Plan } from '../../shared/plan/plan-schema';
 import '../../server/types';
 
@@ -130,6 +131,7 @@ export async function createUser(
 /** A company with one office user, one estimator and one installer. */
 export async function createOrgWithUsers(_ctx?: TestContext, name = `Test Loft Co ${randomUUID().slice(0, 6)}`): Promise<TestOrg> {
   const org = await Organisation.create({ name });
+  await createCompanyDefaults(org.id, name);
   return {
     id: org.id,
     name: org.name,

@@ -10,7 +10,7 @@ import { Invoice } from '../../server/db/models/invoice';
 import { Job } from '../../server/db/models/job';
 import { takeNumber } from '../../server/modules/invoices/invoices.service';
 import { addDaysIso as addDays } from '../../shared/dates';
-import { loadCompanySettings } from '../../server/modules/settings/settings.service';
+import { ensureCompanySettings } from '../../server/modules/settings/settings.service';
 import { createJob, createOrgWithUsers, loginAs, type TestOrg } from '../helpers/test-app';
 import { createAcceptedQuote, startPaymentsHarness, type PaymentsHarness } from './payments-fixtures';
 
@@ -189,7 +189,7 @@ describe('invoices', () => {
     }
     // The company's settings row and default tax rates are created on first use; create them before
     // the burst (their first creation is not what this test is about, and is not safe to race).
-    await loadCompanySettings(fresh.id);
+    await ensureCompanySettings(fresh.id);
     // Two of the twelve are asked twice at once: one of each pair must fail and give no number away.
     const results = await Promise.all([...jobs, jobs[3], jobs[7]].map((j) => freshOffice.post('/api/invoices').send({ jobId: j.id, send: false })));
     expect(results.map((r) => r.status).sort()).toEqual([...Array(12).fill(201), 409, 409]);

@@ -47,10 +47,15 @@ describe('installer access', () => {
     }
   });
 
-  it("answers an installer's GET /api/jobs/:id with the job sheet: plan, numbered strips, cut list, van load, checks", async () => {
+  it('gives the installer the job sheet on its own endpoint: plan, numbered strips, cut list, van load, checks', async () => {
     const { job, space, takeoff } = await scheduledJobWithTakeoff(org);
     const agent = await loginAs(ctx.app, org.installer);
-    const res = seen(`/api/jobs/${job.id}`, await agent.get(`/api/jobs/${job.id}`));
+    // GET /api/jobs/:id has one shape for every role: the job, and no sheet riding along.
+    const plain = seen(`/api/jobs/${job.id}`, await agent.get(`/api/jobs/${job.id}`));
+    expect(plain.status).toBe(200);
+    expect(Object.keys(plain.body)).toEqual(['job']);
+    expect(Object.keys(plain.body.job).sort()).toEqual(Object.keys((await (await loginAs(ctx.app, org.office)).get(`/api/jobs/${job.id}`)).body.job).sort());
+    const res = seen(`/api/jobs/${job.id}/job-sheet`, await agent.get(`/api/jobs/${job.id}/job-sheet`));
     expect(res.status).toBe(200);
     const sheet = res.body.sheet;
     expect(sheet.job.accessNotes).toBe('Key with neighbour at no. 10');

@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { LOCAL_SECRET_KEY, localWebhookSecret, paymentsConfigFromEnv } from '../../server/lib/payments/payments-config';
+import { LOCAL_SECRET_KEY, localWebhookSecret, paymentsConfigFromEnv } from '../../server/config/payments';
 
 const tmpDir = () => fs.mkdtempSync(path.join(os.tmpdir(), 'quiltline-data-'));
 

@@ -37,13 +37,14 @@ async function freePort(): Promise<number> {
 export async function startPaymentsHarness(): Promise<PaymentsHarness> {
   const fake = createFakePaymentService({ webhookSecret: WEBHOOK_SECRET });
   const fakeHandle = await fake.listen(0);
-  const saved = { k: process.env.STRIPE_SECRET_KEY, w: process.env.STRIPE_WEBHOOK_SECRET, u: process.env.PAYMENTS_API_URL };
-  process.env.STRIPE_SECRET_KEY = 'sk_test_quiltline_tests';
-  process.env.STRIPE_WEBHOOK_SECRET = WEBHOOK_SECRET;
-  process.env.PAYMENTS_API_URL = fakeHandle.url;
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
-  const ctx = await createTestContext({ APP_URL: appUrl });
+  const ctx = await createTestContext({
+    APP_URL: appUrl,
+    STRIPE_SECRET_KEY: 'sk_test_quiltline_tests',
+    STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
+    PAYMENTS_API_URL: fakeHandle.url,
+  });
   const server: Server = ctx.app.listen(port, '127.0.0.1');
   await new Promise((r) => server.once('listening', r));
   fake.setWebhookUrl(`${appUrl}/api/payments/webhook`);
@@ -57,14 +58,6 @@ export async function startPaymentsHarness(): Promise<PaymentsHarness> {
       await new Promise((r) => server.close(r));
       await fakeHandle.close();
       await ctx.close();
-      for (const [k, v] of [
-        ['STRIPE_SECRET_KEY', saved.k],
-        ['STRIPE_WEBHOOK_SECRET', saved.w],
-        ['PAYMENTS_API_URL', saved.u],
-      ] as const) {
-        if (v === undefined) delete process.env[k];
-        else process.env[k] = v;
-      }
     },
   };
 }

@@ -139,6 +139,12 @@ describe('the customer answering', () => {
     await Quote.update({ validUntil: '2020-01-01' }, { where: { id: quote.id } });
     const late = await request(ctx.app).get(`/api/public/quotes/${encodeURIComponent(token)}`);
     expect(late.status).toBe(410);
+    // Reading derives the status and writes nothing; the customer's answer (a write) stores it.
+    expect((await Quote.findByPk(quote.id))!.status).toBe('sent');
+    const answer = await request(ctx.app)
+      .post(`/api/public/quotes/${encodeURIComponent(token)}/accept`)
+      .send({ name: 'Cressida Vane', acceptTerms: true });
+    expect(answer.status).toBe(410);
     expect((await Quote.findByPk(quote.id))!.status).toBe('expired');
   });
 

@@ -10,7 +10,7 @@ import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Organisation, Space, User } from '../models';
 import { nextJobReference } from '../../modules/jobs/job-reference';
 import { companyTakeoffInputs, storePlanRevision } from '../../modules/plan-revisions/plan-takeoff';
-import { seedDemoCatalogue } from '../../modules/settings/settings.service';
+import { createCompanyDefaults, seedDemoCatalogue } from '../../modules/settings/settings.service';
 import { seedDemoDocuments } from './documents-demo';
 
 /** Demo-only password, shown in the README. */
@@ -252,6 +252,7 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
   const firstPlans: { spaceId: string; authorId: string | null; plan: Plan }[] = [];
   const orgId = await sequelize.transaction(async (transaction) => {
     const org = await Organisation.create({ name }, { transaction });
+    await createCompanyDefaults(org.id, name, transaction);
     const byKey = new Map<string, User>();
     for (const u of users) {
       byKey.set(u.key, await User.create({ organisationId: org.id, email: u.email, name: u.name, role: u.role, passwordHash }, { transaction }));

@@ -5,7 +5,6 @@ import { Product } from '../../db/models/product';
 import { TaxRate } from '../../db/models/tax-rate';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { loadCompanySettings } from '../settings/settings.service';
 
 export function toProductDto(p: Product): ProductDto {
   return {
@@ -44,7 +43,6 @@ export function toTaxRateDto(t: TaxRate): TaxRateDto {
 
 /** The company's whole catalogue, as plain objects (used by the quote builder too). */
 export async function loadCatalogue(organisationId: string) {
-  await loadCompanySettings(organisationId); // makes sure the default tax rates exist
   const [products, extras, taxRates] = await Promise.all([
     Product.findAll({ where: { organisationId }, order: [['name', 'ASC']] }),
     Extra.findAll({
@@ -86,7 +84,6 @@ function crud<M extends Model, D>({ model, what, toDto }: Resource<M, D>) {
   };
   return {
     async list(actor: SessionUser) {
-      await loadCompanySettings(actor.organisationId);
       const rows = await model.findAll({ where: { organisationId: actor.organisationId } as never, order: [['createdAt', 'ASC']] });
       return rows.map(toDto);
     },

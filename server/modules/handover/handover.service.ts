@@ -5,7 +5,7 @@ import { JobCompletion, JobPhoto, JobTick } from '../../db/models';
 import { formatDate } from '../../../shared/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
+import { findSheetJob, findWorkableJob } from '../jobs/job-access';
 import { sheetChecks } from '../job-sheet/takeoff-view';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';

@@ -23,7 +23,7 @@ import { Quote } from '../../db/models/quote';
 import { TaxRate } from '../../db/models/tax-rate';
 import { BadRequestError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { loadCompanySettings } from '../settings/settings.service';
+import { ensureCompanySettings, loadCompanySettings } from '../settings/settings.service';
 import { paymentsContext } from '../payments/payments-context';
 import type { PaymentsService } from '../payments/payments.service';
 import { pricedQuoteLines } from '../payments/quote-money';
@@ -114,7 +114,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
   }
 
   async function ratesOf(organisationId: string): Promise<DatedTaxRate[]> {
-    await loadCompanySettings(organisationId); // creates the default rates for a new company
+    await ensureCompanySettings(organisationId); // a company's first invoice gives it the default rates (a write path)
     const rows = await TaxRate.findAll({ where: { organisationId } });
     return rows.map((r) => ({ taxClass: r.taxClass, rateBp: r.rateBp, validFrom: r.validFrom }));
   }

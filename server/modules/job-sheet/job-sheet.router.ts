@@ -1,29 +1,28 @@
 import { Router, type Request, type Response } from 'express';
 import { idParamsSchema } from '../../../shared/api/common';
-import { finishBodySchema, IDEMPOTENCY_HEADER, noteBodySchema, tickBodySchema } from '../../../shared/api/job-sheet';
+import { IDEMPOTENCY_HEADER, noteBodySchema, tickBodySchema } from '../../../shared/api/job-sheet';
 import type { AppDeps } from '../../deps';
+import { readIdempotencyKey, runOnce, type StoredResult } from '../../lib/idempotency';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
-import { createHandoverService } from '../handover/handover.service';
-import { readIdempotencyKey, runOnce, type StoredResult } from './idempotency';
+import { createJobSheetExportService } from './job-sheet-export.service';
 import { createJobSheetService } from './job-sheet.service';
 import { createSiteRecordsService } from './site-records.service';
 
 /**
- * The installer's API, mounted at /api:
- *   GET  /my-jobs                  the installer's own jobs
- *   GET  /jobs/:id/job-sheet       the job sheet (any role of the company; installers only their jobs)
- *   POST /jobs/:id/ticks           strip cut / strip laid / site check (Idempotency-Key)
- *   POST /jobs/:id/notes           a note (Idempotency-Key)
- *   POST /jobs/:id/finish          mark installed (a repeat gets 409 job_installed)
- *   GET  /jobs/:id/handover.pdf    the handover pack of an installed job
+ * The installer's API. `myJobs` is mounted at /api/my-jobs; `jobSheet` is composed into the jobs
+ * router, so its paths are under /api/jobs:
+ *   GET  /:id/job-sheet        the job sheet (any role of the company; installers only their jobs)
+ *   POST /:id/ticks            strip cut / strip laid / site check (Idempotency-Key)
+ *   POST /:id/notes            a note (Idempotency-Key)
+ *   GET  /:id/sheet.pdf        the job sheet as a PDF
+ *   POST /:id/sheet/send       the office e-mails it to the assigned installer
  */
-export function jobSheetRouter(deps: AppDeps) {
+export function jobSheetRouters(deps: AppDeps) {
   const sheets = createJobSheetService(deps);
   const records = createSiteRecordsService(deps);
-  const handover = createHandoverService(deps);
-  const r = Router();
+  const exports = createJobSheetExportService(deps, sheets);
   const params = validate({ params: idParamsSchema });
 
   /** Runs a write once per Idempotency-Key and answers with the stored (or fresh) result. */
@@ -35,33 +34,28 @@ export function jobSheetRouter(deps: AppDeps) {
       },
     );
 
-  r.get('/my-jobs', requireAuth, requireCan('jobsheet:work'), async (req, res) => {
+  const myJobs = Router();
+  myJobs.get('/', requireAuth, requireCan('jobsheet:work'), async (req, res) => {
     res.json({ jobs: await sheets.myJobs(currentUser(req)) });
   });
 
-  r.get('/jobs/:id/job-sheet', requireAuth, params, async (req, res) => {
+  const jobSheet = Router();
+  jobSheet.get('/:id/job-sheet', requireAuth, params, async (req, res) => {
     res.json({ sheet: await sheets.sheet(currentUser(req), String(req.params.id)) });
   });
-
-  r.post('/jobs/:id/ticks', requireAuth, params, validate({ body: tickBodySchema }), (req, res) =>
+  jobSheet.post('/:id/ticks', requireAuth, params, validate({ body: tickBodySchema }), (req, res) =>
     once(req, res, async (t) => ({ status: 200, body: { tick: await records.setTick(currentUser(req), String(req.params.id), req.body, t) } })),
   );
-
-  r.post('/jobs/:id/notes', requireAuth, params, validate({ body: noteBodySchema }), (req, res) =>
+  jobSheet.post('/:id/notes', requireAuth, params, validate({ body: noteBodySchema }), (req, res) =>
     once(req, res, async (t) => ({ status: 201, body: { note: await records.addNote(currentUser(req), String(req.params.id), req.body, t) } })),
   );
-
-  r.post('/jobs/:id/finish', requireAuth, params, validate({ body: finishBodySchema }), async (req, res) => {
-    // Not replayed by key: finishing has effects after its commit (the pack, the e-mail); a repeat is refused as already installed.
-    const user = currentUser(req);
-    res.json(await handover.finish(user, String(req.params.id), req.body.reasons ?? {}));
-  });
-
-  r.get('/jobs/:id/handover.pdf', requireAuth, params, async (req, res) => {
-    const { filename, pdf } = await handover.pdf(currentUser(req), String(req.params.id));
-    res.set('Content-Type', 'application/pdf');
-    res.set('Content-Disposition', `attachment; filename="${filename}"`);
+  jobSheet.get('/:id/sheet.pdf', requireAuth, params, async (req, res) => {
+    const { filename, pdf } = await exports.pdf(currentUser(req), String(req.params.id));
+    res.type('application/pdf').setHeader('Content-Disposition', `inline; filename="${filename}"`);
     res.send(pdf);
   });
-  return r;
+  jobSheet.post('/:id/sheet/send', requireAuth, requireCan('jobs:assign'), params, async (req, res) => {
+    res.json(await exports.sendToInstaller(currentUser(req), String(req.params.id)));
+  });
+  return { myJobs, jobSheet };
 }

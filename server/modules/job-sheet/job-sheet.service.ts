@@ -5,7 +5,7 @@ import { Customer, Job, Space } from '../../db/models';
 import { JobCompletion } from '../../db/models';
 import type { SessionUser } from '../../types';
 import { createPhotosService } from '../photos/photos.service';
-import { findSheetJob } from './job-access';
+import { findSheetJob } from '../jobs/job-access';
 import { createSiteRecordsService } from './site-records.service';
 import { loadCatalogue } from '../catalogue/catalogue.service';
 import { latestRevisions } from '../plan-revisions/revisions.repository';

@@ -5,22 +5,10 @@ import { JobEvent, Space, User } from '../../db/models';
 import { JobNote, JobTick } from '../../db/models';
 import { fieldError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { findWorkableJob } from './job-access';
+import { recordedAt } from '../../lib/recorded-at';
+import { findWorkableJob } from '../jobs/job-access';
 
 type Parsed<T> = T extends { reason?: unknown } ? Required<T> : T;
-
-const MAX_PAST_MS = 14 * 24 * 3600_000;
-
-/**
- * When a record was made: the client's time if it is plausible (a queued offline tick keeps the
- * moment it was ticked), otherwise the server's. Never in the future, never weeks old.
- */
-export function recordedAt(clientIso: string | undefined, now = new Date()): Date {
-  if (!clientIso) return now;
-  const t = new Date(clientIso);
-  if (Number.isNaN(t.getTime()) || t.getTime() > now.getTime() + 60_000 || now.getTime() - t.getTime() > MAX_PAST_MS) return now;
-  return t > now ? now : t;
-}
 
 export function tickToDto(t: JobTick, byName: string): Tick {
   return {

@@ -9,6 +9,7 @@ import { redactPrices } from '../../lib/redact';
 import type { SessionUser } from '../../types';
 import { likePattern } from '../customers/customers.service';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
+import { findJobFor, jobScope } from './job-access';
 import { nextJobReference } from './job-reference';
 
 const INCLUDE: Includeable[] = [
@@ -17,23 +18,6 @@ const INCLUDE: Includeable[] = [
   // separate: spaces load in their own query, so LIMIT and `$customer.name$` search apply to jobs only.
   { model: Space, as: 'spaces', separate: true },
 ];
-
-/** Where-clause every job query starts from: the actor's company, and for installers only their jobs. */
-export function jobScope(actor: SessionUser): WhereOptions<Job> {
-  const where: Record<string, unknown> = { organisationId: actor.organisationId };
-  if (!can(actor, 'jobs:read-all')) where.assignedInstallerId = actor.id;
-  return where;
-}
-
-/**
- * The job if this user may see it, else NotFound (another company's job, or an installer's
- * unassigned job, both look like ids that do not exist). For other modules (quotes, job sheet...).
- */
-export async function findJobForUser(actor: SessionUser, jobId: string): Promise<Job> {
-  const job = await Job.findOne({ where: { ...jobScope(actor), id: jobId } as WhereOptions<Job> });
-  if (!job) throw new NotFoundError('job');
-  return job;
-}
 
 /** Appends to a job's timeline. Other modules call it too (quote sent, installed, ...). */
 export async function recordJobEvent(
@@ -222,7 +206,7 @@ export function createJobsService(deps: AppDeps) {
     },
 
     async events(actor: SessionUser, id: string): Promise<JobEventDto[]> {
-      const job = await findJobForUser(actor, id);
+      const job = await findJobFor(actor, id);
       const rows = await JobEvent.findAll({
         where: { jobId: job.id },
         include: [{ model: User, as: 'user', attributes: ['id', 'name'] }],

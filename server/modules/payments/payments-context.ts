@@ -1,7 +1,6 @@
 import type { AppDeps } from '../../deps';
 import { ConflictError } from '../../lib/errors';
 import { createPaymentsGateway, type PaymentsGateway } from '../../lib/payments/gateway';
-import { paymentsConfigFromEnv } from '../../lib/payments/payments-config';
 
 export interface PaymentsContext {
   /** null when payments are switched off (production without keys) */
@@ -16,12 +15,12 @@ const cache = new WeakMap<object, PaymentsContext>();
 
 /**
  * The payments gateway for these deps: `deps.payments` when given, else built once from the
- * environment (STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET, PAYMENTS_API_URL; see payments-config.ts).
+ * checked configuration (`config.payments`, server/config/payments.ts).
  */
 export function paymentsContext(deps: AppDeps): PaymentsContext {
   const hit = cache.get(deps);
   if (hit) return hit;
-  const cfg = paymentsConfigFromEnv(process.env, deps.config.isProduction, deps.config.uploadDir);
+  const cfg = deps.config.payments;
   const gateway = (deps as AppDeps & { payments?: PaymentsGateway }).payments ?? (cfg ? createPaymentsGateway(cfg) : null);
   const origins = ['https://checkout.stripe.com'];
   if (cfg?.apiUrl) origins.push(new URL(cfg.apiUrl).origin);

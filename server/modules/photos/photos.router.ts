@@ -7,8 +7,8 @@ import { AppError, fieldError } from '../../lib/errors';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { validate, zodDetails } from '../../middleware/validate';
 import { ValidationError } from '../../lib/errors';
-import { readIdempotencyKey, runOnce } from '../job-sheet/idempotency';
-import { findWorkableJob } from '../job-sheet/job-access';
+import { readIdempotencyKey, runOnce } from '../../lib/idempotency';
+import { findWorkableJob } from '../jobs/job-access';
 import { PHOTO_MAX_BYTES } from './image-processing';
 import { createPhotosService } from './photos.service';
 
@@ -34,13 +34,16 @@ function receivePhoto() {
   };
 }
 
-/** POST /api/jobs/:id/photos (multipart) and GET /api/photos/:id[/thumb]. Mounted at /api. */
-export function photosRouter(deps: AppDeps) {
+/**
+ * `jobPhotos`: POST /api/jobs/:id/photos (multipart), composed into the jobs router; `photos`:
+ * GET /api/photos/:id[/thumb].
+ */
+export function photosRouters(deps: AppDeps) {
   const photos = createPhotosService(deps);
-  const r = Router();
+  const jobPhotos = Router();
 
-  r.post(
-    '/jobs/:id/photos',
+  jobPhotos.post(
+    '/:id/photos',
     requireAuth,
     validate({ params: idParamsSchema }),
     // Refuse before reading a large body when the job is not one the user may record on.
@@ -76,7 +79,8 @@ export function photosRouter(deps: AppDeps) {
     res.set('Cache-Control', 'private, max-age=86400, immutable');
     res.send(bytes);
   };
-  r.get('/photos/:id', requireAuth, validate({ params: idParamsSchema }), sendFile(false));
-  r.get('/photos/:id/thumb', requireAuth, validate({ params: idParamsSchema }), sendFile(true));
-  return r;
+  const r = Router();
+  r.get('/:id', requireAuth, validate({ params: idParamsSchema }), sendFile(false));
+  r.get('/:id/thumb', requireAuth, validate({ params: idParamsSchema }), sendFile(true));
+  return { jobPhotos, photos: r };
 }

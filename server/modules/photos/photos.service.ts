@@ -6,8 +6,8 @@ import { Space, User } from '../../db/models';
 import { JobPhoto } from '../../db/models';
 import { AppError, fieldError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { findSheetJob, findWorkableJob } from '../job-sheet/job-access';
-import { recordedAt } from '../job-sheet/site-records.service';
+import { findSheetJob, findWorkableJob } from '../jobs/job-access';
+import { recordedAt } from '../../lib/recorded-at';
 import { ImageRejected, processPhoto } from './image-processing';
 
 export function photoToDto(p: JobPhoto, byName: string): JobPhotoDto {

@@ -11,7 +11,7 @@ import { depositTerms } from '../../../shared/quote/deposit';
 import { mailOffice } from '../mail/mail.service';
 import { loadPaymentSettings } from '../settings/payment-settings';
 import { linkSecret, quoteLinkUrl } from '../quotes/quote-send.service';
-import { expireIfDue, findJobInOrg, linesOf, recordEvent } from '../quotes/quotes.service';
+import { expireIfDue, findJobInOrg, linesOf, recordEvent, withDerivedStatus } from '../quotes/quotes.service';
 
 const PROBLEM: Record<LinkProblem, { status: number; message: string }> = {
   invalid: { status: 404, message: 'This link is not valid. Check that you copied the whole link from the e-mail, or ask us to send it again.' },
@@ -40,7 +40,9 @@ export function createPublicQuoteService(deps: AppDeps) {
     const claims = check.claims!;
     const q = await Quote.findByPk(claims.quoteId);
     if (!q) throw new LinkError('invalid');
-    await expireIfDue(q);
+    // Viewing derives the status; only an answer (a write) stores it.
+    if (forAction) await expireIfDue(q);
+    else withDerivedStatus(q);
     if (q.status === 'superseded') throw new LinkError('replaced');
     if (q.status === 'draft') throw new LinkError('withdrawn');
     if (q.linkNonce !== claims.nonce) throw new LinkError(q.status === 'sent' ? 'replaced' : 'invalid');

@@ -5,12 +5,12 @@ import type { AppDeps } from '../../deps';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
-import { quoteCsv, quoteXlsx } from '../exports/quote-exports';
+import { quoteCsv, quoteXlsx } from './quote-exports';
 import { loadCompanySettings } from '../settings/settings.service';
 import { quoteFileName, quotePdf } from './quote-document';
 import { snapshotOf } from './quote-dto';
 import { createQuoteSendService } from './quote-send.service';
-import { createQuotesService, findJobInOrg, findQuoteInOrg, linesOf, quoteDto } from './quotes.service';
+import { createQuotesService, findJobInOrg, findQuoteInOrg, linesOf, quoteDto, withDerivedStatus } from './quotes.service';
 
 const params = validate({ params: idParamsSchema });
 
@@ -55,7 +55,7 @@ export function quotesRouter(deps: AppDeps) {
 
   async function exportInput(req: Request) {
     const actor = currentUser(req);
-    const q = await findQuoteInOrg(actor, String(req.params.id));
+    const q = withDerivedStatus(await findQuoteInOrg(actor, String(req.params.id)));
     const job = await findJobInOrg(actor, q.jobId);
     return { q, job, input: { quote: await quoteDto(q), jobReference: job.reference, customerName: job.customer!.name, spaces: snapshotOf(q).spaces } };
   }

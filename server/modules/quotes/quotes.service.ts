@@ -15,7 +15,7 @@ import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '.
 import type { SessionUser } from '../../types';
 import { can } from '../../../shared/auth/policies';
 import { loadCatalogue } from '../catalogue/catalogue.service';
-import { loadCompanySettings, toSettingsDto } from '../settings/settings.service';
+import { ensureCompanySettings, loadCompanySettings, toSettingsDto } from '../settings/settings.service';
 import { lineRows, priceQuote, snapshotOf, toQuoteDto, type QuoteSnapshot } from './quote-dto';
 import { takeoffForSpace } from './takeoff-adapter';
 import { addDaysIso, todayIso } from '../../../shared/dates';
@@ -38,6 +38,16 @@ export async function linesOf(q: Quote, t?: Transaction): Promise<QuoteLine[]> {
 }
 
 /** A sent quote past its valid-until day becomes `expired` the first time anyone looks at it. */
+/**
+ * A sent quote past its valid-until date reads as expired: derived on read, nothing is written
+ * (a GET never writes). The stored status follows on the next write (`expireIfDue`).
+ */
+export function withDerivedStatus(q: Quote, today = todayIso()): Quote {
+  if (q.status === 'sent' && q.validUntil < today) q.setDataValue('status', 'expired');
+  return q;
+}
+
+/** Stores `expired` on a sent quote past its valid-until date, guarded on the status it expects; for write paths. */
 export async function expireIfDue(q: Quote, today = todayIso()): Promise<Quote> {
   if (q.status === 'sent' && q.validUntil < today) {
     await Quote.update({ status: 'expired' }, { where: { id: q.id, status: 'sent' } });
@@ -85,7 +95,8 @@ export async function quoteDto(q: Quote) {
  */
 export async function buildDraft(job: Job) {
   const org = job.organisationId;
-  const settingsRow = await loadCompanySettings(org);
+  // A new draft is a write: a company's first one saves its default settings and tax rates.
+  const settingsRow = await ensureCompanySettings(org);
   const settings = toSettingsDto(settingsRow);
   const catalogue = await loadCatalogue(org);
   const plans = await latestPlans(job);
@@ -152,7 +163,7 @@ export function createQuotesService(deps: AppDeps) {
       const quotes = await Quote.findAll({ where: { jobId: job.id, organisationId: actor.organisationId }, order: [['createdAt', 'DESC']] });
       const out: QuoteSummary[] = [];
       for (const q of quotes) {
-        await expireIfDue(q);
+        withDerivedStatus(q);
         const { totals } = priceQuote(q, await linesOf(q));
         out.push({
           id: q.id,
@@ -212,7 +223,7 @@ export function createQuotesService(deps: AppDeps) {
     },
 
     async get(actor: SessionUser, id: string) {
-      const q = await expireIfDue(await findQuoteInOrg(actor, id));
+      const q = withDerivedStatus(await findQuoteInOrg(actor, id));
       return quoteDto(q);
     },
 

@@ -1,11 +1,10 @@
 import { Router } from 'express';
 import { assignBodySchema, installSettingsPatchSchema, scheduleQuerySchema } from '../../../shared/api/schedule';
 import type { AppDeps } from '../../deps';
-import { InstallSetting } from '../../db/models';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
-import { createScheduleService, loadInstallSettings } from './schedule.service';
+import { createScheduleService, loadInstallSettings, updateInstallSettings } from './schedule.service';
 
 /** /api/schedule: the week view, booking, and the install settings (capacity, handover wording). */
 export function scheduleRouter(deps: AppDeps) {
@@ -27,10 +26,7 @@ export function scheduleRouter(deps: AppDeps) {
   });
 
   r.patch('/settings', requireCan('settings:manage'), validate({ body: installSettingsPatchSchema }), async (req, res) => {
-    const orgId = currentUser(req).organisationId;
-    await loadInstallSettings(orgId);
-    await InstallSetting.update(req.body, { where: { organisationId: orgId } });
-    res.json({ settings: await loadInstallSettings(orgId) });
+    res.json({ settings: await updateInstallSettings(currentUser(req).organisationId, req.body) });
   });
   return r;
 }

@@ -15,14 +15,22 @@ export function isOverCapacity(load: { jobs: number; areaM2: number }, cap: Capa
   return load.jobs > cap.maxJobsPerDay || load.areaM2 > cap.maxAreaM2PerDay + 1e-9;
 }
 
+/** The company's install settings; the defaults (not saved) until the office first changes them. */
 export async function loadInstallSettings(organisationId: string): Promise<InstallSettings> {
-  const [row] = await InstallSetting.findOrCreate({ where: { organisationId }, defaults: { organisationId } });
+  const row = (await InstallSetting.findByPk(organisationId)) ?? InstallSetting.build({ organisationId });
   return {
     maxJobsPerDay: row.maxJobsPerDay,
     maxAreaM2PerDay: row.maxAreaM2PerDay,
     handoverRValues: row.handoverRValues,
     handoverReceipt: row.handoverReceipt,
   };
+}
+
+/** Saves the office's change to the install settings (the row is created by the first change). */
+export async function updateInstallSettings(organisationId: string, patch: Partial<InstallSettings>): Promise<InstallSettings> {
+  await InstallSetting.findOrCreate({ where: { organisationId }, defaults: { organisationId } });
+  await InstallSetting.update(patch, { where: { organisationId } });
+  return loadInstallSettings(organisationId);
 }
 
 const jobInclude = [

@@ -1,4 +1,5 @@
 import { fileTypeFromBuffer } from 'file-type';
+import type { Transaction } from 'sequelize';
 import type { CompanySettings, CompanySettingsBody } from '../../../shared/api/settings';
 import { companySettingsBodySchema, extraBodySchema, productBodySchema } from '../../../shared/api/settings';
 import { Organisation } from '../../db/models';
@@ -34,23 +35,40 @@ export function toSettingsDto(s: CompanySetting): CompanySettings {
 }
 
 /**
- * The company's settings row, created with defaults (and the default dated tax rates) the first time
- * anything asks for it, so a new company can quote at once.
+ * The company's settings, for reading: its row, or the defaults (not saved) when it has none yet.
+ * Reads never write; the row is created with the company (`createCompanyDefaults`) or by the first
+ * change (`ensureCompanySettings`).
  */
-export async function loadCompanySettings(organisationId: string): Promise<CompanySetting> {
+export async function loadCompanySettings(organisationId: string, transaction?: Transaction): Promise<CompanySetting> {
+  const existing = await CompanySetting.findByPk(organisationId, { transaction });
+  if (existing) return existing;
+  const org = await Organisation.findByPk(organisationId, { transaction });
+  if (!org) throw new NotFoundError('organisation');
+  return CompanySetting.build({ organisationId, ...defaultCompanySettings(org.name) } as never);
+}
+
+/**
+ * What a new company starts with: its settings row with defaults and the default dated tax rates,
+ * so it can quote at once. Idempotent (INSERT … ON CONFLICT DO NOTHING, and the unique
+ * (organisation, class, valid_from) index on tax rates), so two first writes at once are safe.
+ */
+export async function createCompanyDefaults(organisationId: string, companyName: string, transaction?: Transaction): Promise<void> {
+  await CompanySetting.bulkCreate([{ organisationId, ...defaultCompanySettings(companyName) } as never], { ignoreDuplicates: true, transaction });
+  if ((await TaxRate.count({ where: { organisationId }, transaction })) === 0) {
+    await TaxRate.bulkCreate(
+      DEFAULT_TAX_RATES.map((r) => ({ organisationId, taxClass: r.taxClass, rateBp: r.rateBp, validFrom: r.validFrom, label: r.label ?? '' })) as never,
+      { ignoreDuplicates: true, transaction },
+    );
+  }
+}
+
+/** The company's saved settings row, created with the defaults first if it has none (for writes). */
+export async function ensureCompanySettings(organisationId: string): Promise<CompanySetting> {
   const existing = await CompanySetting.findByPk(organisationId);
   if (existing) return existing;
   const org = await Organisation.findByPk(organisationId);
   if (!org) throw new NotFoundError('organisation');
-  // Several first requests may arrive at once: INSERT … ON CONFLICT DO NOTHING (and the unique
-  // (organisation, class, valid_from) index on tax rates) makes the first creation idempotent.
-  await CompanySetting.bulkCreate([{ organisationId, ...defaultCompanySettings(org.name) } as never], { ignoreDuplicates: true });
-  if ((await TaxRate.count({ where: { organisationId } })) === 0) {
-    await TaxRate.bulkCreate(
-      DEFAULT_TAX_RATES.map((r) => ({ organisationId, taxClass: r.taxClass, rateBp: r.rateBp, validFrom: r.validFrom, label: r.label ?? '' })) as never,
-      { ignoreDuplicates: true },
-    );
-  }
+  await createCompanyDefaults(organisationId, org.name);
   return (await CompanySetting.findByPk(organisationId))!;
 }
 
@@ -59,7 +77,7 @@ export async function loadCompanySettings(organisationId: string): Promise<Compa
  * Called by the demo seed; safe to call twice.
  */
 export async function seedDemoCatalogue(organisationId: string, company?: Partial<CompanySettingsBody>): Promise<void> {
-  const settings = await loadCompanySettings(organisationId);
+  const settings = await ensureCompanySettings(organisationId);
   // Company details only while they are still the defaults: an office's own edits are never overwritten.
   if (company && settings.address.line1 === defaultCompanySettings('').address.line1) {
     const merged = companySettingsBodySchema.parse({ ...toSettingsDto(settings), ...company });
@@ -87,7 +105,7 @@ export function createSettingsService(storage: Storage) {
       return toSettingsDto(await loadCompanySettings(actor.organisationId));
     },
     async update(actor: SessionUser, body: CompanySettingsBody) {
-      const row = await loadCompanySettings(actor.organisationId);
+      const row = await ensureCompanySettings(actor.organisationId);
       await row.update(body as never);
       return toSettingsDto(row);
     },
@@ -96,14 +114,14 @@ export function createSettingsService(storage: Storage) {
       if (!file) throw new BadRequestError('attach the logo as a PNG or JPEG file in the "logo" field', 'file_missing');
       const type = await sniffImage(file.buffer);
       if (!type) throw new BadRequestError('the logo must be a PNG or JPEG image', 'unsupported_type');
-      const row = await loadCompanySettings(actor.organisationId);
+      const row = await ensureCompanySettings(actor.organisationId);
       const key = `${actor.organisationId}/logo/logo.${LOGO_TYPES[type]}`;
       await storage.put(key, file.buffer);
       await row.update({ logoKey: key, logoType: type });
       return toSettingsDto(row);
     },
     async removeLogo(actor: SessionUser) {
-      const row = await loadCompanySettings(actor.organisationId);
+      const row = await ensureCompanySettings(actor.organisationId);
       if (row.logoKey) await storage.delete(row.logoKey);
       await row.update({ logoKey: null, logoType: null });
       return toSettingsDto(row);

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { idParamsSchema } from '../../../shared/api/common';
-import { spacePatchSchema } from '../../../shared/api/spaces';
+import { spaceCreateBodySchema, spacePatchSchema } from '../../../shared/api/spaces';
 import type { AppDeps } from '../../deps';
 import { requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
@@ -9,15 +9,19 @@ import { createSpacesController } from './spaces.controller';
 import { createSpacesService } from './spaces.service';
 
 /**
- * GET/PATCH/DELETE /api/spaces/:id (POST lives under /api/jobs/:id/spaces). The plan and its
- * revisions (/api/spaces/:id/plan, /revisions) belong to server/modules/plans.
+ * `spaces`: GET/PATCH/DELETE /api/spaces/:id; `jobSpaces`: POST /api/jobs/:id/spaces (composed
+ * into the jobs router). The plan and its revisions (/api/spaces/:id/plan, /revisions) belong to
+ * server/modules/plans.
  */
-export function spacesRouter(deps: AppDeps) {
+export function spacesRouters(deps: AppDeps) {
   const c = createSpacesController(createSpacesService(deps));
-  const r = Router();
-  r.use(requireAuth);
-  r.get('/:id', validate({ params: idParamsSchema }), c.get);
-  r.patch('/:id', requireCan('plans:write'), validate({ params: idParamsSchema, body: spacePatchSchema }), c.update);
-  r.delete('/:id', requireCan('plans:write'), validate({ params: idParamsSchema }), c.remove);
-  return r;
+  const spaces = Router();
+  spaces.use(requireAuth);
+  spaces.get('/:id', validate({ params: idParamsSchema }), c.get);
+  spaces.patch('/:id', requireCan('plans:write'), validate({ params: idParamsSchema, body: spacePatchSchema }), c.update);
+  spaces.delete('/:id', requireCan('plans:write'), validate({ params: idParamsSchema }), c.remove);
+
+  const jobSpaces = Router();
+  jobSpaces.post('/:id/spaces', requireAuth, requireCan('plans:write'), validate({ params: idParamsSchema, body: spaceCreateBodySchema }), c.create);
+  return { spaces, jobSpaces };
 }

@@ -1,4 +1,4 @@
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { Space as SpaceDto, SpaceCreateBody, SpacePatch } from '../../../shared/api/spaces';
 import { can } from '../../../shared/auth/policies';
 import type { Plan } from '../../../shared/plan/plan-schema';
@@ -8,7 +8,8 @@ import { Job, Space } from '../../db/models';
 import { NotFoundError } from '../../lib/errors';
 import { invalidPlan, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
-import { findJobForUser, recordJobEvent } from '../jobs/jobs.service';
+import { findJobFor } from '../jobs/job-access';
+import { recordJobEvent } from '../jobs/jobs.service';
 import { companyTakeoffInputs, storePlanRevision } from '../plan-revisions/plan-takeoff';
 import { latestRevision } from '../plan-revisions/revisions.repository';
 
@@ -17,14 +18,12 @@ import { latestRevision } from '../plan-revisions/revisions.repository';
  * else NotFound. The plans module calls this before reading or saving a plan.
  */
 export async function findSpaceForUser(actor: SessionUser, spaceId: string, transaction?: Transaction): Promise<Space & { job: Job }> {
-  const jobWhere: Record<string, unknown> = { organisationId: actor.organisationId };
-  if (!can(actor, 'jobs:read-all')) jobWhere.assignedInstallerId = actor.id;
-  const space = await Space.findOne({
+  const space = (await Space.findOne({
     where: { id: spaceId, organisationId: actor.organisationId },
-    include: [{ model: Job, as: 'job', where: jobWhere as WhereOptions<Job>, required: true }],
+    include: [{ model: Job, as: 'job', required: true }],
     transaction,
-  });
-  if (!space) throw new NotFoundError('space');
+  })) as (Space & { job?: Job }) | null;
+  if (!space?.job || !can(actor, 'jobs:read', space.job)) throw new NotFoundError('space');
   return space as Space & { job: Job };
 }
 
@@ -56,7 +55,7 @@ export function createSpacesService(deps: AppDeps) {
   const { sequelize, planPool } = deps;
   return {
     async create(actor: SessionUser, jobId: string, body: SpaceCreateBody): Promise<SpaceDto> {
-      const job = await findJobForUser(actor, jobId);
+      const job = await findJobFor(actor, jobId);
       // Checked and worked out exactly as a saved plan is: in the worker pool, same limits and messages.
       const inputs = body.plan === undefined ? null : await companyTakeoffInputs(actor.organisationId);
       const first = inputs ? await runPlanTaskOr422(planPool, { kind: 'takeoff', plan: body.plan, ...inputs }) : null;

@@ -3,6 +3,7 @@ import { useEffect, useMemo, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { ErrorState, LoadingState, StageBadge, formatAddress, formatDate } from '../../../components/ui';
 import { useCurrentUser } from '../../auth';
+import { can } from '../../../../shared/auth/policies';
 import { useJobSheet } from '../api/get-job-sheet';
 import { sheetKeys, sheetUrl } from '../api/keys';
 import { recordNote, recordPhoto, recordTick } from '../api/record';
@@ -63,7 +64,7 @@ export default function JobSheetPage() {
     return <ErrorState error={sheet.error} onRetry={() => sheet.refetch()} title="The job sheet could not be opened" />;
   const s = sheet.data;
   const closed = s.job.stage !== 'scheduled';
-  const canRecord = !closed && me.role !== 'estimator';
+  const canRecord = !closed && can(me, 'sitework:record');
 
   return (
     <div className="mx-auto max-w-2xl text-lg leading-relaxed text-[#1d1f22]">
@@ -106,7 +107,7 @@ export default function JobSheetPage() {
       {s.completion && (
         <p className="mb-3 rounded-md border-2 border-teal-dark bg-teal-light/40 px-3 py-2 text-lg font-semibold">
           Marked installed by {s.completion.by.name}, {formatDate(s.completion.at)}.{' '}
-          {me.role !== 'installer' && (
+          {can(me, 'jobs:read-all') && (
             <a className="underline" href={s.completion.handoverUrl}>
               Handover pack (PDF)
             </a>

@@ -9,8 +9,10 @@
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { REPO_ROOT } from '../../config';
-import type { PaymentsConfig } from './gateway';
+import { fileURLToPath } from 'node:url';
+import type { PaymentsConfig } from '../lib/payments/gateway';
+
+const REPO_ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
 export const LOCAL_PAYMENTS_PORT = 12111;
 export const LOCAL_SECRET_KEY = 'sk_test_quiltline_local';

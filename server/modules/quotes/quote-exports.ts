@@ -3,7 +3,7 @@ import type { Quote as QuoteDto } from '../../../shared/api/quotes';
 import { formatDate } from '../../../shared/dates';
 import { currencyDigits, minorToDecimalString } from '../../../shared/quote/money';
 import { formatRateBp } from '../../../shared/quote/tax';
-import type { QuoteSnapshot } from '../quotes/quote-dto';
+import type { QuoteSnapshot } from './quote-dto';
 
 export interface QuoteExportInput {
   quote: QuoteDto;

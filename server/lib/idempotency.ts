@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { IDEMPOTENCY_HEADER, idempotencyKeySchema } from '../../../shared/api/job-sheet';
-import { BadRequestError, ConflictError } from '../../lib/errors';
-import type { SessionUser } from '../../types';
+import { IDEMPOTENCY_HEADER, idempotencyKeySchema } from '../../shared/api/job-sheet';
+import { BadRequestError, ConflictError } from './errors';
+import type { SessionUser } from '../types';
 
 export type StoredResult = { status: number; body: unknown };
 
