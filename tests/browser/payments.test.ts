@@ -14,15 +14,12 @@ let browser: Awaited<ReturnType<typeof launchBrowser>>;
 let fake: FakePaymentService;
 let fakeHandle: { url: string; close(): Promise<void> };
 let org: TestOrg;
-const saved = { ...process.env };
 
 beforeAll(async () => {
   fake = createFakePaymentService({ webhookSecret: WEBHOOK_SECRET });
   fakeHandle = await fake.listen(0);
-  process.env.STRIPE_SECRET_KEY = 'sk_test_quiltline_browser';
-  process.env.STRIPE_WEBHOOK_SECRET = WEBHOOK_SECRET;
-  process.env.PAYMENTS_API_URL = fakeHandle.url;
-  server = await startAppServer();
+  // The app reads payments through its checked configuration.
+  server = await startAppServer({ STRIPE_SECRET_KEY: 'sk_test_quiltline_browser', STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET, PAYMENTS_API_URL: fakeHandle.url });
   fake.setWebhookUrl(`${server.url}/api/payments/webhook`);
   org = await createOrgWithUsers(server.ctx);
   const office = await loginAs(server.ctx.app, org.office);
@@ -33,10 +30,6 @@ afterAll(async () => {
   await browser?.close();
   await server?.close();
   await fakeHandle?.close();
-  for (const k of ['STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET', 'PAYMENTS_API_URL']) {
-    if (saved[k] === undefined) delete process.env[k];
-    else process.env[k] = saved[k];
-  }
 });
 
 describe('customer pays the deposit', () => {
