@@ -70,6 +70,8 @@ export function buildQuoteLines(
   spaces: readonly SpaceForQuote[],
   catalogue: { products: readonly Product[]; extras: readonly Extra[] },
   settings: QuoteBuildSettings,
+  /** Rolls per product with the job's spaces pooled (`jobRollsByProduct`); else the spaces' own counts are added. */
+  pooledRolls?: ReadonlyMap<string, number>,
 ): BuiltLines {
   const lines: QuoteLineInput[] = [];
   const warnings: string[] = [];
@@ -91,8 +93,9 @@ export function buildQuoteLines(
   for (const [productId, g] of byProduct) {
     const product = catalogue.products.find((p) => p.id === productId);
     const byPacking = settings.rollCountMethod === 'packing';
-    const quantity = byPacking ? g.packing : g.area;
-    const alt = byPacking ? g.area : g.packing;
+    const packing = pooledRolls?.get(productId) ?? g.packing;
+    const quantity = byPacking ? packing : g.area;
+    const alt = byPacking ? g.area : packing;
     const roles = [...g.roles].join(' and ');
     if (!product) warnings.push(`product ${g.layer.productName ?? productId} is not in the catalogue: set its price on the line`);
     else if (!product.active) warnings.push(`${product.name} is marked inactive in the catalogue`);

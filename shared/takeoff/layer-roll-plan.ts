@@ -18,6 +18,39 @@ export function stockOfLayer(l: Pick<TakeoffLayer, 'productId' | 'rollLengthMm' 
 }
 
 /**
+ * Pieces of saved takeoff layers as the roll plan reads them, for pooling several spaces of a
+ * job (`prefix` keeps keys apart, e.g. the space name). Strips become pieces at their cut length
+ * and width, piece by piece; fills at their area. Cut-outs are not stored in the takeoff, so a pooled plan may
+ * reuse a little less than the per-space one.
+ */
+export function piecesOfLayers(layers: TakeoffLayer[], prefix = ''): { stock: RollStock; pieces: PieceDemand[] }[] {
+  const by = new Map<string, { stock: RollStock; pieces: PieceDemand[] }>();
+  for (const l of layers) {
+    const g = by.get(l.productId) ?? { stock: stockOfLayer(l), pieces: [] };
+    const group = `${prefix}${l.role === 'base' ? 'base' : `cross${l.roleIndex + 1}`}`;
+    // Each piece as cut (its own width), the strip's area shared by length × width.
+    for (const s of l.strips) {
+      const total = s.pieces.reduce((n, p) => n + p.lengthMm * p.widthMm, 0) || 1;
+      s.pieces.forEach((p, i) =>
+        g.pieces.push({
+          key: `${prefix}${s.label}/${i + 1}`,
+          group,
+          lengthMm: p.lengthMm,
+          widthMm: p.widthMm,
+          areaMm2: (s.areaM2 * 1e6 * p.lengthMm * p.widthMm) / total,
+          kind: 'strip',
+        }),
+      );
+    }
+    (l.fills ?? []).forEach((f, i) =>
+      g.pieces.push({ key: `${prefix}${group}-fill${i + 1}`, group, lengthMm: f.lengthMm, widthMm: f.widthMm, areaMm2: f.areaM2 * 1e6, kind: 'fill' }),
+    );
+    by.set(l.productId, g);
+  }
+  return [...by.values()];
+}
+
+/**
  * Plans the rolls of a space, pooled per product over its layers, and writes each layer's
  * share: strip pieces (roll, lane, offset, width, source), rolls opened, its lanes and offcuts.
  * Returns the cut list per product.

@@ -69,14 +69,15 @@ describe('building a quote from a job', () => {
     const { job, space } = await quoteJob(org);
     const { products } = await loadCatalogue(org.id);
     const saved = computeTakeoff(examplePlan(), { products: parseProductCatalogue(products) });
-    saved.layers[0].rollsByPacking = 41; // a value only the stored takeoff can carry
+    // A value only the stored takeoff can carry (the packed count is re-pooled over the job's spaces; the rule of thumb is read as stored).
+    saved.layers[0].rollsByArea = 41;
     await PlanRevision.update({ takeoff: saved as never }, { where: { spaceId: space.id } });
     const office = await loginAs(ctx.app, org.office);
     const res = await office.post(`/api/jobs/${job.id}/quotes`).send({});
     expect(res.status).toBe(201);
     const first = res.body.quote.lines.find((l: { productId: string }) => l.productId === saved.layers[0].productId);
-    const sameProduct = saved.layers.filter((l) => l.productId === saved.layers[0].productId).reduce((a, l) => a + l.rollsByPacking, 0);
-    expect(first.quantity).toBe(sameProduct);
+    const sameProduct = saved.layers.filter((l) => l.productId === saved.layers[0].productId).reduce((a, l) => a + l.rollsByArea, 0);
+    expect(first.altQuantity).toBe(sameProduct);
     expect(sameProduct).toBeGreaterThanOrEqual(41);
   });
 

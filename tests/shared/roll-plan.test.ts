@@ -6,6 +6,7 @@ import { planRolls, rollsByArea, type PieceDemand, type RollStock } from '../../
 import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../shared/takeoff/products';
 import { planSchema, type PlanInput } from '../../shared/plan/plan-schema';
+import { jobRollsByProduct } from '../../shared/takeoff/job-roll-plan';
 
 const products = parseProductCatalogue(JSON.parse(readFileSync(join(__dirname, '../../examples/products.json'), 'utf8')));
 const settings = { minOffcutMm: 500, minStripWidthMm: 100 };
@@ -290,5 +291,28 @@ describe('every example: packed against the rule of thumb and the lower bound', 
       expect(material).toBeLessThanOrEqual((covered + friction + holes) * 1.05);
       expect(material).toBeGreaterThanOrEqual(covered * 0.99);
     }
+  });
+});
+
+describe('rolls pooled over the spaces of a job', () => {
+  it('never buys more than the spaces’ own plans added up, and reuses one space’s roll ends in another', () => {
+    const dir = join(__dirname, '../../examples');
+    const load = (f: string) => computeTakeoff(planSchema.parse(JSON.parse(readFileSync(join(dir, f), 'utf8'))), { products: only('wool-100-s3', 'wool-170') });
+    // The same 2.5 × 1.14 m room twice: alone each opens a 5 m roll of 170 mm for one 2.5 m strip; together one roll does.
+    const room = computeTakeoff(
+      drawn([
+        [0, 0],
+        [2500, 0],
+        [2500, 1140],
+        [0, 1140],
+      ]),
+      { products: only('wool-100-s3', 'wool-170') },
+    );
+    const pooled = jobRollsByProduct([room, room, load('bungalow/garage-loft.json')]);
+    const own = new Map<string, number>();
+    for (const t of [room, room, load('bungalow/garage-loft.json')])
+      for (const l of t.layers) own.set(l.productId, (own.get(l.productId) ?? 0) + l.rollsByPacking);
+    for (const [id, n] of pooled) expect(n).toBeLessThanOrEqual(own.get(id)!);
+    expect(pooled.get('wool-170')).toBeLessThan(own.get('wool-170')!);
   });
 });

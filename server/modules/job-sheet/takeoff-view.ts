@@ -4,6 +4,7 @@ import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 import { extrasFor } from '../../../shared/quote/extras';
 import { spaceForQuote } from '../../../shared/quote/from-takeoff';
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
+import { jobRollsByProduct } from '../../../shared/takeoff/job-roll-plan';
 import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/takeoff-types';
 import { latestRevisionsOfJobs } from '../plan-revisions/revisions.repository';
 
@@ -185,16 +186,22 @@ const EXTRA_UNITS: Partial<Record<ExtraKind, string>> = { pipe_lagging: 'm', dis
 export function vanLoad(rows: RevisionRow[], rules: ExtraRules, catalogueExtras: readonly Pick<Extra, 'kind' | 'name' | 'unit' | 'active'>[]): VanLoad {
   const rolls = new Map<string, { productName: string; thicknessMm: number; count: number }>();
   const spaces = [];
+  const takeoffs: Takeoff[] = [];
   for (const row of rows) {
     const t = readStoredTakeoff(row.takeoff);
     if (!t) continue;
+    takeoffs.push(t);
     for (const l of t.layers) {
-      const k = `${l.productName}|${l.thicknessMm}`;
-      const r = rolls.get(k) ?? { productName: String(l.productName), thicknessMm: Number(l.thicknessMm), count: 0 };
+      const r = rolls.get(l.productId) ?? { productName: String(l.productName), thicknessMm: Number(l.thicknessMm), count: 0 };
       r.count += Number(l.rollsByPacking);
-      rolls.set(k, r);
+      rolls.set(l.productId, r);
     }
     spaces.push(spaceForQuote('', t, (row.plan as PlanLike | null)?.joists?.centresMm));
+  }
+  // The job's spaces share their rolls per product, as the quote counts them.
+  for (const [productId, n] of jobRollsByProduct(takeoffs)) {
+    const r = rolls.get(productId);
+    if (r) r.count = n;
   }
   const extras: VanLoad['extras'] = extrasFor(spaces, rules).map(({ kind, quantity }) => {
     const item = catalogueExtras.find((e) => e.kind === kind && e.active);

@@ -18,6 +18,8 @@ import { loadCatalogue } from '../catalogue/catalogue.service';
 import { ensureCompanySettings, loadCompanySettings, toSettingsDto } from '../settings/settings.service';
 import { lineRows, priceQuote, snapshotOf, toQuoteDto, type QuoteSnapshot } from './quote-dto';
 import { takeoffForSpace } from './takeoff-adapter';
+import { jobRollsByProduct } from '../../../shared/takeoff/job-roll-plan';
+import type { Takeoff } from '../../../shared/takeoff/takeoff-types';
 import { addDaysIso, todayIso } from '../../../shared/dates';
 
 export async function findJobInOrg(actor: { organisationId: string }, jobId: string, t?: Transaction): Promise<Job> {
@@ -102,6 +104,7 @@ export async function buildDraft(job: Job) {
   const plans = await latestPlans(job);
   const warnings: string[] = [];
   const spacesForQuote: SpaceForQuote[] = [];
+  const takeoffs: Takeoff[] = [];
   const snapSpaces: QuoteSnapshot['spaces'] = [];
   const kinds = new Set<ExclusionKind>();
   let saving = null as { kwhPerYear: number; minorPerYear: number } | null;
@@ -116,6 +119,7 @@ export async function buildDraft(job: Job) {
       continue;
     }
     spacesForQuote.push(t.space);
+    takeoffs.push(t.takeoff);
     for (const [k, n] of Object.entries(t.space.exclusionCounts)) if (n) kinds.add(k as ExclusionKind);
     if (t.saving) saving = { kwhPerYear: (saving?.kwhPerYear ?? 0) + t.saving.kwh, minorPerYear: (saving?.minorPerYear ?? 0) + t.saving.minor };
     snapSpaces.push({
@@ -138,7 +142,7 @@ export async function buildDraft(job: Job) {
     warnings.push(...t.warnings.map((w) => `${space.name}: ${w}`));
   }
   if (plans.length === 0) warnings.push('this job has no spaces yet: add lines by hand or sketch a loft first');
-  const built = buildQuoteLines(spacesForQuote, catalogue, settings);
+  const built = buildQuoteLines(spacesForQuote, catalogue, settings, jobRollsByProduct(takeoffs));
   const cautions = quoteCautions(kinds);
   const issueDate = todayIso();
   const snapshot: QuoteSnapshot = {
