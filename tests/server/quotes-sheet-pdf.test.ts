@@ -53,6 +53,13 @@ describe('job sheet PDF', () => {
     expect(text).toMatch(/Van load/);
     expect(text).toContain(s.spaces[0].checks[0].title);
     expect(text).not.toMatch(/£|price|VAT/i);
+    // The legend speaks of the layers the space has and of the arrow drawn (the first layer's, as on the phone).
+    const flat = text.replace(/\s+/g, ' ');
+    expect(flat).toContain(`Arrow: lay direction of the ${s.spaces[0].layers[0].label.toLowerCase()}.`);
+    expect(flat.includes('Straw: base strips')).toBe(s.spaces[0].layers.some((l: { role: string }) => l.role === 'base'));
+    // Each product is named once in the cut list, not on every row of its rolls.
+    const cutList = flat.slice(flat.indexOf('Cut list, by roll'), flat.indexOf('Site checks'));
+    for (const l of s.spaces[0].layers as Array<{ productName: string }>) expect(cutList.split(l.productName).length - 1, l.productName).toBe(1);
   });
 
   it('is refused to an installer the job is not assigned to', async () => {

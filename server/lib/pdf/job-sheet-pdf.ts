@@ -9,11 +9,15 @@ const mm = (n: number) => `${Math.round(n)} mm`;
 /** One cut list row per roll lane: the strips cut from it in order, and what is left. */
 function cutListRows(space: JobSheet['spaces'][number]): string[][] {
   const rows: string[][] = [];
+  let lastProduct = '';
   for (const roll of space.rolls) {
     for (const lane of roll.lanes) {
+      // The product (and its width) once where it changes, not again on every row of its rolls.
+      const product = roll.productName === lastProduct ? '' : roll.productName;
+      lastProduct = roll.productName;
       rows.push([
         `Roll ${roll.rollNo}${roll.lanes.length > 1 ? ` lane ${lane.lane}` : ''}`,
-        `${roll.productName}${lane.widthMm ? `, ${mm(lane.widthMm)} wide` : ''}`,
+        [product, roll.lanes.length > 1 && lane.widthMm ? `${mm(lane.widthMm)} lane` : ''].filter(Boolean).join(', '),
         lane.cuts
           .map(
             (c) =>
@@ -76,7 +80,9 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
       const boxY = doc.y + 6;
       const box = { x: left, y: boxY, width, height: 300 };
       doc.rect(box.x, box.y, box.width, box.height).lineWidth(0.5).strokeColor(PALETTE.paperLine).stroke();
-      drawPlan(doc, space.plan as PlanForDrawing, box, { strips, showArrow: true });
+      // The arrow shows the first layer's lay direction, as the phone's plan does; no layer, no arrow.
+      const arrowLayer = space.layers[0];
+      drawPlan(doc, space.plan as PlanForDrawing, box, { strips, arrowDeg: arrowLayer?.layDirectionDeg });
       doc.y = boxY + box.height + 6;
       doc.x = left;
       doc
@@ -84,7 +90,14 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
         .fontSize(7.5)
         .fillColor(PALETTE.graphiteLight)
         .text(
-          'Straw: base strips between the joists. Teal: cross strips. Numbers are the laying order (from the eaves inward, finishing at the hatch). Red hatching: do not cover. Blue: eaves, keep the ventilation gap. Arrow: base lay direction.',
+          [
+            space.layers.some((l) => l.role === 'base') ? 'Straw: base strips between the joists.' : '',
+            space.layers.some((l) => l.role === 'cross') ? 'Teal: cross strips, across the joists.' : '',
+            'Numbers are the laying order (from the eaves inward, finishing at the hatch). Red hatching: do not cover. Blue: eaves, keep the ventilation gap.',
+            arrowLayer ? `Arrow: lay direction of the ${arrowLayer.label.toLowerCase()}.` : '',
+          ]
+            .filter(Boolean)
+            .join(' '),
           left,
           doc.y,
           { width },

@@ -52,7 +52,12 @@ function pathOf(doc: PDFKit.PDFDocument, pts: Pt[]) {
  * strips (job sheet) in straw/teal with their numbers, exclusions hatched brick red, eaves edges
  * in pale sky blue, the outline in graphite, and an arrow for the base layer's lay direction.
  */
-export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: PlanBox, opts: { strips?: StripForDrawing[]; showArrow?: boolean } = {}) {
+export function drawPlan(
+  doc: PDFKit.PDFDocument,
+  plan: PlanForDrawing,
+  box: PlanBox,
+  opts: { strips?: StripForDrawing[]; /** Lay direction to show as an arrow, degrees in plan space (y down), as the phone shows it. */ arrowDeg?: number } = {},
+) {
   if (!Array.isArray(plan.outline) || plan.outline.length < 3) return;
   const { map, scale, bbox } = fitTransform(plan.outline, box);
   const outline = plan.outline.map(map);
@@ -105,17 +110,25 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   }
   doc.restore();
 
-  // Strip numbers on top of the joists.
+  // Strip numbers on top of the joists, sized to their strip (6.5–10 pt); a strip too narrow on
+  // the page for a readable number goes without (the cut list names every strip).
   if (opts.strips?.length) {
-    doc.fontSize(5.5).fillColor(PALETTE.graphite);
+    doc.font('ui-bold').fillColor(PALETTE.graphite);
     for (const s of opts.strips) {
       const first = s.parts[0] ?? [];
       if (!s.labelAt && first.length === 0) continue;
+      const pts = first.map(map);
+      const narrowPt = pts.length
+        ? Math.min(Math.max(...pts.map((p) => p[0])) - Math.min(...pts.map((p) => p[0])), Math.max(...pts.map((p) => p[1])) - Math.min(...pts.map((p) => p[1])))
+        : 0;
+      const sizePt = Math.min(10, narrowPt * 0.7);
+      if (sizePt < 6.5) continue;
       const [cx, cy] = s.labelAt
         ? map(s.labelAt)
         : map([first.reduce((a, p) => a + p[0], 0) / first.length, first.reduce((a, p) => a + p[1], 0) / first.length]);
-      doc.text(s.label, cx - 12, cy - 3, { width: 24, align: 'center', lineBreak: false });
+      doc.fontSize(sizePt).text(s.label, cx - 20, cy - sizePt / 2, { width: 40, align: 'center', lineBreak: false });
     }
+    doc.font('ui');
   }
 
   // Exclusions: brick red, hatched, clipped to the outline (a chimney breast drawn across the wall
@@ -166,9 +179,8 @@ export function drawPlan(doc: PDFKit.PDFDocument, plan: PlanForDrawing, box: Pla
   pathOf(doc, outline);
   doc.lineWidth(1.2).strokeColor(PALETTE.graphite).stroke();
 
-  if (opts.showArrow && j) {
-    // Lay direction of the base layer: along the joists.
-    const a = (j.angleDeg * Math.PI) / 180;
+  if (opts.arrowDeg !== undefined) {
+    const a = (opts.arrowDeg * Math.PI) / 180;
     const cx = box.x + box.width - 22,
       cy = box.y + 16,
       r = 12;
