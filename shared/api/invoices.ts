@@ -78,7 +78,7 @@ export const invoiceSummarySchema = z.object({
   issueDate: z.string(),
   dueDate: z.string().nullable(),
   currency: z.string(),
-  totalMinor: z.number().int(),
+  grossMinor: z.number().int(),
   balanceMinor: z.number().int(),
   paidAt: z.string().nullable(),
 });
@@ -95,7 +95,7 @@ export const invoiceSchema = invoiceSummarySchema.extend({
   netMinor: z.number().int(),
   taxMinor: z.number().int(),
   /** tax by rate, for the PDF and the books */
-  taxBreakdown: z.array(z.object({ rateBp: z.number().int(), netMinor: z.number().int(), taxMinor: z.number().int() })),
+  taxByRate: z.array(z.object({ rateBp: z.number().int(), netMinor: z.number().int(), taxMinor: z.number().int() })),
   depositMinor: z.number().int(),
   creditedMinor: z.number().int(),
   notes: z.string(),

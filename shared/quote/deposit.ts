@@ -7,10 +7,10 @@ export type DepositMode = 'none' | 'percent' | 'fixed';
  * The deposit asked on a quote total: a percentage (basis points, rounded half away from zero like
  * every rate) or a fixed amount capped at the total. 0 when no deposit is asked.
  */
-export function depositFor(totalMinor: number, mode: DepositMode, percentBp: number | null, fixedMinor: number | null): number {
-  if (totalMinor <= 0) return 0;
-  if (mode === 'percent' && percentBp) return applyRateBp(totalMinor, percentBp);
-  if (mode === 'fixed' && fixedMinor) return Math.min(fixedMinor, totalMinor);
+export function depositFor(grossMinor: number, mode: DepositMode, percentBp: number | null, fixedMinor: number | null): number {
+  if (grossMinor <= 0) return 0;
+  if (mode === 'percent' && percentBp) return applyRateBp(grossMinor, percentBp);
+  if (mode === 'fixed' && fixedMinor) return Math.min(fixedMinor, grossMinor);
   return 0;
 }
 
@@ -22,10 +22,10 @@ export interface DepositTerms {
 
 /** The deposit terms for a quote total under the company's settings, or null when none is asked. */
 export function depositTerms(
-  totalMinor: number,
+  grossMinor: number,
   s: { depositMode: DepositMode; depositPercentBp: number | null; depositFixedMinor: number | null },
 ): DepositTerms | null {
-  const amountMinor = depositFor(totalMinor, s.depositMode, s.depositPercentBp, s.depositFixedMinor);
+  const amountMinor = depositFor(grossMinor, s.depositMode, s.depositPercentBp, s.depositFixedMinor);
   if (amountMinor <= 0) return null;
   return { amountMinor, percentBp: s.depositMode === 'percent' ? s.depositPercentBp : null };
 }

@@ -96,12 +96,3 @@ export function computeQuoteTotals<L extends QuoteLineInput>(lines: readonly L[]
     marginBp: netMinor === 0 ? 0 : Math.round((marginMinor * 10_000) / netMinor),
   };
 }
-
-/**
- * Years to pay back the quote's total from the yearly saving; null when there is no saving.
- * One decimal is plenty for an estimate.
- */
-export function paybackYears(grossMinor: number, savingMinorPerYear: number): number | null {
-  if (!(savingMinorPerYear > 0)) return null;
-  return Math.round((grossMinor / savingMinorPerYear) * 10) / 10;
-}

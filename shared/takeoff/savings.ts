@@ -32,7 +32,11 @@ export function yearlySavings(
   return { areaM2, deltaU, heatKwhPerYear, fuelKwhPerYear, moneyMinorPerYear: Math.round(fuelKwhPerYear * fuelPriceMinorPerKwh) };
 }
 
-/** Simple payback in years: cost / yearly saving (both minor units); `null` when nothing is saved. */
+/**
+ * Simple payback in years: cost (a quote's gross total) / yearly saving, both minor units, to one
+ * decimal (plenty for an estimate); `null` when nothing is saved.
+ */
 export function paybackYears(costMinor: number, savingMinorPerYear: number): number | null {
-  return savingMinorPerYear > 0 ? costMinor / savingMinorPerYear : null;
+  if (!(savingMinorPerYear > 0)) return null;
+  return Math.round((costMinor / savingMinorPerYear) * 10) / 10;
 }

@@ -57,7 +57,7 @@ describe('invoices', () => {
       quoteReference: quote.number,
       netMinor: 28200 + 24700 + 3897 + 2598,
       taxMinor: 779 + 520,
-      totalMinor: 60694,
+      grossMinor: 60694,
       depositMinor: 14394,
       balanceMinor: 46300,
       overdue: false,
@@ -72,7 +72,7 @@ describe('invoices', () => {
       ['quote', 3897, 779, 2000],
       ['variation', 2598, 520, 2000],
     ]);
-    expect(inv.taxBreakdown).toEqual([
+    expect(inv.taxByRate).toEqual([
       { rateBp: 2000, netMinor: 6495, taxMinor: 1299 },
       { rateBp: 0, netMinor: 52900, taxMinor: 0 },
     ]);
@@ -116,7 +116,7 @@ describe('invoices', () => {
     });
     expect(cn.status).toBe(201);
     // 1299 + 20 % (259.8 → 260) = 1559.
-    expect(cn.body.creditNote).toMatchObject({ kind: 'credit_note', totalMinor: 1559, creditedInvoiceNumber: inv.number });
+    expect(cn.body.creditNote).toMatchObject({ kind: 'credit_note', grossMinor: 1559, creditedInvoiceNumber: inv.number });
     expect(cn.body.creditNote.number).toMatch(/^CN-\d{6}$/);
     const refund = h.fake.refunds.at(-1)!;
     expect(refund).toMatchObject({ amount: 1559, payment_intent: h.fake.sessions.get(session.id)!.payment_intent });
@@ -158,7 +158,7 @@ describe('invoices', () => {
     const inv = (await office.post('/api/invoices').send({ jobId: job.id, send: false })).body.invoice;
     const changed = await office.patch(`/api/invoices/${inv.id}`).send({ variations: [VARIATION] });
     expect(changed.status).toBe(200);
-    expect(changed.body.invoice).toMatchObject({ totalMinor: 60694, balanceMinor: 46300 });
+    expect(changed.body.invoice).toMatchObject({ grossMinor: 60694, balanceMinor: 46300 });
     // A credit note on an unpaid invoice lowers what is left to pay (nothing to refund), and then the
     // invoice itself is frozen too.
     const refundRefused = await office
@@ -168,7 +168,7 @@ describe('invoices', () => {
     const cn = await office
       .post(`/api/invoices/${inv.id}/credit-notes`)
       .send({ reason: 'goodwill', lines: [{ description: 'Goodwill', quantity: 1, unitPriceMinor: 1000, taxClass: 'standard' }] });
-    expect(cn.body.creditNote.totalMinor).toBe(1200); // £10.00 + 20 % VAT
+    expect(cn.body.creditNote.grossMinor).toBe(1200); // £10.00 + 20 % VAT
     expect((await office.get(`/api/invoices/${inv.id}`)).body.invoice).toMatchObject({ creditedMinor: 1200, balanceMinor: 46300 - 1200, status: 'issued' });
     expect((await office.patch(`/api/invoices/${inv.id}`).send({ notes: 'x' })).body.error.code).toBe('invoice_credited');
     await Invoice.update({ issueDate: '2026-01-01', dueDate: '2026-01-15' }, { where: { id: inv.id } });

@@ -47,8 +47,8 @@ function sampleInvoice(over: Partial<Invoice> = {}): Invoice {
     issueDate: '2027-01-20',
     dueDate: '2027-02-03',
     currency: 'GBP',
-    totalMinor: t.totalMinor,
-    balanceMinor: balanceDue(t.totalMinor, deposit, 0),
+    grossMinor: t.grossMinor,
+    balanceMinor: balanceDue(t.grossMinor, deposit, 0),
     paidAt: null,
     quoteId: 'q1',
     quoteReference: 'Q-0042',
@@ -59,7 +59,7 @@ function sampleInvoice(over: Partial<Invoice> = {}): Invoice {
     lines,
     netMinor: t.netMinor,
     taxMinor: t.taxMinor,
-    taxBreakdown: t.taxBreakdown,
+    taxByRate: t.taxByRate,
     depositMinor: deposit,
     creditedMinor: 0,
     notes: 'Thank you for your business.',
@@ -83,7 +83,7 @@ describe('invoice PDF', () => {
     const inv = sampleInvoice();
     // Hand-worked: net 28200 + 24700 + 3897 + 1850 = 58647; VAT 0 + 4940 + 779 + 370 = 6089;
     // total 64736; less deposit 10000 → balance 54736.
-    expect([inv.netMinor, inv.taxMinor, inv.totalMinor, inv.balanceMinor]).toEqual([58647, 6089, 64736, 54736]);
+    expect([inv.netMinor, inv.taxMinor, inv.grossMinor, inv.balanceMinor]).toEqual([58647, 6089, 64736, 54736]);
     const buf = await renderInvoicePdf(inv, company);
     expect(buf.subarray(0, 5).toString()).toBe('%PDF-');
     const text = await pdfText(buf);

@@ -50,7 +50,7 @@ describe('one invoice line', () => {
       [37687, 1884],
       [467, 93],
     ]); // 13 × 2899 = 37687, 5 % = 1884.35 → 1884; 2.345 × 199 = 466.655 → 467, 20 % = 93.4 → 93
-    expect(sumLines(mine).totalMinor).toBe(q.grossMinor);
+    expect(sumLines(mine).grossMinor).toBe(q.grossMinor);
   });
 });
 
@@ -68,8 +68,8 @@ describe('invoice totals', () => {
     expect(t).toEqual({
       netMinor: 60293, // 28200 + 24700 + 3897 + 2996 + 500
       taxMinor: 6343, // 0 + 4940 + 779 + 599 + 25
-      totalMinor: 66636,
-      taxBreakdown: [
+      grossMinor: 66636,
+      taxByRate: [
         { rateBp: 2000, netMinor: 31593, taxMinor: 6318 },
         { rateBp: 500, netMinor: 500, taxMinor: 25 },
         { rateBp: 0, netMinor: 28200, taxMinor: 0 },

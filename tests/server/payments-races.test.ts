@@ -70,7 +70,7 @@ async function issuedInvoice(i: number) {
   const res = await office.post('/api/invoices').send({ jobId: job.id, variations: [] });
   expect(res.status).toBe(201);
   const token = new URL(res.body.invoice.payUrl).pathname.split('/').pop()!;
-  return { job, invoice: res.body.invoice as { id: string; totalMinor: number }, token };
+  return { job, invoice: res.body.invoice as { id: string; grossMinor: number }, token };
 }
 
 const VARIATION = { description: 'Extra walkway board', quantity: 1, unit: 'each', unitPriceMinor: 2500, taxClass: 'standard' };
@@ -80,14 +80,14 @@ describe('the office adds a variation while the balance checkout is open', () =>
     const { invoice, token } = await issuedInvoice(0);
     const go = await request(h.ctx.app).post(`/pay/invoice/${token}`);
     const session = sessionOf(go.headers.location)!;
-    expect(session.amount_total).toBe(invoice.totalMinor);
+    expect(session.amount_total).toBe(invoice.grossMinor);
     const edit = await office.patch(`/api/invoices/${invoice.id}`).send({ variations: [VARIATION] });
     expect(edit.status).toBe(200);
     expect(h.fake.sessions.get(session.id)!.status).toBe('expired');
     expect(await tryPay(session.id)).toBe(false);
     const row = (await Invoice.findByPk(invoice.id))!;
     expect(row.status).toBe('issued');
-    expect(row.totalMinor).toBe(invoice.totalMinor + 3000); // 2500 + 20 % VAT
+    expect(row.grossMinor).toBe(invoice.grossMinor + 3000); // 2500 + 20 % VAT
   });
 
   it('when the old checkout is paid at the same moment, the invoice is never paid for less than its total and an uncounted payment is refunded', async () => {
@@ -102,7 +102,7 @@ describe('the office adds a variation while the balance checkout is open', () =>
       if (row.status === 'paid') {
         // The payment won: it covered the whole (old, unchanged) total, and the edit was refused.
         expect(edit.status).toBe(409);
-        expect(countedMinor + row.depositMinor).toBe(row.totalMinor);
+        expect(countedMinor + row.depositMinor).toBe(row.grossMinor);
       } else {
         expect(edit.status).toBe(200);
         expect(countedMinor).toBe(0);

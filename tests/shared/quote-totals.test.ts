@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { computeQuoteTotals, paybackYears, type QuoteLineInput } from '../../shared/quote/totals';
+import { computeQuoteTotals, type QuoteLineInput } from '../../shared/quote/totals';
+import { paybackYears } from '../../shared/takeoff/savings';
 import { UK_DEFAULT_TAX_RATES } from '../../shared/quote/tax';
 
 const line = (p: Partial<QuoteLineInput> & Pick<QuoteLineInput, 'quantity' | 'unitPriceMinor' | 'taxClass'>): QuoteLineInput => ({

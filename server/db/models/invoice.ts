@@ -24,7 +24,7 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare billingAddress: string[];
   declare netMinor: number;
   declare taxMinor: number;
-  declare totalMinor: number;
+  declare grossMinor: number;
   declare depositMinor: number;
   declare notes: CreationOptional<string>;
   declare reason: CreationOptional<string>;
@@ -58,7 +58,8 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
         billingAddress: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         netMinor: { type: DataTypes.INTEGER, allowNull: false },
         taxMinor: { type: DataTypes.INTEGER, allowNull: false },
-        totalMinor: { type: DataTypes.INTEGER, allowNull: false },
+        // The column keeps its first name; the attribute reads like the quote's totals (net, tax, gross).
+        grossMinor: { type: DataTypes.INTEGER, allowNull: false, field: 'total_minor' },
         depositMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },

@@ -15,13 +15,13 @@ export interface InvoiceContext {
 
 /** Total of the credit notes against an invoice, minor units. */
 export function creditedTotal(creditNotes: readonly Invoice[]): number {
-  return creditNotes.reduce((sum, c) => sum + c.totalMinor, 0);
+  return creditNotes.reduce((sum, c) => sum + c.grossMinor, 0);
 }
 
 /** What is left to pay on an invoice; 0 for a paid invoice or a credit note. */
 export function balanceOf(inv: Invoice, creditNotes: readonly Invoice[]): number {
   if (inv.kind !== 'invoice' || inv.status === 'paid') return 0;
-  return balanceDue(inv.totalMinor, inv.depositMinor, creditedTotal(creditNotes));
+  return balanceDue(inv.grossMinor, inv.depositMinor, creditedTotal(creditNotes));
 }
 
 export function toSummary(inv: Invoice, ctx: Pick<InvoiceContext, 'jobReference' | 'creditNotes'>, today = todayIso()): InvoiceSummary {
@@ -38,7 +38,7 @@ export function toSummary(inv: Invoice, ctx: Pick<InvoiceContext, 'jobReference'
     issueDate: inv.issueDate,
     dueDate: inv.dueDate,
     currency: inv.currency,
-    totalMinor: inv.totalMinor,
+    grossMinor: inv.grossMinor,
     balanceMinor: balance,
     paidAt: inv.paidAt ? inv.paidAt.toISOString() : null,
   };
@@ -73,7 +73,7 @@ export function toInvoiceDto(inv: Invoice, lines: InvoiceLine[], ctx: InvoiceCon
     lines: dtoLines,
     netMinor: inv.netMinor,
     taxMinor: inv.taxMinor,
-    taxBreakdown: totals.taxBreakdown,
+    taxByRate: totals.taxByRate,
     depositMinor: inv.depositMinor,
     creditedMinor: creditedTotal(ctx.creditNotes),
     notes: inv.notes,

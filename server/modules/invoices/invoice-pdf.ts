@@ -30,7 +30,7 @@ export function formatQuantity(quantity: number): string {
 /** Height of what follows the lines (totals, the pay link, notes), so it can be kept with the last line. */
 function tailHeightOf(doc: PDFKit.PDFDocument, invoice: Invoice, width: number): number {
   const isCredit = invoice.kind === 'credit_note';
-  const totalRows = 1 + invoice.taxBreakdown.length + (isCredit ? 0 : (invoice.depositMinor ? 1 : 0) + (invoice.creditedMinor ? 1 : 0));
+  const totalRows = 1 + invoice.taxByRate.length + (isCredit ? 0 : (invoice.depositMinor ? 1 : 0) + (invoice.creditedMinor ? 1 : 0));
   let h = 8 + totalRows * 14 + (isCredit ? 18 : 36);
   if (!isCredit && invoice.status !== 'paid' && invoice.balanceMinor > 0 && invoice.payUrl) h += 12 + 40;
   else if (!isCredit && invoice.status === 'paid') h += 26;
@@ -148,8 +148,8 @@ export function renderInvoicePdf(invoice: Invoice, company: CompanyDetails): Pro
     y += bold ? 18 : 14;
   };
   row('Net', money(invoice.netMinor));
-  for (const t of invoice.taxBreakdown) row(`VAT at ${formatRateBp(t.rateBp)} on ${money(t.netMinor)}`, money(t.taxMinor));
-  row(isCredit ? 'Total credited' : 'Total', money(invoice.totalMinor), true);
+  for (const t of invoice.taxByRate) row(`VAT at ${formatRateBp(t.rateBp)} on ${money(t.netMinor)}`, money(t.taxMinor));
+  row(isCredit ? 'Total credited' : 'Total', money(invoice.grossMinor), true);
   if (!isCredit) {
     if (invoice.depositMinor) row('Less deposit paid', `−${money(invoice.depositMinor)}`);
     if (invoice.creditedMinor) row('Less credit notes', `−${money(invoice.creditedMinor)}`);

@@ -31,20 +31,20 @@ export function lineAmounts(line: LineInput): LineAmounts {
 export interface Totals {
   netMinor: number;
   taxMinor: number;
-  totalMinor: number;
-  taxBreakdown: { rateBp: number; netMinor: number; taxMinor: number }[];
+  grossMinor: number;
+  taxByRate: { rateBp: number; netMinor: number; taxMinor: number }[];
 }
 
 /** Sum lines that already carry their amounts; tax grouped by rate, highest rate first. */
 export function sumLines(lines: readonly { netMinor: number; taxMinor: number; rateBp: number }[]): Totals {
   const netMinor = sumMinor(lines.map((l) => l.netMinor));
   const taxMinor = sumMinor(lines.map((l) => l.taxMinor));
-  return { netMinor, taxMinor, totalMinor: netMinor + taxMinor, taxBreakdown: groupTaxByRate(lines) };
+  return { netMinor, taxMinor, grossMinor: netMinor + taxMinor, taxByRate: groupTaxByRate(lines) };
 }
 
 /** What is left to pay: total − deposit paid − credit notes; never below zero. */
-export function balanceDue(totalMinor: number, depositMinor: number, creditedMinor: number): number {
-  return Math.max(0, totalMinor - depositMinor - creditedMinor);
+export function balanceDue(grossMinor: number, depositMinor: number, creditedMinor: number): number {
+  return Math.max(0, grossMinor - depositMinor - creditedMinor);
 }
 
 /** An unpaid invoice is overdue from the day after its due date. */

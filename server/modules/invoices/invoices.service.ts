@@ -169,13 +169,13 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
     const title = isCredit ? `Credit note ${d.number}` : `Invoice ${d.number}`;
     const money = (m: number) => formatMoney(m, d.currency);
     const body = isCredit
-      ? `Dear ${d.customerName},\n\nPlease find attached credit note ${d.number} for ${money(d.totalMinor)} against invoice ${d.creditedInvoiceNumber}.\n\n${d.reason}\n\n${company.name}`
+      ? `Dear ${d.customerName},\n\nPlease find attached credit note ${d.number} for ${money(d.grossMinor)} against invoice ${d.creditedInvoiceNumber}.\n\n${d.reason}\n\n${company.name}`
       : [
           `Dear ${d.customerName},`,
           '',
           `Thank you for choosing ${company.name}. Please find attached invoice ${d.number} for the work at job ${d.jobReference}.`,
           '',
-          `Total ${money(d.totalMinor)}${d.depositMinor ? `, less the deposit of ${money(d.depositMinor)} you paid` : ''}: ${money(d.balanceMinor)} to pay${d.dueDate ? ` by ${formatDate(d.dueDate)}` : ''}.`,
+          `Total ${money(d.grossMinor)}${d.depositMinor ? `, less the deposit of ${money(d.depositMinor)} you paid` : ''}: ${money(d.balanceMinor)} to pay${d.dueDate ? ` by ${formatDate(d.dueDate)}` : ''}.`,
           '',
           d.payUrl && d.balanceMinor > 0 ? `Pay by card at this private link: ${d.payUrl}` : '',
           '',
@@ -250,8 +250,8 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
               billingAddress: customer ? [customer.addressLine1, customer.addressLine2, customer.town, customer.postcode].filter(Boolean) : [],
               netMinor: totals.netMinor,
               taxMinor: totals.taxMinor,
-              totalMinor: totals.totalMinor,
-              depositMinor: deposit.state === 'paid' ? Math.min(deposit.amountMinor, totals.totalMinor) : 0,
+              grossMinor: totals.grossMinor,
+              depositMinor: deposit.state === 'paid' ? Math.min(deposit.amountMinor, totals.grossMinor) : 0,
               notes: body.notes,
               payToken: randomBytes(24).toString('base64url'),
               createdById: actor.id,
@@ -266,9 +266,9 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
             {
               invoiceId: created.id,
               invoiceNumber: created.number,
-              amountMinor: created.totalMinor,
+              amountMinor: created.grossMinor,
               currency: created.currency,
-              paymentText: `Invoice ${created.number} issued for ${formatMoney(created.totalMinor, created.currency)}`,
+              paymentText: `Invoice ${created.number} issued for ${formatMoney(created.grossMinor, created.currency)}`,
             },
             t,
           );
@@ -357,8 +357,8 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           Object.assign(patch, {
             netMinor: totals.netMinor,
             taxMinor: totals.taxMinor,
-            totalMinor: totals.totalMinor,
-            depositMinor: Math.min(inv.depositMinor, totals.totalMinor),
+            grossMinor: totals.grossMinor,
+            depositMinor: Math.min(inv.depositMinor, totals.grossMinor),
           });
         }
         await inv.update(patch, { transaction: t });
@@ -379,7 +379,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
       const issueDate = todayIso();
       const rows = priceInputs(body.lines, 'credit', rates, issueDate, 'lines');
       const totals = sumLines(rows);
-      if (totals.totalMinor <= 0) throw new ValidationError([{ path: 'lines', message: 'a credit note must credit more than nothing' }]);
+      if (totals.grossMinor <= 0) throw new ValidationError([{ path: 'lines', message: 'a credit note must credit more than nothing' }]);
       let expireAtService = async () => {};
       const created = await sequelize.transaction(async (t) => {
         const inv = await find(actor, invoiceId, t);
@@ -390,9 +390,9 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
           ]);
         }
         const already = creditedTotal(await creditNotesOf(inv, t));
-        if (already + totals.totalMinor > inv.totalMinor) {
+        if (already + totals.grossMinor > inv.grossMinor) {
           throw new ValidationError([
-            { path: 'lines', message: `at most ${formatMoney(inv.totalMinor - already, inv.currency)} is left to credit on ${inv.number}` },
+            { path: 'lines', message: `at most ${formatMoney(inv.grossMinor - already, inv.currency)} is left to credit on ${inv.number}` },
           ]);
         }
         const seq = await takeNumber(deps, actor.organisationId, SERIES.credit_note, t);
@@ -414,7 +414,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
             billingAddress: inv.billingAddress,
             netMinor: totals.netMinor,
             taxMinor: totals.taxMinor,
-            totalMinor: totals.totalMinor,
+            grossMinor: totals.grossMinor,
             depositMinor: 0,
             reason: body.reason,
             payToken: null,
@@ -431,9 +431,9 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
             invoiceId: inv.id,
             creditNoteId: cn.id,
             creditNoteNumber: cn.number,
-            amountMinor: cn.totalMinor,
+            amountMinor: cn.grossMinor,
             currency: cn.currency,
-            paymentText: `Credit note ${cn.number} for ${formatMoney(cn.totalMinor, cn.currency)} against ${inv.number}`,
+            paymentText: `Credit note ${cn.number} for ${formatMoney(cn.grossMinor, cn.currency)} against ${inv.number}`,
           },
           t,
         );
@@ -471,7 +471,7 @@ export function createInvoicesService(deps: AppDeps, payments: PaymentsService) 
       },
       order: [['purpose', 'ASC']], // 'balance' before 'deposit'
     });
-    let left = cn.totalMinor;
+    let left = cn.grossMinor;
     for (const p of paid) {
       if (left <= 0 || !p.paymentIntentId) continue;
       const amount = Math.min(left, p.amountMinor);

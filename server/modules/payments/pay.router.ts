@@ -135,7 +135,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     const company = await companyName(inv.organisationId);
     const day = (iso: string) => escapeHtml(formatDate(iso));
     const rows = `<dl><dt>Invoice</dt><dd>${escapeHtml(d.number)}</dd><dt>Issued</dt><dd>${day(d.issueDate)}</dd>${d.dueDate ? `<dt>Due</dt><dd>${day(d.dueDate)}</dd>` : ''}
-      <dt>Total</dt><dd>${money(d.totalMinor, d.currency)}</dd>${d.depositMinor ? `<dt>Deposit paid</dt><dd>−${money(d.depositMinor, d.currency)}</dd>` : ''}${d.creditedMinor ? `<dt>Credited</dt><dd>−${money(d.creditedMinor, d.currency)}</dd>` : ''}</dl>`;
+      <dt>Total</dt><dd>${money(d.grossMinor, d.currency)}</dd>${d.depositMinor ? `<dt>Deposit paid</dt><dd>−${money(d.depositMinor, d.currency)}</dd>` : ''}${d.creditedMinor ? `<dt>Credited</dt><dd>−${money(d.creditedMinor, d.currency)}</dd>` : ''}</dl>`;
     const pdf = `<a class="btn btn-quiet" href="/pay/invoice/${encodeURIComponent(String(req.params.token))}/pdf">Download the PDF</a>`;
     if (d.balanceMinor <= 0) {
       return send(

@@ -1,5 +1,6 @@
 import type { Quote as QuoteDto, QuoteLineBody } from '../../../shared/api/quotes';
-import { computeQuoteTotals, paybackYears, type QuoteLineInput } from '../../../shared/quote/totals';
+import { computeQuoteTotals, type QuoteLineInput } from '../../../shared/quote/totals';
+import { paybackYears } from '../../../shared/takeoff/savings';
 import type { DatedTaxRate } from '../../../shared/quote/tax';
 import type { Quote } from '../../db/models/quote';
 import type { QuoteLine } from '../../db/models/quote-line';

@@ -99,7 +99,7 @@ export default function InvoicePage() {
                   <Link className="font-mono text-teal-dark hover:underline" to={`/invoices/${c.id}`}>
                     {c.number}
                   </Link>{' '}
-                  · {formatDate(c.issueDate)} · {formatMoney(c.totalMinor, c.currency)}
+                  · {formatDate(c.issueDate)} · {formatMoney(c.grossMinor, c.currency)}
                 </li>
               ))}
             </ul>
@@ -133,7 +133,7 @@ function Summary({ inv }: { inv: Invoice }) {
   const rows: Array<[string, string]> = [
     ['Issued', formatDate(inv.issueDate)],
     ...(inv.dueDate ? ([['Due', `${formatDate(inv.dueDate)}${inv.overdue ? ' — overdue' : ''}`]] as Array<[string, string]>) : []),
-    ['Total', m(inv.totalMinor)],
+    ['Total', m(inv.grossMinor)],
     ...(inv.depositMinor ? ([['Deposit paid', `−${m(inv.depositMinor)}`]] as Array<[string, string]>) : []),
     ...(inv.creditedMinor ? ([['Credited', `−${m(inv.creditedMinor)}`]] as Array<[string, string]>) : []),
     ...(inv.kind === 'invoice'
@@ -201,7 +201,7 @@ function Lines({ inv }: { inv: Invoice }) {
             {m(inv.netMinor)}
           </Td>
         </Tr>
-        {inv.taxBreakdown.map((t) => (
+        {inv.taxByRate.map((t) => (
           <Tr key={t.rateBp}>
             <Td colSpan={4} className="text-right text-graphite-light">
               VAT at {formatRateBp(t.rateBp)} on {m(t.netMinor)}
@@ -216,7 +216,7 @@ function Lines({ inv }: { inv: Invoice }) {
             Total
           </Td>
           <Td colSpan={2} className="text-right font-mono font-semibold">
-            {m(inv.totalMinor)}
+            {m(inv.grossMinor)}
           </Td>
         </Tr>
       </TBody>

@@ -76,7 +76,7 @@ export default function InvoicesPage() {
                 <Td>{formatDate(i.dueDate)}</Td>
                 <Td className="text-right font-mono">
                   {i.kind === 'credit_note' ? '−' : ''}
-                  {formatMoney(i.totalMinor, i.currency)}
+                  {formatMoney(i.grossMinor, i.currency)}
                 </Td>
                 <Td className="text-right font-mono">{i.kind === 'invoice' ? formatMoney(i.balanceMinor, i.currency) : ''}</Td>
                 <Td>

@@ -1,7 +1,8 @@
 import type { DepositTerms } from '../../../../shared/quote/deposit';
 import { applyRateBp, formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
-import { paybackYears, ROUNDING_NOTE, type QuoteTotals } from '../../../../shared/quote/totals';
+import { ROUNDING_NOTE, type QuoteTotals } from '../../../../shared/quote/totals';
+import { paybackYears } from '../../../../shared/takeoff/savings';
 import { Card, CardTitle } from '../../../components/ui';
 
 type Props = {
