@@ -146,6 +146,16 @@ export const companySettingsBodySchema = z.object({
   heatingEfficiency: z.number().gt(0).max(5),
   /** Waste allowance for the rule-of-thumb roll count, as a fraction (0.1 = 10%). */
   wasteAllowance: z.number().min(0).max(1),
+  /**
+   * Minimum usable offcut length for the roll plan, mm: no butt-jointed piece is shorter and only
+   * longer offcuts are kept for other strips. 500 by default (common practice: a shorter length
+   * of roll does not stay butted tight and is fiddly to place between joists).
+   */
+  minOffcutMm: z
+    .number({ error: 'enter the minimum usable offcut length' })
+    .min(100, { error: 'at least 100 mm' })
+    .max(3000, { error: 'at most 3000 mm' })
+    .default(500),
   /** Which roll count a quote prices by default. */
   rollCountMethod: z.enum(['packing', 'area']).default('packing'),
   labour: labourSettingsSchema,

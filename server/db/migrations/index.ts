@@ -4,6 +4,7 @@ import * as m0001 from './0001-foundation';
 import * as m0100 from './0100-quotes-settings';
 import * as m0200 from './0200-installer';
 import * as m0400 from './0400-payments';
+import * as m0500 from './0500-min-offcut-length';
 
 type Migration = RunnableMigration<QueryInterface>;
 const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'] }): Migration => ({ name, up: mod.up, down: mod.down });
@@ -18,4 +19,5 @@ export const MIGRATIONS: Migration[] = [
   entry('0100-quotes-settings', m0100),
   entry('0200-installer', m0200),
   entry('0400-payments', m0400),
+  entry('0500-min-offcut-length', m0500),
 ];

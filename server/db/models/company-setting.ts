@@ -19,6 +19,7 @@ export class CompanySetting extends Model<InferAttributes<CompanySetting>, Infer
   declare fuelPriceMinorPerKwh: number;
   declare heatingEfficiency: number;
   declare wasteAllowance: number;
+  declare minOffcutMm: number;
   declare rollCountMethod: 'packing' | 'area';
   declare labour: LabourSettings;
   declare extraRules: ExtraRules;
@@ -44,6 +45,7 @@ export class CompanySetting extends Model<InferAttributes<CompanySetting>, Infer
         fuelPriceMinorPerKwh: { type: DataTypes.DOUBLE, allowNull: false },
         heatingEfficiency: { type: DataTypes.DOUBLE, allowNull: false },
         wasteAllowance: { type: DataTypes.DOUBLE, allowNull: false },
+        minOffcutMm: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 500 },
         rollCountMethod: { type: DataTypes.STRING(10), allowNull: false },
         labour: { type: DataTypes.JSONB, allowNull: false },
         extraRules: { type: DataTypes.JSONB, allowNull: false },

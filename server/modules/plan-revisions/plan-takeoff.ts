@@ -11,12 +11,13 @@ import { insertRevision } from './revisions.repository';
 
 export { computePlanTakeoff, type TakeoffInputs };
 
-type SettingsForTakeoff = { wasteAllowance: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
+type SettingsForTakeoff = { wasteAllowance: number; minOffcutMm?: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
 
 /** The company's settings as the takeoff reads them (the company keeps waste as a fraction; the takeoff reads a percentage). */
 export function takeoffSettingsOf(settings: SettingsForTakeoff): Partial<TakeoffSettings> {
   return {
     wasteAllowancePct: settings.wasteAllowance * 100,
+    ...(settings.minOffcutMm !== undefined ? { minOffcutMm: settings.minOffcutMm } : {}),
     degreeDays: settings.degreeDays,
     fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
     heatingEfficiency: settings.heatingEfficiency,

@@ -23,6 +23,7 @@ export function defaultCompanySettings(
     fuelPriceMinorPerKwh: 6.5,
     heatingEfficiency: 0.85,
     wasteAllowance: 0.1,
+    minOffcutMm: 500,
     rollCountMethod: 'packing',
     labour: {
       baseM2PerHour: 12,

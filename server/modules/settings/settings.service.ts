@@ -27,6 +27,7 @@ export function toSettingsDto(s: CompanySetting): CompanySettings {
     fuelPriceMinorPerKwh: s.fuelPriceMinorPerKwh,
     heatingEfficiency: s.heatingEfficiency,
     wasteAllowance: s.wasteAllowance,
+    minOffcutMm: s.minOffcutMm ?? 500,
     rollCountMethod: s.rollCountMethod,
     labour: s.labour,
     extraRules: s.extraRules,

@@ -27,6 +27,7 @@ function toValues(s: CompanySettings): Values {
     fuelPriceMinorPerKwh: String(s.fuelPriceMinorPerKwh),
     heatingEfficiency: String(s.heatingEfficiency),
     wasteAllowancePct: String(Math.round(s.wasteAllowance * 1000) / 10),
+    minOffcutMm: String(s.minOffcutMm ?? 500),
     rollCountMethod: s.rollCountMethod,
     'labour.baseM2PerHour': String(s.labour.baseM2PerHour),
     'labour.crossM2PerHour': String(s.labour.crossM2PerHour),
@@ -61,6 +62,7 @@ function toBody(v: Values) {
     fuelPriceMinorPerKwh: n('fuelPriceMinorPerKwh'),
     heatingEfficiency: n('heatingEfficiency'),
     wasteAllowance: n('wasteAllowancePct') / 100,
+    minOffcutMm: n('minOffcutMm'),
     rollCountMethod: v.rollCountMethod,
     labour: {
       baseM2PerHour: n('labour.baseM2PerHour'),
@@ -84,6 +86,7 @@ function toBody(v: Values) {
 
 const KEY_ALIASES: Record<string, string> = {
   wasteAllowance: 'wasteAllowancePct',
+  minOffcutMm: 'minOffcutMm',
   'labour.hourlyRateMinor': 'labour.hourlyRate',
   'labour.hourlyCostMinor': 'labour.hourlyCost',
   'labour.minimumChargeMinor': 'labour.minimumCharge',
@@ -216,6 +219,7 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
             <CardTitle>Rolls and waste</CardTitle>
             <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
               {field('wasteAllowancePct', 'Waste allowance (%)', { hint: 'For the rule-of-thumb count; common practice is 5–10%.' })}
+              {field('minOffcutMm', 'Minimum usable offcut (mm)', { hint: 'Shorter ends are not butted in or kept; 500 mm is common practice.' })}
               {field('rollCountMethod', 'Price rolls by', {
                 options: [
                   ['packing', 'the roll plan (strips packed into rolls)'],
