@@ -4,6 +4,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { AppDeps } from './deps';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { sameOrigin } from './middleware/same-origin';
 import { createSessionStack } from './middleware/session';
 import { createAuthService } from './modules/auth/auth.service';
 import { authRouter } from './modules/auth/auth.router';
@@ -55,6 +56,7 @@ export function createApp(deps: AppDeps): Express {
 
   // Health answers without a session (load balancers probe it).
   app.use('/api/health', healthRouter(deps));
+  app.use('/api', sameOrigin(config.appUrl, ['/api/payments/webhook']));
   app.use('/api', ...sessionHandlers);
   app.use('/api/auth', authRouter(deps, auth, passport));
   app.use('/api/users', usersRouter(deps, auth));
