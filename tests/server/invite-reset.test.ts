@@ -187,3 +187,36 @@ describe('in production', () => {
     }
   });
 });
+
+describe('reset requests reveal nothing by time or body', () => {
+  it('answers a known address before any mail work is done, and the same even when the mail server fails', async () => {
+    const { estimator } = await createOrgWithUsers(ctx);
+    const mailer = ctx.deps.mailer;
+    const realSend = mailer.send;
+    let release!: () => void;
+    const gate = new Promise<void>((r) => (release = r));
+    // A mail server that does not answer until the test lets it: the reply must not wait for it.
+    mailer.send = async (m) => {
+      await gate;
+      return realSend.call(mailer, m);
+    };
+    try {
+      const unknown = await request(ctx.app).post('/api/auth/request-reset').send({ email: 'no-such-account@test.example.com' });
+      const known = await request(ctx.app).post('/api/auth/request-reset').timeout(10_000).send({ email: estimator.email });
+      expect(known.status).toBe(200);
+      expect(known.body).toEqual(unknown.body);
+      release();
+      await ctx.outbox.waitFor((m) => m.envelopeTo.includes(estimator.email));
+
+      mailer.send = async () => {
+        throw new Error('connect ECONNREFUSED 127.0.0.1:25');
+      };
+      const failing = await request(ctx.app).post('/api/auth/request-reset').send({ email: estimator.email });
+      expect(failing.status).toBe(200);
+      expect(failing.body).toEqual(unknown.body);
+    } finally {
+      release();
+      mailer.send = realSend;
+    }
+  });
+});
