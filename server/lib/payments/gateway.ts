@@ -59,6 +59,12 @@ export interface PaymentsGateway {
   verifyWebhook(rawBody: Buffer | string, signatureHeader: string | undefined): Stripe.Event;
 }
 
+/**
+ * How far a webhook's signed timestamp may be from our clock, either way: the SDK's default of five
+ * minutes (the service's documentation on verifying webhook signatures recommends it).
+ */
+export const WEBHOOK_TOLERANCE_SECONDS = 300;
+
 function sdkOptions(apiUrl?: string): ConstructorParameters<typeof Stripe>[1] {
   const base: ConstructorParameters<typeof Stripe>[1] = { telemetry: false, maxNetworkRetries: 2, timeout: 20_000, appInfo: { name: 'Quiltline' } };
   if (!apiUrl) return base;
@@ -118,7 +124,14 @@ export function createPaymentsGateway(config: PaymentsConfig): PaymentsGateway {
       return { id: r.id, amountMinor: r.amount, currency: r.currency, status: r.status };
     },
     verifyWebhook(rawBody, signatureHeader) {
-      return stripe.webhooks.constructEvent(rawBody, signatureHeader ?? '', config.webhookSecret);
+      const event = stripe.webhooks.constructEvent(rawBody, signatureHeader ?? '', config.webhookSecret, WEBHOOK_TOLERANCE_SECONDS);
+      // The SDK refuses only events older than the tolerance; one dated ahead of our clock by more
+      // than the same tolerance is refused too (the signed timestamp is authentic once verified).
+      const t = Number(/(?:^|,)\s*t=(\d+)/.exec(signatureHeader ?? '')?.[1]);
+      if (!Number.isFinite(t) || t - Math.floor(Date.now() / 1000) > WEBHOOK_TOLERANCE_SECONDS) {
+        throw new Error('Timestamp outside the tolerance zone (dated in the future)');
+      }
+      return event;
     },
   };
 }
