@@ -2,7 +2,7 @@
  * Quiltline takeoff from the command line.
  *   npm run -s takeoff -- PLAN.json [--products FILE] [--format text|json]
  * Reads a `quiltline-plan/1` file and a product catalogue (default examples/products.json),
- * prints a readable summary (text) or the `quiltline-takeoff/3` JSON. A bad file or argument
+ * prints a readable summary (text) or the `quiltline-takeoff/4` JSON. A bad file or argument
  * exits 2 with one line on stderr naming the problem; success exits 0.
  */
 import { readFileSync } from 'node:fs';

@@ -16,6 +16,35 @@ export const exclusionKindSchema = z.enum(EXCLUSION_KINDS);
 /** A kind of exclusion. */
 export type ExclusionKind = z.infer<typeof exclusionKindSchema>;
 
+/** What happens to a boarded area: raise the boards and insulate under them, or leave it boarded. */
+export const BOARDED_TREATMENTS = ['raise', 'leave'] as const;
+/** One of `BOARDED_TREATMENTS`. */
+export type BoardedTreatment = (typeof BOARDED_TREATMENTS)[number];
+
+/** How the eaves air path is kept open: insulation kept back by a gap, or eaves ventilators with the insulation over the wall plate. */
+export const EAVES_MODES = ['gap', 'ventilators'] as const;
+/** One of `EAVES_MODES`. */
+export type EavesMode = (typeof EAVES_MODES)[number];
+
+/** The roof over the loft, for the ventilation checks and the eaves ventilator count (all optional). */
+export const roofSchema = z.object({
+  shape: z.enum(['gable', 'hipped', 'mono-pitch']).optional(),
+  /** Roof pitch, degrees from horizontal. */
+  pitchDeg: z.number().min(0).max(90).optional(),
+  /** Rafter centres along the eaves, mm; the joist centres when absent (ceiling joists usually sit beside the rafters). */
+  rafterCentresMm: z.number().positive().max(2000).optional(),
+});
+
+/** What the surveyor noted in the loft that the drawing cannot show (all optional). */
+export const siteNotesSchema = z.object({
+  /** Extract-fan ducts running through the loft. */
+  extractFanDucts: z.number().int().min(0).max(50).optional(),
+  /** Some downlights are low-voltage, with transformers in the loft. */
+  lowVoltageDownlights: z.boolean().optional(),
+  /** Water pipes run through the loft (pipes with no tank still need lagging). */
+  waterPipes: z.boolean().optional(),
+});
+
 /** An area not to be covered: a polygon, or a point (`at`) for things like downlights. */
 export const exclusionSchema = z
   .object({
@@ -25,10 +54,16 @@ export const exclusionSchema = z
     at: pointSchema.optional(),
     /** Extra clearance around this exclusion, mm; when absent the kind's default applies. */
     clearanceMm: z.number().min(0).max(2000).optional(),
+    /**
+     * Boarded areas only: `raise` lifts the boards on legs above the new depth and insulates under
+     * them (the area joins the layers); `leave` (the default when absent) keeps it boarded and uninsulated.
+     */
+    boards: z.enum(BOARDED_TREATMENTS).optional(),
   })
   .refine((e) => (e.polygon ? !e.at : !!e.at), {
     message: 'an exclusion has either a polygon or a point (at), not both or neither',
-  });
+  })
+  .refine((e) => !e.boards || e.kind === 'boarded', { message: 'only a boarded area can say whether its boards are raised (boards)', path: ['boards'] });
 /** A parsed exclusion. */
 export type Exclusion = z.infer<typeof exclusionSchema>;
 
@@ -90,6 +125,10 @@ export const planSchema = z.object({
   outline: z.array(pointSchema).max(PLAN_LIMITS.outlineCorners),
   eavesEdges: z.array(z.number().int().min(0)).max(PLAN_LIMITS.outlineCorners).default([]),
   eavesGapMm: z.number().min(0).max(500).default(50),
+  /** How the eaves air path is kept open; the company's default when absent. */
+  eavesMode: z.enum(EAVES_MODES).optional(),
+  roof: roofSchema.optional(),
+  site: siteNotesSchema.optional(),
   joists: joistsSchema,
   exclusions: z.array(exclusionSchema).max(PLAN_LIMITS.exclusions).default([]),
   existing: existingSchema.default({ depthMm: 0, condition: 'none' }),

@@ -3,11 +3,10 @@ import type { SpaceForQuote } from './build-lines';
 
 /**
  * What the quote and the van load read from one space's stored takeoff artefact: the layers with
- * their chosen products and both roll counts, the exclusion counts, the boarded area and the
- * eaves length. Rafter spacing along the eaves is taken as the plan's joist centres (common
- * practice), 400 mm when the plan gives none.
+ * their chosen products and both roll counts, the exclusion counts, the boards to be raised and
+ * the eaves ventilators the takeoff counted.
  */
-export function spaceForQuote(spaceName: string, takeoff: Takeoff, joistCentresMm: number | undefined): SpaceForQuote {
+export function spaceForQuote(spaceName: string, takeoff: Takeoff): SpaceForQuote {
   return {
     spaceName,
     layers: takeoff.layers.map((l) => ({
@@ -19,9 +18,8 @@ export function spaceForQuote(spaceName: string, takeoff: Takeoff, joistCentresM
       rollsByArea: l.rollsByArea,
     })),
     exclusionCounts: { ...takeoff.exclusions.countsByKind },
-    boardedAreaM2: takeoff.exclusions.boardedAreaM2,
-    eavesLengthMm: takeoff.eaves.totalLengthMm,
-    rafterCentresMm: joistCentresMm ?? 400,
+    raisedBoardedAreaM2: takeoff.exclusions.raisedBoardedAreaM2,
+    eavesVentilators: takeoff.eaves.ventilatorCount,
     yearlySaving: { kwh: takeoff.savings.fuelKwhPerYear, minor: takeoff.savings.moneyMinorPerYear },
   };
 }

@@ -9,6 +9,8 @@ import { buildLayer } from './build-layer';
 import { applyRollPlans } from './layer-roll-plan';
 import { depthForTargetU, loftCombinedMethod, rdsapRoofUValue, rValueImperial, type InsulationLayer, type LoftThermalContext } from './thermal';
 import { yearlySavings } from './savings';
+import { wholeCeilingModel } from './whole-ceiling';
+import { eavesSummary } from './eaves';
 import { siteChecksFor } from './site-checks';
 import { resolveSettings, type TakeoffSettings } from './settings';
 import type { TakeoffProduct } from './products';
@@ -51,7 +53,10 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   );
 
   const regions = computePlanRegions(plan, settings);
-  const layerPlan = chooseLayers(plan, options.products, settings);
+  const ctx = thermalContext(plan, settings);
+  const ceiling = wholeCeilingModel(plan, regions, settings, ctx);
+  const wholeBasis = settings.targetBasis === 'whole-ceiling';
+  const layerPlan = chooseLayers(plan, options.products, settings, wholeBasis ? ceiling.judgeAfter : undefined);
   warnings.push(...layerPlan.warnings);
 
   const hatchIndex = plan.exclusions.findIndex((e) => e.kind === 'hatch');
@@ -64,7 +69,6 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const rollPlan = applyRollPlans(built, settings, (id) => prices.get(id) ?? 0);
   const layers = built.map((b) => b.layer);
 
-  const ctx = thermalContext(plan, settings);
   const beforeLayers = existingInsulation(plan, settings);
   const afterLayers = insulationBuildUp(plan, settings, layerPlan.layers);
   // RdSAP looks up the depth that counts: the existing layer by its credit, new layers in full.
@@ -74,16 +78,18 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
   const targetU = 'uValue' in plan.target ? plan.target.uValue : undefined;
   const firstCross = layerPlan.layers.find((l) => l.role === 'cross')?.product;
   const base = layerPlan.layers.filter((l) => l.role === 'base');
+  const whole = ceiling.evaluate(before.uValue, after.uValue);
+  // On the whole-ceiling basis the insulated area must reach the U that brings the mean to the target.
+  const insulatedTarget = targetU === undefined ? undefined : wholeBasis ? ceiling.insulatedUFor(targetU) : targetU;
   const depthForTarget =
-    targetU !== undefined ? depthForTargetU(insulationBuildUp(plan, settings, base), firstCross?.lambda ?? 0.044, targetU, ctx) : undefined;
-  const savings = yearlySavings(
-    before.uValue,
-    after.uValue,
-    m2(regions.layerAreaMm2),
-    settings.degreeDays,
-    settings.heatingEfficiency,
-    settings.fuelPriceMinorPerKwh,
-  );
+    insulatedTarget === undefined
+      ? undefined
+      : insulatedTarget === null
+        ? null
+        : depthForTargetU(insulationBuildUp(plan, settings, base), firstCross?.lambda ?? 0.044, insulatedTarget, ctx);
+  const judged = wholeBasis ? whole.uAfter : after.uValue;
+  // The saving over the whole ceiling: parts that do not change add nothing, a hatch kit's credit counts.
+  const savings = yearlySavings(whole.uBefore, whole.uAfter, ceiling.areaM2, settings.degreeDays, settings.heatingEfficiency, settings.fuelPriceMinorPerKwh);
 
   const outside = new Set(checks.warnings.filter((w) => w.code === 'exclusion.outside-outline').map((w) => w.exclusionIndex!));
   const countsByKind = countExclusionsByKind(plan, outside);
@@ -91,21 +97,27 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     index,
     kind: e.kind,
     ...(e.label ? { label: e.label } : {}),
+    ...(e.kind === 'boarded' ? { boards: e.boards ?? ('leave' as const) } : {}),
     clearanceMm: regions.exclusionClearancesMm[index],
     insideOutline: !outside.has(index),
     footprintAreaM2: r3(m2(multiPolygonArea(regions.exclusionShapes[index]))),
     polygons: regions.exclusionShapes[index].map((p) => p[0].map(pt)),
   }));
   const boardedAreaM2 = r3(items.filter((x) => x.kind === 'boarded' && x.insideOutline).reduce((t, x) => t + x.footprintAreaM2, 0));
+  const raisedBoardedAreaM2 = r3(items.filter((x) => x.boards === 'raise' && x.insideOutline).reduce((t, x) => t + x.footprintAreaM2, 0));
   const eavesLengthMm = regions.eavesBands.reduce((t, b) => t + b.edgeLengthMm, 0);
+  const eaves = eavesSummary(plan, settings, regions.eavesBands);
 
   const siteChecks = siteChecksFor(plan, {
     countsByKind,
     clearancesMm: regions.exclusionClearancesMm,
     eavesLengthMm,
     boardedAreaM2,
+    raisedBoardedAreaM2,
     hasLayers: layers.length > 0,
     aboveJoists: afterLayers.reduce((t, l) => t + l.thicknessMm, 0) > plan.joists.depthMm,
+    finishedDepthMm: afterLayers.reduce((t, l) => t + l.thicknessMm, 0),
+    eaves,
     ignored: outside,
   });
 
@@ -152,15 +164,23 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
     rollPlan,
     uValueBefore: before.uValue,
     uValueAfter: after.uValue,
+    uValueBeforeWholeCeiling: r4(whole.uBefore),
+    uValueAfterWholeCeiling: r4(whole.uAfter),
     rValueBeforeImperial: before.rTotalImperial,
     rValueAfterImperial: after.rTotalImperial,
     thermal: {
       before,
       after,
       method: 'BS EN ISO 6946 combined method; Rsi 0.10, Rse 0.04, roof space resistance added to Rse; joists bridge the insulation below their tops',
+      rdsapSource: 'RdSAP 2012 (SAP 2012 Appendix S) Table S9: default roof U-value for the insulation depth at the joists',
       ...(targetU !== undefined ? { targetUValue: targetU, depthForTargetUMm: depthForTarget } : {}),
+      targetJudgedOn: targetU === undefined ? 'depth' : wholeBasis ? 'whole-ceiling' : 'insulated-area',
       meetsTarget:
-        targetU !== undefined ? after.uValue <= targetU + 1e-9 : layerPlan.existingEffectiveMm + newMm >= (plan.target as { depthMm: number }).depthMm - 1e-9,
+        targetU !== undefined ? judged <= targetU + 1e-9 : layerPlan.existingEffectiveMm + newMm >= (plan.target as { depthMm: number }).depthMm - 1e-9,
+      wholeCeiling: {
+        areaM2: r3(ceiling.areaM2),
+        parts: whole.parts.map((p) => ({ part: p.part, areaM2: r3(p.areaM2), uBefore: r4(p.uBefore), uAfter: r4(p.uAfter), basis: p.basis })),
+      },
     },
     savings: {
       areaM2: r3(savings.areaM2),
@@ -171,10 +191,11 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
       degreeDays: settings.degreeDays,
       heatingEfficiency: settings.heatingEfficiency,
       fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
-      note: 'estimate by the degree-day method: ignores solar and internal gains and partial heating',
+      note: 'estimate by the degree-day method over the whole ceiling: the 15.5 °C base temperature of the degree days allows for typical internal and solar gains; partial heating and a home kept cooler or warmer than usual are not modelled',
     },
-    exclusions: { countsByKind, items, boardedAreaM2 },
+    exclusions: { countsByKind, items, boardedAreaM2, raisedBoardedAreaM2 },
     eaves: {
+      ...eaves,
       gapMm: plan.eavesGapMm,
       totalLengthMm: r1(eavesLengthMm),
       bands: regions.eavesBands.map((b) => ({

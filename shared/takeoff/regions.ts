@@ -21,7 +21,7 @@ export interface PlanRegions {
   /** The outline wound with positive signed area. */
   outline: Vec2[];
   grossAreaMm2: number;
-  /** Each exclusion's footprint grown by its clearance (not clipped), by exclusion index. */
+  /** Each exclusion's footprint grown by its clearance (not clipped), by exclusion index; raised boards keep theirs but are not cut out of the layers. */
   exclusionShapes: MultiPolygon[];
   /** Clearance applied to each exclusion, mm. */
   exclusionClearancesMm: number[];
@@ -29,11 +29,21 @@ export interface PlanRegions {
   excludedAreaMm2: number;
   /** Outline minus the exclusions, mm². */
   netAreaMm2: number;
-  /** One band per eaves edge: `eavesGapMm` wide on the inner side, clipped to the outline (exclusions not taken out). */
+  /** One band per eaves edge: `eavesGapMm` wide on the inner side, clipped to the outline (exclusions not taken out); empty with eaves ventilators. */
   eavesBands: { edgeIndex: number; polygon: Vec2[]; areaMm2: number; edgeLengthMm: number }[];
   /** Net minus the eaves bands: where new layers go. */
   layerRegion: MultiPolygon;
   layerAreaMm2: number;
+}
+
+/** How this plan keeps the eaves air path open: its own choice, else the company default. */
+export function eavesModeOf(plan: Plan, settings: TakeoffSettings): 'gap' | 'ventilators' {
+  return plan.eavesMode ?? settings.eavesMode;
+}
+
+/** Whether an exclusion is a boarded area whose boards are raised and insulated under (so the layers run through it). */
+export function isRaisedBoards(e: Plan['exclusions'][number]): boolean {
+  return e.kind === 'boarded' && e.boards === 'raise';
 }
 
 /** Clearance for one exclusion: its own value, else the company default for its kind, mm. */
@@ -64,11 +74,13 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   const outlinePoly: PolygonWithHoles[] = [[outline]];
   const exclusionClearancesMm = plan.exclusions.map((e) => exclusionClearanceMm(e, settings));
   const exclusionShapes = plan.exclusions.map((e) => exclusionShape(e, settings));
-  const allShapes = exclusionShapes.flat();
+  // Raised boards are insulated under: they keep their shape (for drawing and legs) but are not cut out.
+  const allShapes = exclusionShapes.filter((_, i) => !isRaisedBoards(plan.exclusions[i])).flat();
   // ringWithPositiveArea may have reversed the ring: map plan edge indices onto it.
   const reversed = polygonSignedArea(plan.outline) < 0;
   const eavesBands: (PlanRegions['eavesBands'][number] & { rect: Vec2[] })[] = [];
-  const gap = plan.eavesGapMm;
+  // With eaves ventilators the insulation runs over the wall plate: no band is kept back.
+  const gap = eavesModeOf(plan, settings) === 'ventilators' ? 0 : plan.eavesGapMm;
   const seen = new Set<number>();
   for (const edgeIndex of plan.eavesEdges) {
     if (edgeIndex >= plan.outline.length || seen.has(edgeIndex)) continue;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EXCLUSION_KINDS, CONDITIONS, exclusionKindSchema, targetSchema } from '../plan/plan-schema';
+import { BOARDED_TREATMENTS, EAVES_MODES, EXCLUSION_KINDS, CONDITIONS, exclusionKindSchema, targetSchema } from '../plan/plan-schema';
 import { LAYER_ROLES } from './products';
 import { TAKEOFF_FORMAT, type Takeoff } from './takeoff-types';
 import type { TakeoffSettings } from './settings';
@@ -43,7 +43,7 @@ export const takeoffSettingsSchema = z.object({
   maxCrossLayers: num,
   baseFillToleranceMm: num,
   targetBasis: z.enum(['whole-ceiling', 'insulated-area']),
-  eavesMode: z.enum(['gap', 'ventilators']),
+  eavesMode: z.enum(EAVES_MODES),
   hatchInsulationMm: num,
 });
 
@@ -163,7 +163,7 @@ export const takeoffProductChoiceSchema = z.object({
   crossProductIds: z.array(z.string()),
 });
 
-/** The whole `quiltline-takeoff/3` artefact (JSON: no Infinity or NaN). */
+/** The whole `quiltline-takeoff/4` artefact (JSON: no Infinity or NaN). */
 export const takeoffSchema = z.object({
   format: z.literal(TAKEOFF_FORMAT),
   planName: z.string(),
@@ -190,14 +190,22 @@ export const takeoffSchema = z.object({
   rollPlan: z.array(takeoffRollPlanSchema),
   uValueBefore: num,
   uValueAfter: num,
+  uValueBeforeWholeCeiling: num,
+  uValueAfterWholeCeiling: num,
   rValueBeforeImperial: num,
   rValueAfterImperial: num,
   thermal: z.object({
     before: thermalStateSchema,
     after: thermalStateSchema,
     method: z.string(),
+    rdsapSource: z.string(),
     targetUValue: num.optional(),
+    targetJudgedOn: z.enum(['depth', 'whole-ceiling', 'insulated-area']),
     meetsTarget: z.boolean(),
+    wholeCeiling: z.object({
+      areaM2: num,
+      parts: z.array(z.object({ part: z.string(), areaM2: num, uBefore: num, uAfter: num, basis: z.string() })),
+    }),
     depthForTargetUMm: num.nullable().optional(),
   }),
   savings: z.object({
@@ -218,6 +226,7 @@ export const takeoffSchema = z.object({
         index: z.number().int(),
         kind: exclusionKindSchema,
         label: z.string().optional(),
+        boards: z.enum(BOARDED_TREATMENTS).optional(),
         clearanceMm: num,
         insideOutline: z.boolean(),
         footprintAreaM2: num,
@@ -225,8 +234,14 @@ export const takeoffSchema = z.object({
       }),
     ),
     boardedAreaM2: num,
+    raisedBoardedAreaM2: num,
   }),
   eaves: z.object({
+    mode: z.enum(EAVES_MODES),
+    rafterCentresMm: num,
+    ventilatorCount: z.number().int(),
+    spanMm: num,
+    highLevel: z.object({ needed: z.boolean(), reasons: z.array(z.string()) }),
     gapMm: num,
     totalLengthMm: num,
     bands: z.array(z.object({ edgeIndex: z.number().int(), edgeLengthMm: num, areaM2: num, polygon })),

@@ -2,13 +2,14 @@ import type { ExclusionKind, Target } from '../plan/plan-schema';
 import type { LayerRole } from './products';
 import type { SiteCheck } from './site-checks';
 import type { TakeoffSettings } from './settings';
+import type { EavesSummary } from './eaves';
 
 /**
  * The takeoff's own format tag; bumped whenever the stored shape changes (its zod schema is
  * shared/takeoff/takeoff-schema.ts). `/2`: strips carry `polygons` (was one `polygon`) and the
  * artefact records its product choice.
  */
-export const TAKEOFF_FORMAT = 'quiltline-takeoff/3' as const;
+export const TAKEOFF_FORMAT = 'quiltline-takeoff/4' as const;
 
 /** `[x, y]` in plan millimetres. */
 export type PlanPointMm = [number, number];
@@ -188,14 +189,24 @@ export interface Takeoff {
   rollPlan: TakeoffRollPlan[];
   uValueBefore: number;
   uValueAfter: number;
+  /** Area-weighted U of the whole ceiling (insulated area, hatch, boards, downlights, eaves strip…) before the work, W/m²K. */
+  uValueBeforeWholeCeiling: number;
+  /** Same after the work, W/m²K. */
+  uValueAfterWholeCeiling: number;
   rValueBeforeImperial: number;
   rValueAfterImperial: number;
   thermal: {
     before: TakeoffThermalState;
     after: TakeoffThermalState;
     method: string;
+    /** Names the source of `rdsapU` (the RdSAP default, shown beside the ISO 6946 figure). */
+    rdsapSource: string;
     targetUValue?: number;
+    /** Which figure `meetsTarget` is judged on. */
+    targetJudgedOn: 'depth' | 'whole-ceiling' | 'insulated-area';
     meetsTarget: boolean;
+    /** The whole ceiling part by part (see wholeCeilingModel): areas m², U W/m²K. */
+    wholeCeiling: { areaM2: number; parts: { part: string; areaM2: number; uBefore: number; uAfter: number; basis: string }[] };
     /** Extra depth of the first cross product (or 0.040 W/mK wool) over the existing layer that reaches the target U, mm. */
     depthForTargetUMm?: number | null;
   };
@@ -218,14 +229,22 @@ export interface Takeoff {
       index: number;
       kind: ExclusionKind;
       label?: string;
+      /** Boarded areas: whether the boards are raised and insulated under, or left. */
+      boards?: 'raise' | 'leave';
       clearanceMm: number;
       insideOutline: boolean;
       footprintAreaM2: number;
       polygons: PlanPointMm[][];
     }[];
     boardedAreaM2: number;
+    /** Boarded area whose boards are raised on legs and insulated under, m². */
+    raisedBoardedAreaM2: number;
   };
-  eaves: { gapMm: number; totalLengthMm: number; bands: { edgeIndex: number; edgeLengthMm: number; areaM2: number; polygon: PlanPointMm[] }[] };
+  eaves: EavesSummary & {
+    gapMm: number;
+    totalLengthMm: number;
+    bands: { edgeIndex: number; edgeLengthMm: number; areaM2: number; polygon: PlanPointMm[] }[];
+  };
   siteChecks: SiteCheck[];
   warnings: { code: string; message: string; edgeIndex?: number; exclusionIndex?: number; pointIndex?: number }[];
   settings: TakeoffSettings;

@@ -19,6 +19,10 @@ import {
   setExclusionKind,
   setExclusionLabel,
   setExisting,
+  setBoards,
+  setEavesMode,
+  setRoof,
+  setSiteNotes,
   setJoists,
   setJoistsAlongEdge,
   setOutline,
@@ -79,6 +83,14 @@ const cases: [string, PlanCommand, (p: Plan) => Plan][] = [
   ['toggleEaves', cmd('x', toggleEaves, { edge: 1 }), (p) => p],
   ['setEavesGap', cmd('x', setEavesGap, { gapMm: 25 }), (p) => p],
   ['setExisting', cmd('x', setExisting, { depthMm: 50, condition: 'compressed' }), (p) => p],
+  [
+    'setBoards',
+    cmd('x', setBoards, { index: 0, boards: 'raise' }),
+    (p) => ({ ...p, exclusions: [{ ...p.exclusions[0], kind: 'boarded' }, ...p.exclusions.slice(1)] }),
+  ],
+  ['setEavesMode', cmd('x', setEavesMode, { mode: 'ventilators' }), (p) => p],
+  ['setRoof', cmd('x', setRoof, { shape: 'hipped', pitchDeg: 40 }), (p) => p],
+  ['setSiteNotes', cmd('x', setSiteNotes, { extractFanDucts: 2 }), (p) => p],
   ['setTarget', cmd('x', setTarget, { target: { uValue: 0.16 } }), (p) => p],
   ['setProducts', cmd('x', setProducts, { products: { baseProductId: 'roll-100', crossProductIds: ['roll-170'] } }), (p) => p],
   ['setBackground', cmd('x', setBackground, { background: { opacity: 0.8, locked: true } }), withBg],
@@ -189,5 +201,27 @@ describe('plan commands', () => {
     expect(store.getState().undoStack).toHaveLength(0);
     expect(store.dispatch(cmd('x', addExclusion, { exclusion: { kind: 'tank' } as never }))).toBe(false);
     expect(store.getState().session.error).toMatch(/polygon or a point/);
+  });
+});
+
+describe('boards, eaves and roof commands', () => {
+  it('refuses to raise the boards of anything but a boarded area, and drops the choice when the kind changes', () => {
+    const plan = rectPlan();
+    expect(() => setBoards(plan, { index: 0, boards: 'raise' })).toThrow(/is a tank, not a boarded area/);
+    const boarded = setBoards(
+      { ...plan, exclusions: [{ ...plan.exclusions[0], kind: 'boarded' }, ...plan.exclusions.slice(1)] },
+      { index: 0, boards: 'raise' },
+    );
+    expect(boarded.exclusions[0].boards).toBe('raise');
+    const tank = setExclusionKind(boarded, { index: 0, kind: 'tank' });
+    expect(tank.exclusions[0].boards).toBeUndefined();
+    expect(planSchema.safeParse(tank).success).toBe(true);
+  });
+
+  it('clears the eaves mode back to the company default, and the roof notes when emptied', () => {
+    const vent = setEavesMode(rectPlan(), { mode: 'ventilators' });
+    expect(setEavesMode(vent, { mode: undefined })).not.toHaveProperty('eavesMode');
+    expect(setRoof(setRoof(rectPlan(), { pitchDeg: 40 }), { pitchDeg: undefined })).not.toHaveProperty('roof');
+    expect(() => setRoof(rectPlan(), { pitchDeg: 120 })).toThrow(/roof pitchDeg/);
   });
 });

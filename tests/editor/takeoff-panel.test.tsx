@@ -31,3 +31,25 @@ describe('takeoff panel saving row', () => {
     expect(screen.getByTestId('saving').textContent).toMatch(/^\d+ kWh$/);
   });
 });
+
+describe('takeoff panel heat-loss figures', () => {
+  it('shows the existing condition, the whole-ceiling U beside the insulated-area U, and the RdSAP default, each named', () => {
+    const run = runWith(7);
+    render(<TakeoffPanel run={run} units="metric" />);
+    const t = run.takeoff;
+    expect(screen.getByTestId('existing-condition-row').textContent).toBe('100 mm good');
+    expect(screen.getByTestId('u-whole').textContent).toBe(`${t.uValueBeforeWholeCeiling.toFixed(2)} → ${t.uValueAfterWholeCeiling.toFixed(2)}`);
+    expect(screen.getByTestId('u-insulated').textContent).toBe(`${t.uValueBefore.toFixed(2)} → ${t.uValueAfter.toFixed(2)}`);
+    // RdSAP 2012 Table S9: 100 mm → 0.40, 270 mm → 0.16.
+    expect(screen.getByTestId('u-rdsap').textContent).toBe('0.40 → 0.16');
+    expect(screen.getByText('U whole ceiling')).toBeTruthy();
+    expect(screen.getByText('RdSAP default (Table S9)')).toBeTruthy();
+  });
+
+  it('names what a U-value target is judged on, and a poor condition with what still counts', () => {
+    const p = planSchema.parse({ ...plan, existing: { depthMm: 200, condition: 'patchy' }, target: { uValue: 0.18 } });
+    render(<TakeoffPanel run={{ takeoff: computeTakeoff(p, { products }), errors: [], warnings: [], elapsedMs: 1 }} units="metric" />);
+    expect(screen.getByTestId('existing-condition-row').textContent).toBe('200 mm patchy, counts as 100 mm');
+    expect(screen.getByTestId('target-row').textContent).toMatch(/^U 0\.18 (met|not met), judged on the whole ceiling$/);
+  });
+});

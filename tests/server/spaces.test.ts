@@ -55,7 +55,7 @@ describe('spaces', () => {
     expect((rev?.plan as { eavesGapMm: number }).eavesGapMm).toBe(50); // schema default filled in
     // Stored with its takeoff like every revision: 4 × 3 m, no exclusions.
     const takeoff = readStoredTakeoff(rev?.takeoff);
-    expect(takeoff?.format).toBe('quiltline-takeoff/3');
+    expect(takeoff?.format).toBe('quiltline-takeoff/4');
     expect(takeoff?.grossAreaM2).toBe(12);
     const jobRes = await estimator.get(`/api/jobs/${job.id}`);
     expect(jobRes.body.job.spaces.map((s: { name: string; latestRevision: number | null }) => [s.name, s.latestRevision])).toEqual([

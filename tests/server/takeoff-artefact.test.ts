@@ -7,6 +7,7 @@ import { planSchema, type Plan } from '../../shared/plan/plan-schema';
 import { buildQuoteLines } from '../../shared/quote/build-lines';
 import { spaceForQuote } from '../../shared/quote/from-takeoff';
 import { readStoredTakeoff } from '../../shared/takeoff/takeoff-schema';
+import { TAKEOFF_FORMAT } from '../../shared/takeoff/takeoff-types';
 import { Organisation, PlanRevision, Space, User } from '../../server/db/models';
 import { DEMO_COMPANY, DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
 import { loadCatalogue } from '../../server/modules/catalogue/catalogue.service';
@@ -81,8 +82,7 @@ describe('every writer stores the takeoff', () => {
     const [r1, r2] = await Promise.all([backfillStoredTakeoffs(), backfillStoredTakeoffs()]);
     expect(r1.updated + r2.updated).toBe(before - (await stale()));
     expect(r1.updated + r2.updated).toBeGreaterThanOrEqual(2);
-    for (const id of [a.id, b.id])
-      expect(readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: id } }))!.takeoff)?.format).toBe('quiltline-takeoff/3');
+    for (const id of [a.id, b.id]) expect(readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: id } }))!.takeoff)?.format).toBe(TAKEOFF_FORMAT);
     expect((await PlanRevision.findOne({ where: { spaceId: c.id } }))!.takeoff).toEqual(current);
     // Nothing left to do on a second run (a plan that cannot be worked out stays as it is, counted as failed).
     expect((await backfillStoredTakeoffs()).updated).toBe(0);
@@ -103,7 +103,7 @@ describe('readers of the stored artefact', () => {
 
     const catalogue = await loadCatalogue(org.id);
     const stored = readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: space.id } }))!.takeoff)!;
-    const built = buildQuoteLines([spaceForQuote(space.name, stored, plan.joists.centresMm)], catalogue, toSettingsDto(await loadCompanySettings(org.id)));
+    const built = buildQuoteLines([spaceForQuote(space.name, stored)], catalogue, toSettingsDto(await loadCompanySettings(org.id)));
     const quoteExtras = built.lines.filter((l) => l.kind === 'extra').map((l) => [l.description, l.quantity]);
     expect(quoteExtras.length).toBeGreaterThan(2);
     expect(sheet.vanLoad.extras.map((e: { label: string; quantity: number }) => [e.label, e.quantity])).toEqual(quoteExtras);

@@ -67,17 +67,16 @@ const MAIN: SpaceForQuote = {
     { role: 'cross', productId: 'p170', areaM2: 42, rollsByPacking: 6, rollsByArea: 6 },
   ],
   exclusionCounts: { hatch: 1, tank: 1, downlight: 3 },
-  boardedAreaM2: 2.4,
-  eavesLengthMm: 16800,
-  rafterCentresMm: 400,
+  // 2.4 m² of boards raised to insulate under; eaves ventilators: 2 × 8400 mm of eaves at 400 mm rafter centres → 21 + 21 = 42.
+  raisedBoardedAreaM2: 2.4,
+  eavesVentilators: 42,
 };
 const GARAGE: SpaceForQuote = {
   spaceName: 'Garage loft',
   layers: [{ role: 'base', productId: 'p100', areaM2: 10, rollsByPacking: 3, rollsByArea: 2 }],
   exclusionCounts: {},
-  boardedAreaM2: 0,
-  eavesLengthMm: 0,
-  rafterCentresMm: 400,
+  raisedBoardedAreaM2: 0,
+  eavesVentilators: 0,
 };
 
 describe('building quote lines from takeoffs', () => {
@@ -116,6 +115,18 @@ describe('building quote lines from takeoffs', () => {
     expect(t.netMinor).toBe(97190);
     expect(t.taxMinor).toBe(3268);
     expect(t.grossMinor).toBe(100458);
+  });
+
+  it('adds board-raising legs only where boards are raised, and eaves trays only where ventilators are fitted', () => {
+    // Boards left as they are and the eaves kept back by a gap: the takeoff gives 0 m² raised and 0 ventilators.
+    const kept = buildQuoteLines([{ ...MAIN, raisedBoardedAreaM2: 0, eavesVentilators: 0 }], CATALOGUE, SETTINGS);
+    const kinds = kept.lines.filter((l) => l.kind === 'extra').map((l) => l.extraKind);
+    expect(kinds).not.toContain('board_leg');
+    expect(kinds).not.toContain('eaves_tray');
+    // 1.3 m² raised: ceil(1.3 × 4 = 5.2) = 6 legs; 7 ventilators as counted.
+    const raised = buildQuoteLines([{ ...MAIN, raisedBoardedAreaM2: 1.3, eavesVentilators: 7 }], CATALOGUE, SETTINGS);
+    const q = (k: string) => raised.lines.find((l) => l.extraKind === k)?.quantity;
+    expect([q('board_leg'), q('eaves_tray')]).toEqual([6, 7]);
   });
 
   it('prices by the rule of thumb when the company chooses it, keeping the packing count beside', () => {

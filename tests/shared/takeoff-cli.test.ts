@@ -20,11 +20,11 @@ describe('takeoff CLI', () => {
     for (const word of ['Areas', 'Layer', 'strips', 'rolls', 'U-value', 'Saving', 'Site checks', '[downlight.covers]']) expect(r.stdout).toContain(word);
   });
 
-  it('prints the quiltline-takeoff/3 JSON contract', () => {
+  it('prints the quiltline-takeoff/4 JSON contract', () => {
     const r = run('examples/l-shape.json', '--format', 'json');
     expect(r.code).toBe(0);
     const t = JSON.parse(r.stdout);
-    expect(t.format).toBe('quiltline-takeoff/3');
+    expect(t.format).toBe('quiltline-takeoff/4');
     expect(t.layers[0]).toEqual(expect.objectContaining({ role: 'base', rollsByPacking: expect.any(Number), rollsByArea: expect.any(Number) }));
   });
 

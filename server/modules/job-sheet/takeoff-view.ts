@@ -24,6 +24,15 @@ const CHECK_TITLES: Record<string, string> = {
   'access.work-at-height': 'Safe access: ladder, light, joists or boards only',
   'ppe.dust': 'PPE worn: gloves, goggles, mask',
   'eaves.ventilation-gap': 'Ventilation gap kept at the eaves',
+  'asbestos.stop-and-test': 'No suspected asbestos or vermiculite (or work stopped for testing)',
+  'wildlife.bats-birds': 'No bats or nesting birds found (or work stopped)',
+  'ceiling.seal-holes': 'Holes through the ceiling sealed',
+  'eaves.ventilators': 'Eaves ventilators fitted, insulation over the wall plate',
+  'ventilation.high-level': 'High-level ventilation checked',
+  'pipes.lagging': 'Loft pipes lagged',
+  'downlight.transformers': 'Downlight transformers above the insulation',
+  'extract.ducts': 'Extract-fan ducts run outside and insulated',
+  'access.crawl-boards': 'Crawl boards used once the joists are hidden',
   'cables.over-insulation': 'Cables lifted above the insulation',
   'tank.no-insulation-beneath': 'Tank: nothing beneath it, top and sides lagged',
   'downlight.covers': 'Downlight covers fitted',
@@ -196,7 +205,7 @@ export function vanLoad(rows: RevisionRow[], rules: ExtraRules, catalogueExtras:
       r.count += Number(l.rollsByPacking);
       rolls.set(l.productId, r);
     }
-    spaces.push(spaceForQuote('', t, (row.plan as PlanLike | null)?.joists?.centresMm));
+    spaces.push(spaceForQuote('', t));
   }
   // The job's spaces share their rolls per product, as the quote counts them.
   for (const [productId, n] of jobRollsByProduct(takeoffs)) {

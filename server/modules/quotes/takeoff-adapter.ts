@@ -21,10 +21,10 @@ export type SpaceTakeoff =
  * What the quote needs from one space: the takeoff artefact stored with its latest plan revision
  * (never recomputed here, so the quote prices what the estimator saw when saving).
  */
-export function takeoffForSpace(name: string, planRaw: unknown, stored: unknown): SpaceTakeoff {
+export function takeoffForSpace(name: string, _planRaw: unknown, stored: unknown): SpaceTakeoff {
   const takeoff = readStoredTakeoff(stored);
   if (!takeoff) return { ok: false, message: 'its plan has no takeoff stored yet: open the plan and save it' };
-  const space = spaceForQuote(name, takeoff, (planRaw as { joists?: { centresMm?: number } } | null)?.joists?.centresMm);
+  const space = spaceForQuote(name, takeoff);
   return {
     ok: true,
     takeoff,

@@ -25,3 +25,7 @@ export { setPlanName } from './set-plan-name';
 export { replacePlan } from './replace-plan';
 export { setOutline } from './set-outline';
 export { calibrateBackground } from './calibrate-background';
+export { setBoards } from './set-boards';
+export { setEavesMode } from './set-eaves-mode';
+export { setRoof } from './set-roof';
+export { setSiteNotes } from './set-site-notes';

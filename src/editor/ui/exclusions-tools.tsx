@@ -1,6 +1,6 @@
 import { EXCLUSION_KINDS, type ExclusionKind } from '../../../shared/plan/plan-schema';
 import { KIND_STYLES } from '../canvas/palette';
-import { cmd, deleteExclusion, setExclusionKind, setExclusionLabel } from '../commands';
+import { cmd, deleteExclusion, setBoards, setExclusionKind, setExclusionLabel } from '../commands';
 import { cn } from '../../lib/cn';
 import { useEditor, useEditorSelect } from './editor-context';
 import { KindSwatch } from './exclusion-legend';
@@ -92,6 +92,20 @@ export function ExclusionsTools() {
               ))}
             </select>
           </label>
+          {ex.kind === 'boarded' && (
+            <label className="flex flex-col text-xs text-graphite-light">
+              Boards
+              <select
+                value={ex.boards ?? 'leave'}
+                data-testid="exclusion-boards"
+                className="h-8 rounded border border-graphite/25 bg-white px-1 text-sm text-graphite"
+                onChange={(e) => editor.store.dispatch(cmd('boards', setBoards, { index: i, boards: e.target.value as 'raise' | 'leave' }))}
+              >
+                <option value="leave">leave boarded</option>
+                <option value="raise">raise and insulate under</option>
+              </select>
+            </label>
+          )}
           <button
             type="button"
             className="h-8 rounded bg-brick px-2 text-sm text-white"

@@ -1,6 +1,6 @@
 import { CONDITIONS, type Existing } from '../../../shared/plan/plan-schema';
 import type { TakeoffProduct } from '../../../shared/takeoff/compute-takeoff';
-import { cmd, setExisting, setProducts, setTarget } from '../commands';
+import { cmd, setExisting, setProducts, setSiteNotes, setTarget } from '../commands';
 import { useEditor, useEditorSelect } from './editor-context';
 import { NumberField } from './number-field';
 
@@ -12,6 +12,7 @@ export function LayersTools({ products }: { products: TakeoffProduct[] }) {
   const existing = useEditorSelect((s) => s.plan.existing);
   const target = useEditorSelect((s) => s.plan.target);
   const choice = useEditorSelect((s) => s.plan.products);
+  const site = useEditorSelect((s) => s.plan.site);
   const d = editor.store.dispatch;
   const byDepth = 'depthMm' in target;
   const fits = (role: 'base' | 'cross') => products.filter((p) => !p.roles || p.roles.includes(role));
@@ -45,6 +46,28 @@ export function LayersTools({ products }: { products: TakeoffProduct[] }) {
               {c}
             </option>
           ))}
+        </select>
+      </label>
+      <NumberField
+        label="Extract-fan ducts"
+        value={site?.extractFanDucts ?? 0}
+        testId="extract-ducts"
+        className="w-28"
+        onCommit={(v) => d(cmd('extract-fan ducts', setSiteNotes, { extractFanDucts: v > 0 ? Math.round(v) : undefined }))}
+      />
+      <label className="flex flex-col text-xs text-graphite-light">
+        Low-voltage downlights
+        <select
+          className={selectClass}
+          value={site?.lowVoltageDownlights === undefined ? '' : String(site.lowVoltageDownlights)}
+          data-testid="low-voltage"
+          onChange={(e) =>
+            d(cmd('low-voltage downlights', setSiteNotes, { lowVoltageDownlights: e.target.value === '' ? undefined : e.target.value === 'true' }))
+          }
+        >
+          <option value="">not known</option>
+          <option value="true">yes</option>
+          <option value="false">none</option>
         </select>
       </label>
       <label className="flex flex-col text-xs text-graphite-light">

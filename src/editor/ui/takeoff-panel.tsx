@@ -13,6 +13,22 @@ function savingText(t: Takeoff): string {
   return t.savings.fuelPriceMinorPerKwh > 0 ? `${kwh} · ${money(t.savings.moneyMinorPerYear)}` : kwh;
 }
 
+const u = (x: number) => x.toFixed(2);
+
+/** "100 mm good" and, when the condition takes credit away, what still counts. */
+function existingText(t: Takeoff): string {
+  const e = t.existing;
+  if (e.condition === 'none' || e.depthMm === 0) return e.depthMm > 0 ? `${e.depthMm} mm, condition not set: counts as none` : 'none';
+  return e.effectiveDepthMm === e.depthMm ? `${e.depthMm} mm ${e.condition}` : `${e.depthMm} mm ${e.condition}, counts as ${e.effectiveDepthMm} mm`;
+}
+
+/** The target and the figure it is judged on, named. */
+function targetText(t: Takeoff): string {
+  const met = t.thermal.meetsTarget ? 'met' : 'not met';
+  if (t.thermal.targetJudgedOn === 'depth') return `${met} (depth)`;
+  return `U ${t.thermal.targetUValue} ${met}, judged on the ${t.thermal.targetJudgedOn === 'whole-ceiling' ? 'whole ceiling' : 'insulated area'}`;
+}
+
 function Row({ label, value, testId, strong }: { label: string; value: string; testId?: string; strong?: boolean }) {
   return (
     <div className="flex justify-between gap-2 py-0.5">
@@ -123,13 +139,18 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
       <section>
         <h4 className="text-sm font-semibold">Heat loss</h4>
         <dl className="text-xs">
-          <Row label="U before" value={`${t.uValueBefore.toFixed(2)} W/m²K`} testId="u-before" />
-          <Row label="U after" value={`${t.uValueAfter.toFixed(2)} W/m²K`} testId="u-after" strong />
+          <Row label="Existing" value={existingText(t)} testId="existing-condition-row" />
+          <Row label="U insulated area (ISO 6946)" value={`${u(t.uValueBefore)} → ${u(t.uValueAfter)}`} testId="u-insulated" />
+          <Row label="U whole ceiling" value={`${u(t.uValueBeforeWholeCeiling)} → ${u(t.uValueAfterWholeCeiling)}`} testId="u-whole" strong />
+          <Row label="RdSAP default (Table S9)" value={`${u(t.thermal.before.rdsapU)} → ${u(t.thermal.after.rdsapU)}`} testId="u-rdsap" />
           {units === 'imperial' && <Row label="R before → after" value={`R-${t.rValueBeforeImperial.toFixed(0)} → R-${t.rValueAfterImperial.toFixed(0)}`} />}
-          <Row label="Target" value={t.thermal.meetsTarget ? 'met' : 'not met'} />
+          <Row label="Target" value={targetText(t)} testId="target-row" />
+          {t.eaves.mode === 'ventilators' && <Row label="Eaves ventilators" value={String(t.eaves.ventilatorCount)} testId="eaves-ventilators" />}
           <Row label="Saving a year (estimate)" value={savingText(t)} testId="saving" />
         </dl>
-        <p className="text-[11px] text-graphite-faint">{t.savings.note}</p>
+        <p className="text-[11px] text-graphite-faint">
+          U in W/m²K. Whole ceiling: area-weighted over the insulated area, hatch, boards, downlights and eaves strip. {t.savings.note}
+        </p>
       </section>
       {t.siteChecks.length > 0 && (
         <section>
