@@ -53,3 +53,18 @@ describe('takeoff panel heat-loss figures', () => {
     expect(screen.getByTestId('target-row').textContent).toMatch(/^U 0\.18 (met|not met), judged on the whole ceiling$/);
   });
 });
+
+describe('takeoff panel strips and cut list', () => {
+  it('shows strip sizes as count × length × width and a cut list per roll with what is left', () => {
+    const run = runWith(7);
+    render(<TakeoffPanel run={run} units="metric" />);
+    const layer = run.takeoff.layers[0];
+    const sizes = screen.getByTestId(`strip-sizes-${layer.role}-${layer.roleIndex}`).textContent!;
+    for (const s of layer.strips) expect(sizes).toContain(`${s.lengthMm} × ${s.widthMm}`);
+    const rp = run.takeoff.rollPlan[0];
+    const list = screen.getByTestId(`cut-list-${rp.productId}`).textContent!;
+    expect(list).toContain(`${rp.rolls} rolls`);
+    for (const l of rp.lanes) expect(list).toContain(`Roll ${l.roll}`);
+    expect(list).toContain(rp.lanes[0].cuts[0].label);
+  });
+});

@@ -4,6 +4,7 @@ import type { PlanMessage } from '../../../shared/plan/plan-messages';
 import { formatArea, formatLength } from '../geometry/units';
 import type { Units } from '../store/session';
 import type { TakeoffRun } from '../takeoff/run-takeoff';
+import { RollCutList } from './roll-cut-list';
 
 const money = (minor: number) => new Intl.NumberFormat('en-GB', { style: 'currency', currency: 'GBP', maximumFractionDigits: 0 }).format(minor / 100);
 
@@ -40,11 +41,16 @@ function Row({ label, value, testId, strong }: { label: string; value: string; t
   );
 }
 
-/** Strips of a layer grouped by cut length: "6 × 4200". */
-export function groupStripsByLength(layer: TakeoffLayer): { lengthMm: number; count: number }[] {
-  const m = new Map<number, number>();
-  for (const s of layer.strips) m.set(s.lengthMm, (m.get(s.lengthMm) ?? 0) + 1);
-  return [...m.entries()].sort((a, b) => b[0] - a[0]).map(([lengthMm, count]) => ({ lengthMm, count }));
+/** Strips of a layer grouped by cut length and width: "6 × 4200 × 380". */
+function groupStripsByLength(layer: TakeoffLayer): { lengthMm: number; widthMm: number; count: number }[] {
+  const m = new Map<string, { lengthMm: number; widthMm: number; count: number }>();
+  for (const s of layer.strips) {
+    const k = `${s.lengthMm}|${s.widthMm}`;
+    const g = m.get(k) ?? { lengthMm: s.lengthMm, widthMm: s.widthMm, count: 0 };
+    g.count++;
+    m.set(k, g);
+  }
+  return [...m.values()].sort((a, b) => b.lengthMm - a.lengthMm || b.widthMm - a.widthMm);
 }
 
 function LayerBlock({ layer, units }: { layer: TakeoffLayer; units: Units }) {
@@ -64,14 +70,19 @@ function LayerBlock({ layer, units }: { layer: TakeoffLayer; units: Units }) {
         <Row label="Waste" value={`${layer.wastePct.toFixed(1)} %`} />
       </dl>
       <details className="text-xs">
-        <summary className="cursor-pointer text-graphite-light">Strips by length</summary>
-        <ul className="font-mono">
+        <summary className="cursor-pointer text-graphite-light">Strips by length × width</summary>
+        <ul className="font-mono" data-testid={`strip-sizes-${layer.role}-${layer.roleIndex}`}>
           {groupStripsByLength(layer).map((g) => (
-            <li key={g.lengthMm}>
-              {g.count} × {formatLength(g.lengthMm, units)}
+            <li key={`${g.lengthMm}|${g.widthMm}`}>
+              {g.count} × {formatLength(g.lengthMm, units)} × {formatLength(g.widthMm, units)}
               {units === 'metric' ? ' mm' : ''}
             </li>
           ))}
+          {(layer.fills ?? []).length > 0 && (
+            <li className="font-sans text-graphite-light">
+              + {layer.fills.length} sliver{layer.fills.length > 1 ? 's' : ''} to fill from offcuts
+            </li>
+          )}
         </ul>
       </details>
     </section>
@@ -134,6 +145,7 @@ function Summary({ t, units }: { t: Takeoff; units: Units }) {
               ))}
             </tbody>
           </table>
+          <RollCutList t={t} units={units} />
         </section>
       )}
       <section>
