@@ -160,6 +160,8 @@ describe("a day's work through the screens", () => {
     const invoice = (await Invoice.findOne({ where: { jobId, kind: 'invoice' } }))!;
     expect(invoice.number).toMatch(/^INV-\d{6}$/);
     expect(await office.getByText(invoice.number).first().isVisible()).toBe(true);
+    // Quantities with their units, as on the quote (rolls, hours).
+    expect(await office.getByRole('cell', { name: /^\d+(\.\d+)? roll$/ }).count()).toBeGreaterThan(0);
     await app.ctx.outbox.waitFor((m) => m.envelopeTo.includes(CUSTOMER.email) && m.subject.startsWith(`Invoice ${invoice.number}`));
 
     // The same job page at tablet and phone widths, for the record.
