@@ -186,7 +186,9 @@ function Lines({ inv }: { inv: Invoice }) {
               {l.description}
               {l.source === 'variation' && <span className="ml-2 rounded bg-straw-light px-1.5 py-0.5 text-xs">variation</span>}
             </Td>
-            <Td className="text-right font-mono">{l.quantity.toLocaleString('en-GB', { maximumFractionDigits: 3 })} {l.unit}</Td>
+            <Td className="text-right font-mono">
+              {l.quantity.toLocaleString('en-GB', { maximumFractionDigits: 3 })} {l.unit}
+            </Td>
             <Td className="text-right font-mono">{m(l.unitPriceMinor)}</Td>
             <Td className="text-right font-mono">{formatRateBp(l.rateBp)}</Td>
             <Td className="text-right font-mono">{m(l.netMinor)}</Td>
