@@ -12,6 +12,7 @@ import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { customersRouter } from './modules/customers/customers.router';
 import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { handoverRouter } from './modules/handover/handover.router';
+import { mailRouter } from './modules/mail/mail.router';
 import { healthRouter } from './modules/health/health.router';
 import { invoicesRouter } from './modules/invoices/invoices.router';
 import { createInvoicesService } from './modules/invoices/invoices.service';
@@ -67,6 +68,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/spaces', spaces.spaces);
   app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay
   app.use('/api/photos', photos.photos);
+  app.use('/api/mail', mailRouter(deps)); // e-mail status, resend a failed one
   app.use('/api/schedule', scheduleRouter(deps)); // week view, booking, install settings
   app.use('/api/settings', settingsRouter(deps)); // company settings, logo
   app.use('/api/catalogue', catalogueRouter(deps)); // products, extras, tax rates

@@ -4,6 +4,7 @@ import type { Config } from './config';
 import { createSequelize } from './db/sequelize';
 import { FakeSmtp, type Outbox } from './lib/fake-smtp';
 import { createSmtpMailer, type Mailer } from './lib/mailer';
+import { createMailQueue, type MailQueue } from './modules/mail/mail-queue';
 import { DiskStorage, type Storage } from './lib/storage';
 import { createPlanPool, type PlanPool } from './lib/takeoff-pool';
 
@@ -13,7 +14,10 @@ export interface AppDeps {
   sequelize: Sequelize;
   /** A pg pool for the session store. */
   pool: pg.Pool;
+  /** Records and queues a message, resolving before it is sent (see mailQueue). */
   mailer: Mailer;
+  /** The durable queue behind `mailer` and this instance's worker that sends through SMTP. */
+  mailQueue: MailQueue;
   storage: Storage;
   /** The local fake SMTP's messages, when it runs (development and tests); null with a real relay. */
   outbox: Outbox | null;
@@ -23,8 +27,8 @@ export interface AppDeps {
 }
 
 /**
- * Builds the deps from config: Sequelize + pool on DATABASE_URL, a mailer to SMTP_URL or to an
- * in-process fake SMTP server on 127.0.0.1, disk storage in UPLOAD_DIR and the takeoff worker pool.
+ * Builds the deps from config: Sequelize + pool on DATABASE_URL, the mail queue and its worker
+ * sending to SMTP_URL or to an in-process fake SMTP server on 127.0.0.1, disk storage in UPLOAD_DIR and the takeoff worker pool.
  */
 export async function createDeps(config: Config, opts: { sequelize?: Sequelize } = {}): Promise<AppDeps> {
   // Sequelize models are classes bound to one instance: one per process. Tests that build several
@@ -35,28 +39,39 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
   // it would end the process. The pool drops that client and connects afresh on the next request.
   pool.on('error', (err) => console.warn(`[db] session pool: idle connection lost (${err.message})`));
   let fake: FakeSmtp | null = null;
-  let mailer: Mailer;
+  let smtp: Mailer;
   if (config.smtpUrl) {
-    mailer = createSmtpMailer({ url: config.smtpUrl }, config.mailFrom);
+    smtp = createSmtpMailer({ url: config.smtpUrl }, config.mailFrom);
   } else {
     if (config.isProduction) throw new Error('SMTP_URL is required when NODE_ENV=production');
     fake = new FakeSmtp();
     const port = await fake.start(config.fakeSmtpPort);
-    mailer = createSmtpMailer({ host: '127.0.0.1', port }, config.mailFrom);
+    smtp = createSmtpMailer({ host: '127.0.0.1', port }, config.mailFrom);
   }
+  const mailQueue = createMailQueue({
+    databaseUrl: config.databaseUrl,
+    sequelize,
+    smtp,
+    retryLimit: config.mailRetryLimit,
+    retryDelaySeconds: config.mailRetryDelaySeconds,
+    pollingIntervalSeconds: config.mailPollSeconds,
+  });
+  await mailQueue.start();
   const storage = new DiskStorage(config.uploadDir);
   const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });
   return {
     config,
     sequelize,
     pool,
-    mailer,
+    mailer: mailQueue.mailer,
+    mailQueue,
     storage,
     outbox: fake,
     planPool,
     async close() {
+      await mailQueue.stop();
       await planPool.close();
-      mailer.close();
+      smtp.close();
       await fake?.stop();
       await pool.end();
       if (!opts.sequelize) await sequelize.close();

@@ -52,6 +52,12 @@ const envSchema = z
     STRIPE_SECRET_KEY: z.string().optional(),
     STRIPE_WEBHOOK_SECRET: z.string().optional(),
     PAYMENTS_API_URL: z.string().optional(),
+    /** Retries of an e-mail the mail server refuses or cannot be reached for, before it is marked failed. */
+    MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).max(50).default(12),
+    /** First wait before a retry, seconds; each later wait about doubles (12 retries from 30 s: about 17 h in all). */
+    MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).optional(),
+    /** How often an idle mail worker looks for queued messages, seconds (at least 0.5). */
+    MAIL_POLL_SECONDS: z.coerce.number().min(0.5).max(60).optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -80,6 +86,9 @@ export interface Config {
   bcryptRounds: number;
   takeoffWorkers?: number;
   takeoffTimeLimitMs: number;
+  mailRetryLimit: number;
+  mailRetryDelaySeconds: number;
+  mailPollSeconds: number;
   /** Prune expired sessions on a timer (off in tests so nothing keeps the process alive). */
   pruneSessions: boolean;
   fakeSmtpPort: number;
@@ -123,5 +132,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       e.NODE_ENV === 'production',
       path.resolve(e.UPLOAD_DIR),
     ),
+    mailRetryLimit: e.MAIL_RETRY_LIMIT,
+    // Tests wait for mail: short retries and fast polling there.
+    mailRetryDelaySeconds: e.MAIL_RETRY_DELAY_SECONDS ?? (e.NODE_ENV === 'test' ? 1 : 30),
+    mailPollSeconds: e.MAIL_POLL_SECONDS ?? (e.NODE_ENV === 'test' ? 0.5 : 2),
   };
 }

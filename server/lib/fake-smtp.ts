@@ -37,14 +37,18 @@ const LINK_RE = /https?:\/\/[^\s"'<>)]+/g;
  * stand-in for a real relay (`npm start` without SMTP_URL, and the tests).
  */
 export class FakeSmtp implements Outbox {
-  private server: SMTPServer;
+  private server: SMTPServer | null = null;
   private store: CapturedMail[] = [];
   private nextId = 1;
   private waiters = new Set<() => void>();
   port = 0;
 
-  constructor(private readonly limit = 500) {
-    this.server = new SMTPServer({
+  constructor(private readonly limit = 500) {}
+
+  // A closed SMTPServer refuses to listen again, so every start() builds a fresh one (tests stop
+  // and restart the fake to play a mail server that goes down and comes back).
+  private createServer(): SMTPServer {
+    return new SMTPServer({
       authOptional: true,
       disabledCommands: ['STARTTLS'],
       logger: false,
@@ -86,16 +90,20 @@ export class FakeSmtp implements Outbox {
 
   /** Listens on 127.0.0.1; port 0 picks a free one. Resolves to the port. */
   async start(port = 0): Promise<number> {
+    const server = this.createServer();
+    this.server = server;
     await new Promise<void>((resolve, reject) => {
-      this.server.once('error', reject);
-      this.server.listen(port, '127.0.0.1', () => resolve());
+      server.once('error', reject);
+      server.listen(port, '127.0.0.1', () => resolve());
     });
-    this.port = (this.server.server.address() as AddressInfo).port;
+    this.port = (server.server.address() as AddressInfo).port;
     return this.port;
   }
 
   async stop(): Promise<void> {
-    await new Promise<void>((resolve) => this.server.close(() => resolve()));
+    const server = this.server;
+    this.server = null;
+    if (server) await new Promise<void>((resolve) => server.close(() => resolve()));
   }
 
   /** Newest last. */

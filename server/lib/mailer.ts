@@ -13,6 +13,16 @@ export interface MailMessage {
   text: string;
   html?: string;
   attachments?: Array<{ filename: string; content: Buffer; contentType?: string }>;
+  /** What the message is about, for the job's history (the queued mailer records it; SMTP ignores it). */
+  about?: MailAbout;
+}
+
+/** The job a message belongs to (its `email_sent` event), who caused it and why. */
+export interface MailAbout {
+  jobId: string | null;
+  userId: string | null;
+  purpose: string;
+  quoteId?: string | null;
 }
 
 /** Header naming the sending company on every message (read back by the local fake's Outbox). */
@@ -33,7 +43,7 @@ export function createSmtpMailer(target: SmtpTarget, from: string): Mailer {
       ? nodemailer.createTransport(target.url)
       : nodemailer.createTransport({ host: target.host, port: target.port, secure: false, ignoreTLS: true });
   return {
-    async send({ organisationId, ...message }) {
+    async send({ organisationId, about: _about, ...message }) {
       await transport.sendMail({ from, ...message, headers: organisationId ? { [ORGANISATION_HEADER]: organisationId } : undefined });
     },
     close() {

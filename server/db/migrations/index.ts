@@ -5,6 +5,7 @@ import * as m0100 from './0100-quotes-settings';
 import * as m0200 from './0200-installer';
 import * as m0400 from './0400-payments';
 import * as m0500 from './0500-min-offcut-length';
+import * as m0501 from './0501-mail-queue';
 
 type Migration = RunnableMigration<QueryInterface>;
 const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'] }): Migration => ({ name, up: mod.up, down: mod.down });
@@ -20,4 +21,5 @@ export const MIGRATIONS: Migration[] = [
   entry('0200-installer', m0200),
   entry('0400-payments', m0400),
   entry('0500-min-offcut-length', m0500),
+  entry('0501-mail-queue', m0501),
 ];

@@ -14,6 +14,7 @@ import { JobEvent } from './job-event';
 import { JobNote } from './job-note';
 import { JobPhoto } from './job-photo';
 import { JobTick } from './job-tick';
+import { MailMessage } from './mail-message';
 import { Organisation } from './organisation';
 import { Payment } from './payment';
 import { PaymentEvent } from './payment-event';
@@ -27,6 +28,7 @@ import { TaxRate } from './tax-rate';
 import { User } from './user';
 
 export type { AuthTokenPurpose } from './auth-token';
+export type { MailStatus, StoredAttachment } from './mail-message';
 export {
   AuthToken,
   CompanySetting,
@@ -43,6 +45,7 @@ export {
   JobNote,
   JobPhoto,
   JobTick,
+  MailMessage,
   Organisation,
   Payment,
   PaymentEvent,
@@ -59,7 +62,7 @@ export {
 /** Every model, one per file in this folder, grouped by domain. */
 const MODELS = {
   company: [Organisation, User, AuthToken, CompanySetting, Product, Extra, TaxRate],
-  jobs: [Customer, Job, JobEvent, Space, PlanRevision],
+  jobs: [Customer, Job, JobEvent, Space, PlanRevision, MailMessage],
   quotes: [Quote, QuoteLine],
   siteWork: [InstallSetting, JobTick, JobNote, JobPhoto, JobCompletion, IdempotencyKey],
   money: [PaymentSetting, Payment, PaymentEvent, InvoiceCounter, Invoice, InvoiceLine],

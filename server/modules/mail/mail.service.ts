@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import type { AppDeps } from '../../deps';
-import { JobEvent, User } from '../../db/models';
+import { User } from '../../db/models';
 import type { MailMessage } from '../../lib/mailer';
 import { loadCompanySettings } from '../settings/settings.service';
 
@@ -24,26 +24,19 @@ type Message = Pick<MailMessage, 'to' | 'subject' | 'text' | 'html' | 'attachmen
 /**
  * The one way a company's e-mail goes out: tagged with the sending company, Reply-To the company's
  * address on customer mail (the From is a no-reply address, and the booking e-mail says "reply to
- * this e-mail"), and recorded on the job's history (`email_sent`) when it is about a job.
+ * this e-mail"), and recorded on the job's history (`email_sent`, status waiting → sent or failed) when it is
+ * about a job.
  */
 export async function sendCompanyMail(deps: Pick<AppDeps, 'mailer'>, ctx: MailContext, message: Message): Promise<void> {
   const company = ctx.audience === 'customer' ? await loadCompanySettings(ctx.organisationId) : null;
-  await deps.mailer.send({ ...message, organisationId: ctx.organisationId, replyTo: company?.email || undefined });
-  if (!ctx.jobId) return;
-  await JobEvent.create({
+  // Recorded and queued (with its history event), not sent here: a mail server that is down makes
+  // the message wait for the worker's retries instead of failing the request.
+  await deps.mailer.send({
+    ...message,
     organisationId: ctx.organisationId,
-    jobId: ctx.jobId,
-    userId: ctx.userId,
-    kind: 'email_sent',
-    data: {
-      text: `E-mail to ${message.to}: ${message.subject}`,
-      to: message.to,
-      subject: message.subject,
-      purpose: ctx.purpose,
-      quoteId: ctx.quoteId ?? null,
-      attachments: (message.attachments ?? []).map((a) => a.filename),
-    },
-  } as never);
+    replyTo: company?.email || undefined,
+    about: { jobId: ctx.jobId, userId: ctx.userId, purpose: ctx.purpose, quoteId: ctx.quoteId ?? null },
+  });
 }
 
 /** The one office notification address: the company's e-mail, else every active office user. */

@@ -1,5 +1,6 @@
 import { Button, EmptyState, ErrorState, LoadingState, PageHeader } from '../../components/ui';
 import { useOutbox } from '../../features/outbox/api/get-outbox';
+import { MailStatusList } from '../../features/outbox/components/mail-status-list';
 import { OutboxList } from '../../features/outbox/components/outbox-list';
 import { isApiError } from '../../lib/api-client';
 import { RequireAction } from '../require-auth';
@@ -27,6 +28,7 @@ function Outbox() {
           </Button>
         }
       />
+      <MailStatusList />
       {outbox.isPending ? (
         <LoadingState label="Loading messages…" />
       ) : outbox.isError ? (

@@ -1,0 +1,182 @@
+import PgBoss from 'pg-boss';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { JobEvent, MailMessage, type MailStatus } from '../../db/models';
+import { ConflictError, NotFoundError } from '../../lib/errors';
+import type { Mailer, MailMessage as OutgoingMail } from '../../lib/mailer';
+
+const QUEUE = 'mail-send';
+
+export interface MailQueueOptions {
+  databaseUrl: string;
+  sequelize: Sequelize;
+  /** The real transport (SMTP): only the worker calls it. */
+  smtp: Mailer;
+  /** Retries after the first try; with backoff the wait roughly doubles each time from `retryDelaySeconds`. */
+  retryLimit: number;
+  retryDelaySeconds: number;
+  /** How often an idle worker looks for messages queued by other instances (pg-boss minimum 0.5 s). */
+  pollingIntervalSeconds: number;
+  log?: (line: string) => void;
+}
+
+/** The durable mail queue: `mailer.send` records and queues; the worker sends. */
+export interface MailQueue {
+  /** Records the message (and its job history event) and queues it in one transaction; resolves before it is sent. */
+  mailer: Mailer;
+  /** Installs pg-boss's schema when missing and starts this instance's worker. */
+  start(): Promise<void>;
+  /** Stops taking new messages and waits for the one being sent. */
+  stop(): Promise<void>;
+  /** Queues a failed message again (409 unless it is `failed`: a waiting or sent one is never sent twice). */
+  resend(organisationId: string, id: string): Promise<void>;
+}
+
+/** The history line of an e-mail at each status (the job page shows `text`). */
+function eventText(to: string, subject: string, status: MailStatus, reason?: string | null) {
+  const state = status === 'sent' ? 'sent' : status === 'failed' ? `not sent: ${reason ?? 'unknown error'}` : 'waiting to be sent';
+  return `E-mail to ${to}: ${subject} (${state})`;
+}
+
+/** The SMTP error's own words, kept short for the row and the history. */
+function reasonOf(err: unknown): string {
+  const e = err as { message?: string; response?: string; code?: string };
+  return String(e.response || e.message || e.code || err).slice(0, 500);
+}
+
+export function createMailQueue(opts: MailQueueOptions): MailQueue {
+  const { sequelize, smtp } = opts;
+  const log = opts.log ?? ((line: string) => console.warn(`[mail] ${line}`));
+  const boss = new PgBoss({ connectionString: opts.databaseUrl, max: 3, schedule: false });
+  // pg-boss reports its own connection trouble here; unheard, an 'error' event would end the process.
+  boss.on('error', (err) => log(`queue error: ${reasonOf(err)}`));
+  const sendOptions: PgBoss.SendOptions = {
+    retryLimit: opts.retryLimit,
+    retryDelay: opts.retryDelaySeconds,
+    retryBackoff: true,
+    // A worker killed mid-send leaves its job active: it is expired and retried after this.
+    expireInSeconds: 300,
+  };
+  let workerId: string | null = null;
+
+  // pg-boss runs its INSERT on our transaction, so the row and its job commit (or vanish) together.
+  const onTransaction = (transaction: Transaction): PgBoss.Db => ({
+    async executeSql(text, values) {
+      // pg-boss leaves trailing unset parameters out (pg reads them as NULL); Sequelize wants each one.
+      const highest = Math.max(0, ...[...text.matchAll(/\$(\d+)/g)].map((m) => Number(m[1])));
+      const bind = Array.from({ length: Math.max(highest, values.length) }, (_, i) => values[i] ?? null);
+      const rows = await sequelize.query(text, { bind, transaction, type: QueryTypes.SELECT });
+      return { rows };
+    },
+  });
+
+  async function setEventStatus(row: MailMessage, status: MailStatus, transaction?: Transaction) {
+    if (!row.jobEventId) return;
+    const patch = { status, reason: row.lastError, text: eventText(row.recipient, row.subject, status, row.lastError) };
+    await sequelize.query('UPDATE job_events SET data = data || $1::jsonb WHERE id = $2', { bind: [JSON.stringify(patch), row.jobEventId], transaction });
+  }
+
+  async function enqueue(message: OutgoingMail) {
+    const { about } = message;
+    await sequelize.transaction(async (transaction) => {
+      let jobEventId: string | null = null;
+      if (about?.jobId && message.organisationId) {
+        const event = await JobEvent.create(
+          {
+            organisationId: message.organisationId,
+            jobId: about.jobId,
+            userId: about.userId,
+            kind: 'email_sent',
+            data: {
+              text: eventText(message.to, message.subject, 'waiting'),
+              to: message.to,
+              subject: message.subject,
+              purpose: about.purpose,
+              quoteId: about.quoteId ?? null,
+              attachments: (message.attachments ?? []).map((a) => a.filename),
+              status: 'waiting',
+            },
+          } as never,
+          { transaction },
+        );
+        jobEventId = event.id;
+      }
+      const row = await MailMessage.create(
+        {
+          organisationId: message.organisationId ?? null,
+          jobId: about?.jobId ?? null,
+          jobEventId,
+          purpose: about?.purpose ?? '',
+          recipient: message.to,
+          replyTo: message.replyTo ?? null,
+          subject: message.subject,
+          text: message.text,
+          html: message.html ?? null,
+          attachments: (message.attachments ?? []).map((a) => ({
+            filename: a.filename,
+            contentType: a.contentType,
+            contentBase64: a.content.toString('base64'),
+          })),
+          lastError: null,
+          sentAt: null,
+        },
+        { transaction },
+      );
+      await boss.send(QUEUE, { messageId: row.id }, { ...sendOptions, db: onTransaction(transaction) });
+    });
+    if (workerId) boss.notifyWorker(workerId);
+  }
+
+  /** Sends one message under its row lock: a second job for the same row waits, then finds it sent. */
+  async function deliver(messageId: string, lastTry: boolean) {
+    try {
+      await sequelize.transaction(async (transaction) => {
+        const row = await MailMessage.findByPk(messageId, { transaction, lock: transaction.LOCK.UPDATE });
+        if (!row || row.status !== 'waiting') return;
+        await smtp.send({
+          to: row.recipient,
+          organisationId: row.organisationId ?? undefined,
+          replyTo: row.replyTo ?? undefined,
+          subject: row.subject,
+          text: row.text,
+          html: row.html ?? undefined,
+          attachments: row.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, 'base64') })),
+        });
+        await row.update({ status: 'sent', sentAt: new Date(), lastError: null, attempts: row.attempts + 1 }, { transaction });
+        await setEventStatus(row, 'sent', transaction);
+      });
+    } catch (err) {
+      const row = await MailMessage.findByPk(messageId);
+      if (row?.status === 'waiting') {
+        await row.update({ attempts: row.attempts + 1, lastError: reasonOf(err), status: lastTry ? 'failed' : 'waiting' });
+        await setEventStatus(row, row.status);
+      }
+      if (!lastTry) log(`will retry message ${messageId}: ${reasonOf(err)}`);
+      throw err; // pg-boss schedules the retry with backoff
+    }
+  }
+
+  return {
+    mailer: { send: enqueue, close: () => undefined },
+    async start() {
+      await boss.start();
+      await boss.createQueue(QUEUE);
+      workerId = await boss.work<{ messageId: string }>(QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds, includeMetadata: true }, async ([job]) =>
+        deliver(job.data.messageId, job.retryCount >= job.retryLimit),
+      );
+    },
+    async stop() {
+      await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
+    },
+    async resend(organisationId, id) {
+      await sequelize.transaction(async (transaction) => {
+        const row = await MailMessage.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE });
+        if (!row) throw new NotFoundError('message');
+        if (row.status !== 'failed') throw new ConflictError(`this message is ${row.status}; only a failed message can be sent again`, 'not_failed');
+        await row.update({ status: 'waiting', lastError: null }, { transaction });
+        await setEventStatus(row, 'waiting', transaction);
+        await boss.send(QUEUE, { messageId: row.id }, { ...sendOptions, db: onTransaction(transaction) });
+      });
+      if (workerId) boss.notifyWorker(workerId);
+    },
+  };
+}
