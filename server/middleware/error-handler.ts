@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '../lib/db-unavailable';
 import { AppError } from '../lib/errors';
+import { describeError, redactText, redactUrl } from '../lib/log-redact';
 import { zodDetails } from './validate';
 
 /** Unknown /api paths: JSON 404 rather than the SPA page. */
@@ -36,11 +37,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
     return;
   }
   if (isDatabaseUnavailable(err)) {
-    console.warn(`[db] ${req.method} ${req.path}: database unavailable (${err?.message ?? err})`);
+    console.warn(`[db] ${req.method} ${redactUrl(req.originalUrl)}: database unavailable (${redactText(String(err?.message ?? err))})`);
     res.setHeader('Retry-After', String(DB_RETRY_AFTER_SECONDS));
     res.status(503).json({ error: { code: 'service_unavailable', message: 'the service is briefly unavailable; try again in a few seconds' } });
     return;
   }
-  console.error(`[error] ${req.method} ${req.originalUrl}:`, err);
+  console.error(`[error] ${req.method} ${redactUrl(req.originalUrl)}: ${describeError(err)}`);
   res.status(500).json({ error: { code: 'internal', message: 'something went wrong on the server' } });
 };

@@ -9,6 +9,7 @@ import { Quote } from '../../db/models/quote';
 import { formatDate } from '../../../shared/dates';
 import { DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '../../lib/db-unavailable';
 import { AppError, NotFoundError } from '../../lib/errors';
+import { describeError } from '../../lib/log-redact';
 import type { InvoicesService } from '../invoices/invoices.service';
 import { escapeHtml, money, payLayout, payPageCsp } from './pay-pages';
 import { paymentsContext } from './payments-context';
@@ -257,7 +258,7 @@ export function payRouter(deps: AppDeps, payments: PaymentsService, invoices: In
     if (err instanceof AppError && err.status < 500) {
       return send(res, err.status, payLayout('Payment not available', `<p class="warn">${escapeHtml(err.message)}</p>`));
     }
-    console.error('[pay] error:', err instanceof Error ? err.message : err);
+    console.error(`[pay] error: ${describeError(err)}`);
     send(
       res,
       502,
