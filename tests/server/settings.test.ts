@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { pngImage } from '../helpers/images';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { binary } from './quotes-fixtures';
+import { takeoffSettingsOf } from '../../server/modules/plan-revisions/plan-takeoff';
 
 let ctx: TestContext;
 let org: TestOrg;
@@ -50,6 +51,19 @@ describe('company settings', () => {
     const bad = await office.put('/api/settings').send({ ...body, currency: 'pounds', labour: { ...body.labour, hourlyRateMinor: 12.5 } });
     expect(bad.status).toBe(422);
     expect(bad.body.error.details.map((d: { path: string }) => d.path)).toEqual(expect.arrayContaining(['currency', 'labour.hourlyRateMinor']));
+  });
+
+  it('keeps the minimum usable offcut length (500 mm to start with) and hands it to the takeoff', async () => {
+    const office = await loginAs(ctx.app, org.office);
+    const { hasLogo: _ignored, ...body } = (await office.get('/api/settings')).body.settings;
+    expect(body.minOffcutMm).toBe(500);
+    const ok = await office.put('/api/settings').send({ ...body, minOffcutMm: 800 });
+    expect(ok.status).toBe(200);
+    expect(ok.body.settings.minOffcutMm).toBe(800);
+    expect(takeoffSettingsOf(ok.body.settings).minOffcutMm).toBe(800);
+    const bad = await office.put('/api/settings').send({ ...body, minOffcutMm: 20 });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details.map((d: { path: string }) => d.path)).toContain('minOffcutMm');
   });
 
   it('lets estimators read but not change settings, and keeps installers out', async () => {
