@@ -120,8 +120,12 @@ describe('POST /api/jobs/:id/finish', () => {
       // Areas and U-values as the takeoff computed them (one decimal for m², two for W/m²K).
       expect(text).toContain(`Area insulated: ${takeoff.netAreaM2.toFixed(1)} m²`);
       for (const l of takeoff.layers) expect(text).toContain(`${l.thicknessMm} mm thick, ${l.areaM2.toFixed(1)} m²`);
-      expect(text).toContain(`U-value before: ${takeoff.uValueBefore.toFixed(2)} W/m²K`);
-      expect(text).toContain(`after: ${takeoff.uValueAfter.toFixed(2)} W/m²K`);
+      // Each figure named: the ISO 6946 value of the insulated area and the whole ceiling, the RdSAP default beside them.
+      expect(text).toContain(
+        `U-value (BS EN ISO 6946 combined method) ${takeoff.uValueBefore.toFixed(2)} → ${takeoff.uValueAfter.toFixed(2)} W/m²K insulated area`,
+      );
+      expect(text).toContain(`${takeoff.uValueBeforeWholeCeiling.toFixed(2)} → ${takeoff.uValueAfterWholeCeiling.toFixed(2)} whole ceiling`);
+      expect(text).toContain(`RdSAP 2012 Table S9 default ${takeoff.thermal.before.rdsapU.toFixed(2)} → ${takeoff.thermal.after.rdsapU.toFixed(2)}`);
       expect(text).toMatch(/Keep the eaves vents clear/);
       expect(text).toMatch(/walkway boards on raised supports/);
       expect(text).toContain(org.installer.name);

@@ -17,7 +17,15 @@ export interface QuotePdfData {
   deposit: DepositTerms | null;
   totals: { netMinor: number; taxByRate: Array<{ rateBp: number; netMinor: number; taxMinor: number }>; taxMinor: number; grossMinor: number };
   saving: { kwhPerYear: number; minorPerYear: number; paybackYears: number | null } | null;
-  spaces: Array<{ name: string; plan: unknown; netAreaM2: number | null; uBefore: number | null; uAfter: number | null; layers: string[] }>;
+  spaces: Array<{
+    name: string;
+    plan: unknown;
+    netAreaM2: number | null;
+    uBefore: number | null;
+    uAfter: number | null;
+    thermalText?: string;
+    layers: string[];
+  }>;
   siteHours: number;
   crewSize: number;
   cautions: string[];
@@ -95,7 +103,7 @@ export async function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
           .text(s.name, bx, rowY + boxH + 4, { width: boxW });
         const facts = [
           s.netAreaM2 !== null ? `${s.netAreaM2.toFixed(1)} m² to insulate` : '',
-          s.uBefore !== null && s.uAfter !== null ? `U-value ${s.uBefore.toFixed(2)} → ${s.uAfter.toFixed(2)} W/m²K` : '',
+          s.thermalText ?? (s.uBefore !== null && s.uAfter !== null ? `U-value ${s.uBefore.toFixed(2)} → ${s.uAfter.toFixed(2)} W/m²K` : ''),
           ...s.layers,
         ].filter(Boolean);
         doc.font('ui').fontSize(8.5).fillColor(PALETTE.graphiteLight).text(facts.join(' · '), bx, doc.y, { width: boxW });

@@ -25,6 +25,8 @@ export type HandoverData = {
     netAreaM2: number | null;
     uValueBefore: number | null;
     uValueAfter: number | null;
+    /** The U-values named (ISO 6946 insulated area and whole ceiling, RdSAP default); null without a takeoff. */
+    thermalText?: string | null;
     layers: HandoverLayer[];
     photos: Array<{ stage: 'before' | 'after'; caption: string; jpeg: Buffer }>;
   }>;
@@ -67,7 +69,7 @@ export function renderHandoverPdf(d: HandoverData): Promise<Buffer> {
     doc.moveDown(1).font('ui-heavy').fontSize(14).fillColor(INK).text(s.name);
     doc.font('ui').fontSize(10.5);
     doc.text(`Area insulated: ${fmt(s.netAreaM2, 1, ' m²')}`);
-    doc.text(`U-value before: ${fmt(s.uValueBefore, 2, ' W/m²K')}   after: ${fmt(s.uValueAfter, 2, ' W/m²K')}`);
+    doc.text(s.thermalText ?? `U-value before: ${fmt(s.uValueBefore, 2, ' W/m²K')}   after: ${fmt(s.uValueAfter, 2, ' W/m²K')}`);
     for (const l of s.layers) {
       const r = layerRValueSI(l.thicknessMm, l.lambdaWmK);
       const rText = d.showRValues && r !== null ? ` · R ${r.toFixed(2)} m²K/W (R-${(r * R_SI_TO_IP).toFixed(1)} imperial)` : '';

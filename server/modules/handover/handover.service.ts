@@ -1,3 +1,4 @@
+import { thermalFactsText } from '../../../shared/takeoff/thermal-text';
 import type { AppDeps } from '../../deps';
 import { sendCompanyMail } from '../mail/mail.service';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
@@ -48,6 +49,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         netAreaM2: t ? t.netAreaM2 : null,
         uValueBefore: t ? t.uValueBefore : null,
         uValueAfter: t ? t.uValueAfter : null,
+        thermalText: t ? thermalFactsText(t) : null,
         layers: t
           ? t.layers.map((l) => ({
               productName: l.productName,

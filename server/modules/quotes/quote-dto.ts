@@ -15,6 +15,8 @@ export interface QuoteSnapshot {
     netAreaM2: number | null;
     uBefore: number | null;
     uAfter: number | null;
+    /** U-values named for the PDF (quotes built before it was kept have none). */
+    thermalText?: string;
     layers: string[];
     takeoffLayers?: Array<{ role: string; productName: string; areaM2: number; rollsByPacking: number; rollsByArea: number }>;
   }>;

@@ -130,6 +130,7 @@ export async function buildDraft(job: Job) {
       netAreaM2: t.netAreaM2,
       uBefore: t.uBefore,
       uAfter: t.uAfter,
+      thermalText: t.thermalText,
       layers: t.layerNames,
       takeoffLayers: t.space.layers.map((l) => ({
         role: l.role,

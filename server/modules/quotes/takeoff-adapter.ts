@@ -1,3 +1,4 @@
+import { thermalFactsText } from '../../../shared/takeoff/thermal-text';
 import type { SpaceForQuote } from '../../../shared/quote/build-lines';
 import { spaceForQuote } from '../../../shared/quote/from-takeoff';
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
@@ -11,6 +12,8 @@ export type SpaceTakeoff =
       netAreaM2: number;
       uBefore: number;
       uAfter: number;
+      /** The U-values named for documents (ISO 6946 insulated area and whole ceiling, RdSAP default). */
+      thermalText: string;
       saving: { kwh: number; minor: number } | null;
       layerNames: string[];
       warnings: string[];
@@ -32,6 +35,7 @@ export function takeoffForSpace(name: string, _planRaw: unknown, stored: unknown
     netAreaM2: takeoff.netAreaM2,
     uBefore: takeoff.uValueBefore,
     uAfter: takeoff.uValueAfter,
+    thermalText: thermalFactsText(takeoff),
     saving: takeoff.savings.moneyMinorPerYear > 0 ? { kwh: takeoff.savings.fuelKwhPerYear, minor: takeoff.savings.moneyMinorPerYear } : null,
     layerNames: takeoff.layers.map((l) => `${l.role === 'base' ? 'between joists' : 'across joists'}: ${l.productName}`),
     warnings: takeoff.warnings.map((w) => w.message),
