@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fitCamera, world, worldToScreen } from '../../src/editor/geometry/coords';
 import { planSchema, type Plan } from '../../shared/plan/plan-schema';
 import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+import { seedDemoCatalogue } from '../../server/modules/settings/settings.service';
 import { createJob, createOrgWithUsers, type TestOrg } from '../helpers/test-app';
 
 const example = (f: string): Plan => planSchema.parse(JSON.parse(fs.readFileSync(path.join(__dirname, '..', '..', 'examples', f), 'utf8')));
@@ -19,6 +20,7 @@ let org: TestOrg;
 beforeAll(async () => {
   server = await startAppServer();
   org = await createOrgWithUsers(server.ctx);
+  await seedDemoCatalogue(org.id); // so the layers step has strips to number
 }, 120_000);
 afterAll(async () => server?.close());
 
@@ -163,8 +165,42 @@ describe('editor layout', () => {
     });
   });
 
-  it('screenshots at 1440, 1024 and 390 px', { timeout: 120_000 }, async () => {
+  it('screenshots at 1440, 1024 and 390 px', { timeout: 150_000 }, async () => {
     const { space } = await createJob(org, { plan: example('l-shape.json'), spaceName: 'Layout loft' });
+    // Every kind of exclusion, two of them small, for a person to check they read apart and keep labels.
+    const sq = (x: number, y: number, s: number): [number, number][] => [
+      [x, y],
+      [x + s, y],
+      [x + s, y + s],
+      [x, y + s],
+    ];
+    const kinds = planSchema.parse({
+      ...example('rectangle.json'),
+      exclusions: [
+        { kind: 'hatch', polygon: sq(600, 600, 700) },
+        { kind: 'tank', label: 'cold water tank', polygon: sq(1800, 600, 1200) },
+        { kind: 'chimney', polygon: sq(3600, 600, 900) },
+        { kind: 'flue', label: 'boiler flue', polygon: sq(5200, 700, 150) },
+        {
+          kind: 'boarded',
+          label: 'boarded walkway',
+          polygon: [
+            [600, 2600],
+            [4000, 2600],
+            [4000, 3200],
+            [600, 3200],
+          ],
+        },
+        { kind: 'other', label: 'aerial cable', polygon: sq(5000, 2600, 250) },
+        { kind: 'downlight', label: 'landing light', at: [6500, 1500] },
+      ],
+    });
+    const kindsJob = await createJob(org, { plan: kinds, spaceName: 'Kinds loft' });
+    await withPage({ width: 1440, height: 900 }, async (page) => {
+      await open(page, kindsJob.space.id);
+      await page.getByTestId('step-exclusions').click();
+      await screenshot(page, 'editor-layout-1440-exclusion-kinds');
+    });
     for (const [w, h] of [
       [1440, 900],
       [1024, 768],

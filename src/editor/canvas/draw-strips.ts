@@ -1,4 +1,5 @@
-import { sx, sy, traceRing, type DrawContext } from './draw-context';
+import { traceRing, type DrawContext } from './draw-context';
+import { placeStripNumbers } from './place-strip-numbers';
 import { MONO, PALETTE } from './palette';
 
 /** What the canvas needs of a takeoff: each layer's strips in laying order, and its lay direction. */
@@ -12,13 +13,13 @@ export type DrawnTakeoff = {
 };
 
 /**
- * Strips in their layer's colour (base straw, cross teal), numbered in laying order, with an
- * arrow per layer showing the lay direction. Only the top layer is numbered in the review step
- * unless zoomed in, to keep the numbers readable.
+ * Strips in their layer's colour (base straw, cross teal), numbered in laying order. Numbers of
+ * both layers are placed so none overlaps another (placeStripNumbers); in the review step only
+ * the top layer is numbered.
  */
 export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
   const { ctx, cam } = d;
-  t.layers.forEach((layer, li) => {
+  t.layers.forEach((layer) => {
     const base = layer.role === 'base';
     ctx.beginPath();
     for (const s of layer.strips) for (const p of s.polygons) traceRing(d, p);
@@ -29,24 +30,19 @@ export function drawStrips(d: DrawContext, t: DrawnTakeoff, review: boolean) {
     ctx.strokeStyle = base ? PALETTE.straw : PALETTE.teal;
     ctx.lineWidth = 1;
     ctx.stroke();
-    const top = li === t.layers.length - 1;
-    if (!top && review) return;
-    ctx.font = `500 10px ${MONO}`;
-    ctx.textAlign = 'center';
-    ctx.textBaseline = 'middle';
-    ctx.fillStyle = base ? PALETTE.strawDark : PALETTE.tealDark;
-    for (const s of layer.strips) {
-      const [cx, cy] = s.labelAt;
-      // Stagger the cross layer's numbers so they do not sit on the base layer's.
-      const off = base ? 0 : 12;
-      const x = sx(cam, cx) + off,
-        y = sy(cam, cy) + off;
-      ctx.strokeStyle = 'rgba(250,247,240,0.95)';
-      ctx.lineWidth = 3;
-      ctx.strokeText(String(s.number), x, y);
-      ctx.fillText(String(s.number), x, y);
-    }
   });
+  ctx.font = `500 10px ${MONO}`;
+  const numbered = review ? t.layers.slice(-1) : t.layers;
+  const placed = placeStripNumbers(numbered, cam, (text) => ctx.measureText(text).width);
+  ctx.textAlign = 'center';
+  ctx.textBaseline = 'middle';
+  for (const n of placed) {
+    ctx.strokeStyle = 'rgba(250,247,240,0.95)';
+    ctx.lineWidth = 3;
+    ctx.strokeText(n.text, n.x, n.y);
+    ctx.fillStyle = n.role === 'base' ? PALETTE.strawDark : PALETTE.tealDark;
+    ctx.fillText(n.text, n.x, n.y);
+  }
 }
 
 /** Lay-direction arrows, one per layer, in a key at the bottom-left corner of the view. */
