@@ -34,6 +34,9 @@ export const jobPatchSchema = jobFieldsSchema.partial();
 export type JobPatch = z.input<typeof jobPatchSchema>;
 
 export const JOB_SORTS = ['updated', 'created', 'stage', 'customer', 'installDate'] as const;
+/** Jobs per page of GET /api/jobs unless `limit` says otherwise, and the most one page may hold. */
+export const JOB_PAGE_DEFAULT = 50;
+export const JOB_PAGE_MAX = 100;
 export const jobListQuerySchema = z.object({
   q: z.string().max(200).optional(),
   stage: jobStageSchema.optional(),
@@ -41,6 +44,10 @@ export const jobListQuerySchema = z.object({
   installerId: z.uuid().optional(),
   sort: z.enum(JOB_SORTS).default('updated'),
   dir: z.enum(['asc', 'desc']).default('desc'),
+  /** Jobs per page (default 50, at most 100). */
+  limit: z.coerce.number().int().min(1).max(JOB_PAGE_MAX).default(JOB_PAGE_DEFAULT),
+  /** `nextCursor` of the previous page, for the page after it (same q, filters, sort and dir). */
+  cursor: z.string().max(500).optional(),
 });
 export type JobListQuery = z.input<typeof jobListQuerySchema>;
 
@@ -69,6 +76,13 @@ export const jobSchema = z.object({
   updatedAt: z.string(),
 });
 export type Job = z.infer<typeof jobSchema>;
+
+/**
+ * GET /api/jobs: one page of the list, in the order asked. `nextCursor` is null on the last page;
+ * `total` counts every job matching the search and filters.
+ */
+export const jobListPageSchema = z.object({ jobs: z.array(jobSchema), nextCursor: z.string().nullable(), total: z.number().int() });
+export type JobListPage = z.infer<typeof jobListPageSchema>;
 
 /** One entry of a job's timeline (GET /api/jobs/:id/events), oldest first. */
 export const jobEventSchema = z.object({

@@ -17,6 +17,18 @@ export type ValidatePlanResult = { ok: true; plan: Plan; warnings: PlanMessage[]
  * outline point, edge or exclusion it is about, so the editor can show it in place.
  */
 export function validatePlan(input: unknown): ValidatePlanResult {
+  const shape = validatePlanShape(input);
+  if (!shape.ok) return shape;
+  const { errors, warnings } = checkPlanGeometry(shape.plan);
+  return errors.length ? { ok: false, errors, warnings } : { ok: true, plan: shape.plan, warnings };
+}
+
+/**
+ * The first, cheap part of `validatePlan`: format, sizes and schema, without the geometry. Costs
+ * about as much as reading the JSON (the sizes are bounded before parsing), so a server can refuse
+ * most bad plans with it before doing any other work. Warnings are always empty.
+ */
+export function validatePlanShape(input: unknown): ValidatePlanResult {
   if (input === null || typeof input !== 'object' || Array.isArray(input)) {
     return { ok: false, errors: [{ code: 'plan.not-an-object', message: `a plan is a JSON object with "format": "${PLAN_FORMAT}"` }], warnings: [] };
   }
@@ -33,8 +45,7 @@ export function validatePlan(input: unknown): ValidatePlanResult {
   if (tooBig.length) return { ok: false, errors: tooBig, warnings: [] };
   const parsed = planSchema.safeParse(input);
   if (!parsed.success) return { ok: false, errors: parsed.error.issues.map(issueToMessage), warnings: [] };
-  const { errors, warnings } = checkPlanGeometry(parsed.data);
-  return errors.length ? { ok: false, errors, warnings } : { ok: true, plan: parsed.data, warnings };
+  return { ok: true, plan: parsed.data, warnings: [] };
 }
 
 function issueToMessage(issue: z.core.$ZodIssue): PlanMessage {

@@ -5,7 +5,7 @@ import type { createJobsService } from './jobs.service';
 export function createJobsController(jobs: ReturnType<typeof createJobsService>) {
   return {
     async list(req: Request, res: Response) {
-      res.json({ jobs: await jobs.list(currentUser(req), req.query as never) });
+      res.json(await jobs.list(currentUser(req), req.query as never));
     },
     async get(req: Request, res: Response) {
       res.json({ job: await jobs.get(currentUser(req), String(req.params.id)) });

@@ -1,6 +1,6 @@
-import { Op, type Includeable, type Order, type WhereOptions } from 'sequelize';
-import type { Job as JobDto, JobBody, JobEvent as JobEventDto, JobListQuery, JobPatch, InstallerOption, JobStage } from '../../../shared/api/jobs';
-import { JOB_STAGES } from '../../../shared/api/jobs';
+import { Op, type Includeable, type WhereOptions } from 'sequelize';
+import type { Job as JobDto, JobBody, JobEvent as JobEventDto, JobListPage, JobListQuery, JobPatch, InstallerOption, JobStage } from '../../../shared/api/jobs';
+import { JOB_PAGE_DEFAULT } from '../../../shared/api/jobs';
 import { can } from '../../../shared/auth/policies';
 import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
@@ -10,6 +10,7 @@ import type { SessionUser } from '../../types';
 import { likePattern } from '../customers/customers.service';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { findJobFor, jobScope } from './job-access';
+import { encodeCursor, keysetFor } from './job-list-page';
 import { nextJobReference } from './job-reference';
 
 const INCLUDE: Includeable[] = [
@@ -62,32 +63,6 @@ async function toDtos(jobs: Job[], actor: SessionUser): Promise<JobDto[]> {
   return can(actor, 'prices:read') ? dtos : dtos.map((d) => redactPrices(d));
 }
 
-function orderFor(query: JobListQuery): Order {
-  const dir = (query.dir ?? 'desc').toUpperCase() as 'ASC' | 'DESC';
-  const seq = Job.sequelize!;
-  switch (query.sort) {
-    case 'created':
-      return [['createdAt', dir]];
-    case 'stage':
-      return [
-        [seq.literal(`array_position(ARRAY[${JOB_STAGES.map((s) => `'${s}'`).join(',')}]::varchar[], "Job"."stage")`), dir],
-        ['updatedAt', 'DESC'],
-      ];
-    case 'customer':
-      return [
-        [{ model: Customer, as: 'customer' }, 'name', dir],
-        ['reference', 'ASC'],
-      ];
-    case 'installDate':
-      return [
-        ['installDate', `${dir} NULLS LAST`],
-        ['reference', 'ASC'],
-      ];
-    default:
-      return [['updatedAt', dir]];
-  }
-}
-
 export function createJobsService(deps: AppDeps) {
   const { sequelize } = deps;
 
@@ -115,7 +90,8 @@ export function createJobsService(deps: AppDeps) {
   }
 
   return {
-    async list(actor: SessionUser, query: JobListQuery): Promise<JobDto[]> {
+    /** One page of the company's jobs (installers: their own), searched, filtered and sorted; see keysetFor. */
+    async list(actor: SessionUser, query: JobListQuery): Promise<JobListPage> {
       const where: Record<string | symbol, unknown> = { ...(jobScope(actor) as object) };
       if (query.stage) where.stage = query.stage;
       if (query.installerId && can(actor, 'jobs:read-all')) where.assignedInstallerId = query.installerId;
@@ -129,8 +105,20 @@ export function createJobsService(deps: AppDeps) {
           { '$customer.name$': { [Op.iLike]: p } },
         ];
       }
-      const jobs = await Job.findAll({ where: where as WhereOptions<Job>, include: INCLUDE, order: orderFor(query), limit: 500 });
-      return toDtos(jobs, actor);
+      const limit = Number(query.limit ?? JOB_PAGE_DEFAULT);
+      const keyset = keysetFor(sequelize, query);
+      const total = await Job.count({ where: where as WhereOptions<Job>, include: [{ model: Customer, as: 'customer', attributes: [] }] });
+      const rows = await Job.findAll({
+        where: (keyset.after ? { [Op.and]: [where, keyset.after] } : where) as WhereOptions<Job>,
+        attributes: { include: [keyset.attribute] },
+        include: INCLUDE,
+        order: keyset.order,
+        limit: limit + 1,
+      });
+      const page = rows.slice(0, limit);
+      const last = page[page.length - 1];
+      const nextCursor = rows.length > limit ? encodeCursor(keyset.sort, keyset.dir, last.get('listKey'), last.id) : null;
+      return { jobs: await toDtos(page, actor), nextCursor, total };
     },
 
     async get(actor: SessionUser, id: string): Promise<JobDto> {

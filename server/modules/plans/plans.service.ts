@@ -6,7 +6,7 @@ import { readStoredTakeoff, takeoffWithoutPrices } from '../../../shared/takeoff
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { AppError, ValidationError } from '../../lib/errors';
-import { runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
+import { checkPlanShapeOr422, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
 import { companyTakeoffInputs, storePlanRevision, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
 import { getRevision, latestRevision, listRevisions } from '../plan-revisions/revisions.repository';
@@ -38,6 +38,7 @@ export function createPlansService(deps: AppDeps) {
    * the plan passes the time limit), then stores both as the next revision.
    */
   async function save(actor: SessionUser, spaceId: string, input: unknown, opts: { baseRevision?: number; note?: string }) {
+    checkPlanShapeOr422(input);
     const inputs = await companyTakeoffInputs(actor.organisationId);
     const { plan, takeoff } = await runPlanTaskOr422(planPool, { kind: 'takeoff', plan: input, ...inputs });
     const { revision: row } = await storePlanRevision(

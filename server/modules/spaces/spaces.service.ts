@@ -6,7 +6,7 @@ import { validatePlan } from '../../../shared/plan/validate-plan';
 import type { AppDeps } from '../../deps';
 import { Job, Space } from '../../db/models';
 import { NotFoundError } from '../../lib/errors';
-import { invalidPlan, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
+import { checkPlanShapeOr422, invalidPlan, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
 import { findJobFor } from '../jobs/job-access';
 import { recordJobEvent } from '../jobs/jobs.service';
@@ -56,6 +56,7 @@ export function createSpacesService(deps: AppDeps) {
   return {
     async create(actor: SessionUser, jobId: string, body: SpaceCreateBody): Promise<SpaceDto> {
       const job = await findJobFor(actor, jobId);
+      if (body.plan !== undefined) checkPlanShapeOr422(body.plan);
       // Checked and worked out exactly as a saved plan is: in the worker pool, same limits and messages.
       const inputs = body.plan === undefined ? null : await companyTakeoffInputs(actor.organisationId);
       const first = inputs ? await runPlanTaskOr422(planPool, { kind: 'takeoff', plan: body.plan, ...inputs }) : null;

@@ -59,7 +59,7 @@ export default function JobsListPage() {
     <div>
       <PageHeader
         title="Jobs"
-        subtitle={jobs.data ? `${jobs.data.length} ${jobs.data.length === 1 ? 'job' : 'jobs'}${filtered ? ' match' : ''}` : ' '}
+        subtitle={jobs.total !== undefined ? `${jobs.total} ${jobs.total === 1 ? 'job' : 'jobs'}${filtered ? ' match' : ''}` : ' '}
         actions={newJob}
       />
       <JobFilters value={filters} onChange={update} installers={canFilterByInstaller ? (installers.data ?? []) : null} />
@@ -67,7 +67,7 @@ export default function JobsListPage() {
         <LoadingState label="Loading jobs…" />
       ) : jobs.isError ? (
         <ErrorState error={jobs.error} onRetry={() => jobs.refetch()} title="The jobs could not be loaded" />
-      ) : jobs.data.length === 0 ? (
+      ) : !jobs.jobs?.length ? (
         filtered ? (
           <EmptyState
             title="No jobs match"
@@ -88,8 +88,23 @@ export default function JobsListPage() {
         )
       ) : (
         <div className="relative">
-          {jobs.isFetching && <Spinner size="sm" label="Updating" className="absolute -top-7 right-1 text-graphite-light" />}
-          <JobsTable jobs={jobs.data} />
+          {jobs.isFetching && !jobs.isFetchingNextPage && <Spinner size="sm" label="Updating" className="absolute -top-7 right-1 text-graphite-light" />}
+          <JobsTable jobs={jobs.jobs} />
+          {jobs.hasNextPage && (
+            <div className="mt-4 flex items-center justify-center gap-3">
+              <span className="text-sm text-graphite-light">
+                Showing {jobs.jobs.length} of {jobs.total}
+              </span>
+              <Button variant="secondary" onClick={() => jobs.loadMore()} busy={jobs.isFetchingNextPage}>
+                {jobs.isFetchingNextPage ? 'Loading…' : 'Load more jobs'}
+              </Button>
+            </div>
+          )}
+          {jobs.isFetchNextPageError && (
+            <p role="alert" className="mt-2 text-center text-sm text-brick-dark">
+              The next jobs could not be loaded; try again.
+            </p>
+          )}
         </div>
       )}
     </div>

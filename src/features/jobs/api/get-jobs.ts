@@ -1,4 +1,4 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { keepPreviousData, useInfiniteQuery } from '@tanstack/react-query';
 import type { Job, JobListQuery } from '../../../../shared/api/jobs';
 import { api } from '../../../lib/api-client';
 import { jobKeys } from './keys';
@@ -6,22 +6,31 @@ import { jobKeys } from './keys';
 /** A job as listed: the list may leave out the spaces. */
 export type JobListItem = Omit<Job, 'spaces'> & { spaces?: Job['spaces'] };
 
-export async function getJobs(query: JobListQuery, signal?: AbortSignal): Promise<JobListItem[]> {
-  const body = await api.get<{ jobs: JobListItem[] }>(
+/** One page of GET /api/jobs; `nextCursor` null on the last page. */
+export type JobsPage = { jobs: JobListItem[]; nextCursor: string | null; total: number };
+
+export async function getJobsPage(query: JobListQuery, cursor: string | undefined, signal?: AbortSignal): Promise<JobsPage> {
+  const body = await api.get<Partial<JobsPage> & { jobs: JobListItem[] }>(
     '/api/jobs',
-    { q: query.q?.trim(), stage: query.stage, installerId: query.installerId, sort: query.sort, dir: query.dir },
+    { q: query.q?.trim(), stage: query.stage, installerId: query.installerId, sort: query.sort, dir: query.dir, cursor },
     signal,
   );
-  return body.jobs;
+  return { jobs: body.jobs, nextCursor: body.nextCursor ?? null, total: body.total ?? body.jobs.length };
 }
 
-export const jobsQueryOptions = (query: JobListQuery) =>
-  queryOptions({
+/**
+ * The jobs list, a page at a time (the server pages by cursor): `jobs` holds every page loaded so
+ * far, `loadMore()` fetches the next, `total` counts all matching jobs. A new search or order
+ * starts again from the first page.
+ */
+export function useJobs(query: JobListQuery) {
+  const q = useInfiniteQuery({
     queryKey: jobKeys.list(query),
-    queryFn: ({ signal }) => getJobs(query, signal),
+    queryFn: ({ signal, pageParam }) => getJobsPage(query, pageParam, signal),
+    initialPageParam: undefined as string | undefined,
+    getNextPageParam: (last) => last.nextCursor ?? undefined,
     placeholderData: keepPreviousData,
   });
-
-export function useJobs(query: JobListQuery) {
-  return useQuery(jobsQueryOptions(query));
+  const jobs = q.data?.pages.flatMap((p) => p.jobs);
+  return { ...q, jobs, total: q.data?.pages[0]?.total, loadMore: () => q.fetchNextPage() };
 }
