@@ -58,6 +58,9 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
   });
   await mailQueue.start();
   const storage = new DiskStorage(config.uploadDir);
+  // Half-written uploads of a process that died (kill -9, power loss) are never finished: drop them.
+  const orphans = await storage.removeTemporaryFiles();
+  if (orphans) console.warn(`[server] removed ${orphans} unfinished upload file(s) left by an earlier run`);
   const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });
   return {
     config,

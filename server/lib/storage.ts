@@ -58,4 +58,34 @@ export class DiskStorage implements Storage {
   async delete(key: string) {
     await fs.rm(this.resolve(key), { force: true });
   }
+
+  /**
+   * Deletes the temporary files `put` writes before renaming (`<name>.<pid>.<ms>.tmp`) that a
+   * crash or `kill -9` left behind. Call at start. Only files older than `olderThanMs` go, so a
+   * second server sharing the folder keeps the uploads it is writing. Returns how many went.
+   */
+  async removeTemporaryFiles(olderThanMs = 15 * 60_000): Promise<number> {
+    const before = Date.now() - olderThanMs;
+    let removed = 0;
+    const walk = async (dir: string): Promise<void> => {
+      let entries: import('node:fs').Dirent[];
+      try {
+        entries = await fs.readdir(dir, { withFileTypes: true });
+      } catch {
+        return; // no uploads folder yet
+      }
+      for (const e of entries) {
+        const p = path.join(dir, e.name);
+        if (e.isDirectory()) await walk(p);
+        else if (TMP_RE.test(e.name) && (await fs.stat(p)).mtimeMs < before) {
+          await fs.rm(p, { force: true });
+          removed++;
+        }
+      }
+    };
+    await walk(this.rootDir);
+    return removed;
+  }
 }
+
+const TMP_RE = /\.\d+\.\d+\.tmp$/;

@@ -143,4 +143,4 @@ it(`answers ${RUNS.toLocaleString('en-GB')} random and malformed plans with 2xx/
   expect(RUNS - fourxx).toBeGreaterThan(50);
   expect(slowest).toBeLessThan(TIME_LIMIT_MS * 3);
   console.log(`plan fuzz: ${JSON.stringify(Object.fromEntries(statuses))}, slowest answer ${Math.round(slowest)} ms`);
-}, 600_000);
+}, 1_200_000);

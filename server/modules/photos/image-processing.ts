@@ -1,5 +1,6 @@
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
+import { assertImagePixels, MAX_IMAGE_PIXELS } from '../../lib/uploads';
 
 /** Image types a photo may be, judged by the file's first bytes (never its name or the browser's claim). */
 export const ACCEPTED_IMAGE_MIME = ['image/jpeg', 'image/png', 'image/webp'] as const;
@@ -34,6 +35,7 @@ export async function processPhoto(bytes: Buffer): Promise<ProcessedImage> {
     const found = type ? `${type.ext} file` : 'file whose content is not an image';
     throw new ImageRejected('not_an_image', `That is a ${found}. Upload a photo (JPEG, PNG or WebP).`);
   }
+  await assertImagePixels(bytes, MAX_IMAGE_PIXELS.photo, 'photo');
   try {
     // rotate() with no angle turns the pixels upright from the EXIF orientation tag.
     const upright = sharp(bytes, { failOn: 'error' }).rotate();

@@ -1,9 +1,9 @@
-import { Router, type NextFunction, type Request, type Response } from 'express';
-import multer from 'multer';
+import { Router, type Request, type Response } from 'express';
 import { idParamsSchema } from '../../../shared/api/common';
 import { IDEMPOTENCY_HEADER, photoFieldsSchema } from '../../../shared/api/job-sheet';
 import type { AppDeps } from '../../deps';
-import { AppError, fieldError } from '../../lib/errors';
+import { fieldError } from '../../lib/errors';
+import { receiveFile } from '../../lib/uploads';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { validate, zodDetails } from '../../middleware/validate';
 import { ValidationError } from '../../lib/errors';
@@ -14,25 +14,15 @@ import { createPhotosService } from './photos.service';
 
 const MAX_MB = Math.round(PHOTO_MAX_BYTES / 1024 / 1024);
 
-/** multer in memory, one file in field `photo`; its limit errors become clear 413/422 answers. */
-function receivePhoto() {
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 10, fieldSize: 10_000 },
-  }).single('photo');
-  return (req: Request, res: Response, next: NextFunction) => {
-    upload(req, res, (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE')
-          return next(new AppError(413, 'photo_too_large', `The photo is larger than ${MAX_MB} MB. Take it at a lower resolution or pick a smaller file.`));
-        if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(fieldError('photo', 'send one photo, in the field "photo"'));
-        return next(new AppError(400, 'bad_upload', err.message));
-      }
-      next(err);
-    });
-  };
-}
+/** One file in field `photo`; its limit errors become clear 413/422 answers. */
+const receivePhoto = () =>
+  receiveFile({
+    field: 'photo',
+    maxBytes: PHOTO_MAX_BYTES,
+    fields: 10,
+    fieldSize: 10_000,
+    tooLarge: { code: 'photo_too_large', message: `The photo is larger than ${MAX_MB} MB. Take it at a lower resolution or pick a smaller file.` },
+  });
 
 /**
  * `jobPhotos`: POST /api/jobs/:id/photos (multipart), composed into the jobs router; `photos`:

@@ -1,10 +1,9 @@
-import { Router, type NextFunction, type Request, type Response } from 'express';
-import multer from 'multer';
+import { Router } from 'express';
 import { z } from 'zod';
 import { idSchema } from '../../../shared/api/common';
 import { restoreRevisionBodySchema, savePlanBodySchema } from '../../../shared/api/spaces';
 import type { AppDeps } from '../../deps';
-import { AppError, fieldError } from '../../lib/errors';
+import { receiveFile } from '../../lib/uploads';
 import { currentUser, requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
@@ -16,24 +15,13 @@ const params = z.object({ id: idSchema });
 const revParams = z.object({ id: idSchema, rev: z.coerce.number().int().min(1) });
 const fileParams = z.object({ id: idSchema, name: z.string().max(60) });
 
-/** multer in memory, one image in field `image`, size-limited; limit errors become clear answers. */
-function receiveImage() {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: BACKGROUND_MAX_BYTES, files: 1, fields: 5 } }).single('image');
-  return (req: Request, res: Response, next: NextFunction) => {
-    upload(req, res, (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE')
-          return next(
-            new AppError(413, 'image_too_large', `the underlay image is larger than ${BACKGROUND_MAX_BYTES / 1024 / 1024} MB; scan or export it smaller`),
-          );
-        if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(fieldError('image', 'send one image, in the field "image"'));
-        return next(new AppError(400, 'bad_upload', err.message));
-      }
-      next(err);
-    });
-  };
-}
+/** One image in field `image`, size-limited; every upload error a clear answer. */
+const receiveImage = () =>
+  receiveFile({
+    field: 'image',
+    maxBytes: BACKGROUND_MAX_BYTES,
+    tooLarge: { code: 'image_too_large', message: `the underlay image is larger than ${BACKGROUND_MAX_BYTES / 1024 / 1024} MB; scan or export it smaller` },
+  });
 
 /**
  * The plan of a space and its revisions (mounted at /api/spaces beside the spaces router):

@@ -6,6 +6,7 @@ import { readStoredTakeoff, takeoffWithoutPrices } from '../../../shared/takeoff
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { AppError, ValidationError } from '../../lib/errors';
+import { assertImagePixels, MAX_IMAGE_PIXELS } from '../../lib/uploads';
 import { checkPlanShapeOr422, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
 import { companyTakeoffInputs, storePlanRevision, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
@@ -109,6 +110,8 @@ export function createPlansService(deps: AppDeps) {
       const type = await fileTypeFromBuffer(file.buffer);
       const ext = type ? IMAGE_TYPES[type.mime] : undefined;
       if (!ext) throw new AppError(415, 'unsupported_image', 'the underlay must be a PNG, JPEG, WebP or GIF image');
+      // The browser decodes the underlay at full size: refuse decompression bombs by their header.
+      await assertImagePixels(file.buffer, MAX_IMAGE_PIXELS.underlay, 'underlay image');
       const name = `${randomUUID()}.${ext}`;
       await storage.put(`${actor.organisationId}/plan-backgrounds/${space.id}/${name}`, file.buffer);
       return { url: `/api/spaces/${space.id}/background/${name}`, bytes: file.buffer.length };

@@ -8,6 +8,7 @@ import { Extra } from '../../db/models/extra';
 import { Product } from '../../db/models/product';
 import { TaxRate } from '../../db/models/tax-rate';
 import { BadRequestError, NotFoundError } from '../../lib/errors';
+import { assertImagePixels, MAX_IMAGE_PIXELS } from '../../lib/uploads';
 import type { Storage } from '../../lib/storage';
 import type { SessionUser } from '../../types';
 import { DEFAULT_TAX_RATES, DEMO_EXTRAS, DEMO_PRODUCTS, defaultCompanySettings } from './settings.defaults';
@@ -115,6 +116,8 @@ export function createSettingsService(storage: Storage) {
       if (!file) throw new BadRequestError('attach the logo as a PNG or JPEG file in the "logo" field', 'file_missing');
       const type = await sniffImage(file.buffer);
       if (!type) throw new BadRequestError('the logo must be a PNG or JPEG image', 'unsupported_type');
+      // pdfkit decodes the logo into every quote and invoice PDF: a pixel bomb would stall them all.
+      await assertImagePixels(file.buffer, MAX_IMAGE_PIXELS.logo, 'logo');
       const row = await ensureCompanySettings(actor.organisationId);
       const key = `${actor.organisationId}/logo/logo.${LOGO_TYPES[type]}`;
       await storage.put(key, file.buffer);
