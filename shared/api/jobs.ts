@@ -79,9 +79,9 @@ export type Job = z.infer<typeof jobSchema>;
 
 /**
  * GET /api/jobs: one page of the list, in the order asked. `nextCursor` is null on the last page;
- * `total` counts every job matching the search and filters.
+ * `count` counts every job matching the search and filters.
  */
-export const jobListPageSchema = z.object({ jobs: z.array(jobSchema), nextCursor: z.string().nullable(), total: z.number().int() });
+export const jobListPageSchema = z.object({ jobs: z.array(jobSchema), nextCursor: z.string().nullable(), count: z.number().int() });
 export type JobListPage = z.infer<typeof jobListPageSchema>;
 
 /** One entry of a job's timeline (GET /api/jobs/:id/events), oldest first. */

@@ -45,7 +45,7 @@ describe('GET /api/jobs paging', () => {
     'pages of 3 by $sort $dir add up to the whole list, in its order, each job once',
     async ({ sort, dir }) => {
       const whole = await office.get('/api/jobs').query({ sort, dir, limit: 100 });
-      expect(whole.body.total).toBe(7);
+      expect(whole.body.count).toBe(7);
       expect(whole.body.nextCursor).toBeNull();
       const { ids, pages } = await allPages({ sort, dir });
       expect(pages).toBe(3);
@@ -65,7 +65,7 @@ describe('GET /api/jobs paging', () => {
 
   it('searches across pages: total counts the matches, pages hold only matches', async () => {
     const res = await office.get('/api/jobs').query({ q: 'north', limit: 1 });
-    expect(res.body.total).toBe(2);
+    expect(res.body.count).toBe(2);
     expect(res.body.jobs).toHaveLength(1);
     const next = await office.get('/api/jobs').query({ q: 'north', limit: 1, cursor: res.body.nextCursor });
     expect(next.body.jobs[0].customer.name).toMatch(/North/);

@@ -107,7 +107,7 @@ export function createJobsService(deps: AppDeps) {
       }
       const limit = Number(query.limit ?? JOB_PAGE_DEFAULT);
       const keyset = keysetFor(sequelize, query);
-      const total = await Job.count({ where: where as WhereOptions<Job>, include: [{ model: Customer, as: 'customer', attributes: [] }] });
+      const count = await Job.count({ where: where as WhereOptions<Job>, include: [{ model: Customer, as: 'customer', attributes: [] }] });
       const rows = await Job.findAll({
         where: (keyset.after ? { [Op.and]: [where, keyset.after] } : where) as WhereOptions<Job>,
         attributes: { include: [keyset.attribute] },
@@ -118,7 +118,7 @@ export function createJobsService(deps: AppDeps) {
       const page = rows.slice(0, limit);
       const last = page[page.length - 1];
       const nextCursor = rows.length > limit ? encodeCursor(keyset.sort, keyset.dir, last.get('listKey'), last.id) : null;
-      return { jobs: await toDtos(page, actor), nextCursor, total };
+      return { jobs: await toDtos(page, actor), nextCursor, count };
     },
 
     async get(actor: SessionUser, id: string): Promise<JobDto> {

@@ -7,7 +7,7 @@ import { jobKeys } from './keys';
 export type JobListItem = Omit<Job, 'spaces'> & { spaces?: Job['spaces'] };
 
 /** One page of GET /api/jobs; `nextCursor` null on the last page. */
-export type JobsPage = { jobs: JobListItem[]; nextCursor: string | null; total: number };
+export type JobsPage = { jobs: JobListItem[]; nextCursor: string | null; count: number };
 
 export async function getJobsPage(query: JobListQuery, cursor: string | undefined, signal?: AbortSignal): Promise<JobsPage> {
   const body = await api.get<Partial<JobsPage> & { jobs: JobListItem[] }>(
@@ -15,12 +15,12 @@ export async function getJobsPage(query: JobListQuery, cursor: string | undefine
     { q: query.q?.trim(), stage: query.stage, installerId: query.installerId, sort: query.sort, dir: query.dir, cursor },
     signal,
   );
-  return { jobs: body.jobs, nextCursor: body.nextCursor ?? null, total: body.total ?? body.jobs.length };
+  return { jobs: body.jobs, nextCursor: body.nextCursor ?? null, count: body.count ?? body.jobs.length };
 }
 
 /**
  * The jobs list, a page at a time (the server pages by cursor): `jobs` holds every page loaded so
- * far, `loadMore()` fetches the next, `total` counts all matching jobs. A new search or order
+ * far, `loadMore()` fetches the next, `total` counts all matching jobs (the API's `count`). A new search or order
  * starts again from the first page.
  */
 export function useJobs(query: JobListQuery) {
@@ -32,5 +32,5 @@ export function useJobs(query: JobListQuery) {
     placeholderData: keepPreviousData,
   });
   const jobs = q.data?.pages.flatMap((p) => p.jobs);
-  return { ...q, jobs, total: q.data?.pages[0]?.total, loadMore: () => q.fetchNextPage() };
+  return { ...q, jobs, total: q.data?.pages[0]?.count, loadMore: () => q.fetchNextPage() };
 }
