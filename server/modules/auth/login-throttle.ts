@@ -65,11 +65,17 @@ export class BackoffThrottle {
 
 export const FORGET_AFTER_MS = 15 * 60_000;
 
-/** The two throttles of the sign-in route; `limit` is LOGIN_RATE_LIMIT (free failures per account, at most 5; × 5 per address). */
-export function loginThrottles(limit: number, now: () => number = Date.now) {
+/** The rules of the sign-in route; `limit` is LOGIN_RATE_LIMIT (free failures per account, at most 5; × 5 per address). */
+export function loginRules(limit: number): { account: ThrottleRule; address: ThrottleRule } {
   return {
-    account: new BackoffThrottle({ freeFailures: Math.min(5, limit), baseDelayMs: 1000, maxDelayMs: 30_000, forgetAfterMs: FORGET_AFTER_MS }, now),
+    account: { freeFailures: Math.min(5, limit), baseDelayMs: 1000, maxDelayMs: 30_000, forgetAfterMs: FORGET_AFTER_MS },
     // An office shares one address: it gets five times the room before everyone there waits.
-    address: new BackoffThrottle({ freeFailures: limit * 5, baseDelayMs: 1000, maxDelayMs: 60_000, forgetAfterMs: FORGET_AFTER_MS }, now),
+    address: { freeFailures: limit * 5, baseDelayMs: 1000, maxDelayMs: 60_000, forgetAfterMs: FORGET_AFTER_MS },
   };
+}
+
+/** The two throttles of the sign-in route in memory, with a clock of their own (the server keeps them in PostgreSQL: login-limits-pg.ts). */
+export function loginThrottles(limit: number, now: () => number = Date.now) {
+  const rules = loginRules(limit);
+  return { account: new BackoffThrottle(rules.account, now), address: new BackoffThrottle(rules.address, now) };
 }
