@@ -1,8 +1,12 @@
+import path from 'node:path';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { JobPhoto } from '../../server/db/models';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { filesUnder, priceKeyPaths, rotatedJpeg, scheduledJobWithTakeoff } from './job-sheet-fixtures';
+
+/** The company's photo folder: the data folder also holds files of its own (the local payments secret). */
+const photosDir = () => path.join(ctx.config.uploadDir, org.id, 'photos');
 
 let ctx: TestContext;
 let org: TestOrg;
@@ -46,13 +50,13 @@ describe('POST /api/jobs/:id/photos', () => {
     expect(again.status).toBe(201);
     expect(again.body.photo.id).toBe(res.body.photo.id);
     expect(await JobPhoto.count({ where: { jobId: job.id } })).toBe(1);
-    expect(filesUnder(ctx.config.uploadDir)).toHaveLength(2);
+    expect(filesUnder(photosDir())).toHaveLength(2);
   });
 
   it('refuses a text file renamed .jpg, and stores nothing', async () => {
     const { job, space } = await scheduledJobWithTakeoff(org);
     const agent = await loginAs(ctx.app, org.installer);
-    const before = filesUnder(ctx.config.uploadDir).length;
+    const before = filesUnder(photosDir()).length;
     const res = await agent
       .post(`/api/jobs/${job.id}/photos`)
       .field('spaceId', space.id)
@@ -62,13 +66,13 @@ describe('POST /api/jobs/:id/photos', () => {
     expect(res.body.error.code).toBe('not_an_image');
     expect(res.body.error.message).toMatch(/JPEG, PNG or WebP/);
     expect(await JobPhoto.count({ where: { jobId: job.id } })).toBe(0);
-    expect(filesUnder(ctx.config.uploadDir)).toHaveLength(before);
+    expect(filesUnder(photosDir())).toHaveLength(before);
   });
 
   it('refuses an image over the size limit with a clear message, and stores nothing', async () => {
     const { job, space } = await scheduledJobWithTakeoff(org);
     const agent = await loginAs(ctx.app, org.installer);
-    const before = filesUnder(ctx.config.uploadDir).length;
+    const before = filesUnder(photosDir()).length;
     // A real JPEG header followed by padding: 16 MB, over the 15 MB limit.
     const big = Buffer.concat([await rotatedJpeg(), Buffer.alloc(16 * 1024 * 1024)]);
     const res = await agent
@@ -80,7 +84,7 @@ describe('POST /api/jobs/:id/photos', () => {
     expect(res.body.error.code).toBe('photo_too_large');
     expect(res.body.error.message).toMatch(/15 MB/);
     expect(await JobPhoto.count({ where: { jobId: job.id } })).toBe(0);
-    expect(filesUnder(ctx.config.uploadDir)).toHaveLength(before);
+    expect(filesUnder(photosDir())).toHaveLength(before);
   });
 
   it('needs the photo, a space of this job and a stage', async () => {
