@@ -4,6 +4,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { AppDeps } from './deps';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { requestLog } from './middleware/request-log';
 import { sameOrigin } from './middleware/same-origin';
 import { createSessionStack } from './middleware/session';
 import { createAuthService } from './modules/auth/auth.service';
@@ -42,6 +43,7 @@ export function createApp(deps: AppDeps): Express {
   app.set('query parser', 'extended');
 
   app.use(helmet());
+  app.use(requestLog(deps.logger));
   // Services shared by several routers are built once here.
   const payments = createPaymentsService(deps);
   const invoices = createInvoicesService(deps, payments);

@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import { createSequelize } from './db/sequelize';
 import { FakeSmtp, type Outbox } from './lib/fake-smtp';
+import { createLogger, type Logger } from './lib/logger';
 import { createSmtpMailer, type Mailer } from './lib/mailer';
 import { createMailQueue, type MailQueue } from './modules/mail/mail-queue';
 import { DiskStorage, type Storage } from './lib/storage';
@@ -11,6 +12,8 @@ import { createPlanPool, type PlanPool } from './lib/takeoff-pool';
 /** Everything createApp needs from the outside world; tests build their own. */
 export interface AppDeps {
   config: Config;
+  /** Structured JSON log (pino); one line per request from request-log.ts. */
+  logger: Logger;
   sequelize: Sequelize;
   /** A pg pool for the session store. */
   pool: pg.Pool;
@@ -64,6 +67,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
   const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });
   return {
     config,
+    logger: createLogger({ level: config.logLevel }),
     sequelize,
     pool,
     mailer: mailQueue.mailer,

@@ -41,6 +41,8 @@ const envSchema = z
     SEED_DEMO: z.string().optional(),
     LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(20),
     LOG_SQL: bool(false),
+    /** pino level: fatal, error, warn, info (default), debug, trace or silent (the tests' default). */
+    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
     BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).optional(),
     /** Worker threads for plan checks and takeoffs (default: CPUs − 1, 1 to 4). */
     TAKEOFF_WORKERS: z.coerce.number().int().min(1).max(16).optional(),
@@ -82,6 +84,7 @@ export interface Config {
   seedDemo: boolean;
   loginRateLimit: number;
   logSql: boolean;
+  logLevel: string;
   /** bcrypt cost; 10 by default, 4 in tests (speed only: the algorithm is the same). */
   bcryptRounds: number;
   takeoffWorkers?: number;
@@ -122,6 +125,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     seedDemo: e.SEED_DEMO === undefined ? e.NODE_ENV !== 'production' : ['1', 'true', 'yes'].includes(e.SEED_DEMO),
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     logSql: e.LOG_SQL,
+    logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
     bcryptRounds: e.BCRYPT_ROUNDS ?? (e.NODE_ENV === 'test' ? 4 : 10),
     pruneSessions: e.NODE_ENV !== 'test',
     takeoffWorkers: e.TAKEOFF_WORKERS,

@@ -1,0 +1,33 @@
+import { randomUUID } from 'node:crypto';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import type { Request } from 'express';
+import { pinoHttp } from 'pino-http';
+import { redactUrl } from '../lib/log-redact';
+import type { Logger } from '../lib/logger';
+
+const REQUEST_ID = /^[\w.-]{1,100}$/;
+
+/**
+ * One log line per request: id (the proxy's X-Request-Id when it sends a sane one, else a new
+ * UUID, echoed back), method, path with private tokens redacted, status, time, and who asked
+ * (user and organisation ids; nothing else about them).
+ */
+export function requestLog(logger: Logger) {
+  return pinoHttp({
+    logger,
+    genReqId(req: IncomingMessage, res: ServerResponse) {
+      const given = req.headers['x-request-id'];
+      const id = typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID();
+      res.setHeader('X-Request-Id', id);
+      return id;
+    },
+    customProps(req: IncomingMessage) {
+      const user = (req as Request).user;
+      return user ? { userId: user.id, organisationId: user.organisationId } : {};
+    },
+    serializers: {
+      req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: redactUrl(req.url) }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+    },
+  });
+}
