@@ -12,7 +12,6 @@ const SOURCE = /\.(ts|tsx|mts|cts|js|mjs|cjs|css)$/;
 // Files still over the limit on main, with the length they may not exceed; they are being split.
 // This list may only shrink: a file listed here that is back under the limit fails until its line is deleted.
 const TOLERATED = {
-  'server/modules/invoices/invoices.service.ts': 507,
 };
 
 function listFiles(dir) {
