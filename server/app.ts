@@ -13,16 +13,21 @@ import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { customersRouter } from './modules/customers/customers.router';
 import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { handoverRouter } from './modules/handover/handover.router';
+import { createHandoverService } from './modules/handover/handover.service';
 import { mailRouter } from './modules/mail/mail.router';
 import { healthRouter } from './modules/health/health.router';
 import { invoicesRouter } from './modules/invoices/invoices.router';
 import { createInvoicesService } from './modules/invoices/invoices.service';
+import { createJobSheetExportService } from './modules/job-sheet/job-sheet-export.service';
 import { jobSheetRouters } from './modules/job-sheet/job-sheet.router';
+import { createJobSheetService } from './modules/job-sheet/job-sheet.service';
+import { createSiteRecordsService } from './modules/job-sheet/site-records.service';
 import { jobsRouter } from './modules/jobs/jobs.router';
 import { payRouter } from './modules/payments/pay.router';
 import { paymentsRouter, paymentsWebhookRouter } from './modules/payments/payments.router';
 import { createPaymentsService } from './modules/payments/payments.service';
 import { photosRouters } from './modules/photos/photos.router';
+import { createPhotosService } from './modules/photos/photos.service';
 import { plansRouter } from './modules/plans/plans.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
@@ -54,8 +59,11 @@ export function createApp(deps: AppDeps): Express {
   const auth = createAuthService(deps);
   const { handlers: sessionHandlers, passport } = createSessionStack(deps, auth);
   const spaces = spacesRouters(deps);
-  const sheets = jobSheetRouters(deps);
-  const photos = photosRouters(deps);
+  const photoService = createPhotosService(deps);
+  const records = createSiteRecordsService(deps);
+  const sheetService = createJobSheetService(records, photoService);
+  const sheets = jobSheetRouters(deps, { sheets: sheetService, records, exports: createJobSheetExportService(deps, sheetService) });
+  const photos = photosRouters(deps, photoService);
 
   // Health answers without a session (load balancers probe it).
   app.use('/api/health', healthRouter(deps));
@@ -65,7 +73,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/users', usersRouter(deps, auth));
   app.use('/api/customers', customersRouter(deps));
   // One router on /api/jobs; the other modules' routes about one job are composed into it.
-  app.use('/api/jobs', jobsRouter(deps, [spaces.jobSpaces, jobQuotesRouter(deps), sheets.jobSheet, photos.jobPhotos, handoverRouter(deps)]));
+  app.use(
+    '/api/jobs',
+    jobsRouter(deps, [spaces.jobSpaces, jobQuotesRouter(deps), sheets.jobSheet, photos.jobPhotos, handoverRouter(deps, createHandoverService(deps))]),
+  );
   app.use('/api/my-jobs', sheets.myJobs);
   app.use('/api/spaces', spaces.spaces);
   app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay

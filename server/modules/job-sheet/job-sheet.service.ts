@@ -1,12 +1,11 @@
 import { Op } from 'sequelize';
 import type { JobSheet, MyJob } from '../../../shared/api/job-sheet';
-import type { AppDeps } from '../../deps';
 import { Customer, Job, Space } from '../../db/models';
 import { JobCompletion } from '../../db/models';
 import type { SessionUser } from '../../types';
-import { createPhotosService } from '../photos/photos.service';
+import type { PhotosService } from '../photos/photos.service';
 import { findSheetJob } from '../jobs/job-access';
-import { createSiteRecordsService } from './site-records.service';
+import type { SiteRecordsService } from './site-records.service';
 import { loadCatalogue } from '../catalogue/catalogue.service';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { loadCompanySettings } from '../settings/settings.service';
@@ -21,10 +20,8 @@ export const SHEET_CAUTIONS = [
   'Local building regulations, electrical rules and licensed practice come first: where they say otherwise, follow them.',
 ];
 
-export function createJobSheetService(deps: Pick<AppDeps, 'sequelize' | 'storage'>) {
-  const records = createSiteRecordsService(deps);
-  const photos = createPhotosService(deps);
-
+/** Reads the sheet through the site-records and photos services built once by createApp. */
+export function createJobSheetService(records: SiteRecordsService, photos: PhotosService) {
   return {
     /** Everything the installer needs on site, built field by field: no price, cost or margin can be in it. */
     async sheet(user: SessionUser, jobId: string): Promise<JobSheet> {

@@ -29,6 +29,15 @@ export type PhotoInput = { bytes: Buffer; spaceId: string; stage: PhotoStage; ca
 
 export function createPhotosService(deps: Pick<AppDeps, 'storage'>) {
   const { storage } = deps;
+
+  /** The storage key of a photo (or its thumbnail) the user may see. */
+  async function fileKey(user: SessionUser, photoId: string, thumb: boolean): Promise<string> {
+    const photo = await JobPhoto.findOne({ where: { id: photoId, organisationId: user.organisationId } });
+    if (!photo) throw new NotFoundError('photo');
+    await findSheetJob(user, photo.jobId);
+    return thumb ? photo.thumbKey : photo.storageKey;
+  }
+
   return {
     /**
      * Checks the image by its content, makes the upright copy and the thumbnail, stores both, and
@@ -78,13 +87,17 @@ export function createPhotosService(deps: Pick<AppDeps, 'storage'>) {
       await Promise.all(keys.map((k) => storage.delete(k).catch(() => undefined)));
     },
 
-    /** The storage key of a photo (or its thumbnail) the user may see. */
-    async fileKey(user: SessionUser, photoId: string, thumb: boolean): Promise<string> {
-      const photo = await JobPhoto.findOne({ where: { id: photoId, organisationId: user.organisationId } });
-      if (!photo) throw new NotFoundError('photo');
-      await findSheetJob(user, photo.jobId);
-      return thumb ? photo.thumbKey : photo.storageKey;
+    /** Refuses (404/403/409 as job-access says) when the job is not one the user may record on. */
+    async assertWorkable(user: SessionUser, jobId: string): Promise<void> {
+      await findWorkableJob(user, jobId);
     },
+
+    /** The bytes of a photo (or its thumbnail) the user may see. */
+    async file(user: SessionUser, photoId: string, thumb: boolean): Promise<Buffer> {
+      return storage.get(await fileKey(user, photoId, thumb));
+    },
+
+    fileKey,
 
     async list(jobId: string, t?: Transaction): Promise<JobPhotoDto[]> {
       const rows = await JobPhoto.findAll({ where: { jobId }, include: [{ model: User, as: 'user' }], order: [['takenAt', 'ASC']], transaction: t });
