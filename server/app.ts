@@ -10,6 +10,7 @@ import { createSessionStack } from './middleware/session';
 import { createAuthService } from './modules/auth/auth.service';
 import { authRouter } from './modules/auth/auth.router';
 import { catalogueRouter } from './modules/catalogue/catalogue.router';
+import { createCatalogueService } from './modules/catalogue/catalogue.service';
 import { customersRouter } from './modules/customers/customers.router';
 import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { handoverRouter } from './modules/handover/handover.router';
@@ -32,7 +33,9 @@ import { plansRouter } from './modules/plans/plans.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
 import { scheduleRouter } from './modules/schedule/schedule.router';
+import { createScheduleService } from './modules/schedule/schedule.service';
 import { settingsRouter } from './modules/settings/settings.router';
+import { createSettingsService } from './modules/settings/settings.service';
 import { spacesRouters } from './modules/spaces/spaces.router';
 import { usersRouter } from './modules/users/users.router';
 
@@ -82,9 +85,9 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay
   app.use('/api/photos', photos.photos);
   app.use('/api/mail', mailRouter(deps)); // e-mail status, resend a failed one
-  app.use('/api/schedule', scheduleRouter(deps)); // week view, booking, install settings
-  app.use('/api/settings', settingsRouter(deps)); // company settings, logo
-  app.use('/api/catalogue', catalogueRouter(deps)); // products, extras, tax rates
+  app.use('/api/schedule', scheduleRouter(createScheduleService(deps))); // week view, booking, install settings
+  app.use('/api/settings', settingsRouter(createSettingsService(deps.storage))); // company settings, logo
+  app.use('/api/catalogue', catalogueRouter(createCatalogueService())); // products, extras, tax rates
   app.use('/api/quotes', quotesRouter(deps)); // quotes, send, PDF/CSV/XLSX
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // the customer's private link (no sign-in)
   app.use('/api/payments', paymentsRouter(deps, payments));

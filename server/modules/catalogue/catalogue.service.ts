@@ -103,8 +103,12 @@ function crud<M extends Model, D>({ model, what, toDto }: Resource<M, D>) {
   };
 }
 
-export const catalogueServices = {
-  products: crud({ model: Product, what: 'product', toDto: toProductDto }),
-  extras: crud({ model: Extra, what: 'extra', toDto: toExtraDto }),
-  'tax-rates': crud({ model: TaxRate, what: 'tax rate', toDto: toTaxRateDto }),
-};
+/** One CRUD service per catalogue table, keyed by its path segment under /api/catalogue. */
+export function createCatalogueService() {
+  return {
+    products: crud({ model: Product, what: 'product', toDto: toProductDto }),
+    extras: crud({ model: Extra, what: 'extra', toDto: toExtraDto }),
+    'tax-rates': crud({ model: TaxRate, what: 'tax rate', toDto: toTaxRateDto }),
+  };
+}
+export type CatalogueService = ReturnType<typeof createCatalogueService>;

@@ -57,6 +57,12 @@ export function createScheduleService(deps: Pick<AppDeps, 'sequelize' | 'mailer'
   }
 
   return {
+    installSettings(actor: SessionUser) {
+      return loadInstallSettings(actor.organisationId);
+    },
+    updateInstallSettings(actor: SessionUser, patch: Partial<InstallSettings>) {
+      return updateInstallSettings(actor.organisationId, patch);
+    },
     /** The week from `weekStart`'s Monday: installers, their booked jobs, accepted jobs to book, and day loads. */
     async week(user: SessionUser, weekStart?: string): Promise<ScheduleWeek> {
       const monday = mondayOf(weekStart ?? todayIso());
