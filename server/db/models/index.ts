@@ -28,7 +28,7 @@ import { TaxRate } from './tax-rate';
 import { User } from './user';
 
 export type { AuthTokenPurpose } from './auth-token';
-export type { MailStatus, StoredAttachment } from './mail-message';
+export type { MailStatus } from './mail-message';
 export {
   AuthToken,
   CompanySetting,
