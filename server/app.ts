@@ -31,7 +31,10 @@ import { photosRouters } from './modules/photos/photos.router';
 import { createPhotosService } from './modules/photos/photos.service';
 import { plansRouter } from './modules/plans/plans.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
+import { createQuoteFilesService } from './modules/quotes/quote-files.service';
+import { createQuoteSendService } from './modules/quotes/quote-send.service';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
+import { createQuotesService } from './modules/quotes/quotes.service';
 import { scheduleRouter } from './modules/schedule/schedule.router';
 import { createScheduleService } from './modules/schedule/schedule.service';
 import { settingsRouter } from './modules/settings/settings.router';
@@ -55,6 +58,7 @@ export function createApp(deps: AppDeps): Express {
   // Services shared by several routers are built once here.
   const payments = createPaymentsService(deps);
   const invoices = createInvoicesService(deps, payments);
+  const quotes = { quotes: createQuotesService(deps), send: createQuoteSendService(deps), files: createQuoteFilesService(deps) };
   // The webhook verifies a signature over the raw body, so it sits before the JSON parser.
   app.use('/api/payments/webhook', paymentsWebhookRouter(deps, payments));
   app.use(express.json({ limit: '5mb' }));
@@ -78,7 +82,7 @@ export function createApp(deps: AppDeps): Express {
   // One router on /api/jobs; the other modules' routes about one job are composed into it.
   app.use(
     '/api/jobs',
-    jobsRouter(deps, [spaces.jobSpaces, jobQuotesRouter(deps), sheets.jobSheet, photos.jobPhotos, handoverRouter(deps, createHandoverService(deps))]),
+    jobsRouter(deps, [spaces.jobSpaces, jobQuotesRouter(quotes), sheets.jobSheet, photos.jobPhotos, handoverRouter(deps, createHandoverService(deps))]),
   );
   app.use('/api/my-jobs', sheets.myJobs);
   app.use('/api/spaces', spaces.spaces);
@@ -88,7 +92,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/schedule', scheduleRouter(createScheduleService(deps))); // week view, booking, install settings
   app.use('/api/settings', settingsRouter(createSettingsService(deps.storage))); // company settings, logo
   app.use('/api/catalogue', catalogueRouter(createCatalogueService())); // products, extras, tax rates
-  app.use('/api/quotes', quotesRouter(deps)); // quotes, send, PDF/CSV/XLSX
+  app.use('/api/quotes', quotesRouter(quotes)); // quotes, send, PDF/CSV/XLSX
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // the customer's private link (no sign-in)
   app.use('/api/payments', paymentsRouter(deps, payments));
   app.use('/api/invoices', invoicesRouter(deps, invoices));

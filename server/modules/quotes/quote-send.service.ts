@@ -104,3 +104,4 @@ export function createQuoteSendService(deps: AppDeps) {
     },
   };
 }
+export type QuoteSendService = ReturnType<typeof createQuoteSendService>;
