@@ -11,8 +11,7 @@ const SOURCE = /\.(ts|tsx|mts|cts|js|mjs|cjs|css)$/;
 
 // Files still over the limit on main, with the length they may not exceed; they are being split.
 // This list may only shrink: a file listed here that is back under the limit fails until its line is deleted.
-const TOLERATED = {
-};
+const TOLERATED = {};
 
 function listFiles(dir) {
   if (!fs.existsSync(dir)) return [];

@@ -6,7 +6,8 @@ import { REPO_ROOT } from './pg.mjs';
 
 const SOURCES = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'package.json'];
 
-function newestMtime(p) {
+/** The newest modification time under a file or folder (ms), 0 when it does not exist; the build scripts' staleness test. */
+export function newestMtime(p) {
   if (!fs.existsSync(p)) return 0;
   const st = fs.statSync(p);
   if (!st.isDirectory()) return st.mtimeMs;

@@ -4,21 +4,13 @@
 // Rebuilds only when dist-server/ is missing or older than its sources.
 import fs from 'node:fs';
 import path from 'node:path';
+import { newestMtime } from './client-build.mjs';
 import { REPO_ROOT } from './pg.mjs';
 
 const OUT_DIR = path.join(REPO_ROOT, 'dist-server');
 const ENTRIES = { index: 'server/index.ts', 'fake-payments': 'scripts/fake-payments.ts' };
 const SOURCES = ['server', 'shared', 'scripts/fake-payments.ts', 'scripts/server-build.mjs', 'package.json', 'tsconfig.json'];
 const STAMP = path.join(OUT_DIR, '.built');
-
-function newestMtime(p) {
-  if (!fs.existsSync(p)) return 0;
-  const st = fs.statSync(p);
-  if (!st.isDirectory()) return st.mtimeMs;
-  let newest = st.mtimeMs;
-  for (const e of fs.readdirSync(p)) newest = Math.max(newest, newestMtime(path.join(p, e)));
-  return newest;
-}
 
 /** Whether dist-server/ is missing or older than any server source. */
 export function serverIsStale() {
