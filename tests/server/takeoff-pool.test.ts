@@ -69,14 +69,19 @@ describe('the takeoff worker pool', () => {
       expect(h.status).toBe(200);
     }
     const r = await heavy;
-    expect(r.status).toBe(422);
-    expect(r.body.error.code).toBe('plan_too_complex');
-    expect(r.body.error.message).toMatch(/longer than 0.7 s/);
+    // How long the heavy plan takes depends on the machine (0.2–2 s seen): stopped at the limit it is
+    // a 422 that stores nothing; finished inside it, a new revision. The stop itself is pinned down
+    // by the next test with a limit no plan can meet.
+    if (r.status === 422) {
+      expect(r.body.error.code).toBe('plan_too_complex');
+      expect(r.body.error.message).toMatch(/longer than 0.7 s/);
+    } else expect(r.status).toBe(201);
+    const revisions = r.status === 422 ? 1 : 2;
     expect(waits.length).toBeGreaterThan(2);
     expect(Math.max(...waits)).toBeLessThan(1_000);
-    expect(await PlanRevision.count({ where: { spaceId: space.id } })).toBe(1);
-    // The stopped worker is replaced: the next plan is worked out as usual.
-    expect((await put(rectangle(), 1)).status).toBe(201);
+    expect(await PlanRevision.count({ where: { spaceId: space.id } })).toBe(revisions);
+    // A stopped worker is replaced: the next plan is worked out as usual.
+    expect((await put(rectangle(), revisions)).status).toBe(201);
   });
 
   it('rejects a task past its time limit with PlanTimeoutError, and runs the next one', async () => {
@@ -84,7 +89,8 @@ describe('the takeoff worker pool', () => {
     try {
       const ok = await pool.run({ kind: 'validate', plan: rectangle() });
       expect(ok.ok).toBe(true);
-      const tight = createPlanPool({ threads: 1, timeLimitMs: 200 });
+      // 1 ms: no takeoff of a 500-corner, 300-exclusion plan finishes that fast (the worker's start-up is not counted).
+      const tight = createPlanPool({ threads: 1, timeLimitMs: 1 });
       await expect(tight.run({ kind: 'takeoff', plan: planAtTheLimits(), products: [], settings: {} })).rejects.toBeInstanceOf(PlanTimeoutError);
       await tight.close();
       const again = await pool.run({ kind: 'validate', plan: { format: 'quiltline-plan/1' } });
