@@ -137,7 +137,8 @@ describe('foundation in a real browser', () => {
     await page.getByText(`Invitation sent to ${email}`).waitFor();
 
     await page.goto(`${app.url}/outbox`);
-    const message = page.getByRole('listitem').filter({ hasText: `to ${email}` });
+    // The caught copy, not its line in the sending-status list above it.
+    const message = page.getByRole('list', { name: 'Caught e-mails' }).getByRole('listitem').filter({ hasText: `to ${email}` });
     const link = message.getByRole('link', { name: /\/set-password\?token=/ });
     // The newest message opens by itself; open it if something newer arrived in between.
     await message.waitFor();

@@ -7,7 +7,7 @@ import { LinkifiedText } from './linkified-text';
 export function OutboxList({ messages }: { messages: OutboxMessage[] }) {
   const [open, setOpen] = useState<number | null>(messages[0]?.id ?? null);
   return (
-    <ul className="flex flex-col gap-2">
+    <ul className="flex flex-col gap-2" aria-label="Caught e-mails">
       {messages.map((m) => {
         const isOpen = open === m.id;
         return (
