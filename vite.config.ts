@@ -9,7 +9,7 @@ export default defineConfig({
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),
     host: '127.0.0.1',
-    // /pay: the customer's payment pages (payments engineer), served by the API like /q.
+    // /q and /pay: the customer's quote and payment pages, served by the API.
     proxy: { '/api': `http://127.0.0.1:${apiPort}`, '/q': `http://127.0.0.1:${apiPort}`, '/pay': `http://127.0.0.1:${apiPort}` },
   },
   build: { outDir: 'dist', sourcemap: false, chunkSizeWarningLimit: 800 },

@@ -1,6 +1,5 @@
 import { z } from 'zod';
-import { roleSchema } from '../auth/roles';
-import { emailSchema, passwordSchema } from './common';
+import { emailSchema, passwordSchema, roleSchema } from './common';
 
 export const loginBodySchema = z.object({ email: emailSchema, password: z.string().min(1, { error: 'enter your password' }).max(200) });
 export type LoginBody = z.infer<typeof loginBodySchema>;

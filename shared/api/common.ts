@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ROLES } from '../auth/roles';
 
 /** Database ids are UUID strings. */
 export const idSchema = z.uuid();
@@ -19,3 +20,6 @@ export const emailSchema = z
   .max(254)
   .transform((s) => s.toLowerCase());
 export const passwordSchema = z.string().min(10, { error: 'use at least 10 characters' }).max(200);
+
+/** One of the company roles (shared/auth/roles.ts). */
+export const roleSchema = z.enum(ROLES);

@@ -1,6 +1,5 @@
 import { z } from 'zod';
-import { roleSchema } from '../auth/roles';
-import { emailSchema } from './common';
+import { emailSchema, roleSchema } from './common';
 
 export const userSchema = z.object({
   id: z.string(),

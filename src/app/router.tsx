@@ -6,7 +6,6 @@ import { jobQueryOptions } from '../features/jobs/api/get-job';
 import { LoadingState } from '../components/ui';
 import { RouteErrorPage } from './error-boundary';
 import { RequireAuth } from './require-auth';
-import SignInPage from './routes/sign-in';
 
 /** Wraps a lazily loaded page so its chunk loads behind a spinner. */
 function page(Component: LazyExoticComponent<ComponentType>) {
@@ -17,7 +16,9 @@ function page(Component: LazyExoticComponent<ComponentType>) {
   );
 }
 
-// Every page but sign-in is its own chunk: the entry stays small and the editor's konva loads only on its route.
+// Every page is its own chunk: the entry stays small (sign-in too: its form brings zod and the form
+// library, which a signed-in user's first screen does not need), and konva loads only on the editor's route.
+const SignInPage = lazy(() => import('./routes/sign-in'));
 const SetPasswordPage = lazy(() => import('./routes/set-password'));
 const ResetPasswordPage = lazy(() => import('./routes/reset-password'));
 const HomeRedirect = lazy(() => import('./routes/home-redirect'));
@@ -84,7 +85,7 @@ const signedInRoutes = (queryClient?: QueryClient): RouteObject[] => [
 
 /** Pages anyone may open (signing in and the links in e-mails). */
 const publicRoutes: RouteObject[] = [
-  { path: '/sign-in', element: <SignInPage /> },
+  { path: '/sign-in', element: page(SignInPage) },
   { path: '/set-password', element: page(SetPasswordPage) },
   { path: '/reset-password', element: page(ResetPasswordPage) },
   { path: '/q/:token', element: page(PublicQuotePage) }, // no sign-in
