@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { EAVES_MODES } from '../plan/plan-schema';
 import { addressSchema } from './customers';
 
 /**
@@ -158,6 +159,22 @@ export const companySettingsBodySchema = z.object({
     .default(500),
   /** Which roll count a quote prices by default. */
   rollCountMethod: z.enum(['packing', 'area']).default('packing'),
+  /**
+   * How the eaves air path is kept open on plans that do not choose: `gap` keeps the insulation
+   * back from the eaves, `ventilators` fits an eaves ventilator in each rafter space and runs the
+   * insulation over the wall plate (BS 5250:2021; BRE BR 262). Default `gap`.
+   */
+  eavesMode: z.enum(EAVES_MODES, { error: 'choose a gap or eaves ventilators' }).default('gap'),
+  /**
+   * Insulation the company's hatch kit puts on the lid, mm (at the takeoff's existing-layer
+   * conductivity). Credited in the whole-ceiling U-value only while an active hatch kit is in the
+   * catalogue, so the U-value reflects what the quote's kit provides; 0 = not given, no credit.
+   */
+  hatchKitInsulationMm: z
+    .number({ error: 'enter the hatch kit insulation depth' })
+    .min(0, { error: 'at least 0 mm' })
+    .max(300, { error: 'at most 300 mm' })
+    .default(0),
   labour: labourSettingsSchema,
   extraRules: extraRulesSchema.default({
     pipeLaggingMPerTank: 3,

@@ -66,7 +66,11 @@ export interface TakeoffSettings {
    * BRE BR 262). Default `gap`.
    */
   eavesMode: 'gap' | 'ventilators';
-  /** Insulation on the hatch lid after the work, mm (at `existingLambda`). Default 0: no credit unless the company fits an insulated hatch or kit. */
+  /**
+   * Insulation on the hatch lid after the work, mm (at `existingLambda`). Default 0: no credit. The
+   * server sets it to the company's hatch kit depth while an active hatch kit is in its catalogue
+   * (the kit the quote adds per hatch), so the U-value credits what the quote provides.
+   */
   hatchInsulationMm: number;
 }
 

@@ -21,6 +21,8 @@ export class CompanySetting extends Model<InferAttributes<CompanySetting>, Infer
   declare wasteAllowance: number;
   declare minOffcutMm: number;
   declare rollCountMethod: 'packing' | 'area';
+  declare eavesMode: 'gap' | 'ventilators';
+  declare hatchKitInsulationMm: number;
   declare labour: LabourSettings;
   declare extraRules: ExtraRules;
   declare logoKey: CreationOptional<string | null>;
@@ -47,6 +49,8 @@ export class CompanySetting extends Model<InferAttributes<CompanySetting>, Infer
         wasteAllowance: { type: DataTypes.DOUBLE, allowNull: false },
         minOffcutMm: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 500 },
         rollCountMethod: { type: DataTypes.STRING(10), allowNull: false },
+        eavesMode: { type: DataTypes.STRING(12), allowNull: false, defaultValue: 'gap' },
+        hatchKitInsulationMm: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
         labour: { type: DataTypes.JSONB, allowNull: false },
         extraRules: { type: DataTypes.JSONB, allowNull: false },
         logoKey: { type: DataTypes.STRING(300), allowNull: true },

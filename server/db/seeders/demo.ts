@@ -316,7 +316,8 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
     return org.id;
   });
   // Plans are stored like any other revision, with their takeoff: that needs the company's catalogue first.
-  await seedDemoCatalogue(orgId);
+  // The demo hatch kit's lid insulation: an invented round figure, so the demo's whole-ceiling U credits the kit its quotes add.
+  await seedDemoCatalogue(orgId, { hatchKitInsulationMm: 100 });
   const inputs = await companyTakeoffInputs(orgId);
   for (const p of firstPlans) await storePlanRevision(sequelize, { organisationId: orgId, ...p, note: 'demo plan' }, { inputs });
 }

@@ -4,6 +4,7 @@ import { parseProductCatalogue } from '../../../shared/takeoff/products';
 import type { TakeoffSettings } from '../../../shared/takeoff/settings';
 import { TAKEOFF_FORMAT, type Takeoff } from '../../../shared/takeoff/takeoff-types';
 import { PlanRevision } from '../../db/models';
+import { Extra } from '../../db/models/extra';
 import { Product } from '../../db/models/product';
 import { loadCompanySettings } from '../settings/settings.service';
 import { computePlanTakeoff, type TakeoffInputs } from './compute-plan-takeoff';
@@ -11,32 +12,47 @@ import { insertRevision } from './revisions.repository';
 
 export { computePlanTakeoff, type TakeoffInputs };
 
-type SettingsForTakeoff = { wasteAllowance: number; minOffcutMm?: number; degreeDays: number; fuelPriceMinorPerKwh: number; heatingEfficiency: number };
+type SettingsForTakeoff = {
+  wasteAllowance: number;
+  minOffcutMm?: number;
+  degreeDays: number;
+  fuelPriceMinorPerKwh: number;
+  heatingEfficiency: number;
+  eavesMode?: 'gap' | 'ventilators';
+  hatchKitInsulationMm?: number;
+};
 
-/** The company's settings as the takeoff reads them (the company keeps waste as a fraction; the takeoff reads a percentage). */
-export function takeoffSettingsOf(settings: SettingsForTakeoff): Partial<TakeoffSettings> {
+/**
+ * The company's settings as the takeoff reads them (the company keeps waste as a fraction; the
+ * takeoff reads a percentage). The hatch lid is credited with the kit's insulation only when the
+ * catalogue has an active hatch kit, the one the quote adds per hatch: no kit quoted, no credit.
+ */
+export function takeoffSettingsOf(settings: SettingsForTakeoff, catalogue: { hatchKitActive: boolean } = { hatchKitActive: false }): Partial<TakeoffSettings> {
   return {
     wasteAllowancePct: settings.wasteAllowance * 100,
     ...(settings.minOffcutMm !== undefined ? { minOffcutMm: settings.minOffcutMm } : {}),
     degreeDays: settings.degreeDays,
     fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
     heatingEfficiency: settings.heatingEfficiency,
+    ...(settings.eavesMode ? { eavesMode: settings.eavesMode } : {}),
+    hatchInsulationMm: catalogue.hatchKitActive ? (settings.hatchKitInsulationMm ?? 0) : 0,
   };
 }
 
 /**
  * The one set of takeoff inputs of a company: its catalogue (inactive products left out) and its
  * settings. A company without products gets a takeoff without layers that says so; there is no
- * fallback catalogue. The editor receives the same inputs, so its live takeoff equals the stored one.
+ * fallback catalogue (an active hatch kit is the one extra it reads, see takeoffSettingsOf). The editor receives the same inputs, so its live takeoff equals the stored one.
  */
 export async function companyTakeoffInputs(organisationId: string, transaction?: Transaction): Promise<TakeoffInputs> {
-  const [settingsRow, rows] = await Promise.all([
+  const [settingsRow, rows, hatchKits] = await Promise.all([
     loadCompanySettings(organisationId),
     Product.findAll({ where: { organisationId }, order: [['name', 'ASC']], transaction }),
+    Extra.count({ where: { organisationId, kind: 'hatch_kit', active: true }, transaction }),
   ]);
   // parseProductCatalogue reads the catalogue's own field names (lanes, coverageM2, lambdaWmK…).
   const products = parseProductCatalogue(rows.map((r) => ({ ...r.get({ plain: true }), id: r.id })));
-  return { products, settings: takeoffSettingsOf(settingsRow) };
+  return { products, settings: takeoffSettingsOf(settingsRow, { hatchKitActive: hatchKits > 0 }) };
 }
 
 /**

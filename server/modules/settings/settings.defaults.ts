@@ -25,6 +25,8 @@ export function defaultCompanySettings(
     wasteAllowance: 0.1,
     minOffcutMm: 500,
     rollCountMethod: 'packing',
+    eavesMode: 'gap',
+    hatchKitInsulationMm: 0,
     labour: {
       baseM2PerHour: 12,
       crossM2PerHour: 15,

@@ -30,6 +30,8 @@ export function toSettingsDto(s: CompanySetting): CompanySettings {
     wasteAllowance: s.wasteAllowance,
     minOffcutMm: s.minOffcutMm ?? 500,
     rollCountMethod: s.rollCountMethod,
+    eavesMode: s.eavesMode ?? 'gap',
+    hatchKitInsulationMm: s.hatchKitInsulationMm ?? 0,
     labour: s.labour,
     extraRules: s.extraRules,
     hasLogo: !!s.logoKey,

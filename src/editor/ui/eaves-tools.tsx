@@ -5,8 +5,11 @@ import { NumberField } from './number-field';
 
 const selectClass = 'h-8 rounded border border-graphite/25 bg-white px-1 text-sm text-graphite';
 
-/** Eaves step: which edges are marked, how the air path is kept open, and the roof notes the ventilation checks read. */
-export function EavesTools() {
+/**
+ * Eaves step: which edges are marked, how the air path is kept open (the company's mode, named,
+ * unless the plan chooses), and the roof notes the ventilation checks read.
+ */
+export function EavesTools({ companyMode = 'gap' }: { companyMode?: EavesMode }) {
   const editor = useEditor();
   const d = editor.store.dispatch;
   const gap = useEditorSelect((s) => s.plan.eavesGapMm);
@@ -23,12 +26,12 @@ export function EavesTools() {
           data-testid="eaves-mode"
           onChange={(e) => d(cmd('eaves mode', setEavesMode, { mode: (e.target.value || undefined) as EavesMode | undefined }))}
         >
-          <option value="">company default</option>
+          <option value="">company default ({companyMode === 'ventilators' ? 'eaves ventilators' : 'a gap'})</option>
           <option value="gap">keep a gap back</option>
           <option value="ventilators">eaves ventilators, over the wall plate</option>
         </select>
       </label>
-      {mode !== 'ventilators' && (
+      {(mode ?? companyMode) !== 'ventilators' && (
         <NumberField
           label="Ventilation gap"
           unit="mm"

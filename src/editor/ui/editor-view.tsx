@@ -107,7 +107,7 @@ export function EditorView({ editor, products, settings, toolbar, crumb, banner,
             {editor.readOnly ? null : step === 'outline' && <OutlineTools />}
             {!editor.readOnly && step === 'joists' && <JoistsTools />}
             {!editor.readOnly && step === 'exclusions' && <ExclusionsTools />}
-            {!editor.readOnly && step === 'eaves' && <EavesTools />}
+            {!editor.readOnly && step === 'eaves' && <EavesTools companyMode={settings?.eavesMode ?? 'gap'} />}
             {!editor.readOnly && step === 'layers' && <LayersTools products={products} />}
           </div>
         </div>

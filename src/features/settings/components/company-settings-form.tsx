@@ -29,6 +29,8 @@ function toValues(s: CompanySettings): Values {
     wasteAllowancePct: String(Math.round(s.wasteAllowance * 1000) / 10),
     minOffcutMm: String(s.minOffcutMm ?? 500),
     rollCountMethod: s.rollCountMethod,
+    eavesMode: s.eavesMode ?? 'gap',
+    hatchKitInsulationMm: String(s.hatchKitInsulationMm ?? 0),
     'labour.baseM2PerHour': String(s.labour.baseM2PerHour),
     'labour.crossM2PerHour': String(s.labour.crossM2PerHour),
     'labour.hourlyRate': m(s.labour.hourlyRateMinor),
@@ -64,6 +66,8 @@ function toBody(v: Values) {
     wasteAllowance: n('wasteAllowancePct') / 100,
     minOffcutMm: n('minOffcutMm'),
     rollCountMethod: v.rollCountMethod,
+    eavesMode: v.eavesMode,
+    hatchKitInsulationMm: n('hatchKitInsulationMm'),
     labour: {
       baseM2PerHour: n('labour.baseM2PerHour'),
       crossM2PerHour: n('labour.crossM2PerHour'),
@@ -240,6 +244,21 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
                   ['true', 'one per rafter space'],
                   ['false', 'none'],
                 ],
+              })}
+            </div>
+          </Card>
+          <Card>
+            <CardTitle>Eaves and hatch</CardTitle>
+            <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
+              {field('eavesMode', 'Eaves, on plans that do not choose', {
+                hint: 'Either way the air path from the eaves stays open (BS 5250). A plan can choose otherwise in the editor.',
+                options: [
+                  ['gap', 'keep the insulation back (ventilation gap)'],
+                  ['ventilators', 'eaves ventilators, insulation over the wall plate'],
+                ],
+              })}
+              {field('hatchKitInsulationMm', 'Hatch kit insulation on the lid (mm)', {
+                hint: 'What your hatch kit adds; counted in the whole-ceiling U-value while an active hatch kit is in the catalogue. 0 = no credit.',
               })}
             </div>
           </Card>
