@@ -57,7 +57,7 @@ describe('customers page', () => {
     await screen.findByText('Harriet Quayle');
     fireEvent.click(screen.getByRole('button', { name: 'New customer' }));
     fireEvent.click(screen.getByRole('button', { name: 'Add customer' }));
-    expect(screen.getByText('enter the customer name')).toBeTruthy();
+    expect(await screen.findByText('enter the customer name')).toBeTruthy();
     expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
 
     const form = screen.getByRole('form', { name: 'New customer' });
@@ -68,7 +68,7 @@ describe('customers page', () => {
     fill('Town', 'Bramley Cross');
     fill('Postcode', 'BC2 3GH');
     fireEvent.click(screen.getByRole('button', { name: 'Add customer' }));
-    expect(screen.getByText('enter a valid e-mail address')).toBeTruthy();
+    expect(await screen.findByText('enter a valid e-mail address')).toBeTruthy();
     fill('E-mail', 'meilin.hartley@example.com');
     fireEvent.click(screen.getByRole('button', { name: 'Add customer' }));
     await waitFor(() => expect(screen.queryByRole('form', { name: 'New customer' })).toBeNull());

@@ -38,7 +38,8 @@ describe('new job form', () => {
     const calls = api();
     renderPage(<JobFormPage onSaved={() => {}} />, { user: demoUser('estimator') });
     fireEvent.click(screen.getByRole('button', { name: 'Create job' }));
-    expect(errorFor('Customer name')).toBe('enter the customer name');
+    // The form checks on submit, which settles a moment after the click.
+    await waitFor(() => expect(errorFor('Customer name')).toBe('enter the customer name'));
     expect(errorFor('Address line 1')).toBe('enter the first line of the address');
     expect(errorFor('Town')).toBe('enter the town');
     expect(errorFor('Postcode')).toBe('enter the postcode');

@@ -1,31 +1,24 @@
+import { useController, useFormContext, useWatch } from 'react-hook-form';
 import type { Customer } from '../../../shared/api/customers';
-import { Field, formatAddress, Select } from '../../components/ui';
-import { CustomerFields, type CustomerValues } from '../../features/customers/components/customer-fields';
-
-export type CustomerMode = 'existing' | 'new';
+import { formatAddress, Select } from '../../components/ui';
+import { CustomerFields } from '../../features/customers/components/customer-fields';
+import { FormField } from '../../lib/forms';
+import type { JobFormValues } from './job-form-schema';
 
 /** Pick one of the company's customers, or type a new one in place. */
 export function CustomerChoice({
-  mode,
-  onModeChange,
   customers,
   customersLoading,
-  customerId,
-  onCustomerId,
-  newCustomer,
-  onNewCustomer,
-  errors,
+  onCustomerPicked,
 }: {
-  mode: CustomerMode;
-  onModeChange: (m: CustomerMode) => void;
   customers: Customer[];
   customersLoading: boolean;
-  customerId: string;
-  onCustomerId: (id: string) => void;
-  newCustomer: CustomerValues;
-  onNewCustomer: (v: CustomerValues) => void;
-  errors: Record<string, string>;
+  onCustomerPicked: (c: Customer) => void;
 }) {
+  const { setValue, control } = useFormContext<JobFormValues>();
+  const mode = useWatch({ control, name: 'mode' });
+  // Controlled: the options arrive after the form is filled, and the chosen one must show then.
+  const { field } = useController({ control, name: 'customerId' });
   const sorted = [...customers].sort((a, b) => a.name.localeCompare(b.name));
   return (
     <fieldset className="flex flex-col gap-3">
@@ -37,7 +30,7 @@ export function CustomerChoice({
             type="button"
             role="radio"
             aria-checked={mode === m}
-            onClick={() => onModeChange(m)}
+            onClick={() => setValue('mode', m)}
             className={`rounded px-3 py-1.5 font-medium ${mode === m ? 'bg-graphite text-white' : 'text-graphite-light hover:text-graphite'}`}
           >
             {m === 'existing' ? 'Existing customer' : 'New customer'}
@@ -45,8 +38,16 @@ export function CustomerChoice({
         ))}
       </div>
       {mode === 'existing' ? (
-        <Field label="Choose the customer" error={errors.customerId} required hint={customersLoading ? 'Loading customers…' : undefined}>
-          <Select name="customerId" value={customerId} onChange={(e) => onCustomerId(e.target.value)} disabled={customersLoading}>
+        <FormField name="customerId" label="Choose the customer" required hint={customersLoading ? 'Loading customers…' : undefined}>
+          <Select
+            {...field}
+            disabled={customersLoading}
+            onChange={(e) => {
+              field.onChange(e);
+              const c = customers.find((x) => x.id === e.target.value);
+              if (c) onCustomerPicked(c);
+            }}
+          >
             <option value="">— choose —</option>
             {sorted.map((c) => (
               <option key={c.id} value={c.id}>
@@ -54,9 +55,9 @@ export function CustomerChoice({
               </option>
             ))}
           </Select>
-        </Field>
+        </FormField>
       ) : (
-        <CustomerFields value={newCustomer} onChange={onNewCustomer} errors={errors} path="customer" />
+        <CustomerFields path="customer" />
       )}
     </fieldset>
   );

@@ -1,5 +1,7 @@
+import { useFormContext } from 'react-hook-form';
 import type { Address } from '../../../shared/api/customers';
-import { Field, Input } from '../ui';
+import { FormField } from '../../lib/forms';
+import { Input } from '../ui';
 
 export type AddressValues = { line1: string; line2: string; town: string; postcode: string };
 export const emptyAddress = (): AddressValues => ({ line1: '', line2: '', town: '', postcode: '' });
@@ -10,36 +12,23 @@ export const addressValues = (a: Partial<Address> | null | undefined): AddressVa
   postcode: a?.postcode ?? '',
 });
 
-/**
- * The four lines of a UK-style address. `errors` is keyed by full path; `path` is this address's
- * prefix in it ("propertyAddress", "customer.address").
- */
-export function AddressFields({
-  value,
-  onChange,
-  errors,
-  path,
-}: {
-  value: AddressValues;
-  onChange: (next: AddressValues) => void;
-  errors: Record<string, string>;
-  path: string;
-}) {
-  const set = (k: keyof AddressValues) => (e: React.ChangeEvent<HTMLInputElement>) => onChange({ ...value, [k]: e.target.value });
+/** The four lines of a UK-style address, at `path` of the enclosing form ("propertyAddress", "customer.address"). */
+export function AddressFields({ path }: { path: string }) {
+  const { register } = useFormContext();
   return (
     <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
-      <Field label="Address line 1" error={errors[`${path}.line1`]} required className="sm:col-span-2">
-        <Input name={`${path}.line1`} autoComplete="address-line1" value={value.line1} onChange={set('line1')} />
-      </Field>
-      <Field label="Address line 2" error={errors[`${path}.line2`]} className="sm:col-span-2">
-        <Input name={`${path}.line2`} autoComplete="address-line2" value={value.line2} onChange={set('line2')} />
-      </Field>
-      <Field label="Town" error={errors[`${path}.town`]} required>
-        <Input name={`${path}.town`} autoComplete="address-level2" value={value.town} onChange={set('town')} />
-      </Field>
-      <Field label="Postcode" error={errors[`${path}.postcode`]} required>
-        <Input name={`${path}.postcode`} autoComplete="postal-code" className="font-mono uppercase" value={value.postcode} onChange={set('postcode')} />
-      </Field>
+      <FormField name={`${path}.line1`} label="Address line 1" required className="sm:col-span-2">
+        <Input autoComplete="address-line1" {...register(`${path}.line1`)} />
+      </FormField>
+      <FormField name={`${path}.line2`} label="Address line 2" className="sm:col-span-2">
+        <Input autoComplete="address-line2" {...register(`${path}.line2`)} />
+      </FormField>
+      <FormField name={`${path}.town`} label="Town" required>
+        <Input autoComplete="address-level2" {...register(`${path}.town`)} />
+      </FormField>
+      <FormField name={`${path}.postcode`} label="Postcode" required>
+        <Input autoComplete="postal-code" className="font-mono uppercase" {...register(`${path}.postcode`)} />
+      </FormField>
     </div>
   );
 }

@@ -1,5 +1,7 @@
+import { useFormContext } from 'react-hook-form';
 import { AddressFields, addressValues, emptyAddress, type AddressValues } from '../../../components/forms/address-fields';
-import { Field, Input } from '../../../components/ui';
+import { Input } from '../../../components/ui';
+import { FormField } from '../../../lib/forms';
 import type { Customer } from '../../../../shared/api/customers';
 
 export type CustomerValues = { name: string; email: string; phone: string; address: AddressValues };
@@ -11,33 +13,24 @@ export const customerValues = (c: Customer): CustomerValues => ({
   address: addressValues(c.address),
 });
 
-/** Name, contact details and address of a customer; errors keyed by `${path}.name` etc. (path "" for top level). */
-export function CustomerFields({
-  value,
-  onChange,
-  errors,
-  path = '',
-}: {
-  value: CustomerValues;
-  onChange: (next: CustomerValues) => void;
-  errors: Record<string, string>;
-  path?: string;
-}) {
+/** Name, contact details and address of a customer, at `path` of the enclosing form ("" for the top level). */
+export function CustomerFields({ path = '' }: { path?: string }) {
+  const { register } = useFormContext();
   const key = (k: string) => (path ? `${path}.${k}` : k);
   return (
     <div className="flex flex-col gap-3">
-      <Field label="Customer name" error={errors[key('name')]} required>
-        <Input name={key('name')} autoComplete="name" value={value.name} onChange={(e) => onChange({ ...value, name: e.target.value })} />
-      </Field>
+      <FormField name={key('name')} label="Customer name" required>
+        <Input autoComplete="name" {...register(key('name'))} />
+      </FormField>
       <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
-        <Field label="E-mail" error={errors[key('email')]} hint="Quotes are sent here.">
-          <Input type="email" name={key('email')} inputMode="email" value={value.email} onChange={(e) => onChange({ ...value, email: e.target.value })} />
-        </Field>
-        <Field label="Phone" error={errors[key('phone')]}>
-          <Input type="tel" name={key('phone')} inputMode="tel" value={value.phone} onChange={(e) => onChange({ ...value, phone: e.target.value })} />
-        </Field>
+        <FormField name={key('email')} label="E-mail" hint="Quotes are sent here.">
+          <Input type="email" inputMode="email" {...register(key('email'))} />
+        </FormField>
+        <FormField name={key('phone')} label="Phone">
+          <Input type="tel" inputMode="tel" {...register(key('phone'))} />
+        </FormField>
       </div>
-      <AddressFields value={value.address} onChange={(address) => onChange({ ...value, address })} errors={errors} path={key('address')} />
+      <AddressFields path={key('address')} />
     </div>
   );
 }

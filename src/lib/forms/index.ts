@@ -1,0 +1,3 @@
+export { useZodForm } from './use-zod-form';
+export { showServerErrors } from './server-errors';
+export { FormField, hasFieldErrors } from './form-field';
