@@ -11,6 +11,7 @@ const pureServerTests = [
   'tests/server/lib.test.ts',
   'tests/server/payments-config.test.ts',
   'tests/server/payments-fake-service.test.ts',
+  'tests/server/storage-drivers.test.ts',
   'tests/server/test-summary.test.ts',
 ];
 

@@ -6,7 +6,7 @@ import { FakeSmtp, type Outbox } from './lib/fake-smtp';
 import { createLogger, type Logger } from './lib/logger';
 import { createSmtpMailer, type Mailer } from './lib/mailer';
 import { createMailQueue, type MailQueue } from './modules/mail/mail-queue';
-import { DiskStorage, type Storage } from './lib/storage';
+import { createStorage, type Storage } from './lib/storage';
 import { createPlanPool, type PlanPool } from './lib/takeoff-pool';
 
 /** Everything createApp needs from the outside world; tests build their own. */
@@ -31,9 +31,16 @@ export interface AppDeps {
 
 /**
  * Builds the deps from config: Sequelize + pool on DATABASE_URL, the mail queue and its worker
- * sending to SMTP_URL or to an in-process fake SMTP server on 127.0.0.1, disk storage in UPLOAD_DIR and the takeoff worker pool.
+ * sending to SMTP_URL or to an in-process fake SMTP server on 127.0.0.1, upload storage (the
+ * UPLOAD_DIR folder or an S3 bucket, STORAGE_DRIVER) and the takeoff worker pool.
  */
 export async function createDeps(config: Config, opts: { sequelize?: Sequelize } = {}): Promise<AppDeps> {
+  const logger = createLogger({ level: config.logLevel });
+  const storage = createStorage(config.storage);
+  // The folder drops half-written uploads of a process that died (kill -9, power loss); S3 checks
+  // its bucket answers, so a wrong name or key stops the start rather than the first upload.
+  const prepared = await storage.prepare();
+  if (prepared) logger.info(`storage: ${prepared}`);
   // Sequelize models are classes bound to one instance: one per process. Tests that build several
   // apps pass the shared instance in (and close it themselves).
   const sequelize = opts.sequelize ?? createSequelize(config.databaseUrl, { logSql: config.logSql });
@@ -60,14 +67,10 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
     pollingIntervalSeconds: config.mailPollSeconds,
   });
   await mailQueue.start();
-  const storage = new DiskStorage(config.uploadDir);
-  // Half-written uploads of a process that died (kill -9, power loss) are never finished: drop them.
-  const orphans = await storage.removeTemporaryFiles();
-  if (orphans) console.warn(`[server] removed ${orphans} unfinished upload file(s) left by an earlier run`);
   const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });
   return {
     config,
-    logger: createLogger({ level: config.logLevel }),
+    logger,
     sequelize,
     pool,
     mailer: mailQueue.mailer,
@@ -81,6 +84,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
       smtp.close();
       await fake?.stop();
       await pool.end();
+      storage.close();
       if (!opts.sequelize) await sequelize.close();
     },
   };

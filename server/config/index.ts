@@ -2,7 +2,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+import type { StorageConfig } from '../lib/storage';
 import { paymentsConfigFromEnv, type ResolvedPaymentsConfig } from './payments';
+import { refineStorageEnv, storageConfigFromEnv, storageEnvShape } from './storage';
 
 /** The repository: the nearest folder above this module with a package.json (server/config/ when run from source, dist-server/ when compiled). */
 export const REPO_ROOT = findRepoRoot(path.dirname(fileURLToPath(import.meta.url)));
@@ -36,6 +38,8 @@ const envSchema = z
     /** Set when running behind a reverse proxy that terminates HTTPS (e.g. "1" or "loopback"). */
     TRUST_PROXY: z.string().optional(),
     UPLOAD_DIR: z.string().default(path.join(REPO_ROOT, 'uploads')),
+    // Where uploads are kept: the UPLOAD_DIR folder or an S3-compatible bucket (./storage.ts).
+    ...storageEnvShape,
     DIST_DIR: z.string().default(path.join(REPO_ROOT, 'dist')),
     MIGRATE_ON_START: bool(true),
     SEED_DEMO: z.string().optional(),
@@ -62,6 +66,7 @@ const envSchema = z
     MAIL_POLL_SECONDS: z.coerce.number().min(0.5).max(60).optional(),
   })
   .superRefine((env, ctx) => {
+    refineStorageEnv(env, ctx);
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required when NODE_ENV=production' });
     }
@@ -78,7 +83,10 @@ export interface Config {
   mailFrom: string;
   appUrl: string;
   trustProxy: string | number | boolean;
+  /** The local data folder: uploads with the local driver, and the local payments secret. */
   uploadDir: string;
+  /** Where uploads are kept (server/lib/storage). */
+  storage: StorageConfig;
   distDir: string;
   migrateOnStart: boolean;
   seedDemo: boolean;
@@ -120,6 +128,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ''),
     trustProxy: trust === undefined || trust === '' ? false : /^\d+$/.test(trust) ? Number(trust) : trust === 'true' ? true : trust,
     uploadDir: path.resolve(e.UPLOAD_DIR),
+    storage: storageConfigFromEnv(e, path.resolve(e.UPLOAD_DIR)),
     distDir: path.resolve(e.DIST_DIR),
     migrateOnStart: e.MIGRATE_ON_START,
     seedDemo: e.SEED_DEMO === undefined ? e.NODE_ENV !== 'production' : ['1', 'true', 'yes'].includes(e.SEED_DEMO),

@@ -1,13 +1,9 @@
-// Small adapters: config parsing, disk storage, the fake SMTP server with the nodemailer mailer.
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+// Small adapters: config parsing, the fake SMTP server with the nodemailer mailer.
+import { describe, expect, it } from 'vitest';
 import { loadConfig } from '../../server/config';
 import { FakeSmtp } from '../../server/lib/fake-smtp';
 import { createSmtpMailer } from '../../server/lib/mailer';
 import { redactPrices } from '../../server/lib/redact';
-import { DiskStorage } from '../../server/lib/storage';
 
 describe('config', () => {
   it('fails fast with a message naming every bad variable', () => {
@@ -24,24 +20,6 @@ describe('config', () => {
     expect(dev.seedDemo).toBe(true);
     const prod = loadConfig({ NODE_ENV: 'production', DATABASE_URL: 'postgres://u:p@db/q', SESSION_SECRET: 'x'.repeat(32) });
     expect(prod.seedDemo).toBe(false);
-  });
-});
-
-describe('disk storage', () => {
-  const root = fs.mkdtempSync(path.join(os.tmpdir(), 'quiltline-storage-'));
-  const storage = new DiskStorage(root);
-  afterAll(() => fs.rmSync(root, { recursive: true, force: true }));
-
-  it('stores, reads, checks and deletes a file by key', async () => {
-    await storage.put('org-1/photos/a.jpg', Buffer.from('jpeg bytes'));
-    expect((await storage.get('org-1/photos/a.jpg')).toString()).toBe('jpeg bytes');
-    expect(await storage.exists('org-1/photos/a.jpg')).toBe(true);
-    await storage.delete('org-1/photos/a.jpg');
-    expect(await storage.exists('org-1/photos/a.jpg')).toBe(false);
-  });
-
-  it.each(['../escape.txt', 'a/../../b', '/etc/passwd', 'a//b', 'a/./b', ''])('refuses the key %j', async (key) => {
-    await expect(storage.put(key, Buffer.from('x'))).rejects.toThrow(/invalid storage key/);
   });
 });
 

@@ -43,7 +43,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         photoRows.filter((p) => p.spaceId === s.id && p.stage === stage).slice(0, PHOTOS_PER_STAGE),
       );
       const photos = [];
-      for (const p of chosen) photos.push({ stage: p.stage as 'before' | 'after', caption: p.caption, jpeg: await storage.get(p.storageKey) });
+      for (const p of chosen) photos.push({ stage: p.stage as 'before' | 'after', caption: p.caption, jpeg: await storage.read(p.storageKey) });
       out.push({
         name: s.name,
         netAreaM2: t ? t.netAreaM2 : null,
@@ -146,7 +146,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         const data = await handoverData(job);
         const pdf = await renderHandoverPdf(data);
         const key = `${job.organisationId}/handover/${job.id}.pdf`;
-        await storage.put(key, pdf);
+        await storage.put(key, pdf, { contentType: 'application/pdf' });
         await JobCompletion.update({ handoverKey: key }, { where: { jobId: job.id } });
         const customer = await Customer.findByPk(job.customerId);
         if (customer?.email) {

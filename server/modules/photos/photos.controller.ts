@@ -3,16 +3,17 @@ import { IDEMPOTENCY_HEADER, photoFieldsSchema } from '../../../shared/api/job-s
 import type { AppDeps } from '../../deps';
 import { fieldError, ValidationError } from '../../lib/errors';
 import { readIdempotencyKey, runOnce } from '../../lib/idempotency';
+import { pipeToResponse } from '../../lib/storage/pipe-to-response';
 import { currentUser } from '../../middleware/require-auth';
 import { zodDetails } from '../../middleware/validate';
 import type { PhotosService } from './photos.service';
 
 export function createPhotosController(deps: Pick<AppDeps, 'sequelize'>, photos: PhotosService) {
   const sendFile = (thumb: boolean) => async (req: Request, res: Response) => {
-    const bytes = await photos.file(currentUser(req), String(req.params.id), thumb);
+    const body = await photos.file(currentUser(req), String(req.params.id), thumb);
     res.set('Content-Type', 'image/jpeg');
     res.set('Cache-Control', 'private, max-age=86400, immutable');
-    res.send(bytes);
+    await pipeToResponse(res, body);
   };
 
   return {

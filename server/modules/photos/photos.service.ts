@@ -1,10 +1,12 @@
 import { randomUUID } from 'node:crypto';
+import type { Readable } from 'node:stream';
 import type { Transaction } from 'sequelize';
 import type { JobPhoto as JobPhotoDto, PhotoStage } from '../../../shared/api/job-sheet';
 import type { AppDeps } from '../../deps';
 import { Space, User } from '../../db/models';
 import { JobPhoto } from '../../db/models';
 import { AppError, fieldError, NotFoundError } from '../../lib/errors';
+import { StorageNotFoundError } from '../../lib/storage';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../jobs/job-access';
 import { recordedAt } from '../../lib/recorded-at';
@@ -59,8 +61,8 @@ export function createPhotosService(deps: Pick<AppDeps, 'storage'>) {
       const base = `${user.organisationId}/photos/${job.id}/${id}`;
       const keys = [`${base}.jpg`, `${base}.thumb.jpg`];
       stored.push(...keys);
-      await storage.put(keys[0], image.full);
-      await storage.put(keys[1], image.thumb);
+      await storage.put(keys[0], image.full, { contentType: 'image/jpeg' });
+      await storage.put(keys[1], image.thumb, { contentType: 'image/jpeg' });
       const row = await JobPhoto.create(
         {
           id,
@@ -92,9 +94,14 @@ export function createPhotosService(deps: Pick<AppDeps, 'storage'>) {
       await findWorkableJob(user, jobId);
     },
 
-    /** The bytes of a photo (or its thumbnail) the user may see. */
-    async file(user: SessionUser, photoId: string, thumb: boolean): Promise<Buffer> {
-      return storage.get(await fileKey(user, photoId, thumb));
+    /** A photo (or its thumbnail) the user may see, as a stream; 404 when its file is gone. */
+    async file(user: SessionUser, photoId: string, thumb: boolean): Promise<Readable> {
+      try {
+        return await storage.get(await fileKey(user, photoId, thumb));
+      } catch (e) {
+        if (e instanceof StorageNotFoundError) throw new NotFoundError('photo file');
+        throw e;
+      }
     },
 
     fileKey,

@@ -1,4 +1,5 @@
 import type { Request, Response } from 'express';
+import { pipeToResponse } from '../../lib/storage/pipe-to-response';
 import { currentUser } from '../../middleware/require-auth';
 import type { PlansService } from './plans.service';
 
@@ -28,7 +29,7 @@ export function createPlansController(plans: PlansService) {
       const { stream, type } = await plans.background(currentUser(req), id(req), String(req.params.name));
       res.setHeader('Content-Type', type);
       res.setHeader('Cache-Control', 'private, max-age=86400');
-      stream.pipe(res);
+      await pipeToResponse(res, stream);
     },
   };
 }

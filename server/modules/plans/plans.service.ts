@@ -6,6 +6,7 @@ import { readStoredTakeoff, takeoffWithoutPrices } from '../../../shared/takeoff
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { AppError, ValidationError } from '../../lib/errors';
+import { StorageNotFoundError } from '../../lib/storage';
 import { assertImagePixels, MAX_IMAGE_PIXELS } from '../../lib/uploads';
 import { checkPlanShapeOr422, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
@@ -113,7 +114,7 @@ export function createPlansService(deps: AppDeps) {
       // The browser decodes the underlay at full size: refuse decompression bombs by their header.
       await assertImagePixels(file.buffer, MAX_IMAGE_PIXELS.underlay, 'underlay image');
       const name = `${randomUUID()}.${ext}`;
-      await storage.put(`${actor.organisationId}/plan-backgrounds/${space.id}/${name}`, file.buffer);
+      await storage.put(`${actor.organisationId}/plan-backgrounds/${space.id}/${name}`, file.buffer, { contentType: type!.mime });
       return { url: `/api/spaces/${space.id}/background/${name}`, bytes: file.buffer.length };
     },
 
@@ -121,9 +122,13 @@ export function createPlansService(deps: AppDeps) {
       const space = await findSpaceForUser(actor, spaceId);
       if (!/^[0-9a-f-]{36}\.(png|jpg|webp|gif)$/.test(name)) throw new AppError(404, 'not_found', 'image not found');
       const key = `${actor.organisationId}/plan-backgrounds/${space.id}/${name}`;
-      if (!(await storage.exists(key))) throw new AppError(404, 'not_found', 'image not found');
       const ext = name.split('.').pop()!;
-      return { stream: storage.stream(key), type: ext === 'jpg' ? 'image/jpeg' : `image/${ext}` };
+      try {
+        return { stream: await storage.get(key), type: ext === 'jpg' ? 'image/jpeg' : `image/${ext}` };
+      } catch (e) {
+        if (e instanceof StorageNotFoundError) throw new AppError(404, 'not_found', 'image not found');
+        throw e;
+      }
     },
   };
 }

@@ -2,7 +2,7 @@ import type { Job } from '../../db/models';
 import type { Quote } from '../../db/models/quote';
 import type { QuoteLine } from '../../db/models/quote-line';
 import type { CompanySetting } from '../../db/models/company-setting';
-import type { Storage } from '../../lib/storage';
+import { StorageNotFoundError, type Storage } from '../../lib/storage';
 import { renderQuotePdf, type QuotePdfData } from '../../lib/pdf/quote-pdf';
 import { depositTerms } from '../../../shared/quote/deposit';
 import { loadPaymentSettings } from '../settings/payment-settings';
@@ -22,8 +22,8 @@ export async function quotePdfData(
   acceptUrl: string | null,
 ): Promise<QuotePdfData> {
   const { snap, totals, saving } = priceQuote(q, lines);
-  let logo: Buffer | null = null;
-  if (settings.logoKey && (await storage.exists(settings.logoKey))) logo = await storage.get(settings.logoKey);
+  // A logo whose file has gone (removed by hand from the folder or bucket) leaves the quote without one.
+  const logo = settings.logoKey ? await storage.read(settings.logoKey).catch((e) => (e instanceof StorageNotFoundError ? null : Promise.reject(e))) : null;
   const customer = job.customer!;
   return {
     company: {

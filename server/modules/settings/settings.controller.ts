@@ -1,4 +1,5 @@
 import type { Request, Response } from 'express';
+import { pipeToResponse } from '../../lib/storage/pipe-to-response';
 import { currentUser } from '../../middleware/require-auth';
 import type { SettingsService } from './settings.service';
 
@@ -13,7 +14,7 @@ export function createSettingsController(settings: SettingsService) {
     async logo(req: Request, res: Response) {
       const logo = await settings.logo(currentUser(req));
       res.type(logo.type).setHeader('Cache-Control', 'no-cache');
-      res.send(logo.data);
+      await pipeToResponse(res, logo.body);
     },
     async setLogo(req: Request, res: Response) {
       res.json({ settings: await settings.setLogo(currentUser(req), req.file) });

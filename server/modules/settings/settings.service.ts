@@ -9,7 +9,7 @@ import { Product } from '../../db/models/product';
 import { TaxRate } from '../../db/models/tax-rate';
 import { BadRequestError, NotFoundError } from '../../lib/errors';
 import { assertImagePixels, MAX_IMAGE_PIXELS } from '../../lib/uploads';
-import type { Storage } from '../../lib/storage';
+import { StorageNotFoundError, type Storage } from '../../lib/storage';
 import type { SessionUser } from '../../types';
 import { DEFAULT_TAX_RATES, DEMO_EXTRAS, DEMO_PRODUCTS, defaultCompanySettings } from './settings.defaults';
 
@@ -122,7 +122,7 @@ export function createSettingsService(storage: Storage) {
       await assertImagePixels(file.buffer, MAX_IMAGE_PIXELS.logo, 'logo');
       const row = await ensureCompanySettings(actor.organisationId);
       const key = `${actor.organisationId}/logo/logo.${LOGO_TYPES[type]}`;
-      await storage.put(key, file.buffer);
+      await storage.put(key, file.buffer, { contentType: type });
       await row.update({ logoKey: key, logoType: type });
       return toSettingsDto(row);
     },
@@ -134,8 +134,13 @@ export function createSettingsService(storage: Storage) {
     },
     async logo(actor: SessionUser) {
       const row = await loadCompanySettings(actor.organisationId);
-      if (!row.logoKey || !(await storage.exists(row.logoKey))) throw new NotFoundError('logo');
-      return { type: row.logoType ?? 'application/octet-stream', data: await storage.get(row.logoKey) };
+      if (!row.logoKey) throw new NotFoundError('logo');
+      try {
+        return { type: row.logoType ?? 'application/octet-stream', body: await storage.get(row.logoKey) };
+      } catch (e) {
+        if (e instanceof StorageNotFoundError) throw new NotFoundError('logo');
+        throw e;
+      }
     },
   };
 }

@@ -1,49 +1,50 @@
-import { createReadStream } from 'node:fs';
+import type { Dirent } from 'node:fs';
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
+import { assertStorageKey, StorageNotFoundError, type Storage } from './storage';
 
-/**
- * Where uploaded files live (photos, logos, plan backgrounds). Keys are relative paths such as
- * `<organisationId>/photos/<uuid>.jpg`; callers build them and keep them in the database.
- * Disk today; an S3-compatible store can implement the same interface.
- */
-export interface Storage {
-  put(key: string, data: Buffer): Promise<{ key: string; size: number }>;
-  get(key: string): Promise<Buffer>;
-  stream(key: string): Readable;
-  exists(key: string): Promise<boolean>;
-  delete(key: string): Promise<void>;
-}
+const isMissing = (e: unknown) => (e as NodeJS.ErrnoException).code === 'ENOENT';
 
-const KEY_RE = /^[A-Za-z0-9_-][A-Za-z0-9._-]*(\/[A-Za-z0-9_-][A-Za-z0-9._-]*)*$/;
-
+/** Files under one folder (UPLOAD_DIR): the default, for an install on one machine. */
 export class DiskStorage implements Storage {
+  readonly driver = 'local' as const;
   constructor(readonly rootDir: string) {}
 
-  /** Refuses anything that could leave the root: `..`, absolute paths, odd characters. */
+  /** The file's path; refuses anything that could leave the root (see assertStorageKey). */
   resolve(key: string): string {
-    if (!KEY_RE.test(key) || key.split('/').some((p) => p === '..' || p === '.')) {
-      throw new Error(`invalid storage key: ${JSON.stringify(key)}`);
-    }
-    return path.join(this.rootDir, key);
+    return path.join(this.rootDir, assertStorageKey(key));
   }
 
   async put(key: string, data: Buffer) {
     const file = this.resolve(key);
     await fs.mkdir(path.dirname(file), { recursive: true });
+    // Written beside, then renamed: a reader never sees half a file.
     const tmp = `${file}.${process.pid}.${Date.now()}.tmp`;
     await fs.writeFile(tmp, data);
     await fs.rename(tmp, file);
     return { key, size: data.length };
   }
 
-  get(key: string) {
-    return fs.readFile(this.resolve(key));
+  async get(key: string): Promise<Readable> {
+    // Opened before the stream is handed out, so a missing file is a rejection here rather than
+    // an 'error' event after the answer's headers went out.
+    try {
+      const handle = await fs.open(this.resolve(key), 'r');
+      return handle.createReadStream();
+    } catch (e) {
+      if (isMissing(e)) throw new StorageNotFoundError(key);
+      throw e;
+    }
   }
 
-  stream(key: string) {
-    return createReadStream(this.resolve(key));
+  async read(key: string) {
+    try {
+      return await fs.readFile(this.resolve(key));
+    } catch (e) {
+      if (isMissing(e)) throw new StorageNotFoundError(key);
+      throw e;
+    }
   }
 
   async exists(key: string) {
@@ -59,16 +60,23 @@ export class DiskStorage implements Storage {
     await fs.rm(this.resolve(key), { force: true });
   }
 
+  async prepare() {
+    const removed = await this.removeTemporaryFiles();
+    return removed ? `removed ${removed} unfinished upload file(s) left by an earlier run` : null;
+  }
+
+  close() {}
+
   /**
    * Deletes the temporary files `put` writes before renaming (`<name>.<pid>.<ms>.tmp`) that a
-   * crash or `kill -9` left behind. Call at start. Only files older than `olderThanMs` go, so a
-   * second server sharing the folder keeps the uploads it is writing. Returns how many went.
+   * crash or `kill -9` left behind. Only files older than `olderThanMs` go, so a second server
+   * sharing the folder keeps the uploads it is writing. Returns how many went.
    */
   async removeTemporaryFiles(olderThanMs = 15 * 60_000): Promise<number> {
     const before = Date.now() - olderThanMs;
     let removed = 0;
     const walk = async (dir: string): Promise<void> => {
-      let entries: import('node:fs').Dirent[];
+      let entries: Dirent[];
       try {
         entries = await fs.readdir(dir, { withFileTypes: true });
       } catch {
