@@ -121,5 +121,6 @@ function mountClient(app: Express, distDir: string) {
 }
 
 function noCacheForHtml(res: express.Response, file: string) {
-  if (file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+  // The page and the service worker are re-checked on every visit, so a deploy reaches everyone.
+  if (file.endsWith('.html') || path.basename(file) === 'sw.js' || file.endsWith('.webmanifest')) res.setHeader('Cache-Control', 'no-cache');
 }

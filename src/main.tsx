@@ -11,6 +11,8 @@ import { RouterProvider } from 'react-router-dom';
 import { AppProviders } from './app/providers';
 import { createAppRouter } from './app/router';
 import { createQueryClient } from './lib/query-client';
+import { registerOfflineShell } from './offline-shell/register';
+import { UpdatePrompt } from './offline-shell/update-prompt';
 
 const queryClient = createQueryClient();
 const router = createAppRouter(queryClient);
@@ -21,6 +23,8 @@ createRoot(root).render(
   <StrictMode>
     <AppProviders queryClient={queryClient}>
       <RouterProvider router={router} />
+      <UpdatePrompt />
     </AppProviders>
   </StrictMode>,
 );
+registerOfflineShell();
