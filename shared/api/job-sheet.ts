@@ -96,6 +96,8 @@ export const sheetSpaceSchema = z.object({
   netAreaM2: z.number().nullable(),
   uValueBefore: z.number().nullable(),
   uValueAfter: z.number().nullable(),
+  /** The U-values named (ISO 6946 insulated area and whole ceiling, RdSAP default) and what the target is judged on; null without a takeoff. */
+  thermalText: z.string().nullable().default(null),
   layers: z.array(sheetLayerSchema),
   rolls: z.array(sheetRollSchema),
   checks: z.array(sheetCheckSchema),

@@ -13,6 +13,7 @@ export function sheet(job: Partial<JobSheet['job']> = {}): JobSheet {
     netAreaM2: 20,
     uValueBefore: 0.4,
     uValueAfter: 0.16,
+    thermalText: null,
     layers: [],
     rolls: [],
     problem: null,

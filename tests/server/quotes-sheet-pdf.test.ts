@@ -10,7 +10,8 @@ import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../shared/takeoff/products';
 import { loadCatalogue } from '../../server/modules/catalogue/catalogue.service';
 import { createJob, createTestContext, createUser, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
-import { binary, examplePlan, quoteCompany } from './quotes-fixtures';
+import { readStoredTakeoff } from '../../shared/takeoff/takeoff-schema';
+import { binary, examplePlan, quoteCompany, quoteJob } from './quotes-fixtures';
 
 let ctx: TestContext;
 let org: TestOrg;
@@ -61,6 +62,37 @@ describe('job sheet PDF', () => {
     // Each product is named once in the cut list, not on every row of its rolls.
     const cutList = flat.slice(flat.indexOf('Cut list, by roll'), flat.indexOf('Site checks'));
     for (const l of s.spaces[0].layers as Array<{ productName: string }>) expect(cutList.split(l.productName).length - 1, l.productName).toBe(1);
+  });
+
+  it('names each U-value, before and after, as the quote does: ISO 6946 insulated area and whole ceiling, the RdSAP default, and what the target is judged on', async () => {
+    const { job, space } = await scheduledJob();
+    const t = readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: space.id } }))!.takeoff)!;
+    const f = (x: number) => x.toFixed(2);
+    // The figures of the stored takeoff, each under its name: the whole ceiling is the area-weighted
+    // mean over the insulated area, hatch, downlights, tank and eaves strip (so above the insulated area's U).
+    expect(t.uValueAfterWholeCeiling).toBeGreaterThan(t.uValueAfter);
+    const expected = [
+      `U-value (BS EN ISO 6946 combined method) ${f(t.uValueBefore)} → ${f(t.uValueAfter)} W/m²K insulated area`,
+      `${f(t.uValueBeforeWholeCeiling)} → ${f(t.uValueAfterWholeCeiling)} whole ceiling`,
+      `RdSAP 2012 Table S9 default ${f(t.thermal.before.rdsapU)} → ${f(t.thermal.after.rdsapU)}`,
+      // examples/tank-hatch-downlights.json has a depth target of 270 mm.
+      `target 270 mm of insulation: ${t.thermal.meetsTarget ? 'met' : 'not met'}`,
+    ];
+    const installer = await loginAs(ctx.app, org.installer);
+    const sheet = await installer.get(`/api/jobs/${job.id}/sheet.pdf`).buffer(true).parse(binary);
+    const sheetText = (await pdfText(sheet.body)).replace(/\s+/g, ' ');
+    for (const e of expected) expect(sheetText, e).toContain(e);
+
+    // A U-value target (examples/eaves-two-sides.json: U 0.16), judged on the whole ceiling by default.
+    const quoted = await quoteJob(org, { plan: examplePlan('eaves-two-sides.json') });
+    const qt = readStoredTakeoff((await PlanRevision.findOne({ where: { spaceId: quoted.space.id } }))!.takeoff)!;
+    const office = await loginAs(ctx.app, org.office);
+    const q = (await office.post(`/api/jobs/${quoted.job.id}/quotes`).send({})).body.quote;
+    const quoteText = (await pdfText((await office.get(`/api/quotes/${q.id}/pdf`).buffer(true).parse(binary)).body)).replace(/\s+/g, ' ');
+    expect(quoteText).toContain(`${f(qt.uValueBeforeWholeCeiling)} → ${f(qt.uValueAfterWholeCeiling)} whole ceiling`);
+    expect(quoteText).toContain(`RdSAP 2012 Table S9 default ${f(qt.thermal.before.rdsapU)} → ${f(qt.thermal.after.rdsapU)}`);
+    expect(qt.thermal.targetJudgedOn).toBe('whole-ceiling');
+    expect(quoteText).toContain(`target U 0.16 W/m²K judged on the whole ceiling (ISO 6946): ${qt.thermal.meetsTarget ? 'met' : 'not met'}`);
   });
 
   it('is refused to an installer the job is not assigned to', async () => {

@@ -65,10 +65,14 @@ export async function renderJobSheetPdf(sheet: JobSheet, companyName: string): P
     doc.font('ui-bold').fontSize(15).fillColor(PALETTE.graphite).text(space.name, left, doc.y);
     const facts = [
       space.netAreaM2 !== null ? `${space.netAreaM2.toFixed(1)} m² net` : '',
-      space.uValueBefore !== null && space.uValueAfter !== null ? `U ${space.uValueBefore.toFixed(2)} → ${space.uValueAfter.toFixed(2)} W/m²K` : '',
+      !space.thermalText && space.uValueBefore !== null && space.uValueAfter !== null
+        ? `U ${space.uValueBefore.toFixed(2)} → ${space.uValueAfter.toFixed(2)} W/m²K`
+        : '',
       space.revision ? `plan revision ${space.revision}` : '',
     ].filter(Boolean);
     doc.font('ui').fontSize(9).fillColor(PALETTE.graphiteLight).text(facts.join(' · '));
+    // Each U-value named, as on the quote: the installer's sheet says the same as the customer's papers.
+    if (space.thermalText) doc.text(space.thermalText, { width });
     if (space.problem) {
       doc.moveDown(0.5).fillColor(PALETTE.brick).fontSize(10).text(space.problem, { width });
       continue;

@@ -4,6 +4,7 @@ import type { ExclusionKind } from '../../../shared/plan/plan-schema';
 import { extrasFor } from '../../../shared/quote/extras';
 import { spaceForQuote } from '../../../shared/quote/from-takeoff';
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
+import { thermalFactsText } from '../../../shared/takeoff/thermal-text';
 import { jobRollsByProduct } from '../../../shared/takeoff/job-roll-plan';
 import type { Takeoff, TakeoffLayer } from '../../../shared/takeoff/takeoff-types';
 import { latestRevisionsOfJobs } from '../plan-revisions/revisions.repository';
@@ -156,7 +157,7 @@ function sheetPlan(plan: unknown): SheetSpace['plan'] {
 
 /** One space of the job sheet from its latest revision (or a clear problem when there is none). */
 export function sheetSpace(space: { id: string; name: string }, row: RevisionRow | undefined): SheetSpace {
-  const empty = { layers: [], rolls: [], checks: [], netAreaM2: null, uValueBefore: null, uValueAfter: null };
+  const empty = { layers: [], rolls: [], checks: [], netAreaM2: null, uValueBefore: null, uValueAfter: null, thermalText: null };
   if (!row)
     return { id: space.id, name: space.name, revision: null, plan: null, ...empty, problem: 'No plan has been drawn for this space yet: ask the office.' };
   const plan = sheetPlan(row.plan);
@@ -179,6 +180,7 @@ export function sheetSpace(space: { id: string; name: string }, row: RevisionRow
     netAreaM2: Number(t.netAreaM2),
     uValueBefore: Number(t.uValueBefore),
     uValueAfter: Number(t.uValueAfter),
+    thermalText: thermalFactsText(t),
     layers: t.layers.map(sheetLayer),
     rolls: t.layers.flatMap((l) => sheetRolls(l, Number(t.settings?.minOffcutMm ?? 500))),
     checks: sheetChecks(t),

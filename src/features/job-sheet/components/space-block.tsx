@@ -50,6 +50,7 @@ export function SpaceBlock({ space, ticks, photos, pendingPhotos, canRecord, onT
           )}
         </p>
       )}
+      {space.thermalText && <p className="mb-2 text-sm text-graphite-light">{space.thermalText}</p>}
 
       {space.plan && (
         <SheetSection title="Plan" defaultOpen>
