@@ -13,10 +13,10 @@ export interface SavingsEstimate {
 }
 
 /**
- * Yearly saving by the degree-day method (standard formula, from memory):
+ * Yearly saving by the degree-day method (CIBSE TM41:2006 "Degree-days: theory and application"):
  * heat kWh = ΔU × area × degree days × 24 / 1000; fuel = heat / efficiency; money = fuel × price.
- * It ignores solar and internal gains and partial heating: present it as an estimate. A negative
- * ΔU is treated as no saving.
+ * The 15.5 °C base temperature of the degree days already allows for typical internal and solar
+ * gains; partial heating is not modelled: present it as an estimate. A negative ΔU is no saving.
  */
 export function yearlySavings(
   uBefore: number,

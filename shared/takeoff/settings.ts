@@ -32,13 +32,13 @@ export interface TakeoffSettings {
   rsi: number;
   /** External surface resistance, m²K/W. Default 0.04 (BS EN ISO 6946:2017 Table 7). */
   rse: number;
-  /** Ceiling board thickness, mm. Default 12.5 (gypsum plasterboard). */
+  /** Ceiling board thickness, mm. Default 12.5 (the usual gypsum ceiling board; common practice). */
   ceilingBoardMm: number;
   /** Ceiling board conductivity. Default 0.21 W/mK (gypsum plasterboard, Scottish Government "Tables of U-values and thermal conductivity", Annex 6.B, 2020). */
   ceilingBoardLambda: number;
   /** Joist timber conductivity. Default 0.13 W/mK (softwood, BS EN ISO 10456:2007 Table 3). */
   timberLambda: number;
-  /** Conductivity assumed for existing insulation when the plan gives none. Default 0.044 W/mK (the commonest mineral-wool loft roll, manufacturers' declared λ90/90). */
+  /** Conductivity assumed for existing insulation when the plan gives none. Default 0.044 W/mK (the commonest mineral-wool loft roll's declared λ90/90, BS EN 13162 labelling; common practice). */
   existingLambda: number;
   /** Clearance kept around each exclusion kind when the exclusion gives none, mm. */
   clearanceMmByKind: Record<ExclusionKind, number>;
@@ -46,7 +46,7 @@ export interface TakeoffSettings {
   pointFootprintRadiusMm: number;
   /** Share of the existing depth that still counts, by condition (Quiltline's convention, not a standard). */
   existingConditionFactor: Record<'good' | 'compressed' | 'damp' | 'patchy' | 'none', number>;
-  /** Most cross layers the takeoff will propose. Default 3. */
+  /** Most cross layers the takeoff will propose. Default 3 (Quiltline's convention: more is rarely laid by hand). */
   maxCrossLayers: number;
   /**
    * Bays whose existing depth is within this of the joist tops count as full, so no base layer is

@@ -137,7 +137,8 @@ export function depthForTargetU(insulation: InsulationLayer[], lambda: number, t
 
 /**
  * RdSAP 2012 (SAP 2012 Appendix S, v9.94, 2019) Table S9: roof U-values (W/m²K) by loft
- * insulation thickness at joists, slates or tiles. Rows are [mm, U].
+ * insulation thickness at joists, slates or tiles (as transcribed in the building-energy/rdsap2012
+ * repository, tables/table_S9_roof_u_values.csv). Rows are [mm, U].
  */
 export const RDSAP_S9_ROOF_U: ReadonlyArray<readonly [number, number]> = Object.freeze([
   [0, 2.3],
@@ -165,7 +166,7 @@ export function rdsapRoofUValue(depthMm: number): number {
   return u;
 }
 
-/** One m²K/W in h·ft²·°F/Btu (the imperial R-value unit). */
+/** One m²K/W in h·ft²·°F/Btu (the imperial R-value unit): 1 / 0.1761102 (NIST Guide to the SI, SP 811, Appendix B.8). */
 export const R_SI_TO_IP = 5.678263;
 
 /** Imperial R-value (h·ft²·°F/Btu) of an SI resistance in m²K/W. */

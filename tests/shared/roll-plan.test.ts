@@ -50,7 +50,7 @@ describe('rule-of-thumb roll count (common practice: area × (1 + waste) / roll 
   });
 });
 
-describe('lanes laid continuously (bay method: total bay length ÷ roll length, a retail how-to leaflet, found)', () => {
+describe('lanes laid continuously (bay method: total bay length ÷ roll length, common practice, as retail how-to guides show it)', () => {
   it('12 bays × 8 m with 8 m rolls → 12 rolls, nothing left', () => {
     const [p] = planRolls([{ stock: stock(8000), pieces: strips(Array(12).fill(8000)) }], settings);
     expect(p.rolls).toBe(12);
