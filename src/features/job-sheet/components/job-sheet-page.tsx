@@ -17,6 +17,7 @@ import { SheetSection } from './sheet-section';
 import { SpaceBlock } from './space-block';
 import { SyncStatus } from './sync-status';
 import { VanLoad } from './van-load';
+import '../dark-loft.css';
 
 /**
  * The installer's job sheet, made first for a 360 px phone in a dim loft: large type, strong
@@ -67,7 +68,7 @@ export default function JobSheetPage() {
   const canRecord = !closed && can(me, 'sitework:record');
 
   return (
-    <div className="mx-auto max-w-2xl text-lg leading-relaxed text-[#1d1f22]">
+    <div className="mx-auto max-w-2xl text-lg leading-relaxed text-[#1d1f22]" data-dark-loft>
       <header className="mb-3">
         <div className="flex items-center justify-between gap-2">
           <span className="font-mono text-base font-semibold text-timber">{s.job.reference}</span>

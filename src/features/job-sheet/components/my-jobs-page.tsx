@@ -7,6 +7,7 @@ import { useMyJobs } from '../api/get-my-jobs';
 import { keepForOffline } from '../offline/register-sw';
 import { startOutbox } from '../offline/outbox';
 import { SyncStatus } from './sync-status';
+import '../dark-loft.css';
 
 /** Today's jobs first, then the coming ones by date, then earlier ones, most recent first. */
 export function groupMyJobs(jobs: MyJob[], today: string) {
@@ -64,7 +65,7 @@ export default function MyJobsPage() {
   if (jobs.isError) return <ErrorState error={jobs.error} onRetry={() => jobs.refetch()} />;
   const g = groupMyJobs(jobs.data, localTodayIso());
   return (
-    <div className="mx-auto max-w-xl text-lg">
+    <div className="mx-auto max-w-xl text-lg" data-dark-loft>
       <PageHeader title="My jobs" subtitle="Open a job sheet once with signal: it then works in the loft without any." />
       <SyncStatus />
       {jobs.data.length === 0 ? (

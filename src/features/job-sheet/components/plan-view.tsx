@@ -229,7 +229,7 @@ export default function PlanView({ space, layerKey, laid }: { space: SheetSpace;
         {layer && (
           <span className="mr-auto flex items-center gap-2 whitespace-nowrap text-base font-semibold" data-testid="lay-direction">
             <svg viewBox="0 0 40 40" width="36" height="36" aria-hidden style={{ transform: `rotate(${layer.layDirectionDeg}deg)` }}>
-              <path d="M4 20h28M24 11l10 9-10 9" fill="none" stroke="#1d1f22" strokeWidth="4" strokeLinecap="round" strokeLinejoin="round" />
+              <path d="M4 20h28M24 11l10 9-10 9" fill="none" stroke="currentColor" strokeWidth="4" strokeLinecap="round" strokeLinejoin="round" />
             </svg>
             Lay direction
           </span>
