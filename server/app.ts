@@ -8,6 +8,8 @@ import { requestLog } from './middleware/request-log';
 import { sameOrigin } from './middleware/same-origin';
 import { createSessionStack } from './middleware/session';
 import { createAuthService } from './modules/auth/auth.service';
+import { actualsRouters } from './modules/actuals/actuals.router';
+import { createActualsService } from './modules/actuals/actuals.service';
 import { authRouter } from './modules/auth/auth.router';
 import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { createCatalogueService } from './modules/catalogue/catalogue.service';
@@ -71,6 +73,7 @@ export function createApp(deps: AppDeps): Express {
   const sheetService = createJobSheetService(records, photoService);
   const sheets = jobSheetRouters(deps, { sheets: sheetService, records, exports: createJobSheetExportService(deps, sheetService) });
   const photos = photosRouters(deps, photoService);
+  const actuals = actualsRouters(createActualsService(deps));
 
   // Health answers without a session (load balancers probe it).
   app.use('/api/health', healthRouter(deps));
@@ -82,7 +85,14 @@ export function createApp(deps: AppDeps): Express {
   // One router on /api/jobs; the other modules' routes about one job are composed into it.
   app.use(
     '/api/jobs',
-    jobsRouter(deps, [spaces.jobSpaces, jobQuotesRouter(quotes), sheets.jobSheet, photos.jobPhotos, handoverRouter(deps, createHandoverService(deps))]),
+    jobsRouter(deps, [
+      spaces.jobSpaces,
+      jobQuotesRouter(quotes),
+      sheets.jobSheet,
+      photos.jobPhotos,
+      handoverRouter(deps, createHandoverService(deps)),
+      actuals.job,
+    ]),
   );
   app.use('/api/my-jobs', sheets.myJobs);
   app.use('/api/spaces', spaces.spaces);
@@ -96,6 +106,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/public/quotes', publicQuoteRouter(deps)); // the customer's private link (no sign-in)
   app.use('/api/payments', paymentsRouter(deps, payments));
   app.use('/api/invoices', invoicesRouter(deps, invoices));
+  app.use('/api/reports', actuals.reports); // estimate against actual, suggestions (office)
   app.use('/pay', payRouter(deps, payments, invoices)); // the customer's payment pages (no sign-in)
   if (!config.isProduction) app.use('/api/dev/outbox', devOutboxRouter(deps));
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { actualsBodySchema } from './actuals';
 import { addressSchema } from './customers';
 import { jobStageSchema } from './jobs';
 
@@ -184,6 +185,8 @@ export type JobPhoto = z.infer<typeof photoSchema>;
 export const finishBodySchema = z.object({
   /** A written reason per unticked check, keyed `${spaceId}:${code}`. */
   reasons: z.record(z.string(), z.string().trim().max(1000)).optional().default({}),
+  /** What was really used on site; what must be in it is the company's setting (nothing by default). */
+  actuals: actualsBodySchema.optional(),
 });
 export type FinishBody = z.input<typeof finishBodySchema>;
 

@@ -129,6 +129,10 @@ export const extraRulesSchema = z.object({
 });
 export type ExtraRules = z.infer<typeof extraRulesSchema>;
 
+/** What a company may ask installers to record on finishing a job (none by default). */
+export const ACTUALS_PARTS = ['rolls', 'hours', 'extras'] as const;
+export type ActualsPart = (typeof ACTUALS_PARTS)[number];
+
 export const companySettingsBodySchema = z.object({
   companyName: z.string().trim().min(1, { error: 'enter the company name' }).max(200),
   address: addressSchema,
@@ -176,6 +180,8 @@ export const companySettingsBodySchema = z.object({
     .max(300, { error: 'at most 300 mm' })
     .default(0),
   labour: labourSettingsSchema,
+  /** Which actuals an installer must record to finish a job: rolls used, hours on site, extras used. */
+  actualsRequired: z.array(z.enum(ACTUALS_PARTS)).max(3).default([]),
   extraRules: extraRulesSchema.default({
     pipeLaggingMPerTank: 3,
     walkwayBoardsPerTank: 3,

@@ -16,7 +16,8 @@ export type Action =
   | 'quotes:manage'
   | 'jobsheet:work'
   | 'sitework:record'
-  | 'outbox:read';
+  | 'outbox:read'
+  | 'reports:read';
 
 const GRANTS: Record<Role, ReadonlySet<Action>> = {
   office: new Set<Action>([
@@ -34,6 +35,8 @@ const GRANTS: Record<Role, ReadonlySet<Action>> = {
     'quotes:manage',
     'sitework:record',
     'outbox:read',
+    // Estimate against actual shows costs and margins: office only.
+    'reports:read',
   ]),
   estimator: new Set<Action>(['customers:read', 'customers:write', 'jobs:read', 'jobs:read-all', 'jobs:write', 'plans:write', 'prices:read', 'quotes:draft']),
   // Installers see only jobs assigned to them and never prices.

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Address } from '../../../shared/api/customers';
-import type { ExtraRules, LabourSettings } from '../../../shared/api/settings';
+import type { ActualsPart, ExtraRules, LabourSettings } from '../../../shared/api/settings';
 import type { Organisation } from './organisation';
 
 /** One row per company: details printed on quotes, pricing and savings settings. */
@@ -23,6 +23,7 @@ export class CompanySetting extends Model<InferAttributes<CompanySetting>, Infer
   declare rollCountMethod: 'packing' | 'area';
   declare eavesMode: 'gap' | 'ventilators';
   declare hatchKitInsulationMm: number;
+  declare actualsRequired: CreationOptional<ActualsPart[]>;
   declare labour: LabourSettings;
   declare extraRules: ExtraRules;
   declare logoKey: CreationOptional<string | null>;
@@ -51,6 +52,7 @@ export class CompanySetting extends Model<InferAttributes<CompanySetting>, Infer
         rollCountMethod: { type: DataTypes.STRING(10), allowNull: false },
         eavesMode: { type: DataTypes.STRING(12), allowNull: false, defaultValue: 'gap' },
         hatchKitInsulationMm: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
+        actualsRequired: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         labour: { type: DataTypes.JSONB, allowNull: false },
         extraRules: { type: DataTypes.JSONB, allowNull: false },
         logoKey: { type: DataTypes.STRING(300), allowNull: true },

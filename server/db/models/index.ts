@@ -9,6 +9,7 @@ import { Invoice } from './invoice';
 import { InvoiceCounter } from './invoice-counter';
 import { InvoiceLine } from './invoice-line';
 import { Job } from './job';
+import { JobActual } from './job-actual';
 import { JobCompletion } from './job-completion';
 import { JobEvent } from './job-event';
 import { JobNote } from './job-note';
@@ -23,6 +24,7 @@ import { PlanRevision } from './plan-revision';
 import { Product } from './product';
 import { Quote } from './quote';
 import { QuoteLine } from './quote-line';
+import { SettingsChange } from './settings-change';
 import { Space } from './space';
 import { TaxRate } from './tax-rate';
 import { User } from './user';
@@ -40,6 +42,7 @@ export {
   InvoiceCounter,
   InvoiceLine,
   Job,
+  JobActual,
   JobCompletion,
   JobEvent,
   JobNote,
@@ -54,6 +57,7 @@ export {
   Product,
   Quote,
   QuoteLine,
+  SettingsChange,
   Space,
   TaxRate,
   User,
@@ -61,10 +65,10 @@ export {
 
 /** Every model, one per file in this folder, grouped by domain. */
 const MODELS = {
-  company: [Organisation, User, AuthToken, CompanySetting, Product, Extra, TaxRate],
+  company: [Organisation, User, AuthToken, CompanySetting, SettingsChange, Product, Extra, TaxRate],
   jobs: [Customer, Job, JobEvent, Space, PlanRevision, MailMessage],
   quotes: [Quote, QuoteLine],
-  siteWork: [InstallSetting, JobTick, JobNote, JobPhoto, JobCompletion, IdempotencyKey],
+  siteWork: [InstallSetting, JobTick, JobNote, JobPhoto, JobCompletion, JobActual, IdempotencyKey],
   money: [PaymentSetting, Payment, PaymentEvent, InvoiceCounter, Invoice, InvoiceLine],
 } as const;
 
@@ -107,6 +111,8 @@ function associateSiteWork() {
   for (const M of [JobTick, JobNote, JobPhoto, JobCompletion] as const) {
     (M as typeof JobTick).belongsTo(User, { as: 'user', foreignKey: 'userId' });
   }
+  JobActual.belongsTo(User, { as: 'recordedBy', foreignKey: 'recordedById' });
+  SettingsChange.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   JobTick.belongsTo(Job, { as: 'job', foreignKey: 'jobId' });
   JobPhoto.belongsTo(Space, { as: 'space', foreignKey: 'spaceId' });
 }

@@ -9,6 +9,8 @@ export class JobCompletion extends Model<InferAttributes<JobCompletion>, InferCr
   declare completedAt: Date;
   declare reasons: CreationOptional<Record<string, string>>;
   declare handoverKey: string | null;
+  /** The Idempotency-Key of the finish request, so its resend is answered as done rather than refused. */
+  declare finishKey: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare user?: NonAttribute<User | null>;
 
@@ -21,6 +23,7 @@ export class JobCompletion extends Model<InferAttributes<JobCompletion>, InferCr
         completedAt: { type: DataTypes.DATE, allowNull: false },
         reasons: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         handoverKey: { type: DataTypes.STRING(300), allowNull: true },
+        finishKey: { type: DataTypes.STRING(100), allowNull: true },
         createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'job_completions', updatedAt: false },

@@ -9,7 +9,7 @@ import type { HandoverService } from './handover.service';
 
 /**
  * Finishing a job and its handover pack, composed into the jobs router (/api/jobs):
- *   POST /:id/finish          mark installed (a repeat gets 409 job_installed)
+ *   POST /:id/finish          mark installed, with the actuals (a resend with the same Idempotency-Key is answered as done; another repeat gets 409 job_installed)
  *   GET  /:id/handover.pdf    the handover pack of an installed job
  */
 export function handoverRouter(_deps: AppDeps, handover: HandoverService) {

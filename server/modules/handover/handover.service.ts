@@ -13,8 +13,14 @@ import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
 import { loadInstallSettings } from '../schedule/schedule.service';
 import { loadCompanySettings } from '../settings/settings.service';
 import { renderHandoverPdf, type HandoverData } from './handover-pdf';
+import type { Actuals } from '../../../shared/api/actuals';
+import { checkActualsRefs, missingActuals, storeActuals } from '../actuals/record-actuals';
 
 const PHOTOS_PER_STAGE = 2;
+
+type FinishInput = { reasons?: Record<string, string>; actuals?: Actuals };
+/** `replayed`: this was a resend of a finish already done with the same Idempotency-Key. */
+export type FinishResult = { stage: 'installed'; emailed: boolean; warnings: string[]; replayed: boolean };
 
 export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage' | 'mailer'>) {
   const { sequelize, storage } = deps;
@@ -83,10 +89,17 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
      * or before) and every space has at least one after photo; otherwise 409 `not_ready` naming
      * each thing missing. Then stores the handover pack and e-mails it to the customer.
      */
-    async finish(user: SessionUser, jobId: string, reasons: Record<string, string>): Promise<{ stage: 'installed'; emailed: boolean; warnings: string[] }> {
-      const job = await sequelize.transaction(async (t) => {
+    async finish(user: SessionUser, jobId: string, body: FinishInput, finishKey?: string): Promise<FinishResult> {
+      const reasons = body.reasons ?? {};
+      const done = await sequelize.transaction(async (t) => {
+        // Lock first, then judge the stage: two finishes at once are decided one after the other.
+        await Job.findOne({ where: { id: jobId, organisationId: user.organisationId }, transaction: t, lock: t.LOCK.UPDATE });
+        if (finishKey) {
+          // The same finish sent again (its answer was lost on a bad signal): answer it as done, record nothing twice.
+          const earlier = await JobCompletion.findOne({ where: { jobId, finishKey, userId: user.id }, transaction: t });
+          if (earlier) return null;
+        }
         const j = await findWorkableJob(user, jobId, t);
-        await Job.findByPk(j.id, { transaction: t, lock: t.LOCK.UPDATE });
         const spaces = await Space.findAll({ where: { jobId: j.id }, transaction: t });
         if (spaces.length === 0) throw new ConflictError('this job has no spaces to finish', 'not_ready');
         const revisions = await latestRevisions(
@@ -96,6 +109,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
         const ticks = await JobTick.findAll({ where: { jobId: j.id, kind: 'check' }, transaction: t });
         const afterPhotos = await JobPhoto.findAll({ where: { jobId: j.id, stage: 'after' }, transaction: t });
         const missing: { path: string; message: string }[] = [];
+        const productIds = new Set<string>();
         const now = new Date();
         for (const s of spaces) {
           const row = revisions.get(s.id);
@@ -127,18 +141,27 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
             if (!tick?.reason) missing.push({ path: `checks.${s.id}:${c.code}`, message: `${s.name}: "${c.title}" is not ticked and has no reason` });
           }
           if (!afterPhotos.some((p) => p.spaceId === s.id)) missing.push({ path: `photos.${s.id}`, message: `${s.name}: add at least one after photo` });
+          for (const l of stored?.layers ?? []) productIds.add(l.productId);
         }
+        missing.push(...missingActuals(body.actuals, (await loadCompanySettings(j.organisationId, t)).actualsRequired ?? []));
         if (missing.length) {
           throw new ConflictError(`not ready to mark installed: ${missing.map((m) => m.message).join('; ')}`, 'not_ready', missing);
         }
+        if (body.actuals) await checkActualsRefs(user, body.actuals, productIds, t);
         await j.update({ stage: 'installed' }, { transaction: t });
         await JobCompletion.create(
-          { jobId: j.id, organisationId: user.organisationId, userId: user.id, completedAt: now, reasons, handoverKey: null },
+          { jobId: j.id, organisationId: user.organisationId, userId: user.id, completedAt: now, reasons, handoverKey: null, finishKey: finishKey ?? null },
           { transaction: t },
         );
-        await JobEvent.create({ organisationId: user.organisationId, jobId: j.id, userId: user.id, kind: 'installed', data: { reasons } }, { transaction: t });
+        const actuals = await storeActuals(user, j.id, body.actuals, now, t);
+        await JobEvent.create(
+          { organisationId: user.organisationId, jobId: j.id, userId: user.id, kind: 'installed', data: { reasons, actuals } },
+          { transaction: t },
+        );
         return j;
       });
+      if (!done) return { stage: 'installed', emailed: false, warnings: [], replayed: true };
+      const job = done;
 
       const warnings: string[] = [];
       let emailed = false;
@@ -167,7 +190,7 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
       } catch (e) {
         warnings.push(`the job is marked installed, but the handover pack could not be sent: ${(e as Error).message}`);
       }
-      return { stage: 'installed', emailed, warnings };
+      return { stage: 'installed', emailed, warnings, replayed: false };
     },
 
     /** The handover pack PDF of an installed job (rendered now from the current records). */

@@ -27,6 +27,7 @@ export function defaultCompanySettings(
     rollCountMethod: 'packing',
     eavesMode: 'gap',
     hatchKitInsulationMm: 0,
+    actualsRequired: [],
     labour: {
       baseM2PerHour: 12,
       crossM2PerHour: 15,

@@ -32,6 +32,7 @@ export function toSettingsDto(s: CompanySetting): CompanySettings {
     rollCountMethod: s.rollCountMethod,
     eavesMode: s.eavesMode ?? 'gap',
     hatchKitInsulationMm: s.hatchKitInsulationMm ?? 0,
+    actualsRequired: s.actualsRequired ?? [],
     labour: s.labour,
     extraRules: s.extraRules,
     hasLogo: !!s.logoKey,
