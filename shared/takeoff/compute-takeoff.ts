@@ -191,7 +191,7 @@ export function computeTakeoff(plan: Plan, options: TakeoffOptions): Takeoff {
       degreeDays: settings.degreeDays,
       heatingEfficiency: settings.heatingEfficiency,
       fuelPriceMinorPerKwh: settings.fuelPriceMinorPerKwh,
-      note: 'estimate by the degree-day method over the whole ceiling: the 15.5 °C base temperature of the degree days allows for typical internal and solar gains; partial heating and a home kept cooler or warmer than usual are not modelled',
+      note: 'Saving estimated by the degree-day method over the whole ceiling: the 15.5 °C base temperature of the degree days allows for typical internal and solar gains; partial heating and a home kept cooler or warmer than usual are not modelled.',
     },
     exclusions: { countsByKind, items, boardedAreaM2, raisedBoardedAreaM2 },
     eaves: {
