@@ -112,4 +112,17 @@ describe('demo seed', () => {
       expect(got, `${job.reference} (${job.stage})`).toEqual(expected[job.stage]);
     }
   });
+
+  it('gives the finished demo jobs invented actuals, so the report and its suggestions show something', async () => {
+    const office = await loginAs(ctx.app, { email: 'office@demo.example.com', password: DEMO_PASSWORD });
+    const res = await office.get(`/api/reports/estimate-vs-actual?from=2000-01-01&to=2100-12-31`);
+    expect(res.status).toBe(200);
+    const finished = await Job.count({
+      where: { organisationId: (await Organisation.findOne({ where: { name: DEMO_COMPANY } }))!.id, stage: ['installed', 'closed'] },
+    });
+    expect(res.body.summary.jobsCounted).toBe(finished);
+    expect(res.body.summary.suggestions.waste).not.toBeNull();
+    expect(res.body.summary.suggestions.laying).not.toBeNull();
+    expect(res.body.rows.every((r: { usedRolls: number | null; actualHours: number | null }) => r.usedRolls !== null && r.actualHours !== null)).toBe(true);
+  });
 });

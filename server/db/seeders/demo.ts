@@ -11,6 +11,7 @@ import { Customer, Job, JobEvent, Organisation, Space, User } from '../models';
 import { nextJobReference } from '../../modules/jobs/job-reference';
 import { companyTakeoffInputs, storePlanRevision } from '../../modules/plan-revisions/plan-takeoff';
 import { createCompanyDefaults, seedDemoCatalogue } from '../../modules/settings/settings.service';
+import { seedDemoActuals } from './actuals-demo';
 import { seedDemoDocuments } from './documents-demo';
 
 /** Demo-only password, shown in the README. */
@@ -171,6 +172,26 @@ const DEMO_JOBS: DemoJob[] = [
     estimator: 'estimator',
     spaces: ['Main loft', 'Garage loft'],
   },
+  // Finished earlier in the year: with the two above they give the estimate-against-actual report its history.
+  ...(
+    [
+      ['Gwen Ashdown', 'gwen.ashdown@example.com', '2 Tanner Close', '2026-09-15', 'installer', 'estimator'],
+      ['Rupert Iles', 'rupert.iles@example.com', '41 Orchard Lane', '2026-10-06', 'installer2', 'estimator2'],
+      ['Mei Lin Oduya', 'meilin.oduya@example.com', '9 Cobble Yard', '2026-11-10', 'installer', 'estimator'],
+    ] as const
+  ).map(([customer, email, line1, installDate, installer, estimator], i) => ({
+    customer,
+    email,
+    phone: `01632 96012${i}`,
+    line1,
+    town: 'Kelsworth',
+    postcode: `KW3 ${i + 4}AA`,
+    stage: 'closed' as const,
+    installer,
+    installDate,
+    estimator,
+    spaces: ['Main loft'],
+  })),
 ];
 
 const OTHER_JOBS: DemoJob[] = [
@@ -334,5 +355,6 @@ export async function seedDemo(deps: AppDeps): Promise<boolean> {
   await seedCompany(deps, DEMO_COMPANY, DEMO_USERS, DEMO_JOBS, plans, passwordHash);
   await seedCompany(deps, OTHER_COMPANY, OTHER_USERS, OTHER_JOBS, plans, passwordHash);
   await seedDemoDocuments(deps, [DEMO_COMPANY, OTHER_COMPANY]);
+  await seedDemoActuals(DEMO_COMPANY);
   return true;
 }
