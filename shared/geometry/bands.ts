@@ -83,6 +83,17 @@ interface Trap {
 }
 
 const EPS = 1e-7;
+/**
+ * Float dust, mm: two lengths (or band coordinates) closer than this are the same one. Booleans
+ * snap to a micrometre grid (`BOOLEAN_GRID_MM`), so a turned plan comes back with every point a
+ * fraction of a µm off: an edge drawn along the band is then a few µm out of line, and a length
+ * of whole millimetres a few tenths of a µm long or short. Ten micrometres is far above that
+ * grid and far below anything measured. Here sub-slab boundaries closer than this are one (an
+ * edge within it of lying along the band is taken as along: it would otherwise cut a sub-slab a
+ * few µm thick whose end jumps the whole edge, and that would decide how the piece is split);
+ * the strips' thresholds (widths, lengths, the cutting step) give it the same benefit of doubt.
+ */
+export const SNAP_MM = 0.01;
 
 // Comparators and helpers live at module level: hot loops must not create closures (a bundler's
 // keep-names wrapper makes every closure creation costly, and the engine cannot inline them).
@@ -174,13 +185,13 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
     cuts.length = 0;
     for (let k = 0; k < w; k++) {
       const e = active[k];
-      if (e.ya > lo + EPS && e.ya < hi - EPS) cuts.push(e.ya);
-      if (e.yb > lo + EPS && e.yb < hi - EPS) cuts.push(e.yb);
+      if (e.ya > lo + SNAP_MM && e.ya < hi - SNAP_MM) cuts.push(e.ya);
+      if (e.yb > lo + SNAP_MM && e.yb < hi - SNAP_MM) cuts.push(e.yb);
     }
     insertionSortNumbers(cuts);
     const ys = [lo];
-    for (const y of cuts) if (y - ys[ys.length - 1] > EPS) ys.push(y);
-    if (hi - ys[ys.length - 1] > EPS) ys.push(hi);
+    for (const y of cuts) if (y - ys[ys.length - 1] > SNAP_MM) ys.push(y);
+    if (hi - ys[ys.length - 1] > SNAP_MM) ys.push(hi);
     else ys[ys.length - 1] = hi;
     const traps: Trap[] = [];
     const slabStart: number[] = [];

@@ -1,5 +1,6 @@
 import type { Plan } from '../plan/plan-schema';
 import type { MultiPolygon } from '../geometry/polygon';
+import { SNAP_MM } from '../geometry/bands';
 import { vecDot, type Vec2 } from '../geometry/vector';
 import type { LayerChoice } from './layers';
 import { cutStrips, layerBands, layingOrder, roundUpToStep, type RawStrip } from './strips';
@@ -46,9 +47,12 @@ export function buildLayer(
   const all = cutStrips(region, lb, s.cuttingAllowanceMm, s.minOffcutMm);
   const friction = Math.max(0, laneWidthMm - lb.bandWidthMm);
   const widthOf = (covered: number, full: boolean) => (full ? laneWidthMm : Math.min(laneWidthMm, roundUpToStep(covered + friction, 10)));
-  const minArea = s.minStripAreaM2 * 1e6;
+  // Thresholds give float dust the benefit of the doubt (a piece exactly at the minimum is a
+  // strip however the plan is turned): SNAP_MM on widths, 10 mm² on areas (a µm along a metre).
+  const minArea = s.minStripAreaM2 * 1e6 - 10;
+  const minWidth = s.minStripWidthMm - SNAP_MM;
   // A piece too small or too narrow everywhere is a sliver: filled from offcuts, not numbered.
-  const isSliver = (r: RawStrip) => r.areaMm2 < minArea || r.coveredWidthMm < s.minStripWidthMm;
+  const isSliver = (r: RawStrip) => r.areaMm2 < minArea || r.coveredWidthMm < minWidth;
   const raw = all.filter((r) => !isSliver(r));
   const order = layingOrder(raw, lb.frame, reference);
   const prefix = choice.role === 'base' ? 'B' : `C${choice.roleIndex + 1}.`;
@@ -73,7 +77,7 @@ export function buildLayer(
     let first = true;
     for (const g of r.segments) {
       const areaMm2 = (r.areaMm2 * g.lengthMm * g.coveredWidthMm) / nominal;
-      if (g.coveredWidthMm < s.minStripWidthMm) {
+      if (g.coveredWidthMm < minWidth) {
         addFill(areaMm2, g.coveredWidthMm, g.lengthMm, r.insideAt);
         fillArea += areaMm2;
         continue;

@@ -1,4 +1,4 @@
-import type { Ribbon } from '../geometry/bands';
+import { SNAP_MM, type Ribbon } from '../geometry/bands';
 
 /** A length of a strip with one width: the whole band width, or the part of it covered. */
 export interface StripSegment {
@@ -21,7 +21,7 @@ export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segmen
   const gaps: { lengthMm: number; acrossMm: number }[] = [];
   for (const r of ribbons) {
     const gap = r.sHiMm - r.sLoMm - r.coveredMm;
-    if (gap > 1) gaps.push({ lengthMm: gap, acrossMm: r.t1 - r.t0 });
+    if (gap > 1 + SNAP_MM) gaps.push({ lengthMm: gap, acrossMm: r.t1 - r.t0 });
   }
   if (ribbons.length === 1) {
     const r = ribbons[0];
@@ -57,13 +57,13 @@ export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segmen
     }
     const w = t1 > t0 ? t1 - t0 : 0;
     const last = segs[segs.length - 1];
-    if (last && Math.abs(last.coveredWidthMm - w) < 1) last.lengthMm += len;
+    if (last && Math.abs(last.coveredWidthMm - w) < 1 + SNAP_MM) last.lengthMm += len;
     else segs.push({ lengthMm: len, coveredWidthMm: w });
   }
   // Fold short lengths into the wider neighbour until every length is worth its own cut.
   while (segs.length > 1) {
     let k = -1;
-    for (let i = 0; i < segs.length; i++) if (segs[i].lengthMm < minSegmentMm && (k < 0 || segs[i].lengthMm < segs[k].lengthMm)) k = i;
+    for (let i = 0; i < segs.length; i++) if (segs[i].lengthMm < minSegmentMm - SNAP_MM && (k < 0 || segs[i].lengthMm < segs[k].lengthMm)) k = i;
     if (k < 0) break;
     const a = segs[k - 1];
     const b = segs[k + 1];
@@ -75,7 +75,7 @@ export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segmen
     const merged: StripSegment[] = [];
     for (const s of segs) {
       const m = merged[merged.length - 1];
-      if (m && Math.abs(m.coveredWidthMm - s.coveredWidthMm) < 1) m.lengthMm += s.lengthMm;
+      if (m && Math.abs(m.coveredWidthMm - s.coveredWidthMm) < 1 + SNAP_MM) m.lengthMm += s.lengthMm;
       else merged.push({ ...s });
     }
     segs = merged;
@@ -88,7 +88,8 @@ function endRuns(ribbons: Ribbon[], at0: (r: Ribbon) => number, at1: (r: Ribbon)
   const out = new Array<number>(ribbons.length);
   let start = 0;
   for (let j = 0; j <= ribbons.length; j++) {
-    const breaks = j === ribbons.length || (j > start && (Math.abs(at0(ribbons[j]) - at1(ribbons[j - 1])) > 1 || ribbons[j].t0 - ribbons[j - 1].t1 > 1e-6));
+    const breaks =
+      j === ribbons.length || (j > start && (Math.abs(at0(ribbons[j]) - at1(ribbons[j - 1])) > 1 + SNAP_MM || ribbons[j].t0 - ribbons[j - 1].t1 > 1e-6));
     if (!breaks) continue;
     let sum = 0;
     let h = 0;

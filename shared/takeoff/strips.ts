@@ -1,5 +1,5 @@
 import type { Plan } from '../plan/plan-schema';
-import { clipRegionToBands, type Band } from '../geometry/bands';
+import { clipRegionToBands, SNAP_MM, type Band } from '../geometry/bands';
 import { fromFrame, makeStripFrame, toFrame, type StripFrame } from '../geometry/transform';
 import { unitVectorFromDeg, vecPerp, type Vec2 } from '../geometry/vector';
 import type { MultiPolygon } from '../geometry/polygon';
@@ -82,6 +82,8 @@ export function layerBands(plan: Plan, role: LayerRole, laneWidthMm: number, reg
   return { frame, bands, bandWidthMm: laneWidthMm };
 }
 
+const EDGE_TOL_MM = 1;
+
 /**
  * Rounds `x` up to a multiple of `stepMm`, except that a length within `toleranceMm` above a
  * whole step stays at that step (a 4000.4 mm strip is cut at 4000 mm, not 4010 mm: no tape
@@ -89,12 +91,11 @@ export function layerBands(plan: Plan, role: LayerRole, laneWidthMm: number, reg
  */
 export function roundUpToStep(x: number, stepMm: number, toleranceMm = 1): number {
   if (!(stepMm > 0)) return x;
-  // The tolerance is inclusive with 0.1 µm to spare, so float dust on a length of whole
-  // millimetres (a turned plan) cannot move it across a step.
-  return Math.max(0, Math.ceil((x - toleranceMm - 1e-4) / stepMm) * stepMm);
+  // The tolerance is inclusive with 10 µm to spare: booleans snap a turned plan to a micrometre
+  // grid, which moves a length of whole millimetres by a few tenths of a µm either way, and that
+  // must not move it across a step (801.0003 mm is cut at 800 mm, as 800.9999 mm is).
+  return Math.max(0, Math.ceil((x - toleranceMm - SNAP_MM) / stepMm) * stepMm);
 }
-
-const EDGE_TOL_MM = 1;
 
 /**
  * Cuts a layer's region into strips along its bands. Each connected piece of the region in a
@@ -120,7 +121,7 @@ export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowance
       trueLengthMm += g.lengthMm;
       lengthMm += len;
       if (g.coveredWidthMm > coveredWidthMm) coveredWidthMm = g.coveredWidthMm;
-      segs.push({ lengthMm: len, coveredWidthMm: g.coveredWidthMm, fullWidth: g.coveredWidthMm >= bandWidth - EDGE_TOL_MM });
+      segs.push({ lengthMm: len, coveredWidthMm: g.coveredWidthMm, fullWidth: g.coveredWidthMm >= bandWidth - EDGE_TOL_MM - SNAP_MM });
     }
     return {
       bandIndex: pc.bandIndex,
@@ -128,7 +129,7 @@ export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowance
       trueLengthMm,
       lengthMm,
       coveredWidthMm,
-      fullWidth: coveredWidthMm >= bandWidth - EDGE_TOL_MM,
+      fullWidth: coveredWidthMm >= bandWidth - EDGE_TOL_MM - SNAP_MM,
       segments: segs,
       cutOuts: gaps,
       areaMm2: pc.areaMm2,
