@@ -20,20 +20,21 @@ describe('sign-in form', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
 
     const email = screen.getByLabelText('E-mail');
-    expect(email.getAttribute('aria-invalid')).toBe('true');
+    // The form checks on submit, which settles a moment after the click.
+    await waitFor(() => expect(email.getAttribute('aria-invalid')).toBe('true'));
     expect(document.getElementById(email.getAttribute('aria-describedby')!.split(' ')[0])!.textContent).toBe('enter a valid e-mail address');
     const password = screen.getByLabelText('Password');
     expect(document.getElementById(password.getAttribute('aria-describedby')!.split(' ')[0])!.textContent).toBe('enter your password');
     expect(calls).toHaveLength(0);
   });
 
-  it('rejects a malformed e-mail address but accepts the password', () => {
+  it('rejects a malformed e-mail address but accepts the password', async () => {
     fakeApi(() => undefined);
     renderPage(<SignInForm onSignedIn={() => {}} />, { user: null });
     fill('E-mail', 'office-at-demo');
     fill('Password', 'quiltline-demo');
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
-    expect(screen.getByText('enter a valid e-mail address')).toBeTruthy();
+    expect(await screen.findByText('enter a valid e-mail address')).toBeTruthy();
     expect(screen.getByLabelText('Password').getAttribute('aria-invalid')).toBeNull();
   });
 

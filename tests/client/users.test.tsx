@@ -76,7 +76,7 @@ describe('users page', () => {
     await screen.findByText('Ellis Harper');
     fireEvent.click(screen.getByRole('button', { name: 'Invite a colleague' }));
     fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));
-    expect(screen.getByText('enter a name')).toBeTruthy();
+    expect(await screen.findByText('enter a name')).toBeTruthy();
     expect(screen.getByText('enter a valid e-mail address')).toBeTruthy();
     expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
 

@@ -1,8 +1,8 @@
-import { useController, useFormContext, useWatch } from 'react-hook-form';
+import { useFormContext, useWatch } from 'react-hook-form';
 import type { Customer } from '../../../shared/api/customers';
-import { formatAddress, Select } from '../../components/ui';
+import { formatAddress } from '../../components/ui';
 import { CustomerFields } from '../../features/customers/components/customer-fields';
-import { FormField } from '../../lib/forms';
+import { FormField, FormSelect } from '../../lib/forms';
 import type { JobFormValues } from './job-form-schema';
 
 /** Pick one of the company's customers, or type a new one in place. */
@@ -17,8 +17,6 @@ export function CustomerChoice({
 }) {
   const { setValue, control } = useFormContext<JobFormValues>();
   const mode = useWatch({ control, name: 'mode' });
-  // Controlled: the options arrive after the form is filled, and the chosen one must show then.
-  const { field } = useController({ control, name: 'customerId' });
   const sorted = [...customers].sort((a, b) => a.name.localeCompare(b.name));
   return (
     <fieldset className="flex flex-col gap-3">
@@ -39,11 +37,10 @@ export function CustomerChoice({
       </div>
       {mode === 'existing' ? (
         <FormField name="customerId" label="Choose the customer" required hint={customersLoading ? 'Loading customers…' : undefined}>
-          <Select
-            {...field}
+          <FormSelect
+            name="customerId"
             disabled={customersLoading}
             onChange={(e) => {
-              field.onChange(e);
               const c = customers.find((x) => x.id === e.target.value);
               if (c) onCustomerPicked(c);
             }}
@@ -54,7 +51,7 @@ export function CustomerChoice({
                 {c.name} · {formatAddress(c.address)}
               </option>
             ))}
-          </Select>
+          </FormSelect>
         </FormField>
       ) : (
         <CustomerFields path="customer" />

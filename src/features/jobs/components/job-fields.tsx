@@ -1,8 +1,8 @@
-import { useController, useFormContext } from 'react-hook-form';
+import { useFormContext } from 'react-hook-form';
 import { JOB_STAGES } from '../../../../shared/api/jobs';
 import { AddressFields } from '../../../components/forms/address-fields';
-import { Input, Select, STAGE_LABELS, Textarea } from '../../../components/ui';
-import { FormField } from '../../../lib/forms';
+import { Input, STAGE_LABELS, Textarea } from '../../../components/ui';
+import { FormField, FormSelect } from '../../../lib/forms';
 
 type Installer = { id: string; name: string };
 type JobFieldValues = { stage: string; assignedInstallerId: string; installDate: string; accessNotes: string; notes: string };
@@ -27,18 +27,25 @@ export function JobFields({
       )}
       <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <FormField name="stage" label="Stage">
-          <Select {...register('stage')}>
+          <FormSelect name="stage">
             {JOB_STAGES.map((s) => (
               <option key={s} value={s}>
                 {STAGE_LABELS[s]}
               </option>
             ))}
-          </Select>
+          </FormSelect>
         </FormField>
         {installers && (
           <>
             <FormField name="assignedInstallerId" label="Installer">
-              <InstallerSelect installers={installers} />
+              <FormSelect name="assignedInstallerId">
+                <option value="">Not assigned</option>
+                {installers.map((i) => (
+                  <option key={i.id} value={i.id}>
+                    {i.name}
+                  </option>
+                ))}
+              </FormSelect>
             </FormField>
             <FormField name="installDate" label="Install date">
               <Input type="date" {...register('installDate')} />
@@ -53,21 +60,5 @@ export function JobFields({
         <Textarea rows={4} {...register('notes')} />
       </FormField>
     </div>
-  );
-}
-
-/** Controlled: the installers arrive after the form is filled, and the assigned one must show then. */
-function InstallerSelect({ installers }: { installers: Installer[] }) {
-  const { control } = useFormContext<JobFieldValues>();
-  const { field } = useController({ control, name: 'assignedInstallerId' });
-  return (
-    <Select {...field}>
-      <option value="">Not assigned</option>
-      {installers.map((i) => (
-        <option key={i.id} value={i.id}>
-          {i.name}
-        </option>
-      ))}
-    </Select>
   );
 }

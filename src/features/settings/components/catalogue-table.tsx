@@ -1,11 +1,10 @@
 import { useMemo, useState } from 'react';
 import type { z } from 'zod';
-import { formatMoney, minorToDecimalString } from '../../../../shared/quote/money';
-import { parseMoney } from '../../../../shared/quote/money-input';
+import { formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
-import { Alert, Button, Card, CardTitle, EmptyState, ErrorState, Field, Input, Select, Spinner, Table, TBody, Td, Th, THead, Tr } from '../../../components/ui';
-import { serverFieldErrors } from '../../../lib/form-errors';
+import { Button, Card, CardTitle, EmptyState, ErrorState, Input, Spinner, Table, TBody, Td, Th, THead, Tr } from '../../../components/ui';
 import { useCatalogue, useCatalogueMutation, type CatalogueResource } from '../api/catalogue';
+import { CatalogueRowForm } from './catalogue-row-form';
 
 export type ColumnType = 'text' | 'number' | 'money' | 'bool' | 'select' | 'date' | 'rate' | 'roles';
 export interface ColumnDef {
@@ -38,35 +37,7 @@ function display(c: ColumnDef, v: unknown, currency: string): string {
   }
 }
 
-function toText(c: ColumnDef, v: unknown, currency: string): string {
-  if (v === null || v === undefined) return '';
-  if (c.type === 'money') return minorToDecimalString(Number(v), currency);
-  if (c.type === 'rate') return String(Number(v) / 100);
-  if (c.type === 'roles') return (v as string[]).join(',');
-  return String(v);
-}
-
-function fromText(c: ColumnDef, text: string, currency: string): unknown {
-  switch (c.type) {
-    case 'number':
-      return text.trim() === '' ? undefined : Number(text);
-    case 'money':
-      return parseMoney(text, currency) ?? Number.NaN;
-    case 'rate':
-      return text.trim() === '' ? undefined : Math.round(Number(text) * 100);
-    case 'bool':
-      return text === 'true';
-    case 'roles':
-      return text
-        .split(',')
-        .map((s) => s.trim())
-        .filter(Boolean);
-    default:
-      return text;
-  }
-}
-
-type Props = { resource: CatalogueResource; title: string; columns: ColumnDef[]; schema: z.ZodType; currency: string; blank: Record<string, unknown> };
+type Props = { resource: CatalogueResource; title: string; columns: ColumnDef[]; schema: z.ZodObject; currency: string; blank: Record<string, unknown> };
 
 /**
  * A catalogue table: sort by any column (click its header), filter by text, add, edit and delete
@@ -77,8 +48,8 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
   const { save, remove } = useCatalogueMutation(resource);
   const [sort, setSort] = useState<{ key: string; dir: 1 | -1 }>({ key: columns[0].key, dir: 1 });
   const [filter, setFilter] = useState('');
-  const [editing, setEditing] = useState<{ id?: string; values: Record<string, string> } | null>(null);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  // The row being added or edited; `n` gives each opening a fresh form.
+  const [editing, setEditing] = useState<{ id?: string; row: Row; n: number } | null>(null);
 
   const rows = useMemo(() => {
     const f = filter.trim().toLowerCase();
@@ -91,26 +62,7 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
     });
   }, [list.data, filter, sort, columns, currency]);
 
-  const open = (row?: Row) => {
-    const src = row ?? (blank as Row);
-    setErrors({});
-    setEditing({ id: row?.id, values: Object.fromEntries(columns.map((c) => [c.key, toText(c, src[c.key], currency)])) });
-  };
-  const submit = async () => {
-    if (!editing) return;
-    const body = Object.fromEntries(columns.map((c) => [c.key, fromText(c, editing.values[c.key] ?? '', currency)]));
-    const parsed = schema.safeParse(body);
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0] ?? ''), i.message])));
-      return;
-    }
-    try {
-      await save.mutateAsync({ id: editing.id, body: parsed.data });
-      setEditing(null);
-    } catch (e) {
-      setErrors(serverFieldErrors(e));
-    }
-  };
+  const open = (row?: Row) => setEditing((e) => ({ id: row?.id, row: row ?? (blank as Row), n: (e?.n ?? 0) + 1 }));
   const visible = columns.filter((c) => c.inTable !== false);
 
   return (
@@ -178,53 +130,20 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
         </Table>
       )}
       {editing && (
-        <form
-          className="mt-4 grid grid-cols-1 gap-3 rounded-lg border border-paper-line bg-paper/60 p-4 sm:grid-cols-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            void submit();
+        <CatalogueRowForm
+          key={editing.n}
+          columns={columns}
+          schema={schema}
+          currency={currency}
+          row={editing.row}
+          editing={!!editing.id}
+          busy={save.isPending}
+          onSave={async (body) => {
+            await save.mutateAsync({ id: editing.id, body });
+            setEditing(null);
           }}
-        >
-          {columns.map((c) => (
-            <Field key={c.key} label={c.label} error={errors[c.key]}>
-              {c.type === 'select' || c.type === 'bool' ? (
-                <Select value={editing.values[c.key]} onChange={(e) => setEditing({ ...editing, values: { ...editing.values, [c.key]: e.target.value } })}>
-                  {(c.type === 'bool'
-                    ? [
-                        { value: 'true', label: 'yes' },
-                        { value: 'false', label: 'no' },
-                      ]
-                    : (c.options ?? [])
-                  ).map((o) => (
-                    <option key={o.value} value={o.value}>
-                      {o.label}
-                    </option>
-                  ))}
-                </Select>
-              ) : (
-                <Input
-                  type={c.type === 'date' ? 'date' : 'text'}
-                  inputMode={c.type === 'text' || c.type === 'date' || c.type === 'roles' ? undefined : 'decimal'}
-                  value={editing.values[c.key]}
-                  onChange={(e) => setEditing({ ...editing, values: { ...editing.values, [c.key]: e.target.value } })}
-                />
-              )}
-            </Field>
-          ))}
-          <div className="flex gap-2 sm:col-span-3">
-            <Button type="submit" busy={save.isPending}>
-              {editing.id ? 'Save' : 'Add'}
-            </Button>
-            <Button variant="ghost" onClick={() => setEditing(null)}>
-              Cancel
-            </Button>
-          </div>
-          {save.error && !Object.keys(errors).length && (
-            <div className="sm:col-span-3">
-              <Alert>{save.error.message}</Alert>
-            </div>
-          )}
-        </form>
+          onCancel={() => setEditing(null)}
+        />
       )}
     </Card>
   );
