@@ -44,6 +44,7 @@ const settings: CompanySettings = {
   rollCountMethod: 'packing',
   eavesMode: 'gap',
   hatchKitInsulationMm: 0,
+  actualsRequired: ['rolls'],
   labour: {
     baseM2PerHour: 12,
     crossM2PerHour: 15,
@@ -101,6 +102,8 @@ describe('company settings form', () => {
     expect(put.labour).toMatchObject({ hourlyRateMinor: 123450, hourlyCostMinor: 1900, minimumChargeMinor: 9500, crewSize: 2 });
     expect(put.wasteAllowance).toBeCloseTo(0.075, 10);
     expect(put.extraRules.eavesTrays).toBe(true);
+    // A setting with no field here is sent back as it was, not reset to its default.
+    expect(put).toMatchObject({ actualsRequired: ['rolls'], eavesMode: 'gap' });
   });
 
   it("shows the server's 422 next to the nested field it names", async () => {

@@ -69,6 +69,8 @@ export function settingsFormValues(s: CompanySettings): SettingsFormValues {
     rollCountMethod: s.rollCountMethod,
     eavesMode: s.eavesMode ?? 'gap',
     hatchKitInsulationMm: String(s.hatchKitInsulationMm ?? 0),
+    // No field on this form, but sent back as stored: left out, the PUT would reset it to its default.
+    actualsRequired: s.actualsRequired ?? [],
     labour: {
       baseM2PerHour: String(s.labour.baseM2PerHour),
       crossM2PerHour: String(s.labour.crossM2PerHour),
