@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { actualsBodySchema } from './actuals';
 import { addressSchema } from './customers';
 import { jobStageSchema } from './jobs';
+import { extraKindSchema } from './settings';
 
 /**
  * The installer's job sheet: everything needed on site and nothing about money.
@@ -108,8 +109,8 @@ export const sheetSpaceSchema = z.object({
 export type SheetSpace = z.infer<typeof sheetSpaceSchema>;
 
 export const vanLoadSchema = z.object({
-  rolls: z.array(z.object({ productName: z.string(), thicknessMm: z.number(), count: z.number().int() })),
-  extras: z.array(z.object({ label: z.string(), quantity: z.number(), unit: z.string() })),
+  rolls: z.array(z.object({ productId: z.string(), productName: z.string(), thicknessMm: z.number(), count: z.number().int() })),
+  extras: z.array(z.object({ code: extraKindSchema, label: z.string(), quantity: z.number(), unit: z.string() })),
 });
 export type VanLoad = z.infer<typeof vanLoadSchema>;
 

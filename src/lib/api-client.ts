@@ -35,6 +35,7 @@ export type RequestOptions = {
   body?: unknown;
   query?: Query;
   signal?: AbortSignal;
+  headers?: Record<string, string>;
 };
 
 function withQuery(path: string, query?: Query): string {
@@ -65,13 +66,13 @@ async function readError(res: Response): Promise<ApiError> {
 
 /** Calls the Quiltline API: JSON in and out, cookies same-origin, non-2xx thrown as ApiError. */
 export async function apiRequest<T>(path: string, opts: RequestOptions = {}): Promise<T> {
-  const { method = 'GET', body, query, signal } = opts;
+  const { method = 'GET', body, query, signal, headers } = opts;
   let res: Response;
   try {
     res = await fetch(withQuery(path, query), {
       method,
       credentials: 'same-origin',
-      headers: { Accept: 'application/json', ...(body !== undefined ? { 'Content-Type': 'application/json' } : {}) },
+      headers: { Accept: 'application/json', ...(body !== undefined ? { 'Content-Type': 'application/json' } : {}), ...headers },
       body: body !== undefined ? JSON.stringify(body) : undefined,
       signal,
     });

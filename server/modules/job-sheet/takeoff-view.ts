@@ -195,7 +195,7 @@ const EXTRA_UNITS: Partial<Record<ExtraKind, string>> = { pipe_lagging: 'm', dis
  * company settings the quote uses (shared/quote/extras.ts), named as in the company catalogue.
  */
 export function vanLoad(rows: RevisionRow[], rules: ExtraRules, catalogueExtras: readonly Pick<Extra, 'kind' | 'name' | 'unit' | 'active'>[]): VanLoad {
-  const rolls = new Map<string, { productName: string; thicknessMm: number; count: number }>();
+  const rolls = new Map<string, VanLoad['rolls'][number]>();
   const spaces = [];
   const takeoffs: Takeoff[] = [];
   for (const row of rows) {
@@ -203,7 +203,7 @@ export function vanLoad(rows: RevisionRow[], rules: ExtraRules, catalogueExtras:
     if (!t) continue;
     takeoffs.push(t);
     for (const l of t.layers) {
-      const r = rolls.get(l.productId) ?? { productName: String(l.productName), thicknessMm: Number(l.thicknessMm), count: 0 };
+      const r = rolls.get(l.productId) ?? { productId: l.productId, productName: String(l.productName), thicknessMm: Number(l.thicknessMm), count: 0 };
       r.count += Number(l.rollsByPacking);
       rolls.set(l.productId, r);
     }
@@ -216,7 +216,7 @@ export function vanLoad(rows: RevisionRow[], rules: ExtraRules, catalogueExtras:
   }
   const extras: VanLoad['extras'] = extrasFor(spaces, rules).map(({ kind, quantity }) => {
     const item = catalogueExtras.find((e) => e.kind === kind && e.active);
-    return { label: item?.name ?? EXTRA_KIND_LABELS[kind], quantity, unit: item?.unit ?? EXTRA_UNITS[kind] ?? 'each' };
+    return { code: kind, label: item?.name ?? EXTRA_KIND_LABELS[kind], quantity, unit: item?.unit ?? EXTRA_UNITS[kind] ?? 'each' };
   });
   return { rolls: [...rolls.values()].sort((a, b) => a.productName.localeCompare(b.productName)), extras };
 }

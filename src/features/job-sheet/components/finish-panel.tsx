@@ -3,6 +3,8 @@ import type { JobSheet } from '../../../../shared/api/job-sheet';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../components/ui/format';
 import { useFinishJob } from '../api/finish-job';
+import { newKey } from '../offline/outbox-db';
+import { ActualsForm, actualsFromDraft, draftFromVanLoad } from './actuals-form';
 import { finishBlockers, type PendingPhoto, type ShownTick } from '../merge-pending';
 import { SheetSection } from './sheet-section';
 
@@ -22,21 +24,39 @@ export function FinishPanel({
   ticks,
   pendingPhotos,
   waiting,
+  people,
+  finishQueued = false,
 }: {
   sheet: JobSheet;
   ticks: Map<string, ShownTick>;
   pendingPhotos: PendingPhoto[];
   waiting: number;
+  /** Who may have worked on the job: the assigned installer and whoever is signed in. */
+  people?: { id: string; name: string }[];
+  /** A finish made without signal is waiting in the outbox. */
+  finishQueued?: boolean;
 }) {
+  const crew = people ?? (sheet.job.installer ? [sheet.job.installer] : []);
+  const [draft, setDraft] = useState(() => draftFromVanLoad(sheet.vanLoad, crew));
+  // One key per finish of this job on this phone: a resend (online retry or from the outbox) is recorded once.
+  const [finishKey] = useState(() => newKey());
   const [reasons, setReasons] = useState<Record<string, string>>({});
   const [writing, setWriting] = useState(false);
   const [confirmingEarly, setConfirmingEarly] = useState(false);
   const bookedLater = !!sheet.job.installDate && sheet.job.installDate > localToday();
-  const finish = useFinishJob(sheet.job.id);
+  const finish = useFinishJob(sheet.job.id, finishKey);
   const blockers = finishBlockers(sheet, ticks, reasons, pendingPhotos);
   const unticked = finishBlockers(sheet, ticks, {}, pendingPhotos).checks;
   const ready = blockers.checks.length === 0 && blockers.photos.length === 0;
-  const submit = () => finish.mutate({ reasons: Object.fromEntries(Object.entries(reasons).filter(([, v]) => v.trim())) });
+  const submit = () => finish.mutate({ reasons: Object.fromEntries(Object.entries(reasons).filter(([, v]) => v.trim())), actuals: actualsFromDraft(draft) });
+  if (finish.data?.queued || finishQueued)
+    return (
+      <SheetSection title="Finish the job">
+        <p role="status" className="text-base font-semibold">
+          No signal: marked installed on this phone. It is sent with what was used as soon as there is signal.
+        </p>
+      </SheetSection>
+    );
   return (
     <SheetSection title="Finish the job">
       {ready && waiting === 0 && <p className="mb-2 text-base">Every check is ticked or explained and every space has an after photo.</p>}
@@ -71,6 +91,7 @@ export function FinishPanel({
           )}
         </div>
       )}
+      <ActualsForm load={sheet.vanLoad} people={crew} draft={draft} onChange={setDraft} />
       {blockers.photos.length > 0 && (
         <p className="mb-2 text-base font-semibold text-brick-dark">Add at least one after photo of: {blockers.photos.join(', ')}.</p>
       )}

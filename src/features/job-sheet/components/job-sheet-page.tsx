@@ -151,7 +151,9 @@ export default function JobSheetPage() {
           sheet={s}
           ticks={merged.ticks}
           pendingPhotos={merged.pendingPhotos}
-          waiting={outbox.items.filter((i) => i.jobId === s.job.id && i.status === 'waiting').length}
+          waiting={outbox.items.filter((i) => i.jobId === s.job.id && i.status === 'waiting' && i.kind !== 'finish').length}
+          finishQueued={outbox.items.some((i) => i.jobId === s.job.id && i.kind === 'finish' && i.status === 'waiting')}
+          people={[...(s.job.installer ? [s.job.installer] : []), ...(s.job.installer?.id === me.id ? [] : [{ id: me.id, name: me.name }])]}
         />
       )}
     </div>

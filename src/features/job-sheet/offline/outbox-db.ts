@@ -4,7 +4,7 @@ import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 export type OutboxItem = {
   key: string;
   jobId: string;
-  kind: 'tick' | 'note' | 'photo';
+  kind: 'tick' | 'note' | 'photo' | 'finish';
   /** POST target, e.g. /api/jobs/<id>/ticks. */
   url: string;
   /** JSON body (ticks, notes) or the photo's text fields. */

@@ -41,8 +41,9 @@ export function useOutbox(): Snapshot {
   );
 }
 
-export async function enqueue(item: Omit<OutboxItem, 'key' | 'createdAt' | 'status'>): Promise<OutboxItem> {
-  const full: OutboxItem = { ...item, key: newKey(), createdAt: new Date().toISOString(), status: 'waiting' };
+/** Queues a change; `key` only when the change was already tried online with that Idempotency-Key (a finish). */
+export async function enqueue(item: Omit<OutboxItem, 'key' | 'createdAt' | 'status'> & { key?: string }): Promise<OutboxItem> {
+  const full: OutboxItem = { ...item, key: item.key ?? newKey(), createdAt: new Date().toISOString(), status: 'waiting' };
   await putItem(full);
   await reload();
   // A flush already running read the list before this item existed: send it after that one.
