@@ -76,7 +76,7 @@ describe('finishing a job on the phone', () => {
     fireEvent.change(screen.getByLabelText(`${installer.name}: hours on site`), { target: { value: '5,5' } });
     fireEvent.click(screen.getByRole('button', { name: 'Mark installed' }));
     await waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(1));
-    expect(calls[0].body.actuals).toEqual({
+    expect((calls[0].body as { actuals: unknown }).actuals).toEqual({
       rolls: [{ productId: 'prod-100', used: 6, returned: 1 }],
       hours: [{ userId: installer.id, hours: 5.5 }],
       extras: [{ code: 'hatch_kit', used: 1 }],
