@@ -18,7 +18,7 @@ const STAGE_TONES: Record<JobStage, string> = {
   quoted: 'bg-timber-light/30 text-timber border-timber/30',
   accepted: 'bg-teal-light/60 text-teal-dark border-teal/30',
   scheduled: 'bg-sky text-graphite border-sky-dark/40',
-  installed: 'bg-teal text-white border-teal-dark',
+  installed: 'bg-teal-dark text-white border-teal-dark',
   closed: 'bg-paper-dark text-graphite-light border-graphite/20',
   declined: 'bg-brick-light/50 text-brick-dark border-brick/30',
 };

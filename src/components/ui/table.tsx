@@ -5,8 +5,13 @@ import { cn } from '../../lib/cn';
 export function Table({ className, children, ...rest }: HTMLAttributes<HTMLTableElement>) {
   return (
     // `relative` keeps absolutely placed children (screen-reader-only headers) inside the scroll
-    // box; without it they widen the page on a phone.
-    <div className="relative overflow-x-auto rounded-lg border border-paper-line bg-white/80 shadow-sm">
+    // box; without it they widen the page on a phone. The box takes focus so a keyboard can scroll it.
+    <div
+      className="relative overflow-x-auto rounded-lg border border-paper-line bg-white/80 shadow-sm focus-visible:outline-2 focus-visible:outline-teal"
+      role="region"
+      aria-label={rest['aria-label'] ?? 'Table'}
+      tabIndex={0}
+    >
       <table className={cn('w-full border-collapse text-sm', className)} {...rest}>
         {children}
       </table>

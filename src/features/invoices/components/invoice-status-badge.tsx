@@ -13,7 +13,7 @@ export function InvoiceStatusBadge({
     invoice.kind === 'credit_note'
       ? ['Credit note', 'bg-brick-light/40 text-brick-dark border-brick/30']
       : invoice.status === 'paid'
-        ? ['Paid', 'bg-teal text-white border-teal-dark']
+        ? ['Paid', 'bg-teal-dark text-white border-teal-dark']
         : invoice.overdue
           ? ['Overdue', 'bg-brick text-white border-brick-dark']
           : invoice.balanceMinor === 0

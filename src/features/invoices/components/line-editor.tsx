@@ -35,8 +35,9 @@ export function LineEditor({ lines, onChange, label }: { lines: DraftLine[]; onC
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-1 text-sm font-medium text-graphite">{label}</legend>
       {lines.map((l, i) => (
-        <div key={i} className="grid grid-cols-[minmax(0,1fr)_5rem_7rem_minmax(0,12rem)_auto] items-center gap-2">
+        <div key={i} className="grid grid-cols-2 items-center gap-2 sm:grid-cols-[minmax(0,1fr)_5rem_7rem_minmax(0,12rem)_auto]">
           <Input
+            className="col-span-2 sm:col-span-1"
             aria-label={`Line ${i + 1} description`}
             placeholder="What was done"
             value={l.description}
