@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { withFontFallback } from './font-fallback';
 import { FONTS } from './fonts';
 import { PALETTE } from '../../../shared/palette';
 
@@ -8,7 +9,7 @@ export const MARGIN = 48;
 /**
  * The base of every PDF (quote, invoice, job sheet, handover pack): A4, the same margins, the
  * app's fonts ('ui' Inter, 'ui-bold' Inter SemiBold, 'ui-heavy' Inter Bold, 'mono' JetBrains
- * Mono), graphite ink, and a "page n of m" footer added by `done()`, which resolves to the bytes.
+ * Mono; characters they lack from the fallbacks in `font-fallback.ts`), graphite ink, and a "page n of m" footer added by `done()`, which resolves to the bytes.
  */
 export function newDocument(title: string, opts: { author?: string } = {}) {
   const doc = new PDFDocument({
@@ -22,6 +23,7 @@ export function newDocument(title: string, opts: { author?: string } = {}) {
   doc.registerFont('ui-heavy', FONTS.bold);
   doc.registerFont('mono', FONTS.mono);
   noContextualAlternates(doc);
+  withFontFallback(doc);
   doc.font('ui').fontSize(10).fillColor(PALETTE.graphite);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
