@@ -27,6 +27,7 @@ import { createJobSheetService } from './modules/job-sheet/job-sheet.service';
 import { createSiteRecordsService } from './modules/job-sheet/site-records.service';
 import { jobsRouter } from './modules/jobs/jobs.router';
 import { payRouter } from './modules/payments/pay.router';
+import { createPayService } from './modules/payments/pay.service';
 import { paymentsRouter, paymentsWebhookRouter } from './modules/payments/payments.router';
 import { createPaymentsService } from './modules/payments/payments.service';
 import { photosRouters } from './modules/photos/photos.router';
@@ -107,7 +108,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/payments', paymentsRouter(deps, payments));
   app.use('/api/invoices', invoicesRouter(deps, invoices));
   app.use('/api/reports', actuals.reports); // estimate against actual, suggestions (office)
-  app.use('/pay', payRouter(deps, payments, invoices)); // the customer's payment pages (no sign-in)
+  app.use('/pay', payRouter(createPayService(deps, payments, invoices))); // the customer's payment pages (no sign-in)
   if (!config.isProduction) app.use('/api/dev/outbox', devOutboxRouter(deps));
 
   app.use('/api', apiNotFound);

@@ -96,3 +96,9 @@ export const publicDepositSchema = z.object({
   payUrl: z.string().nullable(),
 });
 export type PublicDeposit = z.infer<typeof publicDepositSchema>;
+
+/** The customer's signed quote link in a path (`/pay/deposit/:link`, `/api/payments/public/deposit/:link`). */
+export const quoteLinkParamsSchema = z.object({ link: z.string().min(10).max(500) });
+
+/** A private pay token in a path (`/pay/invoice/:token`, `/pay/done/:token`, …): 32 characters as issued, at most 64 accepted. */
+export const payTokenParamsSchema = z.object({ token: z.string().min(1).max(64) });

@@ -1,7 +1,7 @@
 import express, { Router } from 'express';
 import { z } from 'zod';
 import { idParamsSchema } from '../../../shared/api/common';
-import { paymentSettingsBodySchema } from '../../../shared/api/payments';
+import { paymentSettingsBodySchema, quoteLinkParamsSchema } from '../../../shared/api/payments';
 import type { AppDeps } from '../../deps';
 import { requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
@@ -27,7 +27,7 @@ export function paymentsRouter(deps: AppDeps, service: PaymentsService = createP
   const r = Router();
   // For the customer's quote page right after accepting (no sign-in; the signed quote link is the key):
   // whether a deposit is due and where to pay it.
-  r.get('/public/deposit/:link', validate({ params: z.object({ link: z.string().min(10).max(500) }) }), c.publicDeposit);
+  r.get('/public/deposit/:link', validate({ params: quoteLinkParamsSchema }), c.publicDeposit);
   r.use(requireAuth);
   r.get('/settings', requireCan('settings:manage'), c.getSettings);
   r.put('/settings', requireCan('settings:manage'), validate({ body: paymentSettingsBodySchema }), c.putSettings);
