@@ -16,14 +16,55 @@ export interface Offcut {
   reusable?: boolean;
 }
 
-/** The offcuts on hand and the smallest piece worth cutting from them. */
+const EPS = 1e-6;
+
+/** An offcut in the pool, numbered in the order it was made (the order ties are broken in). */
+type PoolOffcut = Offcut & { seq: number };
+
+/**
+ * The offcuts on hand. Those that cannot hold the smallest strip still to be asked for
+ * (`askLengthMm × askWidthMm`, either way round) are kept apart as scraps, so the searches for a
+ * strip only look at offcuts that might hold one (a plan with many cut-outs makes thousands of
+ * scraps a few mm wide); scraps serve the fills. `closeOffcutPool` merges them back in the order made.
+ */
 export interface OffcutPool {
-  items: Offcut[];
-  minLengthMm: number;
-  minWidthMm: number;
+  items: PoolOffcut[];
+  scraps: PoolOffcut[];
+  askLengthMm: number;
+  askWidthMm: number;
+  made: number;
 }
 
-const EPS = 1e-6;
+/** An empty pool for strips no shorter than `askLengthMm` and no narrower than `askWidthMm`. */
+export function newOffcutPool(askLengthMm: number, askWidthMm: number): OffcutPool {
+  return { items: [], scraps: [], askLengthMm, askWidthMm, made: 0 };
+}
+
+/** Puts an offcut in the pool: with the candidates for strips, or with the scraps. */
+export function addOffcut(pool: OffcutPool, lengthMm: number, widthMm: number, from: string, roll: number, lane: number): void {
+  const o: PoolOffcut = { lengthMm, widthMm, from, roll, lane, seq: pool.made++ };
+  const al = pool.askLengthMm - EPS;
+  const aw = pool.askWidthMm - EPS;
+  if ((lengthMm >= al && widthMm >= aw) || (widthMm >= al && lengthMm >= aw)) pool.items.push(o);
+  else pool.scraps.push(o);
+}
+
+/**
+ * Once no strip will be cut from offcuts: merges the scraps back in (every offcut in `items`, in
+ * the order made, as if never kept apart) and puts any later offcut in `items` too.
+ */
+export function closeOffcutPool(pool: OffcutPool): void {
+  const a = pool.items;
+  const b = pool.scraps;
+  const out: PoolOffcut[] = [];
+  let i = 0;
+  let j = 0;
+  while (i < a.length || j < b.length) out.push(j >= b.length || (i < a.length && a[i].seq < b[j].seq) ? a[i++] : b[j++]);
+  pool.items = out;
+  pool.scraps = [];
+  pool.askLengthMm = -Infinity;
+  pool.askWidthMm = -Infinity;
+}
 
 /**
  * Takes a `lengthMm × widthMm` piece from the smallest offcut (by area) that holds it, either
@@ -62,21 +103,22 @@ export function takeFromOffcuts(pool: OffcutPool, lengthMm: number, widthMm: num
         { lengthMm: ol - lengthMm, widthMm: widthMm },
         { lengthMm: ol, widthMm: ow - widthMm },
       ];
-  for (const r of rests) if (r.lengthMm > 1 && r.widthMm > 1) pool.items.push({ ...r, from: o.from, roll: o.roll, lane: o.lane });
+  for (const r of rests) if (r.lengthMm > 1 && r.widthMm > 1) addOffcut(pool, r.lengthMm, r.widthMm, o.from, o.roll, o.lane);
   return o;
 }
 
 /**
- * Fills `areaMm2` of slivers from the offcuts, smallest first (the scraps nobody else wants),
- * removing what it uses. Returns the area the offcuts could not cover, mm².
+ * Fills `areaMm2` of slivers from the offcuts (`items` of a closed pool), smallest first (the
+ * scraps nobody else wants), removing what it uses; `items` is left sorted by area. Returns the
+ * area the offcuts could not cover, mm².
  */
-export function takeFills(pool: OffcutPool, areaMm2: number): number {
+export function takeFills(items: Offcut[], areaMm2: number): number {
   if (!(areaMm2 > EPS)) return 0;
-  pool.items.sort((a, b) => a.lengthMm * a.widthMm - b.lengthMm * b.widthMm);
+  items.sort((a, b) => a.lengthMm * a.widthMm - b.lengthMm * b.widthMm);
   let need = areaMm2;
   let used = 0;
-  while (used < pool.items.length && need > EPS) {
-    const o = pool.items[used];
+  while (used < items.length && need > EPS) {
+    const o = items[used];
     const a = o.lengthMm * o.widthMm;
     if (a <= need + EPS) {
       need -= a;
@@ -87,7 +129,7 @@ export function takeFills(pool: OffcutPool, areaMm2: number): number {
       need = 0;
     }
   }
-  pool.items.splice(0, used);
+  items.splice(0, used);
   return Math.max(0, need);
 }
 
@@ -98,7 +140,7 @@ export function takeFills(pool: OffcutPool, areaMm2: number): number {
  */
 export function takeButted(pool: OffcutPool, lengthMm: number, widthMm: number, minPieceMm: number): { from: Offcut; lengthMm: number }[] | null {
   const wide = pool.items.filter((o) => o.widthMm + EPS >= widthMm && o.lengthMm + EPS >= minPieceMm).sort((a, b) => b.lengthMm - a.lengthMm);
-  const out: { from: Offcut; lengthMm: number }[] = [];
+  const out: { from: PoolOffcut; lengthMm: number }[] = [];
   let left = lengthMm;
   for (const o of wide) {
     if (left <= EPS) break;
@@ -117,7 +159,7 @@ export function takeButted(pool: OffcutPool, lengthMm: number, widthMm: number, 
 }
 
 /** Cuts `lengthMm × widthMm` off one given offcut of the pool, putting the rests back. */
-function takeFromOffcutItem(pool: OffcutPool, o: Offcut, lengthMm: number, widthMm: number): void {
+function takeFromOffcutItem(pool: OffcutPool, o: PoolOffcut, lengthMm: number, widthMm: number): void {
   const i = pool.items.indexOf(o);
   if (i < 0) return;
   pool.items.splice(i, 1);
@@ -125,5 +167,5 @@ function takeFromOffcutItem(pool: OffcutPool, o: Offcut, lengthMm: number, width
     { lengthMm: o.lengthMm - lengthMm, widthMm: o.widthMm },
     { lengthMm, widthMm: o.widthMm - widthMm },
   ];
-  for (const r of rests) if (r.lengthMm > 1 && r.widthMm > 1) pool.items.push({ ...r, from: o.from, roll: o.roll, lane: o.lane });
+  for (const r of rests) if (r.lengthMm > 1 && r.widthMm > 1) addOffcut(pool, r.lengthMm, r.widthMm, o.from, o.roll, o.lane);
 }

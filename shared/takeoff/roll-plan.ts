@@ -11,7 +11,7 @@
  * one call, so the server pools the layers and spaces of a job per product by passing them all.
  * Pure; lengths and widths in mm, areas in mm².
  */
-import { takeButted, takeFills, takeFromOffcuts, type Offcut, type OffcutPool } from './offcut-pool';
+import { addOffcut, closeOffcutPool, newOffcutPool, takeButted, takeFills, takeFromOffcuts, type Offcut } from './offcut-pool';
 
 export type { Offcut } from './offcut-pool';
 
@@ -121,7 +121,16 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
   const W = stock.laneWidthMm;
   const minUse = Math.min(st.minOffcutMm, L / 2);
   const lanes: PlannedLane[] = [];
-  const pool: OffcutPool = { items: [], minLengthMm: st.minOffcutMm, minWidthMm: st.minStripWidthMm };
+  // Narrow strips are the only ones cut from offcuts: no strip asks for less than the shortest
+  // (or the minimum usable length, where a strip is butted) and the narrowest of them.
+  let askL = Infinity;
+  let askW = Infinity;
+  for (const p of pieces)
+    if (p.kind === 'strip' && p.widthMm < W - 0.5) {
+      askL = Math.min(askL, p.lengthMm, minUse);
+      askW = Math.min(askW, p.widthMm);
+    }
+  const pool = newOffcutPool(askL, askW);
   const fromOffcuts: OffcutCut[] = [];
   const openedBy: string[] = [];
   const parts = new Map<string, number>();
@@ -130,7 +139,7 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
   const current = (): PlannedLane | null => cur;
 
   const open = (group: string): PlannedLane => {
-    if (cur && cur.leftoverMm > EPS) pool.items.push(laneEnd(cur, W));
+    if (cur && cur.leftoverMm > EPS) addLaneEnd(cur);
     const i = lanes.length;
     cur = { roll: Math.floor(i / stock.lanesPerRoll) + 1, lane: (i % stock.lanesPerRoll) + 1, cuts: [], usedMm: 0, leftoverMm: L };
     lanes.push(cur);
@@ -143,11 +152,13 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
     lane.cuts.push({ key: p.key, group: p.group, part, parts: 0, lengthMm: len, widthMm: p.widthMm, offsetMm: lane.usedMm });
     lane.usedMm += len;
     lane.leftoverMm = L - lane.usedMm;
-    if (p.widthMm < W - 0.5) pool.items.push({ lengthMm: len, widthMm: W - p.widthMm, from: `lengthwise rest of ${p.key}`, roll: lane.roll, lane: lane.lane });
-    if (part === 1)
-      for (const c of p.cutOuts ?? [])
-        if (c.lengthMm > 1 && c.widthMm > 1) pool.items.push({ ...c, from: `cut-out of ${p.key}`, roll: lane.roll, lane: lane.lane });
+    if (p.widthMm < W - 0.5) addOffcut(pool, len, W - p.widthMm, `lengthwise rest of ${p.key}`, lane.roll, lane.lane);
+    if (part === 1 && p.cutOuts?.length) {
+      const from = `cut-out of ${p.key}`;
+      for (const c of p.cutOuts) if (c.lengthMm > 1 && c.widthMm > 1) addOffcut(pool, c.lengthMm, c.widthMm, from, lane.roll, lane.lane);
+    }
   };
+  const addLaneEnd = (l: PlannedLane) => addOffcut(pool, l.leftoverMm, W, `roll ${l.roll} lane ${l.lane} end`, l.roll, l.lane);
 
   // Full-width strips first, in laying order; the longest later one that fits takes a short end.
   const wide = pieces.filter((p) => p.kind === 'strip' && p.widthMm >= W - 0.5);
@@ -228,20 +239,22 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
     }
   }
   const last = current();
-  if (last && last.leftoverMm > EPS) pool.items.push(laneEnd(last, W));
+  if (last && last.leftoverMm > EPS) addLaneEnd(last);
   // Its end is an offcut now: what still needs material opens a new lane.
   cur = null;
+  // No strip is cut from offcuts any more: every offcut is one list again, in the order made.
+  closeOffcutPool(pool);
 
   // Slivers: packed in from whatever offcut area there is; material bought only for the shortfall.
   const fillPieces = pieces.filter((p) => p.kind === 'fill');
   const fillArea = fillPieces.reduce((t, p) => t + p.areaMm2, 0);
-  const short = takeFills(pool, fillArea);
+  const short = takeFills(pool.items, fillArea);
   if (short > EPS) {
     const len = Math.ceil(short / W / 10) * 10;
     const p: PieceDemand = { key: 'fill', group: fillPieces[0].group, lengthMm: len, widthMm: W, areaMm2: 0, kind: 'strip' };
     layInStream(p, false);
     const c = current();
-    if (c && c.leftoverMm > EPS) pool.items.push(laneEnd(c, W));
+    if (c && c.leftoverMm > EPS) addLaneEnd(c);
   }
   const fills = new Map<string, { group: string; count: number; areaMm2: number }>();
   for (const p of fillPieces) {
@@ -255,7 +268,7 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
   for (const c of fromOffcuts) c.parts = parts.get(c.key) ?? 1;
   const rolls = Math.ceil(lanes.length / stock.lanesPerRoll);
   for (let i = lanes.length; i < rolls * stock.lanesPerRoll; i++) {
-    pool.items.push({ lengthMm: L, widthMm: W, from: 'unopened lane', roll: rolls, lane: (i % stock.lanesPerRoll) + 1 });
+    addOffcut(pool, L, W, 'unopened lane', rolls, (i % stock.lanesPerRoll) + 1);
   }
   const rollsByGroup: Record<string, number> = {};
   for (const p of pieces) rollsByGroup[p.group] ??= 0;
@@ -272,17 +285,20 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
     fills: [...fills.values()],
     offcuts: pool.items
       .filter((o) => o.lengthMm > EPS && o.widthMm > EPS)
-      .map((o) => ({ ...o, reusable: o.lengthMm + EPS >= st.minOffcutMm && o.widthMm + EPS >= st.minStripWidthMm })),
+      .map(({ lengthMm, widthMm, from, roll, lane }) => ({
+        lengthMm,
+        widthMm,
+        from,
+        roll,
+        lane,
+        reusable: lengthMm + EPS >= st.minOffcutMm && widthMm + EPS >= st.minStripWidthMm,
+      })),
     rollsByGroup,
     rollsLowerBound: Math.ceil(coveredMm2 / 1e6 / stock.coverageM2PerRoll - 1e-9),
     coveredMm2,
     boughtMm2,
     wastePct: boughtMm2 > 0 ? (leftMm2 / boughtMm2) * 100 : 0,
   };
-}
-
-function laneEnd(l: PlannedLane, W: number): Offcut {
-  return { lengthMm: l.leftoverMm, widthMm: W, from: `roll ${l.roll} lane ${l.lane} end`, roll: l.roll, lane: l.lane };
 }
 
 /** Index into `pieces` of the longest not yet `done` with length ≤ `maxMm`, or −1 (`order` sorts by length). */
