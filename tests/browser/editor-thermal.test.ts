@@ -58,4 +58,33 @@ describe('editor heat-loss panel', () => {
       await browser.close();
     }
   });
+
+  it('takes the eaves mode the office sets on the settings page for a plan that does not choose, and names it in the editor', { timeout: 90_000 }, async () => {
+    // examples/eaves-two-sides.json: two 10,200 mm eaves edges, joists (and so rafters) at 600 mm, no eaves mode of its own.
+    const { space } = await createJob(org, { plan: example('eaves-two-sides.json'), spaceName: 'Eaves loft' });
+    const browser = await launchBrowser({ viewport: { width: 1440, height: 900 } });
+    try {
+      const page = await browser.newPage();
+      await signInThroughUi(page, server.url, org.office.email, org.office.password);
+      await page.goto(`${server.url}/settings`);
+      await page.getByRole('tab', { name: 'Labour, waste, eaves, savings' }).click();
+      await page.getByLabel('Eaves, on plans that do not choose').selectOption('ventilators');
+      await page.getByRole('button', { name: 'Save settings' }).click();
+      await page.getByText('Settings saved.').waitFor();
+      await page.getByText('Eaves and hatch').scrollIntoViewIfNeeded();
+      await screenshot(page, 'settings-eaves-hatch-1440');
+
+      await page.goto(`${server.url}/spaces/${space.id}/edit`);
+      await page.getByTestId('plan-canvas').waitFor();
+      await page.getByRole('checkbox', { name: 'Autosave' }).uncheck();
+      await page.getByTestId('step-eaves').click();
+      expect(await page.getByTestId('eaves-mode').inputValue()).toBe('');
+      expect(await page.getByTestId('eaves-mode').locator('option[value=""]').textContent()).toBe('company default (eaves ventilators)');
+      // No gap to set with ventilators; ⌈10,200 / 600⌉ = 17 per edge × 2 edges = 34 ventilators.
+      expect(await page.getByTestId('eaves-gap').count()).toBe(0);
+      await expect.poll(() => page.getByTestId('eaves-ventilators').textContent()).toBe('34');
+    } finally {
+      await browser.close();
+    }
+  });
 });

@@ -45,7 +45,7 @@ const TAX_COLUMNS: ColumnDef[] = [
 
 const TABS = [
   ['company', 'Company and quotes'],
-  ['pricing', 'Labour, waste, savings'],
+  ['pricing', 'Labour, waste, eaves, savings'],
   ['products', 'Products'],
   ['extras', 'Extras'],
   ['tax', 'Tax rates'],
