@@ -65,6 +65,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
     retryLimit: config.mailRetryLimit,
     retryDelaySeconds: config.mailRetryDelaySeconds,
     pollingIntervalSeconds: config.mailPollSeconds,
+    sendTimeoutSeconds: config.mailSendTimeoutSeconds,
   });
   await mailQueue.start();
   const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });

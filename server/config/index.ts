@@ -62,6 +62,8 @@ const envSchema = z
     MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).max(50).default(12),
     /** First wait before a retry, seconds; each later wait about doubles (12 retries from 30 s: about 17 h in all). */
     MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).optional(),
+    /** How long one send may take before the message is taken as lost (its instance died mid-send) and another worker retries it, seconds. */
+    MAIL_SEND_TIMEOUT_SECONDS: z.coerce.number().int().min(2).max(3600).default(300),
     /** How often an idle mail worker looks for queued messages, seconds (at least 0.5). */
     MAIL_POLL_SECONDS: z.coerce.number().min(0.5).max(60).optional(),
   })
@@ -100,6 +102,7 @@ export interface Config {
   mailRetryLimit: number;
   mailRetryDelaySeconds: number;
   mailPollSeconds: number;
+  mailSendTimeoutSeconds: number;
   /** Prune expired sessions on a timer (off in tests so nothing keeps the process alive). */
   pruneSessions: boolean;
   fakeSmtpPort: number;
@@ -146,6 +149,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       path.resolve(e.UPLOAD_DIR),
     ),
     mailRetryLimit: e.MAIL_RETRY_LIMIT,
+    mailSendTimeoutSeconds: e.MAIL_SEND_TIMEOUT_SECONDS,
     // Tests wait for mail: short retries and fast polling there.
     mailRetryDelaySeconds: e.MAIL_RETRY_DELAY_SECONDS ?? (e.NODE_ENV === 'test' ? 1 : 30),
     mailPollSeconds: e.MAIL_POLL_SECONDS ?? (e.NODE_ENV === 'test' ? 0.5 : 2),

@@ -16,6 +16,8 @@ export interface MailQueueOptions {
   retryDelaySeconds: number;
   /** How often an idle worker looks for messages queued by other instances (pg-boss minimum 0.5 s). */
   pollingIntervalSeconds: number;
+  /** A job still active after this long is taken as lost (its instance died mid-send) and retried; default 300. */
+  sendTimeoutSeconds?: number;
   log?: (line: string) => void;
 }
 
@@ -46,15 +48,19 @@ function reasonOf(err: unknown): string {
 export function createMailQueue(opts: MailQueueOptions): MailQueue {
   const { sequelize, smtp } = opts;
   const log = opts.log ?? ((line: string) => console.warn(`[mail] ${line}`));
-  const boss = new PgBoss({ connectionString: opts.databaseUrl, max: 3, schedule: false });
+  const sendTimeout = opts.sendTimeoutSeconds ?? 300;
+  // Lost jobs are found by pg-boss's maintenance (one instance per interval): look twice per timeout, at most every 2 min.
+  const maintenanceIntervalSeconds = Math.min(120, Math.max(1, Math.round(sendTimeout / 2)));
+  const boss = new PgBoss({ connectionString: opts.databaseUrl, max: 3, schedule: false, maintenanceIntervalSeconds });
   // pg-boss reports its own connection trouble here; unheard, an 'error' event would end the process.
   boss.on('error', (err) => log(`queue error: ${reasonOf(err)}`));
   const sendOptions: PgBoss.SendOptions = {
     retryLimit: opts.retryLimit,
     retryDelay: opts.retryDelaySeconds,
     retryBackoff: true,
-    // A worker killed mid-send leaves its job active: it is expired and retried after this.
-    expireInSeconds: 300,
+    // A worker killed mid-send leaves its job active: it is expired and retried after this. A slow
+    // send outliving it is no duplicate: the retry waits on the row lock, then finds the row sent.
+    expireInSeconds: sendTimeout,
   };
   let workerId: string | null = null;
 
