@@ -9,6 +9,7 @@ import { createJoistsTool } from './tools/joists-tool';
 import { createOutlineTool } from './tools/outline-tool';
 import type { Tool, ToolContext, ToolKey } from './tools/tool';
 import { createViewTool } from './tools/view-tool';
+import { keyboardMove } from './keyboard-moves';
 
 export type PointerInput = { x: number; y: number; shift?: boolean; alt?: boolean; ctrl?: boolean; button?: number; touch?: boolean };
 export type KeyInput = { key: string; shift?: boolean; ctrl?: boolean; alt?: boolean };
@@ -103,6 +104,7 @@ export function createEditor(plan: Plan, session: Partial<Session> = {}, opts: {
     }
     if (key.ctrl) return false;
     if (tool().keyDown(ctx, key)) return true;
+    if (keyboardMove(store, key, !!opts.readOnly)) return true;
     if (/^[1-6]$/.test(k.key)) {
       setStep(STEPS[Number(k.key) - 1]);
       return true;

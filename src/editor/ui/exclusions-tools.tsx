@@ -4,6 +4,7 @@ import { cmd, deleteExclusion, setBoards, setExclusionKind, setExclusionLabel } 
 import { cn } from '../../lib/cn';
 import { useEditor, useEditorSelect } from './editor-context';
 import { KindSwatch } from './exclusion-legend';
+import { addExclusionAtViewCentre } from '../keyboard-moves';
 
 /** What each kind asks of the installer (the app's words); shown when one is selected. */
 export const KIND_RULES: Record<ExclusionKind, string> = {
@@ -46,6 +47,15 @@ export function ExclusionsTools() {
           </button>
         ))}
       </div>
+      <button
+        type="button"
+        data-testid="add-exclusion-at-centre"
+        onClick={() => addExclusionAtViewCentre(editor.store)}
+        className="h-8 rounded border border-graphite/25 bg-white px-2 text-sm"
+        title="Places one in the middle of the view; move it with the arrow keys"
+      >
+        Add at view centre
+      </button>
       {kind !== 'downlight' && (
         <div className="flex gap-1 text-sm">
           {(['rect', 'polygon'] as const).map((s) => (
