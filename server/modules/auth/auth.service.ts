@@ -83,6 +83,23 @@ export function createAuthService(deps: Pick<AppDeps, 'config' | 'mailer' | 'seq
     });
   }
 
+  /**
+   * To the holder of an address another company tried to invite: no account was made or changed;
+   * sent as mail about the holder's own account (their company's, like a reset), never the inviter's.
+   */
+  async function sendInviteElsewhereNotice(holder: User, organisationName: string, invitedBy: string) {
+    await mailer.send({
+      to: holder.email,
+      organisationId: holder.organisationId,
+      subject: `${organisationName} tried to invite you to Quiltline`,
+      text:
+        `Hello ${holder.name},\n\n${invitedBy} of ${organisationName} tried to invite this address to join ${organisationName} on Quiltline.\n\n` +
+        `This address already has a Quiltline account with another company, so no new account was made and yours is unchanged. ` +
+        `If you mean to join ${organisationName}, ask them to invite you with a different e-mail address.\n\n` +
+        `If you were not expecting this, you can ignore this e-mail.\n`,
+    });
+  }
+
   /** Always resolves the same way whether or not the e-mail is known (no account enumeration). */
   async function requestPasswordReset(email: string): Promise<void> {
     const user = await User.findOne({ where: { email: email.toLowerCase() } });
@@ -124,7 +141,17 @@ export function createAuthService(deps: Pick<AppDeps, 'config' | 'mailer' | 'seq
     });
   }
 
-  return { hashPassword, verifyCredentials, loadSessionUser, issueToken, sendInvite, requestPasswordReset, setPasswordFromToken, destroySessionsOf };
+  return {
+    hashPassword,
+    verifyCredentials,
+    loadSessionUser,
+    issueToken,
+    sendInvite,
+    sendInviteElsewhereNotice,
+    requestPasswordReset,
+    setPasswordFromToken,
+    destroySessionsOf,
+  };
 }
 
 export type AuthService = ReturnType<typeof createAuthService>;

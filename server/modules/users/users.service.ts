@@ -1,9 +1,16 @@
+import { randomUUID } from 'node:crypto';
 import type { InviteUserBody, UpdateUserBody, User as UserDto } from '../../../shared/api/users';
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import type { AuthService } from '../auth/auth.service';
+
+/**
+ * The least time an invite takes to answer, ms: longer than either path takes on a quiet machine,
+ * so a new invite and one for an address used by another company cannot be told apart by timing.
+ */
+export const INVITE_ANSWER_FLOOR_MS = 300;
 
 export function toUserDto(u: User): UserDto {
   return { id: u.id, email: u.email, name: u.name, role: u.role, active: u.active, hasPassword: !!u.passwordHash, createdAt: u.createdAt.toISOString() };
@@ -32,14 +39,32 @@ export function createUsersService(_deps: AppDeps, auth: AuthService) {
       return toUserDto(await findInOrg(actor, id));
     },
 
-    /** Creates the user without a password and e-mails a single-use link to set one. */
+    /**
+     * Creates the user without a password and e-mails a single-use link to set one. An address that
+     * already has an account with another company gets the same answer (nothing is created or
+     * changed for it; its holder is told by e-mail instead), so an invite never reveals who uses
+     * Quiltline elsewhere. Only a user of the inviter's own company, whom the inviter can see in
+     * the users list anyway, is a 409. Both answers wait to the same floor so timing tells nothing.
+     */
     async invite(actor: SessionUser, body: InviteUserBody): Promise<UserDto> {
-      if (await User.findOne({ where: { email: body.email } })) {
-        throw new ConflictError('a user with this e-mail already exists', 'email_taken', [{ path: 'email', message: 'this e-mail is already in use' }]);
+      const started = Date.now();
+      const existing = await User.findOne({ where: { email: body.email } });
+      if (existing && existing.organisationId === actor.organisationId) {
+        throw new ConflictError('a user of your company already has this e-mail', 'email_taken', [{ path: 'email', message: 'this e-mail is already in use' }]);
       }
-      const user = await User.create({ organisationId: actor.organisationId, email: body.email, name: body.name, role: body.role, passwordHash: null });
-      await auth.sendInvite(user, actor.organisationName, actor.name);
-      return toUserDto(user);
+      let answer: UserDto;
+      if (existing) {
+        await auth.sendInviteElsewhereNotice(existing, actor.organisationName, actor.name);
+        const now = new Date();
+        answer = { id: randomUUID(), email: body.email, name: body.name, role: body.role, active: true, hasPassword: false, createdAt: now.toISOString() };
+      } else {
+        const user = await User.create({ organisationId: actor.organisationId, email: body.email, name: body.name, role: body.role, passwordHash: null });
+        await auth.sendInvite(user, actor.organisationName, actor.name);
+        answer = toUserDto(user);
+      }
+      const wait = INVITE_ANSWER_FLOOR_MS - (Date.now() - started);
+      if (wait > 0) await new Promise((resolve) => setTimeout(resolve, wait));
+      return answer;
     },
 
     /** Sends a fresh invite link to a user who has not set a password yet. */
