@@ -72,7 +72,7 @@ function settingsApi(opts: { putStatus?: number; putBody?: unknown } = {}) {
 
 async function openPricing() {
   renderPage(<SettingsPage />, { user: demoUser('office') });
-  fireEvent.click(await screen.findByRole('tab', { name: 'Labour, waste, savings' }));
+  fireEvent.click(await screen.findByRole('tab', { name: 'Labour, waste, eaves, savings' }));
   await screen.findByLabelText('Charge per person-hour');
 }
 
