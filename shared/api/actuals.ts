@@ -53,6 +53,7 @@ export type Actuals = z.infer<typeof actualsBodySchema>;
 /** A job's estimate against actual as the office job page shows it; `comparison` null until the job is finished. */
 export type JobEstimateVsActual = {
   finished: boolean;
+  currency: string;
   recorded: { by: string; at: string } | null;
   comparison: JobComparison | null;
 };

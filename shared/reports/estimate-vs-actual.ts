@@ -7,6 +7,7 @@
 /** Loft shape classes for the m²-per-hour table, by the corners of the job's largest space. */
 export const LOFT_SHAPES = ['four-corners', 'l-shape', 'irregular'] as const;
 export type LoftShape = (typeof LOFT_SHAPES)[number];
+export const LOFT_SHAPE_LABELS: Record<LoftShape, string> = { 'four-corners': 'Four corners', 'l-shape': 'L-shape', irregular: 'More corners' };
 
 /** The shape class of an outline with `corners` points: 4 → four corners, 6 → L-shape, anything else irregular. */
 export function loftShapeOf(corners: number): LoftShape {

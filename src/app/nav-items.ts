@@ -15,6 +15,7 @@ export function navItemsFor(user: { role: Role } | null | undefined, opts: { out
   if (can(user, 'jobs:read-all')) items.push({ to: '/schedule', label: 'Schedule' });
   if (can(user, 'customers:read')) items.push({ to: '/customers', label: 'Customers' });
   if (can(user, 'quotes:manage')) items.push({ to: '/invoices', label: 'Invoices' });
+  if (can(user, 'reports:read')) items.push({ to: '/reports/estimate-vs-actual', label: 'Report' });
   if (can(user, 'users:manage')) items.push({ to: '/users', label: 'Users' });
   if (can(user, 'settings:manage')) items.push({ to: '/settings', label: 'Settings' });
   if (can(user, 'outbox:read') && opts.outbox !== false) items.push({ to: '/outbox', label: 'Outbox' });

@@ -42,6 +42,7 @@ const SpaceEditorPage = lazy(() => import('../editor/page/space-editor-page')); 
 
 // Money: invoices, payment settings
 const InvoicesPage = lazy(() => import('../features/invoices/components/invoices-page'));
+const ReportPage = lazy(() => import('../features/reports/components/report-page')); // recharts loads only here
 const InvoicePage = lazy(() => import('../features/invoices/components/invoice-page'));
 const PaymentSettingsPage = lazy(() => import('../features/invoices/components/payment-settings-page'));
 
@@ -77,6 +78,7 @@ const signedInRoutes = (queryClient?: QueryClient): RouteObject[] => [
   { path: 'settings', element: page(SettingsPage) },
   { path: 'jobs/:id/quotes/:quoteId', element: page(QuotePage) },
   { path: 'invoices', element: page(InvoicesPage) },
+  { path: 'reports/estimate-vs-actual', element: page(ReportPage) },
   { path: 'invoices/:id', element: page(InvoicePage) },
   { path: 'settings/payments', element: page(PaymentSettingsPage) },
   // The editor takes the whole window below the header (see AppShell).

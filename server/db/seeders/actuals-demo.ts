@@ -9,10 +9,10 @@ import { Job, JobActual, JobCompletion, Organisation, QuoteLine, Quote, User } f
  */
 const VARIATIONS = [
   { rolls: 1, returned: 1, hours: 1.2, hatch: 1 },
-  { rolls: 0, returned: 2, hours: 0.95, hatch: 1 },
+  { rolls: 1, returned: 2, hours: 0.95, hatch: 1 },
   { rolls: 2, returned: 0, hours: 1.35, hatch: 1 },
   { rolls: 1, returned: 1, hours: 1.1, hatch: 1 },
-  { rolls: -1, returned: 2, hours: 1.05, hatch: 1 },
+  { rolls: 1, returned: 2, hours: 1.05, hatch: 1 },
 ];
 
 /** Marks the company's installed and closed jobs finished with invented actuals; jobs already finished are left alone. */

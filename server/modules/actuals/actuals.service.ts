@@ -44,10 +44,11 @@ export function createActualsService(deps: Pick<AppDeps, 'sequelize'>) {
       const job = await findJobFor(user, jobId);
       const actual = await JobActual.findByPk(job.id, { include: [{ model: User, as: 'recordedBy' }] });
       const finished = (await JobCompletion.count({ where: { jobId: job.id } })) > 0;
-      if (!finished) return { finished, recorded: null, comparison: null };
-      const { rows } = await comparisons(user.organisationId, [job.id]);
+      if (!finished) return { finished, currency: (await loadCompanySettings(user.organisationId)).currency, recorded: null, comparison: null };
+      const { rows, settings } = await comparisons(user.organisationId, [job.id]);
       return {
         finished,
+        currency: settings.currency,
         recorded: actual ? { by: actual.recordedBy?.name ?? 'former user', at: actual.recordedAt.toISOString() } : null,
         comparison: rows[0] ?? null,
       };

@@ -12,6 +12,7 @@ import { JobMoneyCard } from '../../features/invoices/components/job-money-card'
 import { useJobQuotes } from '../../features/quotes/api/get-job-quotes';
 import { JobQuotesCard } from '../../features/quotes/components/job-quotes-card';
 import { isApiError } from '../../lib/api-client';
+import { JobActualsCard } from '../../features/reports/components/job-actuals-card';
 import NotFoundPage from './not-found';
 
 /** One job: who, where, which stage, who installs it and when, and its loft spaces. */
@@ -62,6 +63,7 @@ export default function JobDetailPage() {
       </div>
       {can(user, 'quotes:draft') && <JobQuotesCard jobId={j.id} />}
       {can(user, 'prices:read') && <JobMoney jobId={j.id} stage={j.stage} canInvoice={can(user, 'quotes:manage')} />}
+      {can(user, 'reports:read') && (j.stage === 'installed' || j.stage === 'closed') && <JobActualsCard jobId={j.id} />}
     </div>
   );
 }
