@@ -18,7 +18,7 @@ import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { handoverRouter } from './modules/handover/handover.router';
 import { createHandoverService } from './modules/handover/handover.service';
 import { mailRouter } from './modules/mail/mail.router';
-import { healthRouter } from './modules/health/health.router';
+import { healthRouter, readyRouter } from './modules/health/health.router';
 import { invoicesRouter } from './modules/invoices/invoices.router';
 import { createInvoicesService } from './modules/invoices/invoices.service';
 import { createJobSheetExportService } from './modules/job-sheet/job-sheet-export.service';
@@ -56,6 +56,11 @@ export function createApp(deps: AppDeps): Express {
   app.set('trust proxy', config.trustProxy);
   app.set('query parser', 'extended');
 
+  // While shutting down, each answer ends its connection so clients reconnect to another instance.
+  app.use((_req, res, next) => {
+    if (deps.lifecycle.draining) res.setHeader('Connection', 'close');
+    next();
+  });
   app.use(helmet());
   app.use(requestLog(deps.logger));
   // Services shared by several routers are built once here.
@@ -78,6 +83,7 @@ export function createApp(deps: AppDeps): Express {
 
   // Health answers without a session (load balancers probe it).
   app.use('/api/health', healthRouter(deps));
+  app.use('/api/ready', readyRouter(deps)); // database, mail queue, not shutting down
   app.use('/api', sameOrigin(config.appUrl, ['/api/payments/webhook']));
   app.use('/api', ...sessionHandlers);
   app.use('/api/auth', authRouter(deps, auth, passport));

@@ -26,6 +26,8 @@ export interface AppDeps {
   outbox: Outbox | null;
   /** Worker threads that validate plans and compute takeoffs off the request thread. */
   planPool: PlanPool;
+  /** Set by the shutdown (server/lib/shutdown.ts): readiness answers 503 while it drains. */
+  lifecycle: { draining: boolean };
   close(): Promise<void>;
 }
 
@@ -43,11 +45,11 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
   if (prepared) logger.info(`storage: ${prepared}`);
   // Sequelize models are classes bound to one instance: one per process. Tests that build several
   // apps pass the shared instance in (and close it themselves).
-  const sequelize = opts.sequelize ?? createSequelize(config.databaseUrl, { logSql: config.logSql });
+  const sequelize = opts.sequelize ?? createSequelize(config.databaseUrl, { logSql: config.logSql, log: (sql) => logger.info({ sql }, 'sql') });
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
   // An idle client whose server went away (PostgreSQL restarted) emits 'error' on the pool; unheard,
   // it would end the process. The pool drops that client and connects afresh on the next request.
-  pool.on('error', (err) => console.warn(`[db] session pool: idle connection lost (${err.message})`));
+  pool.on('error', (err) => logger.warn(`session pool: idle connection lost (${err.message})`));
   let fake: FakeSmtp | null = null;
   let smtp: Mailer;
   if (config.smtpUrl) {
@@ -66,6 +68,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
     retryDelaySeconds: config.mailRetryDelaySeconds,
     pollingIntervalSeconds: config.mailPollSeconds,
     sendTimeoutSeconds: config.mailSendTimeoutSeconds,
+    log: (line) => logger.warn({ module: 'mail' }, line),
   });
   await mailQueue.start();
   const planPool = createPlanPool({ threads: config.takeoffWorkers, timeLimitMs: config.takeoffTimeLimitMs });
@@ -79,6 +82,7 @@ export async function createDeps(config: Config, opts: { sequelize?: Sequelize }
     storage,
     outbox: fake,
     planPool,
+    lifecycle: { draining: false },
     async close() {
       await mailQueue.stop();
       await planPool.close();

@@ -6,6 +6,7 @@ import { seedDemo } from './db/seeders/demo';
 import { seedQuotesDemo } from './db/seeders/quotes-demo';
 import { createDeps } from './deps';
 import { createLogger } from './lib/logger';
+import { createShutdown } from './lib/shutdown';
 import { backfillStoredTakeoffs } from './modules/plan-revisions/plan-takeoff';
 
 /** Boots the API: config → deps → migrations → demo seed → listen. Listening only; the app is in app.ts. */
@@ -41,19 +42,15 @@ async function main() {
     process.exit(1);
   });
 
-  let stopping = false;
-  const stop = (signal: string) => {
-    if (stopping) return;
-    stopping = true;
-    log.info(`${signal}: closing`);
-    server.closeAllConnections?.();
-    server.close(() => {
-      deps.close().finally(() => process.exit(0));
-    });
-    setTimeout(() => process.exit(0), 5000).unref();
-  };
-  process.on('SIGINT', () => stop('SIGINT'));
-  process.on('SIGTERM', () => stop('SIGTERM'));
+  const shutdown = createShutdown({
+    server,
+    deps,
+    graceMs: config.shutdownGraceMs,
+    timeoutMs: config.shutdownTimeoutMs,
+    exit: (code) => process.exit(code),
+  });
+  process.on('SIGINT', () => void shutdown.stop('SIGINT'));
+  process.on('SIGTERM', () => void shutdown.stop('SIGTERM'));
 }
 
 main().catch((e) => {

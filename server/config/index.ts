@@ -66,6 +66,10 @@ const envSchema = z
     MAIL_SEND_TIMEOUT_SECONDS: z.coerce.number().int().min(2).max(3600).default(300),
     /** How often an idle mail worker looks for queued messages, seconds (at least 0.5). */
     MAIL_POLL_SECONDS: z.coerce.number().min(0.5).max(60).optional(),
+    /** After SIGTERM, how long readiness answers 503 while new requests are still served, so a load balancer stops sending them. */
+    SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).max(300).default(0),
+    /** Then at most this long for requests in flight to finish before their connections are closed. */
+    SHUTDOWN_TIMEOUT_SECONDS: z.coerce.number().min(0).max(600).default(20),
   })
   .superRefine((env, ctx) => {
     refineStorageEnv(env, ctx);
@@ -103,6 +107,8 @@ export interface Config {
   mailRetryDelaySeconds: number;
   mailPollSeconds: number;
   mailSendTimeoutSeconds: number;
+  shutdownGraceMs: number;
+  shutdownTimeoutMs: number;
   /** Prune expired sessions on a timer (off in tests so nothing keeps the process alive). */
   pruneSessions: boolean;
   fakeSmtpPort: number;
@@ -153,5 +159,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     // Tests wait for mail: short retries and fast polling there.
     mailRetryDelaySeconds: e.MAIL_RETRY_DELAY_SECONDS ?? (e.NODE_ENV === 'test' ? 1 : 30),
     mailPollSeconds: e.MAIL_POLL_SECONDS ?? (e.NODE_ENV === 'test' ? 0.5 : 2),
+    shutdownGraceMs: e.SHUTDOWN_GRACE_SECONDS * 1000,
+    shutdownTimeoutMs: e.SHUTDOWN_TIMEOUT_SECONDS * 1000,
   };
 }

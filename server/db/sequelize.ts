@@ -6,11 +6,12 @@ import { initModels } from './models';
 pg.types.setTypeParser(1082, (v: string) => v);
 
 /** One Sequelize instance with every model registered. */
-export function createSequelize(databaseUrl: string, opts: { logSql?: boolean } = {}): Sequelize {
+export function createSequelize(databaseUrl: string, opts: { logSql?: boolean; log?: (sql: string) => void } = {}): Sequelize {
   const sequelize = new Sequelize(databaseUrl, {
     dialect: 'postgres',
     dialectModule: pg,
-    logging: opts.logSql ? (sql: string) => console.log(sql) : false,
+    // LOG_SQL: each statement through the server's logger (development only: statements carry data).
+    logging: opts.logSql && opts.log ? opts.log : false,
     pool: { max: 10, min: 0, idle: 10_000 },
     define: { underscored: true },
   });

@@ -37,11 +37,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, next) => {
     return;
   }
   if (isDatabaseUnavailable(err)) {
-    console.warn(`[db] ${req.method} ${redactUrl(req.originalUrl)}: database unavailable (${redactText(String(err?.message ?? err))})`);
+    req.log.warn(`${req.method} ${redactUrl(req.originalUrl)}: database unavailable (${redactText(String(err?.message ?? err))})`);
     res.setHeader('Retry-After', String(DB_RETRY_AFTER_SECONDS));
     res.status(503).json({ error: { code: 'service_unavailable', message: 'the service is briefly unavailable; try again in a few seconds' } });
     return;
   }
-  console.error(`[error] ${req.method} ${redactUrl(req.originalUrl)}: ${describeError(err)}`);
+  req.log.error(`${req.method} ${redactUrl(req.originalUrl)}: ${describeError(err)}`);
   res.status(500).json({ error: { code: 'internal', message: 'something went wrong on the server' } });
 };

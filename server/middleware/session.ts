@@ -1,26 +1,38 @@
-import connectPgSimple from 'connect-pg-simple';
-import type { RequestHandler } from 'express';
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import session from 'express-session';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { AppDeps } from '../deps';
 import type { AuthService } from '../modules/auth/auth.service';
+import { createSessionStore } from './session-store';
 
 export const SESSION_COOKIE = 'quiltline.sid';
 export type AppPassport = InstanceType<typeof Passport>;
+export const SESSION_MAX_AGE_MS = 7 * 24 * 3600_000;
+/** A session in use has its expiry pushed forward once this much of its life has passed (one write a day, not one a request). */
+export const SESSION_REFRESH_AFTER_MS = SESSION_MAX_AGE_MS / 7;
+
+/**
+ * Sliding expiry without a write per request: once a signed-in session's cookie has less than
+ * (max age − refresh interval) left, the expiry is reset to the full age and the change marked, so
+ * express-session stores the row and sends the cookie again.
+ */
+export function refreshSession(req: Request, _res: Response, next: NextFunction) {
+  const s = req.session;
+  const signedIn = (s as { passport?: { user?: string } } | undefined)?.passport?.user;
+  if (signedIn && (s.cookie.maxAge ?? 0) < SESSION_MAX_AGE_MS - SESSION_REFRESH_AFTER_MS) {
+    s.cookie.maxAge = SESSION_MAX_AGE_MS;
+    s.refreshedAt = Date.now();
+  }
+  next();
+}
 
 /**
  * Sessions in PostgreSQL (connect-pg-simple) and a passport instance of this app's own
  * (not the global one, so several apps in one test process never share strategies).
  */
 export function createSessionStack(deps: AppDeps, auth: AuthService) {
-  const PgStore = connectPgSimple(session);
-  const store = new PgStore({
-    pool: deps.pool,
-    tableName: 'session',
-    createTableIfMissing: false,
-    pruneSessionInterval: deps.config.pruneSessions ? 15 * 60 : false,
-  });
+  const store = createSessionStore(deps.pool, { prune: deps.config.pruneSessions });
 
   const sessionMiddleware = session({
     name: SESSION_COOKIE,
@@ -28,13 +40,14 @@ export function createSessionStack(deps: AppDeps, auth: AuthService) {
     store,
     resave: false,
     saveUninitialized: false,
-    rolling: true,
+    // Not rolling: that rewrites the row on every request; refreshSession slides the expiry instead.
+    rolling: false,
     cookie: {
       httpOnly: true,
       sameSite: 'lax',
       // Secure whenever the request arrived over HTTPS (directly, or via a trusted proxy).
       secure: 'auto',
-      maxAge: 7 * 24 * 3600_000,
+      maxAge: SESSION_MAX_AGE_MS,
     },
   });
 
@@ -45,10 +58,14 @@ export function createSessionStack(deps: AppDeps, auth: AuthService) {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((id: string, done) => {
+  // The store read the user with the session row (checked afresh on every request: a deactivated
+  // user or one whose sessions were ended is signed out at once); a session it did not load asks again.
+  passport.deserializeUser((req: Request, id: string, done: (err: unknown, user?: Express.User | false) => void) => {
+    const loaded = req.session?.loadedUser;
+    if (loaded !== undefined && (loaded === null || loaded.id === id)) return done(null, loaded ?? false);
     auth.loadSessionUser(id).then((user) => done(null, user ?? false), done);
   });
 
-  const handlers: RequestHandler[] = [sessionMiddleware, passport.initialize(), passport.session()];
+  const handlers: RequestHandler[] = [sessionMiddleware, refreshSession, passport.initialize(), passport.session()];
   return { handlers, passport, store };
 }

@@ -4,6 +4,8 @@ import request from 'supertest';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { describeError, redactText, redactUrl } from '../../server/lib/log-redact';
 import { errorHandler } from '../../server/middleware/error-handler';
+import { createLogger } from '../../server/lib/logger';
+import { requestLog } from '../../server/middleware/request-log';
 import { signQuoteLink } from '../../server/modules/quotes/quote-link';
 
 const QUOTE_ID = '3f2b8a52-1c4d-4e6f-9a0b-7c8d9e0f1a2b';
@@ -23,7 +25,9 @@ describe('redaction', () => {
   });
 
   it('logs a 500 on a customer link without the token, in the URL, the message or the SQL', async () => {
+    const logged: string[] = [];
     const app = express();
+    app.use(requestLog(createLogger({ destination: { write: (line: string) => void logged.push(line) } })));
     app.get('/api/public/quotes/:token', () => {
       throw Object.assign(new Error(`lookup failed for ${payToken}`), {
         sql: `SELECT * FROM invoices WHERE pay_token = '${payToken}'`,
@@ -31,10 +35,6 @@ describe('redaction', () => {
       });
     });
     app.use(errorHandler);
-    const logged: string[] = [];
-    vi.spyOn(console, 'error').mockImplementation((...args: unknown[]) => {
-      logged.push(args.map((a) => (typeof a === 'string' ? a : a instanceof Error ? `${a.stack} ${JSON.stringify(a)}` : JSON.stringify(a))).join(' '));
-    });
     const res = await request(app).get(`/api/public/quotes/${encodeURIComponent(token)}`);
     expect(res.status).toBe(500);
     const all = logged.join('\n');

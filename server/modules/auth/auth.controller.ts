@@ -48,7 +48,7 @@ export function createAuthController(auth: AuthService, passport: AppPassport) {
       res.json({ ok: true, message: 'if that address belongs to an account, a reset link is on its way' });
       auth
         .requestPasswordReset(req.body.email)
-        .catch((e: unknown) => console.error('[auth] password reset mail not sent:', e instanceof Error ? e.message : e));
+        .catch((e: unknown) => req.log.error(`password reset mail not sent: ${e instanceof Error ? e.message : String(e)}`));
     },
 
     async setPassword(req: Request<unknown, unknown, SetPasswordBody>, res: Response) {

@@ -32,7 +32,7 @@ export function authRouter(deps: AppDeps, auth: AuthService, passport: AppPasspo
     }
     // A success clears the account's count (a late clear is harmless).
     res.on('finish', () => {
-      if (res.statusCode === 200) throttles.account.clear(keys.account).catch((err: Error) => console.warn(`[auth] sign-in limit not cleared: ${err.message}`));
+      if (res.statusCode === 200) throttles.account.clear(keys.account).catch((err: Error) => req.log.warn(`sign-in limit not cleared: ${err.message}`));
     });
     // A failure is counted before the 401 goes out, so the next attempt, on any instance, sees it.
     c.login(req, res, (err?: unknown) => {

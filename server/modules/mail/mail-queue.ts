@@ -18,7 +18,8 @@ export interface MailQueueOptions {
   pollingIntervalSeconds: number;
   /** A job still active after this long is taken as lost (its instance died mid-send) and retried; default 300. */
   sendTimeoutSeconds?: number;
-  log?: (line: string) => void;
+  /** Retries and queue trouble (the server's logger). */
+  log: (line: string) => void;
 }
 
 /** The durable mail queue: `mailer.send` records and queues; the worker sends. */
@@ -29,6 +30,8 @@ export interface MailQueue {
   start(): Promise<void>;
   /** Stops taking new messages and waits for the one being sent. */
   stop(): Promise<void>;
+  /** Whether the queue is started and not stopping or stopped (the readiness check). */
+  running(): boolean;
   /** Queues a failed message again (409 unless it is `failed`: a waiting or sent one is never sent twice). */
   resend(organisationId: string, id: string): Promise<void>;
 }
@@ -47,7 +50,7 @@ function reasonOf(err: unknown): string {
 
 export function createMailQueue(opts: MailQueueOptions): MailQueue {
   const { sequelize, smtp } = opts;
-  const log = opts.log ?? ((line: string) => console.warn(`[mail] ${line}`));
+  const { log } = opts;
   const sendTimeout = opts.sendTimeoutSeconds ?? 300;
   // Lost jobs are found by pg-boss's maintenance (one instance per interval): look twice per timeout, at most every 2 min.
   const maintenanceIntervalSeconds = Math.min(120, Math.max(1, Math.round(sendTimeout / 2)));
@@ -63,6 +66,11 @@ export function createMailQueue(opts: MailQueueOptions): MailQueue {
     expireInSeconds: sendTimeout,
   };
   let workerId: string | null = null;
+  let state: 'new' | 'running' | 'stopped' = 'new';
+  // pg-boss stops itself too (e.g. after boss.stop from elsewhere): readiness must see it.
+  boss.on('stopped', () => {
+    state = 'stopped';
+  });
 
   // pg-boss runs its INSERT on our transaction, so the row and its job commit (or vanish) together.
   const onTransaction = (transaction: Transaction): PgBoss.Db => ({
@@ -169,10 +177,16 @@ export function createMailQueue(opts: MailQueueOptions): MailQueue {
       workerId = await boss.work<{ messageId: string }>(QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds, includeMetadata: true }, async ([job]) =>
         deliver(job.data.messageId, job.retryCount >= job.retryLimit),
       );
+      state = 'running';
     },
     async stop() {
+      if (state === 'stopped') return;
+      state = 'stopped';
+      // graceful: the message being sent finishes (or fails and is retried by another instance);
+      // one still active past the timeout is left to pg-boss's expiry and retried, never dropped.
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
     },
+    running: () => state === 'running',
     async resend(organisationId, id) {
       await sequelize.transaction(async (transaction) => {
         const row = await MailMessage.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE });

@@ -87,7 +87,7 @@ export function createPayController(service: PayService) {
     },
 
     /** The customer sees a page, not JSON, when something goes wrong here. */
-    errorPage(err: unknown, _req: Request, res: Response, next: NextFunction) {
+    errorPage(err: unknown, req: Request, res: Response, next: NextFunction) {
       if (res.headersSent) return next(err);
       // A malformed link or token is one we do not recognise, like a well-formed unknown one.
       if (err instanceof ValidationError) return notFound(res);
@@ -96,7 +96,7 @@ export function createPayController(service: PayService) {
         return send(res, 503, view.brieflyUnavailable());
       }
       if (err instanceof AppError && err.status < 500) return send(res, err.status, view.paymentNotAvailable(err.message));
-      console.error(`[pay] error: ${describeError(err)}`);
+      req.log.error(`payment page error: ${describeError(err)}`);
       send(res, 502, view.cardServiceUnreachable());
     },
   };

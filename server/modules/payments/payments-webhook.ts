@@ -216,7 +216,7 @@ export function createWebhookHandler(deps: AppDeps, ctx: PaymentsContext) {
       try {
         await job();
       } catch (e) {
-        console.error('payments: follow-up after webhook failed:', e instanceof Error ? e.message : e);
+        deps.logger.error(`payments: follow-up after webhook failed: ${e instanceof Error ? e.message : String(e)}`);
       }
     }
     return result;

@@ -69,7 +69,7 @@ export function createPaymentsService(deps: AppDeps) {
       try {
         await ctx.gateway.expireCheckout(id);
       } catch (e) {
-        console.warn(`payments: could not expire checkout ${id}: ${e instanceof Error ? e.message : e}`);
+        deps.logger.warn(`payments: could not expire checkout ${id}: ${e instanceof Error ? e.message : String(e)}`);
       }
     }
   }

@@ -11,8 +11,9 @@ import { assertImagePixels, MAX_IMAGE_PIXELS } from '../../lib/uploads';
 import { checkPlanShapeOr422, runPlanTaskOr422 } from '../../lib/takeoff-pool/plan-checks';
 import type { SessionUser } from '../../types';
 import { companyTakeoffInputs, storePlanRevision, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
-import { getRevision, latestRevision, listRevisions } from '../plan-revisions/revisions.repository';
+import { getRevision, listRevisions } from '../plan-revisions/revisions.repository';
 import { findSpaceForUser } from '../spaces/spaces.service';
+import { readSpacePlan } from './plan-read';
 
 export const BACKGROUND_MAX_BYTES = 8 * 1024 * 1024;
 const IMAGE_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp', 'image/gif': 'gif' };
@@ -53,23 +54,22 @@ export function createPlansService(deps: AppDeps) {
 
   return {
     async get(actor: SessionUser, spaceId: string) {
-      const space = await findSpaceForUser(actor, spaceId);
-      const latest = await latestRevision(space.id);
+      const [space, inputs] = await Promise.all([readSpacePlan(sequelize, actor, spaceId), companyTakeoffInputs(actor.organisationId)]);
       const withPrices = can(actor, 'prices:read');
-      const stored = readStoredTakeoff(latest?.takeoff);
+      const stored = readStoredTakeoff(space.takeoff);
       const canWrite = can(actor, 'plans:write');
       return {
-        plan: (latest?.plan as Plan | undefined) ?? starterPlan(space.name),
-        revision: latest?.revision ?? 0,
-        savedAt: latest?.createdAt.toISOString() ?? null,
-        space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.job.reference },
+        plan: (space.plan as Plan | null) ?? starterPlan(space.name),
+        revision: space.revision ?? 0,
+        savedAt: space.createdAt?.toISOString() ?? null,
+        space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.jobReference },
         canWrite,
         /** Whether this revision has its takeoff stored (the editor offers Save when it has not). */
         takeoffStored: stored !== null,
         // Read-only viewers are shown the stored artefact as it is (no recomputing, no pinning);
         // writers compute it live from the same inputs, so they are not sent a second copy.
         takeoff: canWrite || !stored ? null : withPrices ? stored : takeoffWithoutPrices(stored),
-        takeoffInputs: withPrices ? await companyTakeoffInputs(actor.organisationId) : withoutPrices(await companyTakeoffInputs(actor.organisationId)),
+        takeoffInputs: withPrices ? inputs : withoutPrices(inputs),
       };
     },
 

@@ -96,7 +96,7 @@ export function createPublicQuoteService(deps: AppDeps) {
     try {
       await mailOffice(deps, { organisationId: q.organisationId, jobId: q.jobId, userId: null, purpose: 'quote_answer', quoteId: q.id }, subject, text);
     } catch (e) {
-      console.error(`[public-quote] office notice for quote ${q.number} not sent:`, e instanceof Error ? e.message : e);
+      deps.logger.error(`office notice for quote ${q.number} not sent: ${e instanceof Error ? e.message : String(e)}`);
     }
   }
 

@@ -1,0 +1,249 @@
+/**
+ * Serving speed of the compiled server (a script that prints numbers, not a test):
+ *   npm run bench:serve [-- --seconds 8 --rates 50,100,200 --connections 10 --instances 1,2 --profile]
+ * Builds dist-server/ if stale, makes a database of its own on the project cluster (quiltline_bench)
+ * with the demo data, starts the server as plain `node` processes (one, then two on the same
+ * database, connections spread round-robin by autocannon) and, beside them, a bare Express handler
+ * that answers the same bytes as the plan read. Drives GET /api/jobs and GET /api/spaces/:id/plan
+ * signed in as the demo office user at fixed rates and flat out, and prints requests/s and p99 with
+ * their ratio to the bare handler in the same run. --profile writes a V8 CPU profile of each server
+ * process into test-output/cpu-profiles/ (open in Chrome DevTools). Run on an otherwise idle machine.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import { createServer } from 'node:net';
+import { loadavg } from 'node:os';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import { DEMO_PASSWORD } from '../server/db/seeders/demo';
+import { buildServer } from './server-build.mjs';
+import { REPO_ROOT, databaseUrl, dropDatabase, ensureDatabase, ensurePgRunning, stopPg } from './pg.mjs';
+
+const arg = (name: string, fallback: string) => {
+  const i = process.argv.indexOf(`--${name}`);
+  return i > 0 ? process.argv[i + 1] : fallback;
+};
+const seconds = Number(arg('seconds', '8'));
+const rates = arg('rates', '50,100,200').split(',').map(Number);
+const connections = Number(arg('connections', '10'));
+const instanceCounts = arg('instances', '1,2').split(',').map(Number);
+const profile = process.argv.includes('--profile');
+const DB = 'quiltline_bench';
+const PROFILE_DIR = path.join(REPO_ROOT, 'test-output', 'cpu-profiles');
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as { port: number };
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+const children: ChildProcess[] = [];
+
+function startProcess(args: string[], env: NodeJS.ProcessEnv, logName: string): ChildProcess {
+  const log = fs.openSync(path.join(REPO_ROOT, 'test-output', `${logName}.log`), 'w');
+  const child = spawn(process.execPath, args, { cwd: REPO_ROOT, env, stdio: ['ignore', log, log] });
+  children.push(child);
+  return child;
+}
+
+async function waitUntil(url: string, child: ChildProcess) {
+  for (const started = Date.now(); Date.now() - started < 120_000;) {
+    if (child.exitCode !== null) throw new Error(`${url}: the process exited (${child.exitCode}); see test-output/`);
+    const ok = await fetch(url).then(
+      (r) => r.ok,
+      () => false,
+    );
+    if (ok) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`${url} did not answer within 2 minutes`);
+}
+
+async function stopProcess(child: ChildProcess) {
+  if (child.exitCode !== null || child.signalCode !== null) return;
+  await new Promise((resolve) => {
+    child.once('exit', resolve);
+    child.kill('SIGTERM');
+  });
+}
+
+/** The compiled API server in production mode on the bench database. */
+async function startServer(n: number, opts: { seed: boolean; serverMain: string; db: string }) {
+  const port = await freePort();
+  const args = ['--enable-source-maps'];
+  if (profile) args.push('--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`);
+  const child = startProcess(
+    [...args, opts.serverMain],
+    {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      DATABASE_URL: opts.db,
+      SESSION_SECRET: randomBytes(24).toString('hex'),
+      // Nothing is mailed during the bench; a port with no server keeps the worker idle.
+      SMTP_URL: 'smtp://127.0.0.1:9',
+      SEED_DEMO: opts.seed ? '1' : '0',
+      LOGIN_RATE_LIMIT: '1000',
+      LOG_LEVEL: process.env.LOG_LEVEL ?? 'info',
+    },
+    `bench-server-${n}`,
+  );
+  const base = `http://127.0.0.1:${port}`;
+  await waitUntil(`${base}/api/ready`, child);
+  return { base, child };
+}
+
+/** A bare Express handler answering `body` as JSON: the ceiling of this machine and Express. */
+async function startBare(n: number, bodyFile: string) {
+  const port = await freePort();
+  const code = `
+    const express = require('express');
+    const body = JSON.parse(require('fs').readFileSync(${JSON.stringify(bodyFile)}, 'utf8'));
+    const app = express();
+    app.get('/bare', (_req, res) => res.json(body));
+    app.get('/ready', (_req, res) => res.json({ ok: true }));
+    app.listen(${port}, '127.0.0.1');
+    process.on('SIGTERM', () => process.exit(0));`;
+  const child = startProcess(['-e', code], process.env, `bench-bare-${n}`);
+  const base = `http://127.0.0.1:${port}`;
+  await waitUntil(`${base}/ready`, child);
+  return { base, child };
+}
+
+async function signIn(base: string): Promise<string> {
+  const res = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'office@demo.example.com', password: DEMO_PASSWORD }),
+  });
+  if (!res.ok) throw new Error(`sign-in answered ${res.status}`);
+  return res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
+}
+
+async function getJson<T>(url: string, cookie: string): Promise<{ body: T; bytes: number }> {
+  const res = await fetch(url, { headers: { cookie } });
+  const text = await res.text();
+  if (!res.ok) throw new Error(`GET ${url} answered ${res.status}: ${text.slice(0, 200)}`);
+  return { body: JSON.parse(text) as T, bytes: Buffer.byteLength(text) };
+}
+
+/** A space of the demo company with a saved plan (the editor's read). */
+async function findPlanSpace(base: string, cookie: string): Promise<string> {
+  const { body } = await getJson<{ jobs: Array<{ spaces: Array<{ id: string }> }> }>(`${base}/api/jobs?limit=100`, cookie);
+  for (const job of body.jobs) {
+    for (const space of job.spaces) {
+      const { body: plan } = await getJson<{ revision: number }>(`${base}/api/spaces/${space.id}/plan`, cookie);
+      if (plan.revision > 0) return space.id;
+    }
+  }
+  throw new Error('no demo space has a saved plan');
+}
+
+interface Row {
+  instances: number;
+  target: string;
+  rate: number | null;
+  rps: number;
+  p50: number;
+  p99: number;
+  bad: number;
+}
+
+// autocannon spreads connections round-robin over several URLs (connection i → urls[i % n]); its
+// types only declare one.
+const over = (urls: string[]) => urls as unknown as string;
+
+async function measure(urls: string[], cookie: string, rate: number | null): Promise<Omit<Row, 'instances' | 'target'>> {
+  const r = await autocannon({
+    url: over(urls),
+    connections,
+    duration: seconds,
+    headers: cookie ? { cookie } : {},
+    ...(rate ? { overallRate: rate } : {}),
+  });
+  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts };
+}
+
+async function main() {
+  fs.mkdirSync(path.join(REPO_ROOT, 'test-output'), { recursive: true });
+  if (profile) fs.mkdirSync(PROFILE_DIR, { recursive: true });
+  const pg = await ensurePgRunning();
+  dropDatabase(DB);
+  ensureDatabase(DB);
+  const db = databaseUrl(DB);
+  const serverMain = await buildServer({ log: (m: string) => console.log(`[build] ${m}`) });
+  const loadBefore = loadavg();
+  const rows: Row[] = [];
+  const servers: Array<{ base: string; child: ChildProcess }> = [];
+  const bares: Array<{ base: string; child: ChildProcess }> = [];
+  let planBytes = 0;
+  let jobsBytes = 0;
+  try {
+    for (const count of instanceCounts) {
+      while (servers.length < count) servers.push(await startServer(servers.length + 1, { seed: servers.length === 0, serverMain, db }));
+      const cookie = await signIn(servers[0].base);
+      const spaceId = await findPlanSpace(servers[0].base, cookie);
+      const plan = await getJson<unknown>(`${servers[0].base}/api/spaces/${spaceId}/plan`, cookie);
+      jobsBytes = (await getJson<unknown>(`${servers[0].base}/api/jobs`, cookie)).bytes;
+      planBytes = plan.bytes;
+      const bodyFile = path.join(REPO_ROOT, 'test-output', 'bench-plan-body.json');
+      fs.writeFileSync(bodyFile, JSON.stringify(plan.body));
+      while (bares.length < count) bares.push(await startBare(bares.length + 1, bodyFile));
+      const targets: Array<[string, string[], string]> = [
+        ['bare handler', bares.slice(0, count).map((b) => `${b.base}/bare`), ''],
+        ['GET /api/jobs', servers.slice(0, count).map((s) => `${s.base}/api/jobs`), cookie],
+        ['GET /api/spaces/:id/plan', servers.slice(0, count).map((s) => `${s.base}/api/spaces/${spaceId}/plan`), cookie],
+      ];
+      for (const [target, urls, c] of targets) {
+        await autocannon({ url: over(urls), connections, duration: 2, headers: c ? { cookie: c } : {} }); // warm up
+        for (const rate of [...rates, null]) {
+          const row = { instances: count, target, ...(await measure(urls, c, rate)) };
+          rows.push(row);
+          console.log(`${count} instance(s) ${target} at ${rate ?? 'max'}: ${row.rps.toFixed(0)} req/s, p99 ${row.p99} ms`);
+        }
+      }
+    }
+  } finally {
+    await Promise.all(children.map(stopProcess));
+  }
+  const loadAfter = loadavg();
+  printTable(rows);
+  console.log(
+    `\nanswers: plan ${(planBytes / 1024).toFixed(1)} kB, jobs list ${(jobsBytes / 1024).toFixed(1)} kB; ${connections} connections, ${seconds} s per row`,
+  );
+  console.log(`load average before ${loadBefore.map((l) => l.toFixed(2)).join(' ')}, after ${loadAfter.map((l) => l.toFixed(2)).join(' ')}`);
+  if (profile) console.log(`CPU profiles in ${path.relative(REPO_ROOT, PROFILE_DIR)}/`);
+  dropDatabase(DB);
+  if (pg.startedHere) stopPg();
+}
+
+function printTable(rows: Row[]) {
+  const bare = (r: Row) => rows.find((b) => b.target === 'bare handler' && b.instances === r.instances && b.rate === r.rate)!;
+  const lines = [
+    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare |',
+    '|---|---|---|---|---|---|---|---|---|',
+    ...rows.map((r) => {
+      const b = bare(r);
+      const ratio = (b.rps ? r.rps / b.rps : 0).toFixed(2);
+      const p99 = (b.p99 ? r.p99 / b.p99 : 0).toFixed(1);
+      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} |`;
+    }),
+  ];
+  console.log(`\n${lines.join('\n')}`);
+}
+
+main().catch(async (e) => {
+  console.error(e);
+  await Promise.all(children.map(stopProcess));
+  process.exit(1);
+});
