@@ -18,6 +18,7 @@ import { devOutboxRouter } from './modules/dev-outbox/dev-outbox.router';
 import { handoverRouter } from './modules/handover/handover.router';
 import { createHandoverService } from './modules/handover/handover.service';
 import { mailRouter } from './modules/mail/mail.router';
+import { createMailService } from './modules/mail/mail.service';
 import { healthRouter, readyRouter } from './modules/health/health.router';
 import { invoicesRouter } from './modules/invoices/invoices.router';
 import { createInvoicesService } from './modules/invoices/invoices.service';
@@ -34,6 +35,7 @@ import { photosRouters } from './modules/photos/photos.router';
 import { createPhotosService } from './modules/photos/photos.service';
 import { plansRouter } from './modules/plans/plans.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
+import { createPublicQuoteService } from './modules/public-quote/public-quote.service';
 import { createQuoteFilesService } from './modules/quotes/quote-files.service';
 import { createQuoteSendService } from './modules/quotes/quote-send.service';
 import { jobQuotesRouter, quotesRouter } from './modules/quotes/quotes.router';
@@ -105,12 +107,12 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/spaces', spaces.spaces);
   app.use('/api/spaces', plansRouter(deps)); // plan, revisions, restore, background underlay
   app.use('/api/photos', photos.photos);
-  app.use('/api/mail', mailRouter(deps)); // e-mail status, resend a failed one
+  app.use('/api/mail', mailRouter(createMailService(deps))); // e-mail status, resend a failed one
   app.use('/api/schedule', scheduleRouter(createScheduleService(deps))); // week view, booking, install settings
   app.use('/api/settings', settingsRouter(createSettingsService(deps.storage))); // company settings, logo
   app.use('/api/catalogue', catalogueRouter(createCatalogueService())); // products, extras, tax rates
   app.use('/api/quotes', quotesRouter(quotes)); // quotes, send, PDF/CSV/XLSX
-  app.use('/api/public/quotes', publicQuoteRouter(deps)); // the customer's private link (no sign-in)
+  app.use('/api/public/quotes', publicQuoteRouter(createPublicQuoteService(deps))); // the customer's private link (no sign-in)
   app.use('/api/payments', paymentsRouter(deps, payments));
   app.use('/api/invoices', invoicesRouter(deps, invoices));
   app.use('/api/reports', actuals.reports); // estimate against actual, suggestions (office)

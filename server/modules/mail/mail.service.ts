@@ -1,6 +1,7 @@
 import { Op } from 'sequelize';
 import type { AppDeps } from '../../deps';
-import { User } from '../../db/models';
+import type { MailRecord } from '../../../shared/api/mail';
+import { MailMessage as MailMessageRow, User } from '../../db/models';
 import type { MailMessage } from '../../lib/mailer';
 import { loadCompanySettings } from '../settings/settings.service';
 
@@ -52,4 +53,35 @@ export async function mailOffice(deps: Pick<AppDeps, 'mailer'>, ctx: Omit<MailCo
   const to = await officeRecipients(ctx.organisationId);
   if (to.length === 0) return;
   await sendCompanyMail(deps, { ...ctx, audience: 'office' }, { to: to.join(', '), subject, text });
+}
+
+/** The company's e-mail as its Mail page lists it (newest first), and sending a failed one again. */
+export function createMailService(deps: Pick<AppDeps, 'mailQueue'>) {
+  return {
+    async list(organisationId: string): Promise<MailRecord[]> {
+      const rows = await MailMessageRow.findAll({ where: { organisationId }, order: [['createdAt', 'DESC']], limit: 100 });
+      return rows.map(toRecord);
+    },
+    async resend(organisationId: string, id: string): Promise<MailRecord> {
+      await deps.mailQueue.resend(organisationId, id);
+      const row = await MailMessageRow.findOne({ where: { id, organisationId } });
+      return toRecord(row!);
+    },
+  };
+}
+
+export type MailService = ReturnType<typeof createMailService>;
+
+function toRecord(m: MailMessageRow): MailRecord {
+  return {
+    id: m.id,
+    to: m.recipient,
+    subject: m.subject,
+    purpose: m.purpose,
+    status: m.status,
+    attempts: m.attempts,
+    lastError: m.lastError,
+    createdAt: m.createdAt.toISOString(),
+    sentAt: m.sentAt?.toISOString() ?? null,
+  };
 }

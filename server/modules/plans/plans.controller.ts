@@ -1,4 +1,4 @@
-import type { Request, Response } from 'express';
+import type { NextFunction, Request, Response } from 'express';
 import { pipeToResponse } from '../../lib/storage/pipe-to-response';
 import { currentUser } from '../../middleware/require-auth';
 import type { PlansService } from './plans.service';
@@ -7,6 +7,11 @@ import type { PlansService } from './plans.service';
 export function createPlansController(plans: PlansService) {
   const id = (req: Request) => String(req.params.id);
   return {
+    /** Middleware: refuse before reading a large body when the space is not one this user may see. */
+    async visibleSpace(req: Request, _res: Response, next: NextFunction) {
+      await plans.assertVisible(currentUser(req), id(req));
+      next();
+    },
     async get(req: Request, res: Response) {
       res.json(await plans.get(currentUser(req), id(req)));
     },

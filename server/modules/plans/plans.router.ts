@@ -4,10 +4,9 @@ import { idSchema } from '../../../shared/api/common';
 import { restoreRevisionBodySchema, savePlanBodySchema } from '../../../shared/api/spaces';
 import type { AppDeps } from '../../deps';
 import { receiveFile } from '../../lib/uploads';
-import { currentUser, requireAuth } from '../../middleware/require-auth';
+import { requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
-import { findSpaceForUser } from '../spaces/spaces.service';
 import { createPlansController } from './plans.controller';
 import { BACKGROUND_MAX_BYTES, createPlansService } from './plans.service';
 
@@ -39,19 +38,7 @@ export function plansRouter(deps: AppDeps) {
   r.get('/:id/revisions', requireAuth, validate({ params }), c.revisions);
   r.get('/:id/revisions/:rev', requireAuth, validate({ params: revParams }), c.revision);
   r.post('/:id/revisions/:rev/restore', requireAuth, write, validate({ params: revParams, body: restoreRevisionBodySchema }), c.restore);
-  r.post(
-    '/:id/background',
-    requireAuth,
-    write,
-    validate({ params }),
-    // Refuse before reading a large body when the space is not one this user may see.
-    async (req, _res, next) => {
-      await findSpaceForUser(currentUser(req), String(req.params.id));
-      next();
-    },
-    receiveImage(),
-    c.uploadBackground,
-  );
+  r.post('/:id/background', requireAuth, write, validate({ params }), c.visibleSpace, receiveImage(), c.uploadBackground);
   r.get('/:id/background/:name', requireAuth, validate({ params: fileParams }), c.background);
   return r;
 }

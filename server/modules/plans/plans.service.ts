@@ -105,6 +105,11 @@ export function createPlansService(deps: AppDeps) {
     },
 
     /** Stores an underlay image (PNG, JPEG, WebP or GIF, checked by its bytes) and returns its URL. */
+    /** Throws the space's 404 when this user may not see it (before an upload body is read). */
+    async assertVisible(actor: SessionUser, spaceId: string): Promise<void> {
+      await findSpaceForUser(actor, spaceId);
+    },
+
     async uploadBackground(actor: SessionUser, spaceId: string, file: { buffer: Buffer; originalname: string } | undefined) {
       const space = await findSpaceForUser(actor, spaceId);
       if (!file) throw new ValidationError([{ path: 'image', message: 'choose an image file to upload (field "image")' }]);

@@ -205,3 +205,5 @@ export function createPublicQuoteService(deps: AppDeps) {
     },
   };
 }
+
+export type PublicQuoteService = ReturnType<typeof createPublicQuoteService>;
