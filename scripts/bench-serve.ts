@@ -30,6 +30,8 @@ const connections = Number(arg('connections', '10'));
 const instanceCounts = arg('instances', '1,2').split(',').map(Number);
 const profile = process.argv.includes('--profile');
 const DB = 'quiltline_bench';
+// Every instance signs cookies with the same secret, so a session made on one works on the other.
+const SESSION_SECRET = randomBytes(24).toString('hex');
 const PROFILE_DIR = path.join(REPO_ROOT, 'test-output', 'cpu-profiles');
 
 async function freePort(): Promise<number> {
@@ -86,7 +88,7 @@ async function startServer(n: number, opts: { seed: boolean; serverMain: string;
       PORT: String(port),
       HOST: '127.0.0.1',
       DATABASE_URL: opts.db,
-      SESSION_SECRET: randomBytes(24).toString('hex'),
+      SESSION_SECRET,
       // Nothing is mailed during the bench; a port with no server keeps the worker idle.
       SMTP_URL: 'smtp://127.0.0.1:9',
       SEED_DEMO: opts.seed ? '1' : '0',
