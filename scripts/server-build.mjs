@@ -8,7 +8,7 @@ import { newestMtime } from './client-build.mjs';
 import { REPO_ROOT } from './pg.mjs';
 
 const OUT_DIR = path.join(REPO_ROOT, 'dist-server');
-const ENTRIES = { index: 'server/index.ts', 'fake-payments': 'scripts/fake-payments.ts' };
+const ENTRIES = { index: 'server/index.ts', migrate: 'server/migrate.ts', 'fake-payments': 'scripts/fake-payments.ts' };
 const SOURCES = ['server', 'shared', 'scripts/fake-payments.ts', 'scripts/server-build.mjs', 'package.json', 'tsconfig.json'];
 const STAMP = path.join(OUT_DIR, '.built');
 
