@@ -11,14 +11,13 @@ import os from 'node:os';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { fileURLToPath } from 'node:url';
-import { chromium } from 'playwright-core';
 import { build } from 'vite';
+import { launchBrowser } from '../tests/helpers/browser';
 import { stressPlan } from './stress-plan';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const args = process.argv.slice(2);
 const MOVES = Number(args[args.indexOf('--moves') + 1]) || 300;
-const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
 const gz = (file: string) => zlib.gzipSync(fs.readFileSync(file)).length;
 const kb = (n: number) => `${(n / 1024).toFixed(1)} kB`;
@@ -88,24 +87,10 @@ async function frameTimes() {
   const harnessDir = await buildHarness();
   const outDir = path.join(ROOT, 'test-output', 'bench-editor', 'dist');
   const srv = await serve(harnessDir, outDir);
-  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'quiltline-bench-'));
-  const ctx = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
-    headless: true,
-    viewport: { width: 1366, height: 900 },
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--disable-dev-shm-usage',
-    ],
-  });
+  // The same headless chromium, flags and fresh profile as the browser tests.
+  const browser = await launchBrowser({ viewport: { width: 1366, height: 900 } });
   try {
-    const page = await ctx.newPage();
+    const page = await browser.newPage();
     const plan = stressPlan();
     await page.addInitScript((p) => {
       (window as unknown as { __BENCH_PLAN__: unknown }).__BENCH_PLAN__ = p;
@@ -160,8 +145,7 @@ async function frameTimes() {
         .join(' / ')} (1/5/15 min)`,
     );
   } finally {
-    await ctx.close();
-    fs.rmSync(profile, { recursive: true, force: true });
+    await browser.close();
     srv.close();
   }
 }

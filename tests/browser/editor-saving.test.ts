@@ -9,27 +9,21 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PlanRevision } from '../../server/db/models';
 import { fitCamera } from '../../src/editor/geometry/coords';
 import { planSchema, type Plan } from '../../shared/plan/plan-schema';
-import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
-import { createJob, createOrgWithUsers, type TestOrg } from '../helpers/test-app';
+import { screenshot, startBrowserSuite, type BrowserSuite } from '../helpers/browser';
+import { createJob, type TestOrg } from '../helpers/test-app';
 
 const rect = (): Plan => planSchema.parse(JSON.parse(fs.readFileSync(path.join(__dirname, '..', '..', 'examples', 'rectangle.json'), 'utf8')));
 
-let server: Awaited<ReturnType<typeof startAppServer>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let suite: BrowserSuite;
+let server: BrowserSuite['server'];
+let browser: BrowserSuite['browser'];
 let org: TestOrg;
 
 beforeAll(async () => {
-  server = await startAppServer();
-  org = await createOrgWithUsers(server.ctx);
-  browser = await launchBrowser({ viewport: { width: 1366, height: 900 } });
-  const page = await browser.newPage();
-  await signInThroughUi(page, server.url, org.estimator.email, org.estimator.password);
-  await page.close();
+  suite = await startBrowserSuite({ viewport: { width: 1366, height: 900 }, signIn: true });
+  ({ server, browser, org } = suite);
 }, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+afterAll(async () => suite?.close());
 
 async function open(spaceId: string): Promise<Page> {
   const page = await browser.newPage();

@@ -7,24 +7,21 @@ import { fitCamera, world, worldToScreen } from '../../src/editor/geometry/coord
 import { planSchema, type Plan } from '../../shared/plan/plan-schema';
 import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../shared/takeoff/products';
-import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
-import { createJob, createOrgWithUsers, type TestOrg } from '../helpers/test-app';
+import { screenshot, signInThroughUi, startBrowserSuite, type BrowserSuite } from '../helpers/browser';
+import { createJob, type TestOrg } from '../helpers/test-app';
 
 const L_WALLS = '6000 right, 3000 down, 2500 left, 2000 down, 3500 left, 5000 up';
 
-let server: Awaited<ReturnType<typeof startAppServer>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let suite: BrowserSuite;
+let server: BrowserSuite['server'];
+let browser: BrowserSuite['browser'];
 let org: TestOrg;
 
 beforeAll(async () => {
-  server = await startAppServer();
-  org = await createOrgWithUsers(server.ctx);
-  browser = await launchBrowser({ viewport: { width: 1366, height: 900 } });
+  suite = await startBrowserSuite({ viewport: { width: 1366, height: 900 } });
+  ({ server, browser, org } = suite);
 }, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+afterAll(async () => suite?.close());
 
 async function openEditor(spaceId: string): Promise<Page> {
   const page = await browser.newPage();

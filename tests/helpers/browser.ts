@@ -5,7 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { REPO_ROOT } from '../../server/config';
-import { createTestContext, type TestContext } from './test-app';
+import { createOrgWithUsers, createTestContext, type TestContext, type TestOrg } from './test-app';
 
 export const SCREENSHOT_DIR = path.join(REPO_ROOT, 'test-output', 'screenshots');
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -83,4 +83,32 @@ export async function signInThroughUi(page: Page, baseUrl: string, email: string
   await page.getByLabel(/password/i).fill(password);
   await page.getByRole('button', { name: /sign in/i }).click();
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 15_000 });
+}
+
+/** One file's app server, company and browser (closed together); `signIn` keeps the estimator's session in the profile. */
+export interface BrowserSuite {
+  server: Awaited<ReturnType<typeof startAppServer>>;
+  browser: Awaited<ReturnType<typeof launchBrowser>>;
+  org: TestOrg;
+  close(): Promise<void>;
+}
+
+export async function startBrowserSuite(opts: { viewport: { width: number; height: number }; signIn?: boolean }): Promise<BrowserSuite> {
+  const server = await startAppServer();
+  const org = await createOrgWithUsers(server.ctx);
+  const browser = await launchBrowser({ viewport: opts.viewport });
+  if (opts.signIn) {
+    const page = await browser.newPage();
+    await signInThroughUi(page, server.url, org.estimator.email, org.estimator.password);
+    await page.close();
+  }
+  return {
+    server,
+    browser,
+    org,
+    async close() {
+      await browser.close();
+      await server.close();
+    },
+  };
 }
