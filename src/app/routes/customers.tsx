@@ -6,19 +6,9 @@ import { useCurrentUser } from '../../features/auth/use-current-user';
 import { useCustomers } from '../../features/customers/api/get-customers';
 import { CustomerForm } from '../../features/customers/components/customer-form';
 import { CustomersTable } from '../../features/customers/components/customers-table';
-import { formatAddress } from '../../components/ui';
 import { RequireAction } from '../require-auth';
 
 type Editing = { kind: 'new' } | { kind: 'edit'; customer: Customer } | null;
-
-function matches(c: Customer, q: string): boolean {
-  const hay = [c.name, c.email, c.phone, formatAddress(c.address)].join(' ').toLowerCase();
-  return q
-    .toLowerCase()
-    .split(/\s+/)
-    .filter(Boolean)
-    .every((w) => hay.includes(w));
-}
 
 export default function CustomersPage() {
   return (
@@ -35,7 +25,6 @@ function Customers() {
   const [editing, setEditing] = useState<Editing>(null);
   const [q, setQ] = useState('');
   const canWrite = can(user, 'customers:write');
-  const shown = (customers.data ?? []).filter((c) => matches(c, q)).sort((a, b) => a.name.localeCompare(b.name));
 
   return (
     <>
@@ -64,21 +53,19 @@ function Customers() {
           <Field label="Find a customer" className="mb-3 max-w-md">
             <Input type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Name, e-mail, phone or address" />
           </Field>
-          {shown.length === 0 ? (
-            <EmptyState title="No customer matches">Nothing matches “{q}”.</EmptyState>
-          ) : (
-            <CustomersTable
-              customers={shown}
-              onEdit={
-                canWrite
-                  ? (customer) => {
-                      setEditing({ kind: 'edit', customer });
-                      window.scrollTo?.({ top: 0 });
-                    }
-                  : undefined
-              }
-            />
-          )}
+          <CustomersTable
+            customers={customers.data}
+            filter={q}
+            noMatch={<EmptyState title="No customer matches">Nothing matches “{q}”.</EmptyState>}
+            onEdit={
+              canWrite
+                ? (customer) => {
+                    setEditing({ kind: 'edit', customer });
+                    window.scrollTo?.({ top: 0 });
+                  }
+                : undefined
+            }
+          />
         </>
       )}
     </>
