@@ -83,7 +83,10 @@ describe('job detail', () => {
   it('moves the job to another stage with a PATCH of the stage alone', async () => {
     const calls = jobApi();
     render('estimator');
-    fireEvent.change(await screen.findByLabelText('Move to'), { target: { value: 'scheduled' } });
+    const select = (await screen.findByLabelText('Move to')) as HTMLSelectElement;
+    // Only the moves the shared stage table allows from accepted, and the stage it is at.
+    expect([...select.options].map((o) => o.value)).toEqual(['quoted', 'accepted', 'scheduled', 'declined']);
+    fireEvent.change(select, { target: { value: 'scheduled' } });
     await waitFor(() => expect(calls.some((c) => c.method === 'PATCH')).toBe(true));
     expect(calls.find((c) => c.method === 'PATCH')!.body).toEqual({ stage: 'scheduled' });
     await waitFor(() => expect(screen.getByRole('heading', { name: /Samuel Okonjo/ }).textContent).toContain('Scheduled'));

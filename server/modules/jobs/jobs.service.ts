@@ -1,10 +1,11 @@
 import { Op, type Includeable, type WhereOptions } from 'sequelize';
 import type { Job as JobDto, JobBody, JobEvent as JobEventDto, JobListPage, JobListQuery, JobPatch, InstallerOption, JobStage } from '../../../shared/api/jobs';
 import { JOB_PAGE_DEFAULT } from '../../../shared/api/jobs';
+import { allowedStageMoves, canMoveStage } from '../../../shared/api/job-stages';
 import { can } from '../../../shared/auth/policies';
 import type { AppDeps } from '../../deps';
 import { Customer, Job, JobEvent, Space, User } from '../../db/models';
-import { ForbiddenError, NotFoundError, fieldError } from '../../lib/errors';
+import { ConflictError, ForbiddenError, NotFoundError, fieldError } from '../../lib/errors';
 import { redactPrices } from '../../lib/redact';
 import type { SessionUser } from '../../types';
 import { likePattern } from '../customers/customers.service';
@@ -177,8 +178,20 @@ export function createJobsService(deps: AppDeps) {
         if (patch[k] !== undefined) (changes as Record<string, unknown>)[k] = patch[k];
       }
       const before = { stage: job.stage, assignedInstallerId: job.assignedInstallerId, installDate: job.installDate };
+      if (changes.stage && !canMoveStage(before.stage, changes.stage, actor.role)) {
+        throw new ConflictError(`a job cannot be moved from ${before.stage} to ${changes.stage}`, 'stage_not_allowed', [
+          { path: 'stage', message: `from ${before.stage} the job may move to: ${allowedStageMoves(before.stage, actor.role).join(', ') || 'nothing'}` },
+        ]);
+      }
       await sequelize.transaction(async (transaction) => {
-        await job.update(changes, { transaction });
+        // A stage move applies only from the stage it was checked against: of two moves at once, one wins.
+        const where = changes.stage ? { id: job.id, stage: before.stage } : { id: job.id };
+        const [count] = await Job.update(changes, { where, transaction });
+        if (count !== 1) {
+          throw new ConflictError(`the job moved on from ${before.stage} meanwhile; reload it`, 'stage_changed', [
+            { path: 'stage', message: `expected the job at ${before.stage}` },
+          ]);
+        }
         const ev = (kind: string, data: Record<string, unknown>) =>
           JobEvent.create({ organisationId: job.organisationId, jobId: job.id, userId: actor.id, kind, data }, { transaction });
         if (changes.stage && changes.stage !== before.stage) await ev('stage_changed', { from: before.stage, to: changes.stage });

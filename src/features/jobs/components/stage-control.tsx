@@ -1,4 +1,6 @@
+import { allowedStageMoves } from '../../../../shared/api/job-stages';
 import { JOB_STAGES, type Job, type JobStage } from '../../../../shared/api/jobs';
+import { useCurrentUser } from '../../auth';
 import { Alert, Select, Spinner, STAGE_LABELS } from '../../../components/ui';
 import { cn } from '../../../lib/cn';
 import { formErrorMessage } from '../../../lib/form-errors';
@@ -30,10 +32,12 @@ function StagePath({ stage }: { stage: JobStage }) {
   );
 }
 
-/** Moves the job to another stage at once; the server checks the role. */
+/** Moves the job at once to a stage the shared table allows from where it is; the server checks the same table. */
 export function StageControl({ job }: { job: Job }) {
   const update = useUpdateJob(job.id);
+  const { role } = useCurrentUser();
   const shown = update.isPending && update.variables?.stage ? update.variables.stage : job.stage;
+  const offered = [job.stage, ...allowedStageMoves(job.stage, role)];
   return (
     <div className="flex flex-col gap-2">
       <div className="flex flex-wrap items-center justify-between gap-3">
@@ -49,7 +53,7 @@ export function StageControl({ job }: { job: Job }) {
             disabled={update.isPending}
             onChange={(e) => update.mutate({ stage: e.target.value as JobStage })}
           >
-            {JOB_STAGES.map((s) => (
+            {JOB_STAGES.filter((s) => offered.includes(s) || s === shown).map((s) => (
               <option key={s} value={s}>
                 {STAGE_LABELS[s]}
               </option>
