@@ -1,11 +1,9 @@
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
 import type { InvoiceListQuery } from '../../../../shared/api/invoices';
-import { formatMoney } from '../../../../shared/quote/money';
-import { ButtonLink, EmptyState, ErrorState, LoadingState, PageHeader, Table, TBody, Td, Th, THead, Tr, formatDate } from '../../../components/ui';
+import { ButtonLink, EmptyState, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
 import { cn } from '../../../lib/cn';
 import { useInvoices } from '../api/get-invoices';
-import { InvoiceStatusBadge } from './invoice-status-badge';
+import { InvoicesTable } from './invoices-table';
 
 const FILTERS: Array<{ key: InvoiceListQuery['status'] | 'all'; label: string }> = [
   { key: 'all', label: 'All' },
@@ -45,47 +43,7 @@ export default function InvoicesPage() {
       ) : invoices.data.length === 0 ? (
         <EmptyState title={filter === 'all' ? 'No invoices yet' : 'Nothing here'}>Invoices appear here once an installed job is invoiced.</EmptyState>
       ) : (
-        <Table>
-          <THead>
-            <Tr>
-              <Th>Number</Th>
-              <Th>Job</Th>
-              <Th>Customer</Th>
-              <Th>Issued</Th>
-              <Th>Due</Th>
-              <Th className="text-right">Total</Th>
-              <Th className="text-right">To pay</Th>
-              <Th>Status</Th>
-            </Tr>
-          </THead>
-          <TBody>
-            {invoices.data.map((i) => (
-              <Tr key={i.id}>
-                <Td className="font-mono">
-                  <Link className="text-teal-dark underline-offset-2 hover:underline" to={`/invoices/${i.id}`}>
-                    {i.number}
-                  </Link>
-                </Td>
-                <Td className="font-mono text-xs">
-                  <Link className="hover:underline" to={`/jobs/${i.jobId}`}>
-                    {i.jobReference}
-                  </Link>
-                </Td>
-                <Td>{i.customerName}</Td>
-                <Td>{formatDate(i.issueDate)}</Td>
-                <Td>{formatDate(i.dueDate)}</Td>
-                <Td className="text-right font-mono">
-                  {i.kind === 'credit_note' ? '−' : ''}
-                  {formatMoney(i.grossMinor, i.currency)}
-                </Td>
-                <Td className="text-right font-mono">{i.kind === 'invoice' ? formatMoney(i.balanceMinor, i.currency) : ''}</Td>
-                <Td>
-                  <InvoiceStatusBadge invoice={i} />
-                </Td>
-              </Tr>
-            ))}
-          </TBody>
-        </Table>
+        <InvoicesTable invoices={invoices.data} />
       )}
     </div>
   );
