@@ -29,6 +29,7 @@ const baseJob: Job = {
 
 function jobApi(over: Partial<Job> = {}, quotes: { status: string }[] = []) {
   let job = { ...structuredClone(baseJob), ...over };
+  const removedSpaces: Job['spaces'] = [];
   const calls = fakeApi(({ method, url, body }) => {
     if (url.pathname === `/api/jobs/${JOB_ID}/quotes`)
       return {
@@ -58,6 +59,15 @@ function jobApi(over: Partial<Job> = {}, quotes: { status: string }[] = []) {
       const space = { id: 's2', name: (body as { name: string }).name, latestRevision: null, latestRevisionAt: null, updatedAt: '2026-12-01T10:00:00Z' };
       job = { ...job, spaces: [...job.spaces, space] };
       return { status: 201, body: { space } };
+    }
+    if (url.pathname === '/api/spaces/s1' && method === 'DELETE') {
+      removedSpaces.push(...job.spaces.filter((x) => x.id === 's1'));
+      job = { ...job, spaces: job.spaces.filter((x) => x.id !== 's1') };
+      return { status: 204 };
+    }
+    if (url.pathname === '/api/spaces/s1/restore' && method === 'POST') {
+      job = { ...job, spaces: [...job.spaces, ...removedSpaces.splice(0)] };
+      return { body: { space: job.spaces.find((x) => x.id === 's1') } };
     }
     return undefined;
   });
@@ -105,6 +115,22 @@ describe('job detail', () => {
     expect(screen.getByRole('link', { name: /Draw plan/ }).getAttribute('href')).toBe('/spaces/s2/edit');
   });
 
+  it('removes a space at once and brings it back with Undo', async () => {
+    const calls = jobApi();
+    render('estimator');
+    fireEvent.click(await screen.findByRole('button', { name: 'Remove Main loft' }));
+    const undo = await screen.findByRole('button', { name: 'Undo' });
+    expect(screen.getByText(/“Main loft” removed/)).toBeTruthy();
+    await waitFor(() => expect(screen.queryByRole('link', { name: /Open plan/ })).toBeNull());
+    fireEvent.click(undo);
+    expect(await screen.findByRole('link', { name: /Open plan/ })).toBeTruthy();
+    await waitFor(() => expect(screen.queryByRole('button', { name: 'Undo' })).toBeNull());
+    expect(calls.filter((c) => c.method !== 'GET').map((c) => `${c.method} ${c.url.pathname}`)).toEqual([
+      'DELETE /api/spaces/s1',
+      'POST /api/spaces/s1/restore',
+    ]);
+  });
+
   it('gives an installer no edit, stage or add-space controls', async () => {
     jobApi();
     render('installer');
@@ -112,6 +138,7 @@ describe('job detail', () => {
     expect(screen.queryByRole('link', { name: 'Edit job' })).toBeNull();
     expect(screen.queryByLabelText('Move to')).toBeNull();
     expect(screen.queryByRole('button', { name: 'Add space' })).toBeNull();
+    expect(screen.queryByRole('button', { name: /^Remove / })).toBeNull();
   });
 
   it("does not ask an estimator's browser for invoices (office-only on the API: it answered 403)", async () => {

@@ -8,6 +8,7 @@ import * as m0500 from './0500-min-offcut-length';
 import * as m0501 from './0501-mail-queue';
 import * as m0502 from './0502-login-limits';
 import * as m0503 from './0503-eaves-hatch-settings';
+import * as m0504 from './0504-space-soft-delete';
 import * as m0506 from './0506-job-actuals';
 
 type Migration = RunnableMigration<QueryInterface>;
@@ -27,5 +28,6 @@ export const MIGRATIONS: Migration[] = [
   entry('0501-mail-queue', m0501),
   entry('0502-login-limits', m0502),
   entry('0503-eaves-hatch-settings', m0503),
+  entry('0504-space-soft-delete', m0504),
   entry('0506-job-actuals', m0506),
 ];

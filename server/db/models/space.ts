@@ -21,6 +21,8 @@ export class Space extends Model<InferAttributes<Space>, InferCreationAttributes
   declare position: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  /** Set when the space is removed; the row and its revisions stay so the removal can be undone. */
+  declare deletedAt: CreationOptional<Date | null>;
   declare job?: NonAttribute<Job>;
   declare revisions?: NonAttribute<PlanRevision[]>;
 
@@ -32,8 +34,10 @@ export class Space extends Model<InferAttributes<Space>, InferCreationAttributes
         position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
+        deletedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'spaces' },
+      // paranoid: destroy() sets deleted_at and every find (includes too) leaves such rows out.
+      { sequelize, tableName: 'spaces', paranoid: true },
     );
   }
 }

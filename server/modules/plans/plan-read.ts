@@ -25,7 +25,7 @@ const SQL = `
   LEFT JOIN LATERAL (
     SELECT revision, plan, takeoff, created_at FROM plan_revisions WHERE space_id = s.id ORDER BY revision DESC LIMIT 1
   ) r ON true
-  WHERE s.id = $1 AND s.organisation_id = $2`;
+  WHERE s.id = $1 AND s.organisation_id = $2 AND s.deleted_at IS NULL`;
 
 /** The space and its latest revision when the actor may see its job; a 404 like a missing id otherwise. */
 export async function readSpacePlan(sequelize: Sequelize, actor: SessionUser, spaceId: string): Promise<SpacePlanRow> {

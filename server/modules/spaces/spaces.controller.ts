@@ -17,5 +17,8 @@ export function createSpacesController(spaces: ReturnType<typeof createSpacesSer
       await spaces.remove(currentUser(req), String(req.params.id));
       res.status(204).end();
     },
+    async restore(req: Request, res: Response) {
+      res.json({ space: await spaces.restore(currentUser(req), String(req.params.id)) });
+    },
   };
 }

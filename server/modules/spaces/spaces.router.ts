@@ -9,7 +9,7 @@ import { createSpacesController } from './spaces.controller';
 import { createSpacesService } from './spaces.service';
 
 /**
- * `spaces`: GET/PATCH/DELETE /api/spaces/:id; `jobSpaces`: POST /api/jobs/:id/spaces (composed
+ * `spaces`: GET/PATCH/DELETE /api/spaces/:id (a soft delete) and POST /api/spaces/:id/restore; `jobSpaces`: POST /api/jobs/:id/spaces (composed
  * into the jobs router). The plan and its revisions (/api/spaces/:id/plan, /revisions) belong to
  * server/modules/plans.
  */
@@ -20,6 +20,7 @@ export function spacesRouters(deps: AppDeps) {
   spaces.get('/:id', validate({ params: idParamsSchema }), c.get);
   spaces.patch('/:id', requireCan('plans:write'), validate({ params: idParamsSchema, body: spacePatchSchema }), c.update);
   spaces.delete('/:id', requireCan('plans:write'), validate({ params: idParamsSchema }), c.remove);
+  spaces.post('/:id/restore', requireCan('plans:write'), validate({ params: idParamsSchema }), c.restore);
 
   const jobSpaces = Router();
   jobSpaces.post('/:id/spaces', requireAuth, requireCan('plans:write'), validate({ params: idParamsSchema, body: spaceCreateBodySchema }), c.create);

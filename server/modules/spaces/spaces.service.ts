@@ -17,11 +17,17 @@ import { latestRevision } from '../plan-revisions/revisions.repository';
  * The space if this user may see it (same company; installers only on their assigned jobs),
  * else NotFound. The plans module calls this before reading or saving a plan.
  */
-export async function findSpaceForUser(actor: SessionUser, spaceId: string, transaction?: Transaction): Promise<Space & { job: Job }> {
+export async function findSpaceForUser(
+  actor: SessionUser,
+  spaceId: string,
+  transaction?: Transaction,
+  opts: { removed?: boolean } = {},
+): Promise<Space & { job: Job }> {
   const space = (await Space.findOne({
     where: { id: spaceId, organisationId: actor.organisationId },
     include: [{ model: Job, as: 'job', required: true }],
     transaction,
+    paranoid: !opts.removed,
   })) as (Space & { job?: Job }) | null;
   if (!space?.job || !can(actor, 'jobs:read', space.job)) throw new NotFoundError('space');
   return space as Space & { job: Job };
@@ -89,8 +95,20 @@ export function createSpacesService(deps: AppDeps) {
     async remove(actor: SessionUser, id: string): Promise<void> {
       const space = await findSpaceForUser(actor, id);
       const others = await Space.count({ where: { jobId: space.jobId, id: { [Op.ne]: space.id } } });
+      // Soft: the row and every revision stay (deleted_at), so "Undo" brings the space back whole.
       await space.destroy();
       await recordJobEvent(space.job, actor, 'space_removed', { spaceId: space.id, name: space.name, remaining: others });
+    },
+
+    /** Brings a removed space back with its revisions; a space that was not removed is answered as it is. */
+    async restore(actor: SessionUser, id: string): Promise<SpaceDto> {
+      const space = await findSpaceForUser(actor, id, undefined, { removed: true });
+      if (space.deletedAt) {
+        // Guarded: only the request that finds it still removed restores it and records the event.
+        const [restored] = await Space.update({ deletedAt: null }, { where: { id: space.id, deletedAt: { [Op.ne]: null } }, paranoid: false });
+        if (restored === 1) await recordJobEvent(space.job, actor, 'space_restored', { spaceId: space.id, name: space.name });
+      }
+      return toDto(await findSpaceForUser(actor, id));
     },
   };
 }

@@ -5,6 +5,7 @@ import type { Job } from '../../../../shared/api/jobs';
 import { Alert, Button, Card, CardTitle, EmptyState, Field, Input, formatDateTime } from '../../../components/ui';
 import { formErrorMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
 import { useCreateSpace } from '../api/create-space';
+import { useRemoveSpace } from '../api/remove-space';
 
 /** The loft spaces of a job, each opening its plan; plus a small form to add one. */
 export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
@@ -12,6 +13,9 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
   const [name, setName] = useState('');
   const [errors, setErrors] = useState<FieldErrors>({});
   const create = useCreateSpace(job.id);
+  const { remove, restore } = useRemoveSpace(job.id);
+  // The space just removed, offered back until another is removed or the page is left.
+  const [removed, setRemoved] = useState<{ id: string; name: string } | null>(null);
 
   function onSubmit(e: FormEvent) {
     e.preventDefault();
@@ -67,6 +71,18 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
           {create.isError && !errors.name && <Alert>{formErrorMessage(create.error)}</Alert>}
         </form>
       )}
+      {removed && (
+        <div
+          role="status"
+          className="mb-3 flex flex-wrap items-center justify-between gap-2 rounded-md border border-graphite/20 bg-paper-dark/60 px-3 py-2 text-sm"
+        >
+          <span>“{removed.name}” removed, with its plan kept.</span>
+          <Button size="sm" variant="secondary" busy={restore.isPending} onClick={() => restore.mutate(removed.id, { onSuccess: () => setRemoved(null) })}>
+            Undo
+          </Button>
+        </div>
+      )}
+      {(remove.isError || restore.isError) && <Alert>{formErrorMessage(remove.error ?? restore.error)}</Alert>}
       {job.spaces.length === 0 ? (
         <EmptyState title="No spaces yet">Each loft area (main loft, garage loft, extension) gets its own space and plan.</EmptyState>
       ) : (
@@ -79,9 +95,22 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
                   {s.latestRevision ? `revision ${s.latestRevision} · saved ${formatDateTime(s.latestRevisionAt ?? s.updatedAt)}` : 'no plan yet'}
                 </div>
               </div>
-              <Link to={`/spaces/${s.id}/edit`} className="text-sm font-medium text-teal-dark hover:underline">
-                {canEdit ? (s.latestRevision ? 'Open plan' : 'Draw plan') : 'View plan'} →
-              </Link>
+              <div className="flex items-center gap-3">
+                <Link to={`/spaces/${s.id}/edit`} className="text-sm font-medium text-teal-dark hover:underline">
+                  {canEdit ? (s.latestRevision ? 'Open plan' : 'Draw plan') : 'View plan'} →
+                </Link>
+                {canEdit && (
+                  <Button
+                    size="sm"
+                    variant="danger-ghost"
+                    aria-label={`Remove ${s.name}`}
+                    busy={remove.isPending && remove.variables === s.id}
+                    onClick={() => remove.mutate(s.id, { onSuccess: () => setRemoved({ id: s.id, name: s.name }) })}
+                  >
+                    Remove
+                  </Button>
+                )}
+              </div>
             </li>
           ))}
         </ul>
