@@ -1,4 +1,7 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
+import { FormProvider } from 'react-hook-form';
+import { z } from 'zod';
+import { invoiceCreateSchema } from '../../../../shared/api/invoices';
 import { Link, useNavigate } from 'react-router-dom';
 import type { JobStage } from '../../../../shared/api/jobs';
 import { formatMoney } from '../../../../shared/quote/money';
@@ -10,7 +13,9 @@ import { useInvoices } from '../api/get-invoices';
 import { usePaymentSettings } from '../api/payment-settings';
 import { useSiteNotes } from '../api/get-site-notes';
 import { InvoiceStatusBadge } from './invoice-status-badge';
-import { LineEditor, toLineInputs, type DraftLine } from './line-editor';
+import { LineEditor } from './line-editor';
+import { linesFormSchema } from './line-form-schema';
+import { showServerErrors, useZodForm } from '../../../lib/forms';
 
 /** The job's money: deposit, invoice and payments on one card, and "Create invoice" once installed. */
 export function JobMoneyCard({
@@ -72,14 +77,14 @@ export function JobMoneyCard({
   );
 }
 
+const newInvoiceSchema = (currency: string) => z.object({ variations: linesFormSchema(currency), notes: invoiceCreateSchema.shape.notes });
+
 function NewInvoiceForm({ jobId }: { jobId: string }) {
   const create = useCreateInvoice();
   const currency = usePaymentSettings().data?.settings.currency ?? 'GBP';
   const navigate = useNavigate();
   const [open, setOpen] = useState(false);
-  const [lines, setLines] = useState<DraftLine[]>([]);
-  const [notes, setNotes] = useState('');
-  const [problem, setProblem] = useState<string | null>(null);
+  const form = useZodForm(newInvoiceSchema(currency), { defaultValues: { variations: [], notes: '' } });
   const siteNotes = useSiteNotes(jobId, open);
   if (!open) {
     return (
@@ -88,55 +93,52 @@ function NewInvoiceForm({ jobId }: { jobId: string }) {
       </div>
     );
   }
-  function submit(e: FormEvent) {
-    e.preventDefault();
-    const parsed = toLineInputs(lines, currency);
-    if ('error' in parsed) return setProblem(parsed.error);
-    setProblem(null);
-    // mutateAsync, not mutate's onSuccess: the refetch after creating unmounts this form (the job now has an invoice).
-    create.mutateAsync({ jobId, variations: parsed.lines, notes, send: true }).then(
-      (inv) => navigate(`/invoices/${inv.id}`),
-      () => undefined,
-    );
-  }
+  const submit = form.handleSubmit(async (body) => {
+    let id: string;
+    try {
+      // Awaited here, not in mutate's onSuccess: the refetch after creating unmounts this form (the job now has an invoice).
+      id = (await create.mutateAsync({ jobId, ...body, send: true })).id;
+    } catch (err) {
+      showServerErrors(err, form.setError);
+      return;
+    }
+    navigate(`/invoices/${id}`);
+  });
+  const problem = form.formState.errors.root?.server?.message;
   return (
-    <form onSubmit={submit} className="mt-4 flex flex-col gap-3 border-t border-paper-line pt-3">
-      <p className="text-sm text-graphite-light">
-        The invoice takes the accepted quote's lines, adds any variations below (see the installer's site notes), takes off the deposit paid, and is e-mailed to
-        the customer with a link to pay.
-      </p>
-      {siteNotes.isSuccess && siteNotes.data.length > 0 && (
-        <div className="rounded-md border border-paper-line bg-paper/60 px-3 py-2 text-sm" data-testid="site-notes">
-          <p className="mb-1 font-medium">The installer's notes from site</p>
-          <ul className="list-disc pl-5">
-            {siteNotes.data.map((n) => (
-              <li key={n.id}>
-                {n.text}{' '}
-                <span className="text-xs text-graphite-light">
-                  — {n.by.name}, {formatDateTime(n.at)}
-                </span>
-              </li>
-            ))}
-          </ul>
+    <FormProvider {...form}>
+      <form onSubmit={submit} noValidate className="mt-4 flex flex-col gap-3 border-t border-paper-line pt-3">
+        <p className="text-sm text-graphite-light">
+          The invoice takes the accepted quote's lines, adds any variations below (see the installer's site notes), takes off the deposit paid, and is e-mailed
+          to the customer with a link to pay.
+        </p>
+        {siteNotes.isSuccess && siteNotes.data.length > 0 && (
+          <div className="rounded-md border border-paper-line bg-paper/60 px-3 py-2 text-sm" data-testid="site-notes">
+            <p className="mb-1 font-medium">The installer's notes from site</p>
+            <ul className="list-disc pl-5">
+              {siteNotes.data.map((n) => (
+                <li key={n.id}>
+                  {n.text}{' '}
+                  <span className="text-xs text-graphite-light">
+                    — {n.by.name}, {formatDateTime(n.at)}
+                  </span>
+                </li>
+              ))}
+            </ul>
+          </div>
+        )}
+        <LineEditor name="variations" label="Variations found on site" />
+        <Textarea aria-label="Notes printed on the invoice" placeholder="Notes printed on the invoice (optional)" rows={2} {...form.register('notes')} />
+        {problem && <Alert>{asSentence(problem)}</Alert>}
+        <div className="flex gap-2">
+          <Button type="submit" busy={create.isPending}>
+            Create and e-mail invoice
+          </Button>
+          <Button variant="ghost" onClick={() => setOpen(false)}>
+            Cancel
+          </Button>
         </div>
-      )}
-      <LineEditor label="Variations found on site" lines={lines} onChange={setLines} />
-      <Textarea
-        aria-label="Notes printed on the invoice"
-        placeholder="Notes printed on the invoice (optional)"
-        rows={2}
-        value={notes}
-        onChange={(e) => setNotes(e.target.value)}
-      />
-      {(problem || create.isError) && <Alert>{asSentence(problem ?? create.error?.message ?? '')}</Alert>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={create.isPending}>
-          Create and e-mail invoice
-        </Button>
-        <Button variant="ghost" onClick={() => setOpen(false)}>
-          Cancel
-        </Button>
-      </div>
-    </form>
+      </form>
+    </FormProvider>
   );
 }

@@ -1,70 +1,76 @@
-import { TAX_CLASSES, TAX_CLASS_LABELS, type TaxClass } from '../../../../shared/api/settings';
-import type { InvoiceLineInput } from '../../../../shared/api/invoices';
-import { readMoney } from '../../../../shared/quote/money-input';
-import { Button, Input, Select } from '../../../components/ui';
+import { get, useFieldArray, useFormContext, useFormState } from 'react-hook-form';
+import { TAX_CLASSES, TAX_CLASS_LABELS } from '../../../../shared/api/settings';
+import { Button, Input } from '../../../components/ui';
+import { FormSelect } from '../../../lib/forms';
+import { emptyLine, type LineValues } from './line-form-schema';
 
-/** A line as typed: the price stays text until it parses, so "12." does not jump while typing. */
-export interface DraftLine {
-  description: string;
-  quantity: string;
-  price: string;
-  taxClass: TaxClass;
+/** The message for one cell, under it, tied to its control by aria-describedby. */
+function useCellError(path: string) {
+  const { errors } = useFormState({ name: path });
+  const message = (get(errors, path) as { message?: string } | undefined)?.message;
+  const id = `${path.replace(/\./g, '-')}-error`;
+  return {
+    props: message ? { 'aria-invalid': true as const, 'aria-describedby': id } : {},
+    node: message ? (
+      <p id={id} className="text-xs font-medium text-brick-dark">
+        {message}
+      </p>
+    ) : null,
+  };
 }
 
-export const emptyLine = (): DraftLine => ({ description: '', quantity: '1', price: '', taxClass: 'standard' });
-
-/** Draft lines → API lines, or the first problem in plain words (row numbers from 1). */
-export function toLineInputs(lines: DraftLine[], currency: string): { lines: InvoiceLineInput[] } | { error: string } {
-  const out: InvoiceLineInput[] = [];
-  for (const [i, l] of lines.entries()) {
-    if (!l.description.trim() && !l.price.trim()) continue;
-    const quantity = Number(l.quantity);
-    const price = readMoney(l.price, currency);
-    if (!l.description.trim()) return { error: `line ${i + 1}: describe the line` };
-    if (!(quantity > 0)) return { error: `line ${i + 1}: the quantity must be above 0` };
-    if (!price.ok) return { error: `line ${i + 1}, price: ${price.message}` };
-    out.push({ description: l.description.trim(), quantity, unit: 'each', unitPriceMinor: price.minor, taxClass: l.taxClass });
-  }
-  return { lines: out };
+function Cell({
+  path,
+  className,
+  children,
+}: {
+  path: string;
+  className?: string;
+  children: (props: ReturnType<typeof useCellError>['props']) => React.ReactNode;
+}) {
+  const error = useCellError(path);
+  return (
+    <div className={`flex flex-col gap-0.5 ${className ?? ''}`}>
+      {children(error.props)}
+      {error.node}
+    </div>
+  );
 }
 
-/** Rows of description, quantity, unit price and tax class, with add and remove. */
-export function LineEditor({ lines, onChange, label }: { lines: DraftLine[]; onChange: (lines: DraftLine[]) => void; label: string }) {
-  const set = (i: number, patch: Partial<DraftLine>) => onChange(lines.map((l, j) => (j === i ? { ...l, ...patch } : l)));
+/** Rows of description, quantity, unit price and tax class at `name` of the form ("variations", "lines"), with add and remove. */
+export function LineEditor({ name, label }: { name: string; label: string }) {
+  const { register, control } = useFormContext<Record<string, LineValues[]>>();
+  const { fields, append, remove } = useFieldArray({ control, name });
   return (
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-1 text-sm font-medium text-graphite">{label}</legend>
-      {lines.map((l, i) => (
-        <div key={i} className="grid grid-cols-2 items-center gap-2 sm:grid-cols-[minmax(0,1fr)_5rem_7rem_minmax(0,12rem)_auto]">
-          <Input
-            className="col-span-2 sm:col-span-1"
-            aria-label={`Line ${i + 1} description`}
-            placeholder="What was done"
-            value={l.description}
-            onChange={(e) => set(i, { description: e.target.value })}
-          />
-          <Input aria-label={`Line ${i + 1} quantity`} inputMode="decimal" value={l.quantity} onChange={(e) => set(i, { quantity: e.target.value })} />
-          <Input
-            aria-label={`Line ${i + 1} unit price`}
-            inputMode="decimal"
-            placeholder="0.00"
-            value={l.price}
-            onChange={(e) => set(i, { price: e.target.value })}
-          />
-          <Select aria-label={`Line ${i + 1} tax class`} value={l.taxClass} onChange={(e) => set(i, { taxClass: e.target.value as TaxClass })}>
-            {TAX_CLASSES.map((c) => (
-              <option key={c} value={c}>
-                {TAX_CLASS_LABELS[c]}
-              </option>
-            ))}
-          </Select>
-          <Button variant="danger-ghost" size="sm" aria-label={`Remove line ${i + 1}`} onClick={() => onChange(lines.filter((_, j) => j !== i))}>
-            Remove
-          </Button>
-        </div>
-      ))}
+      {fields.map((f, i) => {
+        const at = (k: keyof LineValues) => `${name}.${i}.${k}` as const;
+        return (
+          <div key={f.id} className="grid grid-cols-2 items-start gap-2 sm:grid-cols-[minmax(0,1fr)_5rem_7rem_minmax(0,12rem)_auto]">
+            {/* The description takes the whole row on a phone so it is not squeezed below a usable size. */}
+            <Cell path={at('description')} className="col-span-2 sm:col-span-1">
+              {(p) => <Input aria-label={`Line ${i + 1} description`} placeholder="What was done" {...p} {...register(at('description'))} />}
+            </Cell>
+            <Cell path={at('quantity')}>{(p) => <Input aria-label={`Line ${i + 1} quantity`} inputMode="decimal" {...p} {...register(at('quantity'))} />}</Cell>
+            <Cell path={at('unitPriceMinor')}>
+              {(p) => <Input aria-label={`Line ${i + 1} unit price`} inputMode="decimal" placeholder="0.00" {...p} {...register(at('unitPriceMinor'))} />}
+            </Cell>
+            <FormSelect aria-label={`Line ${i + 1} tax class`} name={at('taxClass')}>
+              {TAX_CLASSES.map((c) => (
+                <option key={c} value={c}>
+                  {TAX_CLASS_LABELS[c]}
+                </option>
+              ))}
+            </FormSelect>
+            <Button variant="danger-ghost" size="sm" aria-label={`Remove line ${i + 1}`} onClick={() => remove(i)}>
+              Remove
+            </Button>
+          </div>
+        );
+      })}
       <div>
-        <Button variant="secondary" size="sm" onClick={() => onChange([...lines, emptyLine()])}>
+        <Button variant="secondary" size="sm" onClick={() => append(emptyLine())}>
           Add a line
         </Button>
       </div>
