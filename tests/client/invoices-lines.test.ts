@@ -4,7 +4,13 @@ import { linesFormSchema, type LineValues } from '../../src/features/invoices/co
 import { creditLineFrom, creditNoteFormSchema } from '../../src/features/invoices/components/credit-note-form';
 import { invoiceLineInputSchema } from '../../shared/api/invoices';
 
-const line = (over: Partial<LineValues>): LineValues => ({ description: 'Extra walkway board', quantity: '2', unitPriceMinor: '12.99', taxClass: 'standard', ...over });
+const line = (over: Partial<LineValues>): LineValues => ({
+  description: 'Extra walkway board',
+  quantity: '2',
+  unitPriceMinor: '12.99',
+  taxClass: 'standard',
+  ...over,
+});
 const issues = (lines: LineValues[]) => {
   const r = linesFormSchema('GBP').safeParse(lines);
   return r.success ? [] : r.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
@@ -12,7 +18,10 @@ const issues = (lines: LineValues[]) => {
 
 describe('invoice line form', () => {
   it('turns typed prices into integer pence the API accepts', () => {
-    const r = linesFormSchema('GBP').parse([line({}), line({ description: 'Hatch kit', quantity: '1.5', unitPriceMinor: '£1,234.5', taxClass: 'energy_saving' })]);
+    const r = linesFormSchema('GBP').parse([
+      line({}),
+      line({ description: 'Hatch kit', quantity: '1.5', unitPriceMinor: '£1,234.5', taxClass: 'energy_saving' }),
+    ]);
     expect(r).toEqual([
       { description: 'Extra walkway board', quantity: 2, unit: 'each', unitPriceMinor: 1299, taxClass: 'standard' },
       { description: 'Hatch kit', quantity: 1.5, unit: 'each', unitPriceMinor: 123450, taxClass: 'energy_saving' },
