@@ -15,13 +15,6 @@ export class ApiError extends Error {
     this.code = code;
     this.details = details;
   }
-
-  /** Field messages keyed by path ("address.town"), for showing next to form fields. */
-  fieldErrors(): Record<string, string> {
-    const out: Record<string, string> = {};
-    for (const d of this.details) if (!(d.path in out)) out[d.path] = d.message;
-    return out;
-  }
 }
 
 export function isApiError(e: unknown): e is ApiError {

@@ -1,35 +1,21 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
+import { FormProvider } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { spaceBodySchema } from '../../../../shared/api/spaces';
 import type { Job } from '../../../../shared/api/jobs';
-import { Alert, Button, Card, CardTitle, EmptyState, Field, Input, formatDateTime } from '../../../components/ui';
-import { formErrorMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
+import { Alert, Button, Card, CardTitle, EmptyState, Input, formatDateTime } from '../../../components/ui';
+import { FormField, showServerErrors, useZodForm } from '../../../lib/forms';
+import { formErrorMessage } from '../../../lib/forms/server-errors';
 import { useCreateSpace } from '../api/create-space';
 import { useRemoveSpace } from '../api/remove-space';
 
 /** The loft spaces of a job, each opening its plan; plus a small form to add one. */
 export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
   const [adding, setAdding] = useState(false);
-  const [name, setName] = useState('');
-  const [errors, setErrors] = useState<FieldErrors>({});
   const create = useCreateSpace(job.id);
   const { remove, restore } = useRemoveSpace(job.id);
   // The space just removed, offered back until another is removed or the page is left.
   const [removed, setRemoved] = useState<{ id: string; name: string } | null>(null);
-
-  function onSubmit(e: FormEvent) {
-    e.preventDefault();
-    const parsed = spaceBodySchema.safeParse({ name });
-    if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
-    setErrors({});
-    create.mutate(parsed.data, {
-      onSuccess: () => {
-        setName('');
-        setAdding(false);
-      },
-      onError: (err) => setErrors(serverFieldErrors(err)),
-    });
-  }
 
   return (
     <Card>
@@ -44,33 +30,7 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
       >
         Loft spaces
       </CardTitle>
-      {adding && (
-        <form
-          onSubmit={onSubmit}
-          noValidate
-          className="mb-4 flex flex-col gap-2 rounded-md bg-paper-dark/60 p-3 sm:flex-row sm:items-start"
-          aria-label="Add space"
-        >
-          <Field label="Name of the space" error={errors.name} className="flex-1" hint="For example: Main loft, Garage loft, Extension.">
-            <Input value={name} onChange={(e) => setName(e.target.value)} autoFocus name="name" />
-          </Field>
-          <div className="flex gap-2 sm:mt-6">
-            <Button type="submit" busy={create.isPending}>
-              Add
-            </Button>
-            <Button
-              variant="ghost"
-              onClick={() => {
-                setAdding(false);
-                setErrors({});
-              }}
-            >
-              Cancel
-            </Button>
-          </div>
-          {create.isError && !errors.name && <Alert>{formErrorMessage(create.error)}</Alert>}
-        </form>
-      )}
+      {adding && <AddSpaceForm create={create} onClose={() => setAdding(false)} />}
       {removed && (
         <div
           role="status"
@@ -120,5 +80,43 @@ export function JobSpaces({ job, canEdit }: { job: Job; canEdit: boolean }) {
         wear a mask, gloves and goggles near mineral wool. Local building regulations and licensed practice take precedence.
       </p>
     </Card>
+  );
+}
+
+/** The name of a new loft space, checked with the API's spaceBodySchema. */
+function AddSpaceForm({ create, onClose }: { create: ReturnType<typeof useCreateSpace>; onClose: () => void }) {
+  const form = useZodForm(spaceBodySchema, { defaultValues: { name: '' } });
+  const onSubmit = form.handleSubmit(async (body) => {
+    try {
+      await create.mutateAsync(body);
+    } catch (err) {
+      showServerErrors(err, form.setError);
+      return;
+    }
+    onClose();
+  });
+  const formError = form.formState.errors.root?.server?.message;
+  return (
+    <FormProvider {...form}>
+      <form
+        onSubmit={onSubmit}
+        noValidate
+        className="mb-4 flex flex-col gap-2 rounded-md bg-paper-dark/60 p-3 sm:flex-row sm:items-start"
+        aria-label="Add space"
+      >
+        <FormField name="name" label="Name of the space" className="flex-1" hint="For example: Main loft, Garage loft, Extension.">
+          <Input autoFocus {...form.register('name')} />
+        </FormField>
+        <div className="flex gap-2 sm:mt-6">
+          <Button type="submit" busy={create.isPending}>
+            Add
+          </Button>
+          <Button variant="ghost" onClick={onClose}>
+            Cancel
+          </Button>
+        </div>
+        {formError && <Alert>{formError}</Alert>}
+      </form>
+    </FormProvider>
   );
 }

@@ -3,7 +3,7 @@ import { JOB_STAGES, type Job, type JobStage } from '../../../../shared/api/jobs
 import { useCurrentUser } from '../../auth';
 import { Alert, Select, Spinner, STAGE_LABELS } from '../../../components/ui';
 import { cn } from '../../../lib/cn';
-import { formErrorMessage } from '../../../lib/form-errors';
+import { formErrorMessage } from '../../../lib/forms/server-errors';
 import { useUpdateJob } from '../api/update-job';
 
 const PATH: JobStage[] = JOB_STAGES.filter((s) => s !== 'declined');

@@ -1,7 +1,7 @@
 import type { User } from '../../../../shared/api/users';
 import { ROLES, ROLE_LABELS, type Role } from '../../../../shared/auth/roles';
 import { Alert, Button, Select } from '../../../components/ui';
-import { formErrorMessage } from '../../../lib/form-errors';
+import { formErrorMessage } from '../../../lib/forms/server-errors';
 import { useResendInvite } from '../api/resend-invite';
 import { useUpdateUser } from '../api/update-user';
 
