@@ -107,7 +107,7 @@ describe('job detail', () => {
     render('estimator');
     fireEvent.click(await screen.findByRole('button', { name: 'Add space' }));
     fireEvent.click(screen.getByRole('button', { name: 'Add' }));
-    expect(screen.getByText('name the space')).toBeTruthy();
+    expect(await screen.findByText('name the space')).toBeTruthy();
     expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
     fireEvent.change(screen.getByLabelText('Name of the space'), { target: { value: 'Garage loft' } });
     fireEvent.click(screen.getByRole('button', { name: 'Add' }));
