@@ -3,21 +3,19 @@
 // e-mail address already in use) comes back as a 409 naming the field and is shown in place.
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
-import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
+import { screenshot, signInThroughUi, startDemoBrowserSuite } from '../helpers/browser';
 
-let app: Awaited<ReturnType<typeof startAppServer>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let suite: Awaited<ReturnType<typeof startDemoBrowserSuite>>;
+let app: typeof suite.app;
+let browser: typeof suite.browser;
 
 beforeAll(async () => {
-  app = await startAppServer();
-  await seedDemo(app.ctx.deps);
-  browser = await launchBrowser({ viewport: { width: 1280, height: 860 } });
+  suite = await startDemoBrowserSuite({ width: 1280, height: 860 });
+  ({ app, browser } = suite);
 }, 120_000);
-
 afterAll(async () => {
-  await browser?.close();
-  await app?.close();
+  await suite?.close();
 });
 
 /** The text of the message the control points at with aria-describedby, once it is marked invalid. */

@@ -1,20 +1,19 @@
 // A data table in a real browser: the office's customers, sorted by a header and filtered by the
 // search box (TanStack Table in src/components/data-table).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
-import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
+import { screenshot, signInThroughUi, startDemoBrowserSuite } from '../helpers/browser';
 
-let app: Awaited<ReturnType<typeof startAppServer>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let suite: Awaited<ReturnType<typeof startDemoBrowserSuite>>;
+let app: typeof suite.app;
+let browser: typeof suite.browser;
 
 beforeAll(async () => {
-  app = await startAppServer();
-  await seedDemo(app.ctx.deps);
-  browser = await launchBrowser({ viewport: { width: 1280, height: 860 } });
+  suite = await startDemoBrowserSuite({ width: 1280, height: 860 });
+  ({ app, browser } = suite);
 }, 120_000);
 afterAll(async () => {
-  await browser?.close();
-  await app?.close();
+  await suite?.close();
 });
 
 describe('customers table', () => {

@@ -5,6 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { REPO_ROOT } from '../../server/config';
+import { seedDemo } from '../../server/db/seeders/demo';
 import { createOrgWithUsers, createTestContext, type TestContext, type TestOrg } from './test-app';
 
 export const SCREENSHOT_DIR = path.join(REPO_ROOT, 'test-output', 'screenshots');
@@ -109,6 +110,21 @@ export async function startBrowserSuite(opts: { viewport: { width: number; heigh
     async close() {
       await browser.close();
       await server.close();
+    },
+  };
+}
+
+/** The real app with the demo company loaded (seedDemo) and one browser, for tests that walk the demo data. */
+export async function startDemoBrowserSuite(viewport: { width: number; height: number }) {
+  const app = await startAppServer();
+  await seedDemo(app.ctx.deps);
+  const browser = await launchBrowser({ viewport });
+  return {
+    app,
+    browser,
+    async close() {
+      await browser.close();
+      await app.close();
     },
   };
 }
