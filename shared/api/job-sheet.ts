@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { actualsBodySchema } from './actuals';
 import { addressSchema } from './customers';
 import { jobStageSchema } from './jobs';
-import { extraKindSchema } from './settings';
+import { ACTUALS_PARTS, extraKindSchema } from './settings';
 
 /**
  * The installer's job sheet: everything needed on site and nothing about money.
@@ -216,6 +216,11 @@ export const jobSheetSchema = z.object({
   notes: z.array(noteSchema),
   photos: z.array(photoSchema),
   completion: completionSchema.nullable(),
+  /**
+   * What the company asks the installer to record before finishing (settings `actualsRequired`).
+   * A part the job has nothing for (no extras in the van load) is not asked for.
+   */
+  actualsRequired: z.array(z.enum(ACTUALS_PARTS)).default([]),
 });
 export type JobSheet = z.infer<typeof jobSheetSchema>;
 

@@ -118,6 +118,40 @@ describe('company settings form', () => {
   });
 });
 
+describe('what installers must record on finishing (actualsRequired)', () => {
+  const checkbox = (name: string) => screen.getByRole('checkbox', { name }) as HTMLInputElement;
+  const lastPut = (calls: ReturnType<typeof settingsApi>) => calls.filter((c) => c.method === 'PUT').at(-1)!.body as { actualsRequired: string[] };
+
+  it('shows the stored choice as ticked boxes and sends the boxes ticked', async () => {
+    const calls = settingsApi();
+    await openPricing();
+    expect(checkbox('Rolls used and brought back').checked).toBe(true);
+    expect(checkbox('Hours on site, per installer').checked).toBe(false);
+    fireEvent.click(checkbox('Hours on site, per installer'));
+    fireEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    await screen.findByText('Settings saved.');
+    expect(lastPut(calls).actualsRequired).toEqual(['rolls', 'hours']);
+
+    fireEvent.click(checkbox('Rolls used and brought back'));
+    fireEvent.click(checkbox('Hours on site, per installer'));
+    fireEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    await waitFor(() => expect(calls.filter((c) => c.method === 'PUT')).toHaveLength(2));
+    expect(lastPut(calls).actualsRequired).toEqual([]);
+  });
+
+  it('keeps the stored choice when the company tab is saved for something else', async () => {
+    const calls = settingsApi();
+    renderPage(<SettingsPage />, { user: demoUser('office') });
+    await screen.findByLabelText('Phone');
+    fill('Phone', '01632 960123');
+    fireEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    await screen.findByText('Settings saved.');
+    const put = lastPut(calls) as { actualsRequired: string[]; phone: string };
+    expect(put.phone).toBe('01632 960123');
+    expect(put.actualsRequired).toEqual(['rolls']);
+  });
+});
+
 describe('catalogue row form', () => {
   it('checks a product with the API schema and reads its price as pence', async () => {
     const calls = settingsApi();

@@ -39,9 +39,10 @@ function readySheet(installDate: string) {
   return s;
 }
 
-function renderFinish(installDate: string) {
+function renderFinish(installDate: string, change: (s: ReturnType<typeof readySheet>) => void = () => {}) {
   const calls = fakeApi((c) => (c.url.pathname.endsWith('/finish') ? { body: { completion: null } } : undefined));
   const s = readySheet(installDate);
+  change(s);
   const ticks = new Map(s.ticks.map((t) => [tickKey(t.kind, t.spaceId, t.ref), { ...t, pending: false }]));
   renderPage(<FinishPanel sheet={s} ticks={ticks as never} pendingPhotos={[]} waiting={0} />, { user: demoUser('installer') });
   return calls;
@@ -95,5 +96,37 @@ describe('finishing a job on the phone', () => {
     const queued = vi.mocked(enqueue).mock.calls.at(-1)![0];
     expect(queued).toMatchObject({ kind: 'finish', key: keys[0] });
     expect((queued.body as { actuals: { rolls: unknown[] } }).actuals.rolls).toEqual([{ productId: 'prod-100', used: 7, returned: 0 }]);
+  });
+
+  it('holds the finish until the parts the company asks for are filled in, marking them required', async () => {
+    const calls = renderFinish(isoInDays(0), (s) => (s.actualsRequired = ['hours', 'rolls']));
+    const installer = readySheet(isoInDays(0)).job.installer!;
+    const hours = screen.getByLabelText(`${installer.name}: hours on site`);
+    expect(hours.getAttribute('aria-required')).toBe('true');
+    expect(hours.getAttribute('aria-invalid')).toBe('true');
+    // Rolls are prefilled from the van load, so only the hours are missing.
+    expect(screen.getByLabelText('Roll 100 mm: rolls used').getAttribute('aria-invalid')).toBe('false');
+    expect(screen.getByText(/Fill in the hours on site: the company asks for them/)).toBeTruthy();
+    const button = screen.getByRole('button', { name: 'Mark installed' }) as HTMLButtonElement;
+    expect(button.disabled).toBe(true);
+
+    fireEvent.change(screen.getByLabelText('Roll 100 mm: rolls used'), { target: { value: '' } });
+    expect(screen.getByText(/Fill in the hours on site and the rolls used/)).toBeTruthy();
+    fireEvent.change(screen.getByLabelText('Roll 100 mm: rolls used'), { target: { value: '7' } });
+    fireEvent.change(hours, { target: { value: '4' } });
+    expect(screen.queryByText(/the company asks for them/)).toBeNull();
+    expect(button.disabled).toBe(false);
+    fireEvent.click(button);
+    await waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(1));
+    expect((calls[0].body as { actuals: { hours: unknown } }).actuals.hours).toEqual([{ userId: installer.id, hours: 4 }]);
+  });
+
+  it('does not ask for extras on a job whose van load has none', () => {
+    renderFinish(isoInDays(0), (s) => {
+      s.actualsRequired = ['extras'];
+      s.vanLoad.extras = [];
+    });
+    expect(screen.queryByText(/the company asks for them/)).toBeNull();
+    expect((screen.getByRole('button', { name: 'Mark installed' }) as HTMLButtonElement).disabled).toBe(false);
   });
 });

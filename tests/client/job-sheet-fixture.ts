@@ -42,5 +42,6 @@ export function sheet(job: Partial<JobSheet['job']> = {}): JobSheet {
     notes: [],
     photos: [{ id: 'p1', spaceId: 's1', stage: 'after', caption: '', widthPx: 1, heightPx: 1, url: '', thumbUrl: '', by: me, at: '2027-01-04T10:00:00Z' }],
     completion: null,
+    actualsRequired: [],
   };
 }

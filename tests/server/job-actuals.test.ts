@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CompanySetting, Job, JobActual, JobEvent } from '../../server/db/models';
 import { createOrgWithUsers, createTestContext, createUser, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 import { rotatedJpeg, scheduledJobWithTakeoff } from './job-sheet-fixtures';
+import { missingActuals } from '../../server/modules/actuals/record-actuals';
 
 let ctx: TestContext;
 let org: TestOrg;
@@ -123,21 +124,36 @@ describe('actuals on POST /api/jobs/:id/finish', () => {
     expect(await JobActual.count({ where: { jobId: job.id } })).toBe(0);
   });
 
-  it('asks for what the company requires before marking installed', async () => {
+  it('asks for what the company requires before marking installed, and tells the sheet what that is', async () => {
     const own = await createOrgWithUsers();
-    await CompanySetting.update({ actualsRequired: ['hours'] }, { where: { organisationId: own.id } });
+    await CompanySetting.update({ actualsRequired: ['hours', 'extras'] }, { where: { organisationId: own.id } });
     const saved = org;
     org = own;
     try {
       const agent = await loginAs(ctx.app, own.installer);
       const { job, productIds } = await readyJob(agent);
+      const sheet = (await agent.get(`/api/jobs/${job.id}/job-sheet`)).body.sheet;
+      expect(sheet.actualsRequired).toEqual(['hours', 'extras']);
+      expect(sheet.vanLoad.extras.length).toBeGreaterThan(0);
       const res = await agent.post(`/api/jobs/${job.id}/finish`).send({ actuals: { rolls: [{ productId: productIds[0], used: 4 }] } });
       expect(res.status).toBe(409);
-      expect(res.body.error.details.map((d: { path: string }) => d.path)).toEqual(['actuals.hours']);
-      const ok = await agent.post(`/api/jobs/${job.id}/finish`).send({ actuals: { hours: [{ userId: own.installer.id, hours: 4 }] } });
+      expect(res.body.error.details.map((d: { path: string }) => d.path)).toEqual(['actuals.hours', 'actuals.extras']);
+      expect(res.body.error.message).toMatch(/record the hours on site/);
+      const noExtras = await agent.post(`/api/jobs/${job.id}/finish`).send({ actuals: { hours: [{ userId: own.installer.id, hours: 4 }] } });
+      expect(noExtras.body.error.details.map((d: { path: string }) => d.path)).toEqual(['actuals.extras']);
+      expect((await Job.findByPk(job.id))?.stage).toBe('scheduled');
+      const ok = await agent
+        .post(`/api/jobs/${job.id}/finish`)
+        .send({ actuals: { hours: [{ userId: own.installer.id, hours: 4 }], extras: [{ code: 'hatch_kit', used: 1 }] } });
       expect(ok.status).toBe(200);
     } finally {
       org = saved;
     }
+  });
+
+  it('does not ask for a part the job has nothing for (no extras in the van load)', () => {
+    const applies = { rolls: true, hours: true, extras: false };
+    expect(missingActuals(undefined, ['extras'], applies)).toEqual([]);
+    expect(missingActuals(undefined, ['extras', 'hours'], applies).map((d) => d.path)).toEqual(['actuals.hours']);
   });
 });

@@ -66,6 +66,23 @@ describe('company settings', () => {
     expect(bad.body.error.details.map((d: { path: string }) => d.path)).toContain('minOffcutMm');
   });
 
+  it('stores what installers must record on finishing, keeps it through a save of something else, and names a part it does not know', async () => {
+    const own = await createOrgWithUsers();
+    const office = await loginAs(ctx.app, own.office);
+    const { hasLogo: _ignored, ...body } = (await office.get('/api/settings')).body.settings;
+    expect(body.actualsRequired).toEqual([]);
+    const set = await office.put('/api/settings').send({ ...body, actualsRequired: ['rolls', 'hours'] });
+    expect(set.body.settings.actualsRequired).toEqual(['rolls', 'hours']);
+    // What the settings page sends for an unrelated change: the stored body with one field changed.
+    const { hasLogo: _h, ...stored } = (await office.get('/api/settings')).body.settings;
+    expect((await office.put('/api/settings').send({ ...stored, phone: '01632 960555' })).status).toBe(200);
+    expect((await office.get('/api/settings')).body.settings).toMatchObject({ phone: '01632 960555', actualsRequired: ['rolls', 'hours'] });
+    const bad = await office.put('/api/settings').send({ ...stored, actualsRequired: ['rolls', 'snacks'] });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details.map((d: { path: string }) => d.path)).toContain('actualsRequired.1');
+    expect((await office.get('/api/settings')).body.settings.actualsRequired).toEqual(['rolls', 'hours']);
+  });
+
   it('lets estimators read but not change settings, and keeps installers out', async () => {
     const estimator = await loginAs(ctx.app, org.estimator);
     expect((await estimator.get('/api/settings')).status).toBe(200);

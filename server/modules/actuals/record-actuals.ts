@@ -11,9 +11,15 @@ const REQUIRED_TEXT: Record<ActualsPart, string> = {
   extras: 'record the extras used (the company asks for them)',
 };
 
-/** The parts the company asks for that the finish leaves empty, as not-ready details (`actuals.rolls` …). */
-export function missingActuals(actuals: Actuals | undefined, required: readonly ActualsPart[]): ErrorDetail[] {
-  return required.filter((part) => !actuals || actuals[part].length === 0).map((part) => ({ path: `actuals.${part}`, message: REQUIRED_TEXT[part] }));
+/**
+ * The parts the company asks for that the finish leaves empty, as not-ready details (`actuals.rolls` …).
+ * A part the job has nothing for (`applies` false: no extras in the van load) is not asked for, or
+ * a job with no tank or hatch could never be finished where the company asks for extras.
+ */
+export function missingActuals(actuals: Actuals | undefined, required: readonly ActualsPart[], applies: Record<ActualsPart, boolean>): ErrorDetail[] {
+  return required
+    .filter((part) => applies[part] && (!actuals || actuals[part].length === 0))
+    .map((part) => ({ path: `actuals.${part}`, message: REQUIRED_TEXT[part] }));
 }
 
 /**

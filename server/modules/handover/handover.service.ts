@@ -7,7 +7,7 @@ import { formatDate } from '../../../shared/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../jobs/job-access';
-import { sheetChecks } from '../job-sheet/takeoff-view';
+import { sheetChecks, vanLoad } from '../job-sheet/takeoff-view';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
 import { loadInstallSettings } from '../schedule/schedule.service';
@@ -143,7 +143,10 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
           if (!afterPhotos.some((p) => p.spaceId === s.id)) missing.push({ path: `photos.${s.id}`, message: `${s.name}: add at least one after photo` });
           for (const l of stored?.layers ?? []) productIds.add(l.productId);
         }
-        missing.push(...missingActuals(body.actuals, (await loadCompanySettings(j.organisationId, t)).actualsRequired ?? []));
+        const company = await loadCompanySettings(j.organisationId, t);
+        const load = vanLoad([...revisions.values()], company.extraRules, []);
+        const applies = { rolls: load.rolls.length > 0, hours: true, extras: load.extras.length > 0 };
+        missing.push(...missingActuals(body.actuals, company.actualsRequired ?? [], applies));
         if (missing.length) {
           throw new ConflictError(`not ready to mark installed: ${missing.map((m) => m.message).join('; ')}`, 'not_ready', missing);
         }

@@ -61,6 +61,7 @@ export function createJobSheetService(records: SiteRecordsService, photos: Photo
               handoverUrl: `/api/jobs/${job.id}/handover.pdf`,
             }
           : null,
+        actualsRequired: settings.actualsRequired ?? [],
       };
     },
 

@@ -1,5 +1,6 @@
 import type { ActualsBody } from '../../../../shared/api/actuals';
 import type { VanLoad } from '../../../../shared/api/job-sheet';
+import type { ActualsPart } from '../../../../shared/api/settings';
 
 /** The form's own state: text as typed, so a field can be empty while the installer types. */
 export type ActualsDraft = {
@@ -30,7 +31,25 @@ export function actualsFromDraft(d: ActualsDraft): ActualsBody {
   };
 }
 
-const input = 'h-12 w-20 rounded-md border-2 border-graphite/40 bg-white px-2 text-right font-mono text-lg';
+/**
+ * The parts the company asks for that this job has fields for (no extras in the van load: none to
+ * ask), as the server judges them on finishing.
+ */
+export function askedParts(asked: readonly ActualsPart[] | undefined, load: VanLoad, people: readonly unknown[]): ActualsPart[] {
+  const has: Record<ActualsPart, boolean> = { rolls: load.rolls.length > 0, hours: people.length > 0, extras: load.extras.length > 0 };
+  return (asked ?? []).filter((p) => has[p]);
+}
+
+/** The asked parts the draft leaves empty (every field of that part blank). */
+export function missingParts(asked: readonly ActualsPart[], d: ActualsDraft): ActualsPart[] {
+  const body = actualsFromDraft(d);
+  return asked.filter((p) => (body[p] ?? []).length === 0);
+}
+
+export const PART_TEXT: Record<ActualsPart, string> = { rolls: 'the rolls used', hours: 'the hours on site', extras: 'the extras used' };
+
+const input = 'h-12 w-20 rounded-md border-2 border-graphite/40 bg-white px-2 text-right font-mono text-lg aria-[invalid=true]:border-brick-dark';
+const mark = (on: boolean) => (on ? <span className="ml-1 text-sm font-semibold text-brick-dark">(required)</span> : null);
 
 /** What really went in: rolls used and brought back unopened per product, hours on site per installer, extras used. */
 export function ActualsForm({
@@ -38,12 +57,17 @@ export function ActualsForm({
   people,
   draft,
   onChange,
+  required = [],
 }: {
   load: VanLoad;
   people: { id: string; name: string }[];
   draft: ActualsDraft;
   onChange: (d: ActualsDraft) => void;
+  /** The parts the company asks for (see askedParts): marked, and flagged while empty. */
+  required?: readonly ActualsPart[];
 }) {
+  const missing = new Set(missingParts(required, draft));
+  const req = (p: ActualsPart) => ({ 'aria-required': required.includes(p), 'aria-invalid': missing.has(p) });
   return (
     <fieldset className="mb-3 rounded-md border-2 border-graphite/20 bg-white/70 p-3">
       <legend className="px-1 text-base font-semibold">What was used</legend>
@@ -54,6 +78,7 @@ export function ActualsForm({
         <div key={r.productId} className="mb-2 border-b border-graphite/10 pb-2">
           <div className="text-base">
             {r.productName} <span className="text-graphite-light">({r.count} taken)</span>
+            {mark(required.includes('rolls'))}
           </div>
           <div className="mt-1 flex gap-4">
             {(['used', 'returned'] as const).map((f) => (
@@ -62,6 +87,7 @@ export function ActualsForm({
                 <input
                   inputMode="numeric"
                   aria-label={`${r.productName}: rolls ${f === 'used' ? 'used' : 'brought back'}`}
+                  {...(f === 'used' ? req('rolls') : {})}
                   className={input}
                   value={draft.rolls[r.productId]?.[f] ?? ''}
                   onChange={(e) => onChange({ ...draft, rolls: { ...draft.rolls, [r.productId]: { ...draft.rolls[r.productId], [f]: e.target.value } } })}
@@ -73,10 +99,13 @@ export function ActualsForm({
       ))}
       {people.map((p) => (
         <label key={p.id} className="mb-2 flex items-center justify-between gap-2 text-base">
-          <span>{p.name}: hours on site</span>
+          <span>
+            {p.name}: hours on site{mark(required.includes('hours'))}
+          </span>
           <input
             inputMode="decimal"
             aria-label={`${p.name}: hours on site`}
+            {...req('hours')}
             className={input}
             value={draft.hours[p.id] ?? ''}
             onChange={(e) => onChange({ ...draft, hours: { ...draft.hours, [p.id]: e.target.value } })}
@@ -87,10 +116,12 @@ export function ActualsForm({
         <label key={x.code} className="mb-2 flex items-center justify-between gap-2 text-base">
           <span>
             {x.label} <span className="text-graphite-light">({x.unit})</span>
+            {mark(required.includes('extras'))}
           </span>
           <input
             inputMode="decimal"
             aria-label={`${x.label}: used`}
+            {...req('extras')}
             className={input}
             value={draft.extras[x.code] ?? ''}
             onChange={(e) => onChange({ ...draft, extras: { ...draft.extras, [x.code]: e.target.value } })}

@@ -4,7 +4,7 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../components/ui/format';
 import { useFinishJob } from '../api/finish-job';
 import { newKey } from '../offline/outbox-db';
-import { ActualsForm, actualsFromDraft, draftFromVanLoad } from './actuals-form';
+import { ActualsForm, actualsFromDraft, askedParts, draftFromVanLoad, missingParts, PART_TEXT } from './actuals-form';
 import { finishBlockers, type PendingPhoto, type ShownTick } from '../merge-pending';
 import { SheetSection } from './sheet-section';
 
@@ -47,7 +47,9 @@ export function FinishPanel({
   const finish = useFinishJob(sheet.job.id, finishKey);
   const blockers = finishBlockers(sheet, ticks, reasons, pendingPhotos);
   const unticked = finishBlockers(sheet, ticks, {}, pendingPhotos).checks;
-  const ready = blockers.checks.length === 0 && blockers.photos.length === 0;
+  const asked = askedParts(sheet.actualsRequired, sheet.vanLoad, crew);
+  const unrecorded = missingParts(asked, draft);
+  const ready = blockers.checks.length === 0 && blockers.photos.length === 0 && unrecorded.length === 0;
   const submit = () => finish.mutate({ reasons: Object.fromEntries(Object.entries(reasons).filter(([, v]) => v.trim())), actuals: actualsFromDraft(draft) });
   if (finish.data?.queued || finishQueued)
     return (
@@ -91,7 +93,12 @@ export function FinishPanel({
           )}
         </div>
       )}
-      <ActualsForm load={sheet.vanLoad} people={crew} draft={draft} onChange={setDraft} />
+      <ActualsForm load={sheet.vanLoad} people={crew} draft={draft} onChange={setDraft} required={asked} />
+      {unrecorded.length > 0 && (
+        <p className="mb-2 text-base font-semibold text-brick-dark">
+          Fill in {unrecorded.map((p) => PART_TEXT[p]).join(' and ')}: the company asks for them before finishing.
+        </p>
+      )}
       {blockers.photos.length > 0 && (
         <p className="mb-2 text-base font-semibold text-brick-dark">Add at least one after photo of: {blockers.photos.join(', ')}.</p>
       )}

@@ -1,10 +1,16 @@
 import { useMemo, useState } from 'react';
 import { FormProvider, type Path } from 'react-hook-form';
-import { TAX_CLASS_LABELS, type CompanySettings } from '../../../../shared/api/settings';
+import { ACTUALS_PARTS, TAX_CLASS_LABELS, type ActualsPart, type CompanySettings } from '../../../../shared/api/settings';
 import { Alert, Button, Card, CardTitle, Input, Textarea } from '../../../components/ui';
 import { FormField, FormSelect, hasFieldErrors, showServerErrors, useZodForm } from '../../../lib/forms';
 import { useSaveCompanySettings, useUploadLogo } from '../api/company-settings';
 import { settingsFormSchema, settingsFormValues, type SettingsFormValues } from './settings-form-schema';
+
+const PART_LABELS: Record<ActualsPart, string> = {
+  rolls: 'Rolls used and brought back',
+  hours: 'Hours on site, per installer',
+  extras: 'Extras used (kits, covers, boards)',
+};
 
 /** The company's details, quote terms, savings inputs, labour rates and extras rules, checked with the server's schema. */
 export function CompanySettingsForm({ settings, section }: { settings: CompanySettings; section: 'company' | 'pricing' }) {
@@ -108,6 +114,23 @@ export function CompanySettingsForm({ settings, section }: { settings: CompanySe
                 {field('labour.roundUpMinutes', 'Round labour up to (minutes)')}
                 {field('labour.taxClass', 'Labour tax class', { options: Object.entries(TAX_CLASS_LABELS) })}
               </div>
+            </Card>
+            <Card>
+              <CardTitle>Finishing a job</CardTitle>
+              <fieldset>
+                <legend className="mb-2 text-sm">
+                  What an installer must fill in before marking a job installed. The phone form is filled from the van load either way; what is recorded feeds
+                  the estimate-against-actual report and its suggestions.
+                </legend>
+                <div className="flex flex-col gap-2 sm:flex-row sm:gap-6">
+                  {ACTUALS_PARTS.map((part) => (
+                    <label key={part} className="flex min-h-11 items-center gap-2 text-sm">
+                      <input type="checkbox" className="h-5 w-5 accent-teal-dark" value={part} {...form.register('actualsRequired')} />
+                      {PART_LABELS[part]}
+                    </label>
+                  ))}
+                </div>
+              </fieldset>
             </Card>
             <Card>
               <CardTitle>Rolls and waste</CardTitle>

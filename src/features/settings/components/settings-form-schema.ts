@@ -69,7 +69,7 @@ export function settingsFormValues(s: CompanySettings): SettingsFormValues {
     rollCountMethod: s.rollCountMethod,
     eavesMode: s.eavesMode ?? 'gap',
     hatchKitInsulationMm: String(s.hatchKitInsulationMm ?? 0),
-    // No field on this form, but sent back as stored: left out, the PUT would reset it to its default.
+    // Checkboxes on the pricing tab, sent back as stored from either tab: left out, the PUT would reset it to none.
     actualsRequired: s.actualsRequired ?? [],
     labour: {
       baseM2PerHour: String(s.labour.baseM2PerHour),
