@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CompanySetting, Job, JobActual, JobEvent } from '../../server/db/models';
 import { createOrgWithUsers, createTestContext, createUser, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
-import { rotatedJpeg, scheduledJobWithTakeoff } from './job-sheet-fixtures';
+import { readyToFinish } from './job-sheet-fixtures';
 import { missingActuals } from '../../server/modules/actuals/record-actuals';
 
 let ctx: TestContext;
@@ -15,24 +15,8 @@ afterAll(async () => {
   await ctx?.close();
 });
 
-type Agent = Awaited<ReturnType<typeof loginAs>>;
-
 /** A scheduled job with every check ticked and an after photo: ready to finish. */
-async function readyJob(agent: Agent) {
-  const made = await scheduledJobWithTakeoff(org);
-  const sheet = (await agent.get(`/api/jobs/${made.job.id}/job-sheet`)).body.sheet;
-  for (const s of sheet.spaces)
-    for (const c of s.checks)
-      expect((await agent.post(`/api/jobs/${made.job.id}/ticks`).send({ kind: 'check', spaceId: s.id, ref: c.code, done: true })).status).toBe(200);
-  const photo = await agent
-    .post(`/api/jobs/${made.job.id}/photos`)
-    .field('spaceId', made.space.id)
-    .field('stage', 'after')
-    .attach('photo', await rotatedJpeg(), 'a.jpg');
-  expect(photo.status).toBe(201);
-  const productIds = [...new Set(made.takeoff.layers.map((l) => l.productId))];
-  return { ...made, productIds };
-}
+const readyJob = (agent: Awaited<ReturnType<typeof loginAs>>) => readyToFinish(org, agent);
 
 function actualsFor(productIds: string[], userId: string) {
   return {

@@ -8,7 +8,7 @@ import { planSchema } from '../../shared/plan/plan-schema';
 import { computeTakeoff } from '../../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../../shared/takeoff/products';
 import { PRICE_KEY_RE } from '../../server/lib/redact';
-import { createJob, type TestOrg } from '../helpers/test-app';
+import { createJob, type loginAs, type TestOrg } from '../helpers/test-app';
 
 export function examplePlan(name = 'tank-hatch-downlights.json') {
   return planSchema.parse(JSON.parse(fs.readFileSync(path.join(REPO_ROOT, 'examples', name), 'utf8')));
@@ -33,6 +33,27 @@ export async function scheduledJobWithTakeoff(
   );
   if (opts.customerEmail) await made.customer.update({ email: opts.customerEmail });
   return { ...made, takeoff, plan };
+}
+
+type Agent = Awaited<ReturnType<typeof loginAs>>;
+
+/** A scheduled job of `org`'s installer with every check ticked and an after photo, through the API as `agent` (that installer): ready to finish. */
+export async function readyToFinish(org: TestOrg, agent: Agent) {
+  const made = await scheduledJobWithTakeoff(org);
+  const sheet = (await agent.get(`/api/jobs/${made.job.id}/job-sheet`)).body.sheet as { spaces: { id: string; checks: { code: string }[] }[] };
+  for (const s of sheet.spaces)
+    for (const c of s.checks) {
+      const res = await agent.post(`/api/jobs/${made.job.id}/ticks`).send({ kind: 'check', spaceId: s.id, ref: c.code, done: true });
+      if (res.status !== 200) throw new Error(`tick ${c.code}: ${res.status}`);
+    }
+  const photo = await agent
+    .post(`/api/jobs/${made.job.id}/photos`)
+    .field('spaceId', made.space.id)
+    .field('stage', 'after')
+    .attach('photo', await rotatedJpeg(), 'a.jpg');
+  if (photo.status !== 201) throw new Error(`after photo: ${photo.status}`);
+  const productIds = [...new Set(made.takeoff.layers.map((l) => l.productId))];
+  return { ...made, productIds };
 }
 
 /** Every key path in a JSON value whose name looks like money (price, cost, total, margin…). */

@@ -25,6 +25,9 @@ export async function finishJob(jobId: string, body: FinishBody, key: string): P
 export function useFinishJob(jobId: string, key: string) {
   const qc = useQueryClient();
   return useMutation({
+    // Run even with no signal: finishJob puts it in the outbox then. TanStack's default ('online')
+    // would hold the mutation in memory until signal came back, lost if the app is closed meanwhile.
+    networkMode: 'always',
     mutationFn: (body: FinishBody) => finishJob(jobId, body, key),
     onSuccess: (out) => (out.queued ? undefined : qc.invalidateQueries({ queryKey: sheetKeys.all })),
   });
