@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { Role } from '../auth/roles';
 import type { JobComparison } from '../reports/estimate-vs-actual';
 import type { EstimatorError, InstallerRate, ReportTotals, ShapeRate } from '../reports/report-summary';
 import type { Suggestions } from '../reports/suggestions';
@@ -50,12 +51,45 @@ export const actualsBodySchema = z.object({
 export type ActualsBody = z.input<typeof actualsBodySchema>;
 export type Actuals = z.infer<typeof actualsBodySchema>;
 
+/**
+ * `PUT /api/jobs/:id/actuals`: corrects what was used on a finished job. `expectedVersion` is the
+ * version read before editing (0 when nothing was recorded on finishing); if someone else saved a
+ * correction since, the answer is 409 `actuals_changed` and nothing is written.
+ */
+export const editActualsBodySchema = z.object({
+  actuals: actualsBodySchema,
+  expectedVersion: z.number({ error: 'expectedVersion: the version you edited' }).int().min(0),
+});
+export type EditActualsBody = z.input<typeof editActualsBodySchema>;
+
+/**
+ * Who may correct the actuals of a finished job: the office while it is installed or closed (it
+ * answers for the books); the job's installer while it is installed and not yet invoiced (counting
+ * the van the next morning), after which it is the office's to correct.
+ */
+export function mayEditActuals(role: Role, job: { stage: string; invoiced: boolean }): boolean {
+  if (role === 'office') return job.stage === 'installed' || job.stage === 'closed';
+  if (role === 'installer') return job.stage === 'installed' && !job.invoiced;
+  return false;
+}
+
+/** The actuals as stored: what was recorded, its version (0: none), who recorded and who last corrected them. */
+export type StoredActuals = Actuals & {
+  version: number;
+  recorded: { by: string; at: string } | null;
+  edited: { by: string; at: string } | null;
+};
+
 /** A job's estimate against actual as the office job page shows it; `comparison` null until the job is finished. */
 export type JobEstimateVsActual = {
   finished: boolean;
   currency: string;
   recorded: { by: string; at: string } | null;
   comparison: JobComparison | null;
+  /** What is stored, for editing (null until the job is finished). */
+  actuals: StoredActuals | null;
+  /** Whether the signed-in user may correct them now (mayEditActuals). */
+  editable: boolean;
 };
 
 /** `GET /api/reports/estimate-vs-actual?from=&to=`: finished dates, inclusive. */

@@ -221,6 +221,12 @@ export const jobSheetSchema = z.object({
    * A part the job has nothing for (no extras in the van load) is not asked for.
    */
   actualsRequired: z.array(z.enum(ACTUALS_PARTS)).default([]),
+  /**
+   * Once the job is marked installed: what is recorded as used (empty lists and version 0 when
+   * nothing was), its version for a correction (`PUT /api/jobs/:id/actuals`), and whether this
+   * user may correct it now. Null before the job is finished.
+   */
+  actuals: actualsBodySchema.extend({ version: z.number().int(), editable: z.boolean() }).nullable().default(null),
 });
 export type JobSheet = z.infer<typeof jobSheetSchema>;
 

@@ -43,5 +43,6 @@ export function sheet(job: Partial<JobSheet['job']> = {}): JobSheet {
     photos: [{ id: 'p1', spaceId: 's1', stage: 'after', caption: '', widthPx: 1, heightPx: 1, url: '', thumbUrl: '', by: me, at: '2027-01-04T10:00:00Z' }],
     completion: null,
     actualsRequired: [],
+    actuals: null,
   };
 }

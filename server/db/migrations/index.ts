@@ -10,6 +10,7 @@ import * as m0502 from './0502-login-limits';
 import * as m0503 from './0503-eaves-hatch-settings';
 import * as m0504 from './0504-space-soft-delete';
 import * as m0506 from './0506-job-actuals';
+import * as m0507 from './0507-actuals-edits';
 
 type Migration = RunnableMigration<QueryInterface>;
 const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'] }): Migration => ({ name, up: mod.up, down: mod.down });
@@ -30,4 +31,5 @@ export const MIGRATIONS: Migration[] = [
   entry('0503-eaves-hatch-settings', m0503),
   entry('0504-space-soft-delete', m0504),
   entry('0506-job-actuals', m0506),
+  entry('0507-actuals-edits', m0507),
 ];

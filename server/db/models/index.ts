@@ -112,6 +112,7 @@ function associateSiteWork() {
     (M as typeof JobTick).belongsTo(User, { as: 'user', foreignKey: 'userId' });
   }
   JobActual.belongsTo(User, { as: 'recordedBy', foreignKey: 'recordedById' });
+  JobActual.belongsTo(User, { as: 'editedBy', foreignKey: 'editedById' });
   SettingsChange.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   JobTick.belongsTo(Job, { as: 'job', foreignKey: 'jobId' });
   JobPhoto.belongsTo(Space, { as: 'space', foreignKey: 'spaceId' });

@@ -2,7 +2,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import type { Actuals } from '../../../shared/api/actuals';
 import type { User } from './user';
 
-/** What was really used on a finished job: one row per job, written once with the finish. */
+/** What was really used on a finished job: one row per job, written with the finish; corrections bump `version`. */
 export class JobActual extends Model<InferAttributes<JobActual>, InferCreationAttributes<JobActual>> {
   declare jobId: string;
   declare organisationId: string;
@@ -11,9 +11,13 @@ export class JobActual extends Model<InferAttributes<JobActual>, InferCreationAt
   declare extras: Actuals['extras'];
   declare recordedById: string | null;
   declare recordedAt: Date;
+  declare version: CreationOptional<number>;
+  declare editedById: CreationOptional<string | null>;
+  declare editedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare recordedBy?: NonAttribute<User | null>;
+  declare editedBy?: NonAttribute<User | null>;
 
   static initModel(sequelize: Sequelize) {
     JobActual.init(
@@ -25,6 +29,9 @@ export class JobActual extends Model<InferAttributes<JobActual>, InferCreationAt
         extras: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         recordedById: { type: DataTypes.UUID, allowNull: true },
         recordedAt: { type: DataTypes.DATE, allowNull: false },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+        editedById: { type: DataTypes.UUID, allowNull: true },
+        editedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -8,6 +8,9 @@ export function createActualsController(actuals: ActualsService) {
     async job(req: Request, res: Response) {
       res.json(await actuals.job(currentUser(req), String(req.params.id)));
     },
+    async edit(req: Request, res: Response) {
+      res.json({ actuals: await actuals.edit(currentUser(req), String(req.params.id), req.body) });
+    },
     async report(req: Request, res: Response) {
       res.json(await actuals.report(currentUser(req), req.query as unknown as Required<ReportQuery>));
     },

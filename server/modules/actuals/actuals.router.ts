@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { applySuggestionBodySchema, reportQuerySchema } from '../../../shared/api/actuals';
+import { applySuggestionBodySchema, editActualsBodySchema, reportQuerySchema } from '../../../shared/api/actuals';
 import { idParamsSchema } from '../../../shared/api/common';
 import { requireAuth } from '../../middleware/require-auth';
 import { requireCan } from '../../middleware/require-role';
@@ -9,8 +9,9 @@ import { createActualsController } from './actuals.controller';
 import type { ActualsService } from './actuals.service';
 
 /**
- * Estimate against actual, office only (`reports:read`; applying also `settings:manage`):
+ * Estimate against actual, office only (`reports:read`; applying also `settings:manage`; correcting actuals `sitework:record`):
  *   GET  /api/jobs/:id/estimate-vs-actual      one job (composed into the jobs router)
+ *   PUT  /api/jobs/:id/actuals                 corrects what was used (office; the installer until invoiced), expectedVersion or 409
  *   GET  /api/reports/estimate-vs-actual       ?from=&to= (finished dates), per-job rows and summary
  *   GET  /api/reports/suggestions              ?last=N: waste allowance and laying rates, and the changes applied
  *   POST /api/reports/suggestions/apply        sets the setting if the suggestion is still the one shown
@@ -19,6 +20,7 @@ export function actualsRouters(service: ActualsService) {
   const c = createActualsController(service);
   const job = Router();
   job.get('/:id/estimate-vs-actual', requireAuth, requireCan('reports:read'), validate({ params: idParamsSchema }), c.job);
+  job.put('/:id/actuals', requireAuth, requireCan('sitework:record'), validate({ params: idParamsSchema, body: editActualsBodySchema }), c.edit);
   const reports = Router();
   reports.use(requireAuth, requireCan('reports:read'));
   reports.get('/estimate-vs-actual', validate({ query: reportQuerySchema }), c.report);

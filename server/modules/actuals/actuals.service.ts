@@ -1,7 +1,14 @@
 import { Op } from 'sequelize';
 import type { AppDeps } from '../../deps';
-import type { ApplySuggestionBody, EstimateVsActualReport, JobEstimateVsActual, ReportQuery, SettingsChange as ChangeDto } from '../../../shared/api/actuals';
-import { applySuggestionBodySchema } from '../../../shared/api/actuals';
+import type {
+  ApplySuggestionBody,
+  EditActualsBody,
+  EstimateVsActualReport,
+  JobEstimateVsActual,
+  ReportQuery,
+  SettingsChange as ChangeDto,
+} from '../../../shared/api/actuals';
+import { applySuggestionBodySchema, editActualsBodySchema, mayEditActuals } from '../../../shared/api/actuals';
 import { compareJob, type JobComparison } from '../../../shared/reports/estimate-vs-actual';
 import { errorsByEstimator, furthestOff, ratesByInstaller, ratesByShape, reportTotals } from '../../../shared/reports/report-summary';
 import { suggestSettings } from '../../../shared/reports/suggestions';
@@ -11,7 +18,9 @@ import type { SessionUser } from '../../types';
 import { loadCatalogue } from '../catalogue/catalogue.service';
 import { findJobFor } from '../jobs/job-access';
 import { ensureCompanySettings, loadCompanySettings } from '../settings/settings.service';
+import { editActuals, isInvoiced } from './edit-actuals';
 import { finishedJobFacts } from './job-facts';
+import { storedActualsOf } from './record-actuals';
 
 const rates = (s: CompanySetting) => ({ baseM2PerHour: s.labour.baseM2PerHour, crossM2PerHour: s.labour.crossM2PerHour });
 
@@ -42,17 +51,35 @@ export function createActualsService(deps: Pick<AppDeps, 'sequelize'>) {
   return {
     async job(user: SessionUser, jobId: string): Promise<JobEstimateVsActual> {
       const job = await findJobFor(user, jobId);
-      const actual = await JobActual.findByPk(job.id, { include: [{ model: User, as: 'recordedBy' }] });
+      const actual = await JobActual.findByPk(job.id, {
+        include: [
+          { model: User, as: 'recordedBy' },
+          { model: User, as: 'editedBy' },
+        ],
+      });
       const finished = (await JobCompletion.count({ where: { jobId: job.id } })) > 0;
-      if (!finished) return { finished, currency: (await loadCompanySettings(user.organisationId)).currency, recorded: null, comparison: null };
+      if (!finished)
+        return {
+          finished,
+          currency: (await loadCompanySettings(user.organisationId)).currency,
+          recorded: null,
+          comparison: null,
+          actuals: null,
+          editable: false,
+        };
       const { rows, settings } = await comparisons(user.organisationId, [job.id]);
+      const stored = storedActualsOf(actual);
       return {
         finished,
         currency: settings.currency,
-        recorded: actual ? { by: actual.recordedBy?.name ?? 'former user', at: actual.recordedAt.toISOString() } : null,
+        recorded: stored?.recorded ?? null,
         comparison: rows[0] ?? null,
+        actuals: stored ?? { rolls: [], hours: [], extras: [], version: 0, recorded: null, edited: null },
+        editable: mayEditActuals(user.role, { stage: job.stage, invoiced: await isInvoiced(job.id) }),
       };
     },
+
+    edit: (user: SessionUser, jobId: string, body: EditActualsBody) => editActuals(deps.sequelize, user, jobId, editActualsBodySchema.parse(body)),
 
     async report(user: SessionUser, q: Required<ReportQuery>): Promise<EstimateVsActualReport> {
       const ids = await finishedWithActuals(user.organisationId, { from: q.from, to: q.to });

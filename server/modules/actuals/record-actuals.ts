@@ -1,6 +1,9 @@
 import { Op, type Transaction } from 'sequelize';
-import type { Actuals } from '../../../shared/api/actuals';
-import type { ActualsPart } from '../../../shared/api/settings';
+import type { Actuals, StoredActuals } from '../../../shared/api/actuals';
+import type { ActualsPart, ExtraRules } from '../../../shared/api/settings';
+import { extrasFor } from '../../../shared/quote/extras';
+import { spaceForQuote } from '../../../shared/quote/from-takeoff';
+import type { Takeoff } from '../../../shared/takeoff/takeoff-types';
 import { JobActual, Product, User } from '../../db/models';
 import { fieldError, type ErrorDetail } from '../../lib/errors';
 import type { SessionUser } from '../../types';
@@ -20,6 +23,33 @@ export function missingActuals(actuals: Actuals | undefined, required: readonly 
   return required
     .filter((part) => applies[part] && (!actuals || actuals[part].length === 0))
     .map((part) => ({ path: `actuals.${part}`, message: REQUIRED_TEXT[part] }));
+}
+
+/** Which parts a job has anything to record for, as its van load lists them: rolls from its layers, extras from the company's rules. */
+export function actualsApply(takeoffs: readonly Takeoff[], rules: ExtraRules): Record<ActualsPart, boolean> {
+  return {
+    rolls: takeoffs.some((t) => t.layers.length > 0),
+    hours: true,
+    extras:
+      extrasFor(
+        takeoffs.map((t) => spaceForQuote('', t)),
+        rules,
+      ).length > 0,
+  };
+}
+
+/** A stored row as the API gives it (null when nothing was recorded); the row needs `recordedBy` and `editedBy` loaded. */
+export function storedActualsOf(row: JobActual | null): StoredActuals | null {
+  if (!row) return null;
+  const who = (u: User | null | undefined) => u?.name ?? 'former user';
+  return {
+    rolls: row.rolls,
+    hours: row.hours,
+    extras: row.extras,
+    version: row.version,
+    recorded: { by: who(row.recordedBy), at: row.recordedAt.toISOString() },
+    edited: row.editedAt ? { by: who(row.editedBy), at: row.editedAt.toISOString() } : null,
+  };
 }
 
 /**

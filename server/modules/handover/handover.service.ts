@@ -7,14 +7,14 @@ import { formatDate } from '../../../shared/dates';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
 import { findSheetJob, findWorkableJob } from '../jobs/job-access';
-import { sheetChecks, vanLoad } from '../job-sheet/takeoff-view';
+import { sheetChecks } from '../job-sheet/takeoff-view';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
 import { loadInstallSettings } from '../schedule/schedule.service';
 import { loadCompanySettings } from '../settings/settings.service';
 import { renderHandoverPdf, type HandoverData } from './handover-pdf';
 import type { Actuals } from '../../../shared/api/actuals';
-import { checkActualsRefs, missingActuals, storeActuals } from '../actuals/record-actuals';
+import { actualsApply, checkActualsRefs, missingActuals, storeActuals } from '../actuals/record-actuals';
 
 const PHOTOS_PER_STAGE = 2;
 
@@ -144,9 +144,8 @@ export function createHandoverService(deps: Pick<AppDeps, 'sequelize' | 'storage
           for (const l of stored?.layers ?? []) productIds.add(l.productId);
         }
         const company = await loadCompanySettings(j.organisationId, t);
-        const load = vanLoad([...revisions.values()], company.extraRules, []);
-        const applies = { rolls: load.rolls.length > 0, hours: true, extras: load.extras.length > 0 };
-        missing.push(...missingActuals(body.actuals, company.actualsRequired ?? [], applies));
+        const takeoffs = [...revisions.values()].flatMap((r) => readStoredTakeoff(r.takeoff) ?? []);
+        missing.push(...missingActuals(body.actuals, company.actualsRequired ?? [], actualsApply(takeoffs, company.extraRules)));
         if (missing.length) {
           throw new ConflictError(`not ready to mark installed: ${missing.map((m) => m.message).join('; ')}`, 'not_ready', missing);
         }

@@ -1,7 +1,9 @@
 import { Op } from 'sequelize';
 import type { JobSheet, MyJob } from '../../../shared/api/job-sheet';
 import { Customer, Job, Space } from '../../db/models';
-import { JobCompletion } from '../../db/models';
+import { JobActual, JobCompletion } from '../../db/models';
+import { mayEditActuals } from '../../../shared/api/actuals';
+import { isInvoiced } from '../actuals/edit-actuals';
 import type { SessionUser } from '../../types';
 import type { PhotosService } from '../photos/photos.service';
 import { findSheetJob } from '../jobs/job-access';
@@ -19,6 +21,19 @@ export const SHEET_CAUTIONS = [
   'Keep the clearance around flues and chimneys and the ventilation gap at the eaves; never insulate beneath a cold-water tank.',
   'Local building regulations, electrical rules and licensed practice come first: where they say otherwise, follow them.',
 ];
+
+/** What was used, for the installer to see and correct on the finished job's sheet (no prices in it). */
+async function sheetActuals(user: SessionUser, job: Job): Promise<JobSheet['actuals']> {
+  if (job.stage !== 'installed' && job.stage !== 'closed') return null;
+  const row = await JobActual.findByPk(job.id);
+  return {
+    rolls: row?.rolls ?? [],
+    hours: row?.hours ?? [],
+    extras: row?.extras ?? [],
+    version: row?.version ?? 0,
+    editable: mayEditActuals(user.role, { stage: job.stage, invoiced: await isInvoiced(job.id) }),
+  };
+}
 
 /** Reads the sheet through the site-records and photos services built once by createApp. */
 export function createJobSheetService(records: SiteRecordsService, photos: PhotosService) {
@@ -62,6 +77,7 @@ export function createJobSheetService(records: SiteRecordsService, photos: Photo
             }
           : null,
         actualsRequired: settings.actualsRequired ?? [],
+        actuals: await sheetActuals(user, job),
       };
     },
 
