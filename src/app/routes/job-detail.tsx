@@ -63,7 +63,7 @@ export default function JobDetailPage() {
       </div>
       {can(user, 'quotes:draft') && <JobQuotesCard jobId={j.id} />}
       {can(user, 'prices:read') && <JobMoney jobId={j.id} stage={j.stage} canInvoice={can(user, 'quotes:manage')} />}
-      {can(user, 'reports:read') && (j.stage === 'installed' || j.stage === 'closed') && <JobActualsCard jobId={j.id} />}
+      {can(user, 'reports:read') && (j.stage === 'installed' || j.stage === 'closed') && <JobActualsCard jobId={j.id} installer={j.assignedInstaller} />}
     </div>
   );
 }

@@ -58,6 +58,8 @@ export function ActualsForm({
   draft,
   onChange,
   required = [],
+  hint = 'Filled in from the van load: change what was different.',
+  countLabel = 'taken',
 }: {
   load: VanLoad;
   people: { id: string; name: string }[];
@@ -65,19 +67,23 @@ export function ActualsForm({
   onChange: (d: ActualsDraft) => void;
   /** The parts the company asks for (see askedParts): marked, and flagged while empty. */
   required?: readonly ActualsPart[];
+  hint?: string;
+  /** What the count beside each product is: rolls taken in the van, or estimated. */
+  countLabel?: string;
 }) {
   const missing = new Set(missingParts(required, draft));
   const req = (p: ActualsPart) => ({ 'aria-required': required.includes(p), 'aria-invalid': missing.has(p) });
   return (
     <fieldset className="mb-3 rounded-md border-2 border-graphite/20 bg-white/70 p-3">
       <legend className="px-1 text-base font-semibold">What was used</legend>
-      <p className="mb-2 text-sm text-graphite-light">
-        Filled in from the van load: change what was different. Used = opened and laid; back = unopened rolls returned.
-      </p>
+      <p className="mb-2 text-sm text-graphite-light">{hint} Used = opened and laid; back = unopened rolls returned.</p>
       {load.rolls.map((r) => (
         <div key={r.productId} className="mb-2 border-b border-graphite/10 pb-2">
           <div className="text-base">
-            {r.productName} <span className="text-graphite-light">({r.count} taken)</span>
+            {r.productName}{' '}
+            <span className="text-graphite-light">
+              ({r.count} {countLabel})
+            </span>
             {mark(required.includes('rolls'))}
           </div>
           <div className="mt-1 flex gap-4">
@@ -115,7 +121,7 @@ export function ActualsForm({
       {load.extras.map((x) => (
         <label key={x.code} className="mb-2 flex items-center justify-between gap-2 text-base">
           <span>
-            {x.label} <span className="text-graphite-light">({x.unit})</span>
+            {x.label} {x.unit && <span className="text-graphite-light">({x.unit})</span>}
             {mark(required.includes('extras'))}
           </span>
           <input

@@ -11,6 +11,8 @@ import { mergePending } from '../merge-pending';
 import { onSent, startOutbox, useOutbox } from '../offline/outbox';
 import type { OutboxItem } from '../offline/outbox-db';
 import { keepForOffline } from '../offline/register-sw';
+import { askedParts } from './actuals-form';
+import { ActualsEditor } from './actuals-editor';
 import { FinishPanel } from './finish-panel';
 import { NotesPanel } from './notes-panel';
 import { SheetSection } from './sheet-section';
@@ -66,6 +68,7 @@ export default function JobSheetPage() {
   const s = sheet.data;
   const closed = s.job.stage !== 'scheduled';
   const canRecord = !closed && can(me, 'sitework:record');
+  const crew = [...(s.job.installer ? [s.job.installer] : []), ...(s.job.installer?.id === me.id ? [] : [{ id: me.id, name: me.name }])];
 
   return (
     <div className="mx-auto max-w-2xl text-lg leading-relaxed text-[#1d1f22]" data-dark-loft>
@@ -153,8 +156,23 @@ export default function JobSheetPage() {
           pendingPhotos={merged.pendingPhotos}
           waiting={outbox.items.filter((i) => i.jobId === s.job.id && i.status === 'waiting' && i.kind !== 'finish').length}
           finishQueued={outbox.items.some((i) => i.jobId === s.job.id && i.kind === 'finish' && i.status === 'waiting')}
-          people={[...(s.job.installer ? [s.job.installer] : []), ...(s.job.installer?.id === me.id ? [] : [{ id: me.id, name: me.name }])]}
+          people={crew}
         />
+      )}
+
+      {s.actuals && (
+        <SheetSection title="What was used" defaultOpen={s.actuals.editable}>
+          <ActualsEditor
+            jobId={s.job.id}
+            load={s.vanLoad}
+            people={crew}
+            stored={s.actuals}
+            editable={s.actuals.editable}
+            required={askedParts(s.actualsRequired, s.vanLoad, crew)}
+            onSaved={() => qc.invalidateQueries({ queryKey: sheetKeys.sheet(s.job.id) })}
+          />
+          {!s.actuals.editable && <p className="mt-2 text-sm text-graphite-light">The job is invoiced or closed: ask the office to correct anything.</p>}
+        </SheetSection>
       )}
     </div>
   );

@@ -1,14 +1,30 @@
+import { useQueryClient } from '@tanstack/react-query';
+import type { VanLoad } from '../../../../shared/api/job-sheet';
+import type { JobComparison } from '../../../../shared/reports/estimate-vs-actual';
 import { formatMoney } from '../../../../shared/quote/money';
 import { Card, CardTitle, formatDateTime, Table, TBody, Td, Th, THead, Tr } from '../../../components/ui';
-import { useJobEstimateVsActual } from '../api/estimate-vs-actual';
+import { ActualsEditor } from '../../job-sheet';
+import { reportKeys, useJobEstimateVsActual } from '../api/estimate-vs-actual';
+
+/** The job's products and extras as the correction form lists them, with the estimate beside each. */
+function estimateLoad(c: JobComparison): VanLoad {
+  return {
+    rolls: c.products.map((p) => ({ productId: p.productId, productName: p.productName, thicknessMm: 0, count: p.estimated })),
+    extras: c.extras.map((x) => ({ code: x.code as VanLoad['extras'][number]['code'], label: x.label, quantity: x.estimated, unit: '' })),
+  };
+}
 
 const n = (v: number | null) => (v === null ? '–' : String(Number(v.toFixed(2))));
 
 /** The office job page's estimate against actual: rolls by packing, rule of thumb and used; hours; cost difference and margin made. */
-export function JobActualsCard({ jobId }: { jobId: string }) {
+export function JobActualsCard({ jobId, installer }: { jobId: string; installer?: { id: string; name: string } | null }) {
   const q = useJobEstimateVsActual(jobId);
+  const qc = useQueryClient();
   const c = q.data?.comparison;
   if (!q.data?.finished || !c) return null;
+  const people = [...c.hours.map((h) => ({ id: h.userId, name: h.name }))];
+  if (installer && !people.some((p) => p.id === installer.id)) people.push(installer);
+  const edited = q.data.actuals?.edited;
   const money = (m: number | null) => (m === null ? '–' : formatMoney(m, q.data!.currency));
   const estCost = c.estimatedMaterialCostMinor + c.estimatedLabourCostMinor;
   const actCost = c.actualMaterialCostMinor + c.actualLabourCostMinor;
@@ -19,6 +35,7 @@ export function JobActualsCard({ jobId }: { jobId: string }) {
         {q.data.recorded
           ? `Recorded by ${q.data.recorded.by}, ${formatDateTime(q.data.recorded.at)}.`
           : 'Nothing was recorded on finishing: the costs below are the estimate.'}
+        {edited && ` Corrected by ${edited.by}, ${formatDateTime(edited.at)}.`}
       </p>
       <Table>
         <THead>
@@ -64,6 +81,22 @@ export function JobActualsCard({ jobId }: { jobId: string }) {
           {money(c.estimatedMarginMinor)} / {money(c.actualMarginMinor)}
         </dd>
       </dl>
+      {q.data.actuals && q.data.editable && (
+        <details className="mt-3">
+          <summary className="cursor-pointer text-sm font-semibold">What was used, as recorded</summary>
+          <div className="mt-2">
+            <ActualsEditor
+              jobId={jobId}
+              load={estimateLoad(c)}
+              people={people}
+              stored={q.data.actuals}
+              editable
+              countLabel="estimated"
+              onSaved={() => qc.invalidateQueries({ queryKey: reportKeys.all })}
+            />
+          </div>
+        </details>
+      )}
     </Card>
   );
 }
