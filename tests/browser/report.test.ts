@@ -5,28 +5,32 @@ import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../../server/config';
-import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
-import { launchBrowser, screenshot, signInThroughUi, startAppServer } from '../helpers/browser';
+import { Job, JobActual } from '../../server/db/models';
+import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
+import { screenshot, signInThroughUi, startDemoBrowserSuite } from '../helpers/browser';
 
-let app: Awaited<ReturnType<typeof startAppServer>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let suite: Awaited<ReturnType<typeof startDemoBrowserSuite>>;
+let app: typeof suite.app;
+let browser: typeof suite.browser;
 
 beforeAll(async () => {
-  app = await startAppServer();
-  await seedDemo(app.ctx.deps);
-  browser = await launchBrowser({ viewport: { width: 1280, height: 900 } });
+  suite = await startDemoBrowserSuite({ width: 1280, height: 900 });
+  ({ app, browser } = suite);
+  // Signed in once as the office: the session stays in the browser's profile for every test here.
+  const page = await browser.newPage();
+  await signInThroughUi(page, app.url, 'office@demo.example.com', DEMO_PASSWORD);
+  await page.close();
 }, 120_000);
 
 afterAll(async () => {
-  await browser?.close();
-  await app?.close();
+  await suite?.close();
 });
 
 describe('estimate against actual report', () => {
   it('shows the demo jobs with charts, tables and suggestions at desktop and phone width', { timeout: 120_000 }, async () => {
     const page = await browser.newPage();
     page.setDefaultTimeout(20_000);
-    await signInThroughUi(page, app.url, 'office@demo.example.com', DEMO_PASSWORD);
+    await page.goto(app.url);
     await page.getByRole('link', { name: 'Report' }).first().click();
     await page.getByRole('heading', { name: 'Estimate against actual' }).waitFor();
     await page.getByRole('button', { name: 'All' }).click();
@@ -35,12 +39,18 @@ describe('estimate against actual report', () => {
     await page.getByText(/Waste allowance: 10% →/).waitFor();
     expect(await page.getByText('Jobs furthest off').count()).toBe(1);
     await screenshot(page, 'report-1280');
+    expect(await page.getByRole('list', { name: 'Jobs furthest off' }).isVisible()).toBe(false);
     // A phone opens the page at its own width (a resized desktop page is not what a phone sees).
     await page.setViewportSize({ width: 390, height: 844 });
     await page.reload();
     await page.getByRole('button', { name: 'All' }).click();
     await page.locator('.recharts-bar-rectangle').first().waitFor();
     await screenshot(page, 'report-390');
+    // On the phone each job is a block of labelled figures, so the cost is on screen, not scrolled off.
+    const furthest = page.getByRole('list', { name: 'Jobs furthest off' });
+    expect(await furthest.isVisible()).toBe(true);
+    expect(await furthest.locator('li').first().innerText()).toMatch(/Cost over the estimate\s+[+-]?£/);
+    expect(await page.getByRole('region', { name: 'Table' }).filter({ hasText: 'Margin made' }).isVisible()).toBe(false);
     // Nothing wider than the phone: the page itself must not scroll sideways.
     const wide = await page.evaluate(() =>
       [...document.querySelectorAll('main *')]
@@ -50,6 +60,31 @@ describe('estimate against actual report', () => {
     );
     expect(wide).toEqual([]);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.close();
+  });
+
+  it('lets the office correct what was used on a job card, saying who did, and the report shows the new count', { timeout: 120_000 }, async () => {
+    const page = await browser.newPage();
+    page.setDefaultTimeout(20_000);
+    const job = (await Job.findOne({ where: { stage: 'installed' }, order: [['reference', 'ASC']] }))!;
+    const stored = (await JobActual.findByPk(job.id))!;
+    const first = stored.rolls[0];
+    await page.goto(`${app.url}/jobs/${job.id}`);
+    const card = page.getByTestId('job-actuals-card');
+    await card.getByText('What was used, as recorded').click();
+    await card.getByRole('button', { name: 'Correct what was used' }).click();
+    const used = card.getByLabel(/: rolls used$/).first();
+    expect(await used.inputValue()).toBe(String(first.used));
+    await used.fill(String(first.used + 3));
+    await card.getByRole('button', { name: 'Save correction' }).click();
+    await card.getByText(/Corrected by Olivia Marsh/).waitFor();
+    await screenshot(page, 'job-actuals-corrected-1280');
+    await expect.poll(async () => (await JobActual.findByPk(job.id))!.rolls[0].used).toBe(first.used + 3);
+    expect((await JobActual.findByPk(job.id))!.version).toBe(stored.version + 1);
+
+    const report = await page.evaluate(async () => (await fetch('/api/reports/estimate-vs-actual?from=2000-01-01&to=2100-01-01')).json());
+    const row = report.rows.find((r: { jobId: string }) => r.jobId === job.id);
+    expect(row.usedRolls).toBe(stored.rolls.reduce((a, r) => a + r.used, 0) + 3);
     await page.close();
   });
 

@@ -29,7 +29,7 @@ export function JobActualsCard({ jobId, installer }: { jobId: string; installer?
   const estCost = c.estimatedMaterialCostMinor + c.estimatedLabourCostMinor;
   const actCost = c.actualMaterialCostMinor + c.actualLabourCostMinor;
   return (
-    <Card>
+    <Card data-testid="job-actuals-card">
       <CardTitle>Estimate against actual</CardTitle>
       <p className="mb-2 text-sm text-graphite-light">
         {q.data.recorded
