@@ -80,4 +80,29 @@ describe('actuals recorded offline', () => {
     expect((await Job.findByPk(job.id))!.stage).toBe('installed');
     await page.close();
   });
+
+  it("lets the installer correct the hours on the finished job's sheet the next morning", { timeout: 120_000 }, async () => {
+    const agent = await loginAs(server.ctx.app, org.installer);
+    const { job } = await readyToFinish(org, agent);
+    const finish = await agent.post(`/api/jobs/${job.id}/finish`).send({ actuals: { hours: [{ userId: org.installer.id, hours: 4 }] } });
+    expect(finish.status).toBe(200);
+
+    const page = await browser.newPage();
+    page.setDefaultTimeout(20_000);
+    await page.goto(`${server.url}/jobs/${job.id}/sheet`);
+    await page.getByText(/Marked installed by/).waitFor();
+    const section = page.locator('details', { has: page.locator('summary', { hasText: 'What was used' }) });
+    await section.getByText('4 hours on site').waitFor();
+    await section.getByRole('button', { name: 'Correct what was used' }).click();
+    const hours = section.getByLabel(`${org.installer.name}: hours on site`);
+    expect(await hours.inputValue()).toBe('4');
+    await hours.fill('6.5');
+    await section.getByRole('button', { name: 'Save correction' }).click();
+    await section.getByText('Saved.').waitFor();
+    await section.getByText('6.5 hours on site').waitFor();
+    await screenshot(page, 'actuals-corrected-sheet-360');
+    const row = (await JobActual.findByPk(job.id))!;
+    expect(row).toMatchObject({ version: 2, editedById: org.installer.id, hours: [{ userId: org.installer.id, hours: 6.5 }] });
+    await page.close();
+  });
 });

@@ -88,6 +88,33 @@ describe('estimate against actual report', () => {
     await page.close();
   });
 
+  it('lets the office choose what installers must record, kept when the settings are saved for something else', { timeout: 120_000 }, async () => {
+    const page = await browser.newPage();
+    page.setDefaultTimeout(20_000);
+    const openPricing = async () => {
+      await page.goto(`${app.url}/settings`);
+      await page.getByRole('tab', { name: 'Labour, waste, eaves, savings' }).click();
+    };
+    const hours = () => page.getByRole('checkbox', { name: 'Hours on site, per installer' });
+    await openPricing();
+    expect(await hours().isChecked()).toBe(false);
+    await hours().check();
+    await page.getByRole('checkbox', { name: 'Rolls used and brought back' }).check();
+    await page.getByRole('button', { name: 'Save settings' }).click();
+    await page.getByText('Settings saved.').waitFor();
+    await screenshot(page, 'settings-actuals-required-1280');
+    // A change on the other tab sends the choice back as stored.
+    await page.reload();
+    await page.getByLabel('Phone').fill('01632 960777');
+    await page.getByRole('button', { name: 'Save settings' }).click();
+    await page.getByText('Settings saved.').waitFor();
+    await openPricing();
+    expect(await hours().isChecked()).toBe(true);
+    const settings = await page.evaluate(async () => (await (await fetch('/api/settings')).json()).settings);
+    expect(settings).toMatchObject({ phone: '01632 960777', actualsRequired: ['rolls', 'hours'] });
+    await page.close();
+  });
+
   it('keeps recharts out of the entry chunk and in the report chunk only', () => {
     const html = fs.readFileSync(path.join(REPO_ROOT, 'dist', 'index.html'), 'utf8');
     const entry = html.match(/<script type="module"[^>]*src="\/([^"]+)"/)![1];

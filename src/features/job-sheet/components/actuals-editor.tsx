@@ -29,6 +29,7 @@ const list = (a: Actuals, load: VanLoad) =>
  * What was used on a finished job, and, for someone who may (`editable`), a form to correct it.
  * The save names the version shown; if someone saved a correction meanwhile the server refuses
  * it, the figures are fetched again and the person makes the change again on the new ones.
+ * Text takes the size of where it is shown (large on the job sheet, small on the office card).
  */
 export function ActualsEditor({
   jobId,
@@ -73,16 +74,16 @@ export function ActualsEditor({
     return (
       <div>
         {shown.length ? (
-          <ul className="mb-2 list-disc pl-5 text-sm" data-testid="actuals-recorded">
+          <ul className="mb-2 list-disc pl-5" data-testid="actuals-recorded">
             {shown.map((s) => (
               <li key={s}>{s}</li>
             ))}
           </ul>
         ) : (
-          <p className="mb-2 text-sm">Nothing was recorded as used.</p>
+          <p className="mb-2">Nothing was recorded as used.</p>
         )}
         {notice && (
-          <p role="status" className="mb-2 text-sm font-semibold">
+          <p role="status" className="mb-2 font-semibold">
             {notice}
           </p>
         )}
@@ -112,7 +113,7 @@ export function ActualsEditor({
         hint="Change what was different from what is recorded."
       />
       {missing.length > 0 && (
-        <p className="mb-2 text-sm font-semibold text-brick-dark">Fill in {missing.map((p) => PART_TEXT[p]).join(' and ')}: the company asks for them.</p>
+        <p className="mb-2 font-semibold text-brick-dark">Fill in {missing.map((p) => PART_TEXT[p]).join(' and ')}: the company asks for them.</p>
       )}
       <div className="flex gap-2">
         <button

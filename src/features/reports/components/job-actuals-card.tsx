@@ -84,7 +84,7 @@ export function JobActualsCard({ jobId, installer }: { jobId: string; installer?
       {q.data.actuals && q.data.editable && (
         <details className="mt-3">
           <summary className="cursor-pointer text-sm font-semibold">What was used, as recorded</summary>
-          <div className="mt-2">
+          <div className="mt-2 text-sm">
             <ActualsEditor
               jobId={jobId}
               load={estimateLoad(c)}
