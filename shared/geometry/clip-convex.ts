@@ -10,28 +10,33 @@ import { ringWithPositiveArea, type Ring } from './polygon';
  */
 export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
   const clip = ringWithPositiveArea(convexClip);
-  let out: Vec2[] = subject.map((p) => [p[0], p[1]]);
+  // The passes pass points along by reference (the outline's own corners among them); only what
+  // is left at the end is copied, so clipping a long outline by a small band makes little garbage.
+  let out: ReadonlyArray<readonly number[]> = subject;
   const m = clip.length;
   for (let i = 0; i < m && out.length; i++) {
     const a = clip[i];
     const b = clip[(i + 1) % m];
-    const ex = b[0] - a[0];
-    const ey = b[1] - a[1];
+    const ax = a[0];
+    const ay = a[1];
+    const ex = b[0] - ax;
+    const ey = b[1] - ay;
     // Positive signed area: the inside lies to the +90° side of each clip edge.
-    const side = (p: Vec2) => ex * (p[1] - a[1]) - ey * (p[0] - a[0]);
     const input = out;
-    out = [];
-    for (let k = 0; k < input.length; k++) {
+    const next: (readonly number[])[] = [];
+    out = next;
+    const n = input.length;
+    for (let k = 0; k < n; k++) {
       const p = input[k];
-      const q = input[(k + 1) % input.length];
-      const sp = side(p);
-      const sq = side(q);
-      if (sp >= 0) out.push(p);
+      const q = input[k + 1 < n ? k + 1 : 0];
+      const sp = ex * (p[1] - ay) - ey * (p[0] - ax);
+      const sq = ex * (q[1] - ay) - ey * (q[0] - ax);
+      if (sp >= 0) next.push(p);
       if (sp >= 0 !== sq >= 0) {
         const t = sp / (sp - sq);
-        out.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
+        next.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
       }
     }
   }
-  return out.length >= 3 ? out : [];
+  return out.length >= 3 ? out.map((p) => [p[0], p[1]] as Vec2) : [];
 }

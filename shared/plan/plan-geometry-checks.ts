@@ -3,6 +3,7 @@ import type { PlanCheckResult, PlanMessage } from './plan-messages';
 import { findRingSelfIntersections, ringEdgeLength } from '../geometry/segment';
 import { checkImpliedBays } from './plan-limits';
 import { polygonArea, polygonBounds, polygonContainsPoint, type Ring } from '../geometry/polygon';
+import { indexedContainsPoint, indexRing, slabOf, type RingIndex } from '../geometry/ring-index';
 
 /** Shortest edge accepted, mm: anything shorter is a slip of the pointer. */
 export const MIN_EDGE_MM = 1;
@@ -119,6 +120,8 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
   }
 
   const outlineEdges = outlineUsable ? edgeBoxes(outline) : [];
+  // Each sample point only looks at the walls near its height (a 400-point outline, 100 exclusions).
+  const outlineIndex = outlineUsable ? indexRing(outline, ON_WALL_MM) : null;
   plan.exclusions.forEach((ex, xi) => {
     const label = `exclusion ${xi + 1} (${ex.label ? `${ex.label}, ` : ''}${ex.kind})`;
     if (ex.polygon) {
@@ -151,7 +154,7 @@ export function checkPlanGeometry(plan: Plan): PlanCheckResult {
       }
     }
     if (!outlineUsable) return;
-    const place = exclusionPlacement(ex.polygon ?? [ex.at!], outline, outlineEdges);
+    const place = exclusionPlacement(ex.polygon ?? [ex.at!], outline, outlineEdges, outlineIndex!);
     const at: [number, number] = ex.at ? [ex.at[0], ex.at[1]] : [ex.polygon![0][0], ex.polygon![0][1]];
     if (place === 'outside') {
       warnings.push({
@@ -206,7 +209,7 @@ function edgeBoxes(ring: Ring): EdgeBox[] {
 }
 
 /** Whether a shape (a polygon, or one point) lies inside, outside or across the outline; touching the wall counts as inside. */
-function exclusionPlacement(shape: ReadonlyArray<readonly number[]>, outline: Ring, edges: EdgeBox[]): 'inside' | 'outside' | 'partly' {
+function exclusionPlacement(shape: ReadonlyArray<readonly number[]>, outline: Ring, edges: EdgeBox[], index: RingIndex): 'inside' | 'outside' | 'partly' {
   const samples: (readonly number[])[] = [...shape];
   if (shape.length > 1) {
     for (let i = 0; i < shape.length; i++) {
@@ -218,7 +221,7 @@ function exclusionPlacement(shape: ReadonlyArray<readonly number[]>, outline: Ri
   let inside = 0;
   let outside = 0;
   for (const p of samples) {
-    const where = pointLocation(p, outline, edges);
+    const where = pointLocation(p, edges, index);
     if (where === 'in') inside++;
     else if (where === 'out') outside++;
   }
@@ -243,12 +246,15 @@ function exclusionPlacement(shape: ReadonlyArray<readonly number[]>, outline: Ri
 
 const ON_WALL_MM = 0.5;
 
-function pointLocation(p: readonly number[], outline: Ring, edges: EdgeBox[]): 'in' | 'on' | 'out' {
-  for (const e of edges) {
+/** On the wall (within `ON_WALL_MM` of an edge), in or out; only the edges near the point's height can be that close or cross its height. */
+function pointLocation(p: readonly number[], edges: EdgeBox[], index: RingIndex): 'in' | 'on' | 'out' {
+  const s = slabOf(index, p[1]);
+  for (let i = index.start[s]; i < index.start[s + 1]; i++) {
+    const e = edges[index.edges[i]];
     if (p[0] < e.minX - ON_WALL_MM || p[0] > e.maxX + ON_WALL_MM || p[1] < e.minY - ON_WALL_MM || p[1] > e.maxY + ON_WALL_MM) continue;
     if (distanceToSegment(p, e.a, e.b) <= ON_WALL_MM) return 'on';
   }
-  return polygonContainsPoint(outline, p) ? 'in' : 'out';
+  return indexedContainsPoint(index, p) ? 'in' : 'out';
 }
 
 function distanceToSegment(p: readonly number[], a: readonly number[], b: readonly number[]): number {

@@ -1,6 +1,7 @@
 import { segmentIntersection } from '../geometry/segment';
-import { polygonBounds, polygonContainsPoint, type MultiPolygon, type PolygonWithHoles, type Ring } from '../geometry/polygon';
+import { polygonBounds, type MultiPolygon, type PolygonWithHoles, type Ring } from '../geometry/polygon';
 import { differencePolygons } from '../geometry/boolean';
+import { indexedContainsPoint, indexRing, type RingIndex } from '../geometry/ring-index';
 import type { Vec2 } from '../geometry/vector';
 
 type Box = { minX: number; minY: number; maxX: number; maxY: number };
@@ -34,17 +35,20 @@ export function subtractShapes(outline: Vec2[], shapes: PolygonWithHoles[], othe
     const q = outline[(i + 1) % n];
     return { minX: Math.min(p[0], q[0]), minY: Math.min(p[1], q[1]), maxX: Math.max(p[0], q[0]), maxY: Math.max(p[1], q[1]) };
   });
+  // Point-in-outline tests through an index of the walls by height (see RingIndex).
+  const outlineIndex = shapes.length ? indexRing(outline) : null;
   for (let i = 0; i < shapes.length; i++) {
     if (!isolated[i]) continue;
     const ring = shapes[i][0];
-    if (!polygonContainsPoint(outline, ring[0]) || touchesOutline(ring, boxes[i], outline, edgeBoxes)) isolated[i] = false;
+    if (!indexedContainsPoint(outlineIndex!, ring[0]) || touchesOutline(ring, boxes[i], outline, edgeBoxes)) isolated[i] = false;
   }
   const rest = shapes.filter((_, i) => !isolated[i]);
   const holes = shapes.filter((_, i) => isolated[i]).map((s) => s[0]);
   const clips = [...rest, ...others.map((r) => [r])];
   const region: MultiPolygon = clips.length ? differencePolygons([[outline]], clips) : [[outline]];
+  const homes: (RingIndex | undefined)[] = [];
   for (const hole of holes) {
-    const home = region.find((poly) => polygonContainsPoint(poly[0], hole[0]));
+    const home = region.find((poly, k) => indexedContainsPoint((homes[k] ??= indexRing(poly[0])), hole[0]));
     if (!home) return differencePolygons([[outline]], [...shapes, ...others.map((r) => [r])]);
     home.push(hole);
   }

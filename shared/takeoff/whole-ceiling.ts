@@ -1,6 +1,7 @@
 import type { ExclusionKind, Plan } from '../plan/plan-schema';
 import { intersectPolygons } from '../geometry/boolean';
-import { multiPolygonArea, polygonContainsPoint } from '../geometry/polygon';
+import { multiPolygonArea } from '../geometry/polygon';
+import { indexedContainsPoint, indexRing } from '../geometry/ring-index';
 import { existingInsulation } from './layers';
 import { isRaisedBoards, type PlanRegions } from './regions';
 import { loftCombinedMethod, type LoftThermalContext } from './thermal';
@@ -57,10 +58,12 @@ export function wholeCeilingModel(plan: Plan, regions: PlanRegions, s: TakeoffSe
 
   const byKind = new Map<ExclusionKind, number>();
   let sum = 0;
+  // Every corner of every exclusion is tested against the outline: only the walls near its height.
+  const outline = plan.exclusions.length ? indexRing(regions.outline) : null;
   plan.exclusions.forEach((e, i) => {
     if (isRaisedBoards(e)) return;
     const shape = regions.exclusionShapes[i];
-    const inside = shape.every((poly) => poly[0].every((p) => polygonContainsPoint(regions.outline, p)));
+    const inside = shape.every((poly) => poly[0].every((p) => indexedContainsPoint(outline!, p)));
     const a = inside ? multiPolygonArea(shape) : multiPolygonArea(intersectPolygons([[regions.outline]], shape));
     if (!(a > 0)) return;
     byKind.set(e.kind, (byKind.get(e.kind) ?? 0) + a);
