@@ -1,13 +1,17 @@
 /**
  * Serving speed of the compiled server (a script that prints numbers, not a test):
- *   npm run bench:serve [-- --seconds 8 --rates 50,100,200 --connections 10 --instances 1,2 --profile]
+ *   npm run bench:serve [-- --seconds 8 --rates 50,100,200 --connections 10 --instances 1,2 --profile
+ *                          --only bare,jobs,plan --base <another build's dist-server/index.js>]
  * Builds dist-server/ if stale, makes a database of its own on the project cluster (quiltline_bench)
  * with the demo data, starts the server as plain `node` processes (one, then two on the same
  * database, connections spread round-robin by autocannon) and, beside them, a bare Express handler
  * that answers the same bytes as the plan read. Drives GET /api/jobs and GET /api/spaces/:id/plan
  * signed in as the demo office user at fixed rates and flat out, and prints requests/s and p99 with
  * their ratio to the bare handler in the same run. --profile writes a V8 CPU profile of each server
- * process into test-output/cpu-profiles/ (open in Chrome DevTools). Run on an otherwise idle machine.
+ * process into test-output/cpu-profiles/ (open in Chrome DevTools). --base runs a second build (copy
+ * an older dist-server/ under the repository, e.g. test-output/, so it finds node_modules) beside
+ * this one, checks both answer every demo plan read byte for byte as each role, and measures both
+ * in the same run. Run on an otherwise idle machine.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -29,6 +33,11 @@ const rates = arg('rates', '50,100,200').split(',').map(Number);
 const connections = Number(arg('connections', '10'));
 const instanceCounts = arg('instances', '1,2').split(',').map(Number);
 const profile = process.argv.includes('--profile');
+// --base <dist-server/index.js of another build>: its servers run beside this build's on the same
+// database and are measured in the same run, so a change is judged old against new, not run against run.
+const baseMain = arg('base', '');
+// --only bare,jobs,plan: which targets to drive (all by default).
+const only = arg('only', 'bare,jobs,plan').split(',');
 const DB = 'quiltline_bench';
 // Every instance signs cookies with the same secret, so a session made on one works on the other.
 const SESSION_SECRET = randomBytes(24).toString('hex');
@@ -76,7 +85,7 @@ async function stopProcess(child: ChildProcess) {
 }
 
 /** The compiled API server in production mode on the bench database. */
-async function startServer(n: number, opts: { seed: boolean; serverMain: string; db: string }) {
+async function startServer(n: number | string, opts: { seed: boolean; serverMain: string; db: string }) {
   const port = await freePort();
   const args = ['--enable-source-maps'];
   if (profile) args.push('--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`);
@@ -119,11 +128,11 @@ async function startBare(n: number, bodyFile: string) {
   return { base, child };
 }
 
-async function signIn(base: string): Promise<string> {
+async function signIn(base: string, email = 'office@demo.example.com'): Promise<string> {
   const res = await fetch(`${base}/api/auth/login`, {
     method: 'POST',
     headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email: 'office@demo.example.com', password: DEMO_PASSWORD }),
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
   });
   if (!res.ok) throw new Error(`sign-in answered ${res.status}`);
   return res.headers
@@ -149,6 +158,35 @@ async function findPlanSpace(base: string, cookie: string): Promise<string> {
     }
   }
   throw new Error('no demo space has a saved plan');
+}
+
+/**
+ * The comparison with --base means something only when both builds answer the same: every demo
+ * space's plan read, as each demo role (prices stripped for the installer, 404 where not assigned),
+ * byte for byte with the same status.
+ */
+async function sameAnswers(base: string, other: string, officeCookie: string) {
+  const { body } = await getJson<{ jobs: Array<{ spaces: Array<{ id: string }> }> }>(`${base}/api/jobs?limit=100`, officeCookie);
+  const spaceIds = body.jobs.flatMap((j) => j.spaces.map((s) => s.id));
+  let compared = 0;
+  for (const role of ['office', 'estimator', 'installer']) {
+    const cookie = await signIn(base, `${role}@demo.example.com`);
+    for (const id of spaceIds) {
+      const [a, b] = await Promise.all(
+        [base, other].map(async (server) => {
+          const res = await fetch(`${server}/api/spaces/${id}/plan`, { headers: { cookie } });
+          return `${res.status} ${await res.text()}`;
+        }),
+      );
+      if (a !== b) {
+        fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'bench-answer-this.txt'), a);
+        fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'bench-answer-base.txt'), b);
+        throw new Error(`GET /api/spaces/${id}/plan as ${role}: this build and --base answer differently (test-output/bench-answer-*.txt)`);
+      }
+      compared++;
+    }
+  }
+  console.log(`same answers from both builds: ${compared} plan reads (${spaceIds.length} spaces × 3 roles)`);
 }
 
 interface Row {
@@ -187,6 +225,7 @@ async function main() {
   const loadBefore = loadavg();
   const rows: Row[] = [];
   const servers: Array<{ base: string; child: ChildProcess }> = [];
+  const baseServers: Array<{ base: string; child: ChildProcess }> = [];
   const bares: Array<{ base: string; child: ChildProcess }> = [];
   let planBytes = 0;
   let jobsBytes = 0;
@@ -201,11 +240,22 @@ async function main() {
       const bodyFile = path.join(REPO_ROOT, 'test-output', 'bench-plan-body.json');
       fs.writeFileSync(bodyFile, JSON.stringify(plan.body));
       while (bares.length < count) bares.push(await startBare(bares.length + 1, bodyFile));
+      if (baseMain)
+        while (baseServers.length < count) baseServers.push(await startServer(`base-${baseServers.length + 1}`, { seed: false, serverMain: baseMain, db }));
       const targets: Array<[string, string[], string]> = [
         ['bare handler', bares.slice(0, count).map((b) => `${b.base}/bare`), ''],
-        ['GET /api/jobs', servers.slice(0, count).map((s) => `${s.base}/api/jobs`), cookie],
-        ['GET /api/spaces/:id/plan', servers.slice(0, count).map((s) => `${s.base}/api/spaces/${spaceId}/plan`), cookie],
-      ];
+        ...(only.includes('jobs') ? ([['GET /api/jobs', servers.slice(0, count).map((s) => `${s.base}/api/jobs`), cookie]] as const) : []),
+        ...(only.includes('jobs') && baseMain
+          ? ([['GET /api/jobs (base)', baseServers.slice(0, count).map((s) => `${s.base}/api/jobs`), cookie]] as const)
+          : []),
+        ...(only.includes('plan')
+          ? ([['GET /api/spaces/:id/plan', servers.slice(0, count).map((s) => `${s.base}/api/spaces/${spaceId}/plan`), cookie]] as const)
+          : []),
+        ...(only.includes('plan') && baseMain
+          ? ([['GET /api/spaces/:id/plan (base)', baseServers.slice(0, count).map((s) => `${s.base}/api/spaces/${spaceId}/plan`), cookie]] as const)
+          : []),
+      ].map(([t, u, c]) => [t, [...u], c] as [string, string[], string]);
+      if (baseMain) await sameAnswers(servers[0].base, baseServers[0].base, cookie);
       for (const [target, urls, c] of targets) {
         await autocannon({ url: over(urls), connections, duration: 2, headers: c ? { cookie: c } : {} }); // warm up
         for (const rate of [...rates, null]) {

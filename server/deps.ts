@@ -15,7 +15,7 @@ export interface AppDeps {
   /** Structured JSON log (pino); one line per request from request-log.ts. */
   logger: Logger;
   sequelize: Sequelize;
-  /** A pg pool for the session store. */
+  /** A pg pool for the hot raw reads: the session with its user, the editor's plan read. */
   pool: pg.Pool;
   /** Records and queues a message, resolving before it is sent (see mailQueue). */
   mailer: Mailer;

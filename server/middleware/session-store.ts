@@ -45,7 +45,8 @@ export function createSessionStore(pool: pg.Pool, opts: { prune: boolean }): ses
   const PgStore = connectPgSimple(session);
   class UserLoadingStore extends PgStore {
     override get(sid: string, fn: (err: unknown, sess?: session.SessionData | null) => void) {
-      pool.query<Row>(GET, [sid]).then(
+      // A named statement: parsed and planned once per connection, not on every request.
+      pool.query<Row>({ name: 'session-get', text: GET, values: [sid] }).then(
         ({ rows: [row] }) => {
           if (!row) return fn(null, null);
           let sess: session.SessionData;

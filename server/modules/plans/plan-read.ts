@@ -1,9 +1,11 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type pg from 'pg';
 import { can } from '../../../shared/auth/policies';
 import { NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
+import { takeoffInputsOf, type SettingsForTakeoff, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
+import { defaultCompanySettings } from '../settings/settings.defaults';
 
-/** A space with its job's access facts and its latest revision (plan and takeoff), read in one query. */
+/** A space with its job's facts, its latest revision and its company's takeoff inputs, read in one query. */
 export interface SpacePlanRow {
   id: string;
   name: string;
@@ -11,15 +13,40 @@ export interface SpacePlanRow {
   jobReference: string;
   revision: number | null;
   plan: unknown;
+  /** The stored takeoff's format string (null without one); the body itself only when asked for. */
+  takeoffFormat: string | null;
   takeoff: unknown;
   createdAt: Date | null;
+  inputs: TakeoffInputs;
+}
+
+interface Row extends Omit<SpacePlanRow, 'inputs'> {
+  jobOrganisationId: string;
+  assignedInstallerId: string | null;
+  settings: SettingsForTakeoff | null;
+  products: unknown[];
+  hatchKit: boolean;
 }
 
 // The editor's read is the hottest authenticated GET: one round trip for the space, the job that
-// decides access and the newest revision (the (space_id, revision) index serves the LIMIT 1).
+// decides access, the newest revision (the (space_id, revision) index serves the LIMIT 1) and the
+// company's takeoff inputs (settings, active products in name order, whether a hatch kit is
+// offered), read afresh every time so a change made through any instance shows on the next read.
+// The takeoff body is sent only to viewers who cannot write ($3): writers compute it live. A named
+// statement: each connection parses and plans it once, not on every read.
 const SQL = `
   SELECT s.id, s.name, s.job_id AS "jobId", j.reference AS "jobReference", j.organisation_id AS "jobOrganisationId",
-         j.assigned_installer_id AS "assignedInstallerId", r.revision, r.plan, r.takeoff, r.created_at AS "createdAt"
+         j.assigned_installer_id AS "assignedInstallerId", r.revision, r.plan, r.takeoff->>'format' AS "takeoffFormat",
+         CASE WHEN $3::boolean THEN r.takeoff END AS takeoff, r.created_at AS "createdAt",
+         (SELECT json_build_object('wasteAllowance', c.waste_allowance, 'minOffcutMm', c.min_offcut_mm, 'degreeDays', c.degree_days,
+                   'fuelPriceMinorPerKwh', c.fuel_price_minor_per_kwh, 'heatingEfficiency', c.heating_efficiency,
+                   'eavesMode', c.eaves_mode, 'hatchKitInsulationMm', c.hatch_kit_insulation_mm)
+            FROM company_settings c WHERE c.organisation_id = $2) AS settings,
+         (SELECT coalesce(json_agg(json_build_object('id', p.id, 'name', p.name, 'thicknessMm', p.thickness_mm, 'rollWidthMm', p.roll_width_mm,
+                   'lanes', p.lanes, 'rollLengthMm', p.roll_length_mm, 'coverageM2', p.coverage_m2, 'lambdaWmK', p.lambda_w_mk,
+                   'unitPriceMinor', p.unit_price_minor, 'roles', p.roles) ORDER BY p.name, p.id), '[]')
+            FROM products p WHERE p.organisation_id = $2 AND p.active) AS products,
+         EXISTS (SELECT 1 FROM extras e WHERE e.organisation_id = $2 AND e.kind = 'hatch_kit' AND e.active) AS "hatchKit"
   FROM spaces s
   JOIN jobs j ON j.id = s.job_id
   LEFT JOIN LATERAL (
@@ -27,14 +54,17 @@ const SQL = `
   ) r ON true
   WHERE s.id = $1 AND s.organisation_id = $2 AND s.deleted_at IS NULL`;
 
-/** The space and its latest revision when the actor may see its job; a 404 like a missing id otherwise. */
-export async function readSpacePlan(sequelize: Sequelize, actor: SessionUser, spaceId: string): Promise<SpacePlanRow> {
-  const [row] = await sequelize.query<SpacePlanRow & { jobOrganisationId: string; assignedInstallerId: string | null }>(SQL, {
-    bind: [spaceId, actor.organisationId],
-    type: QueryTypes.SELECT,
-  });
+/**
+ * The space, its latest revision and the company's takeoff inputs when the actor may see its job;
+ * a 404 like a missing id otherwise. `withTakeoff` loads the stored takeoff's body.
+ */
+export async function readSpacePlan(pool: pg.Pool, actor: SessionUser, spaceId: string, opts: { withTakeoff: boolean }): Promise<SpacePlanRow> {
+  const {
+    rows: [row],
+  } = await pool.query<Row>({ name: 'plan-read', text: SQL, values: [spaceId, actor.organisationId, opts.withTakeoff] });
   if (!row || !can(actor, 'jobs:read', { organisationId: row.jobOrganisationId, assignedInstallerId: row.assignedInstallerId }))
     throw new NotFoundError('space');
-  const { jobOrganisationId: _o, assignedInstallerId: _a, ...plan } = row;
-  return plan;
+  const { jobOrganisationId: _o, assignedInstallerId: _a, settings, products, hatchKit, ...plan } = row;
+  // A company that never saved its settings reads the defaults (GETs write nothing).
+  return { ...plan, inputs: takeoffInputsOf(settings ?? defaultCompanySettings(''), products, hatchKit) };
 }

@@ -3,6 +3,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import { can } from '../../../shared/auth/policies';
 import { PLAN_FORMAT, type Plan } from '../../../shared/plan/plan-schema';
 import { readStoredTakeoff, takeoffWithoutPrices } from '../../../shared/takeoff/takeoff-schema';
+import { TAKEOFF_FORMAT } from '../../../shared/takeoff/takeoff-types';
 import type { AppDeps } from '../../deps';
 import { User } from '../../db/models';
 import { AppError, ValidationError } from '../../lib/errors';
@@ -34,7 +35,7 @@ export function starterPlan(name: string): Plan {
 }
 
 export function createPlansService(deps: AppDeps) {
-  const { sequelize, storage, planPool } = deps;
+  const { sequelize, pool, storage, planPool } = deps;
 
   /**
    * Validates and computes the takeoff in the worker pool (422 with the engine's messages, or when
@@ -54,10 +55,16 @@ export function createPlansService(deps: AppDeps) {
 
   return {
     async get(actor: SessionUser, spaceId: string) {
-      const [space, inputs] = await Promise.all([readSpacePlan(sequelize, actor, spaceId), companyTakeoffInputs(actor.organisationId)]);
-      const withPrices = can(actor, 'prices:read');
-      const stored = readStoredTakeoff(space.takeoff);
       const canWrite = can(actor, 'plans:write');
+      const space = await readSpacePlan(pool, actor, spaceId, { withTakeoff: !canWrite });
+      const { inputs } = space;
+      const withPrices = can(actor, 'prices:read');
+      // Writers are sent no takeoff, only whether one is stored: the server alone writes that column,
+      // from computeTakeoff, whose output parses to itself under the schema of its format (a changed
+      // shape bumps the format; tests/shared/takeoff-schema.test.ts), so the format string answers it.
+      // Viewers are sent the body through the schema, which also puts its keys in the schema's order.
+      const stored = canWrite ? null : readStoredTakeoff(space.takeoff);
+      const takeoffStored = canWrite ? space.takeoffFormat === TAKEOFF_FORMAT : stored !== null;
       return {
         plan: (space.plan as Plan | null) ?? starterPlan(space.name),
         revision: space.revision ?? 0,
@@ -65,7 +72,7 @@ export function createPlansService(deps: AppDeps) {
         space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.jobReference },
         canWrite,
         /** Whether this revision has its takeoff stored (the editor offers Save when it has not). */
-        takeoffStored: stored !== null,
+        takeoffStored,
         // Read-only viewers are shown the stored artefact as it is (no recomputing, no pinning);
         // writers compute it live from the same inputs, so they are not sent a second copy.
         takeoff: canWrite || !stored ? null : withPrices ? stored : takeoffWithoutPrices(stored),
