@@ -53,22 +53,41 @@ describe('actuals recorded offline', () => {
     expect(await JobActual.count({ where: { jobId: job.id } })).toBe(0);
 
     // The first send reaches the server, but its answer is lost on the way back (the phone sees a
-    // network failure and keeps the finish); every later send goes through untouched.
-    const sends: number[] = [];
+    // network failure and keeps the finish); later sends go through.
+    let lostAnswer = 0;
+    const resends: string[] = [];
     await page.route('**/api/jobs/*/finish', async (route) => {
-      if (sends.length === 0) {
+      if (lostAnswer) {
+        // Passed through, noting whether the server answered it as a resend of the finish it has.
         const res = await route.fetch();
-        sends.push(res.status());
-        await route.abort('connectionreset');
-      } else {
-        sends.push(0);
-        await route.continue();
+        resends.push(`${res.status()} ${res.headers()['idempotent-replayed'] ?? 'new'}`);
+        return route.fulfill({ response: res });
       }
+      try {
+        lostAnswer = (await route.fetch()).status();
+      } catch {
+        // A retry made before the phone was back online: it reached nothing; the next one is the lost one.
+      }
+      await route.abort('connectionreset');
     });
     await browser.context.setOffline(false);
     await page.getByText(/Marked installed by/).waitFor({ timeout: 45_000 });
-    expect(sends.length).toBeGreaterThanOrEqual(2);
-    expect(sends[0]).toBe(200);
+    expect(lostAnswer).toBe(200);
+    expect(resends).toEqual(['200 true']);
+    // Nothing left in the phone's outbox, not even a refused copy.
+    const left = () =>
+      page.evaluate(
+        () =>
+          new Promise<number>((resolve, reject) => {
+            const open = indexedDB.open('quiltline-offline');
+            open.onerror = () => reject(open.error);
+            open.onsuccess = () => {
+              const count = open.result.transaction('outbox').objectStore('outbox').count();
+              count.onsuccess = () => resolve(count.result);
+            };
+          }),
+      );
+    await expect.poll(left).toBe(0);
     await screenshot(page, 'actuals-offline-arrived-360');
 
     const actuals = await JobActual.findAll({ where: { jobId: job.id } });
