@@ -50,20 +50,9 @@ export async function companyTakeoffInputs(organisationId: string, transaction?:
     Product.findAll({ where: { organisationId }, order: [['name', 'ASC']], transaction }),
     Extra.count({ where: { organisationId, kind: 'hatch_kit', active: true }, transaction }),
   ]);
-  return takeoffInputsOf(
-    settingsRow,
-    rows.map((r) => ({ ...r.get({ plain: true }), id: r.id })),
-    hatchKits > 0,
-  );
-}
-
-/**
- * The takeoff inputs from the rows they are read from (here, or in one query with the plan by the
- * editor's read): products in the catalogue's own field names (lanes, coverageM2, lambdaWmK…,
- * inactive ones skipped) and whether an active hatch kit is offered.
- */
-export function takeoffInputsOf(settings: SettingsForTakeoff, productRows: unknown[], hatchKitActive: boolean): TakeoffInputs {
-  return { products: parseProductCatalogue(productRows), settings: takeoffSettingsOf(settings, { hatchKitActive }) };
+  // parseProductCatalogue reads the catalogue's own field names (lanes, coverageM2, lambdaWmK…).
+  const products = parseProductCatalogue(rows.map((r) => ({ ...r.get({ plain: true }), id: r.id })));
+  return { products, settings: takeoffSettingsOf(settingsRow, { hatchKitActive: hatchKits > 0 }) };
 }
 
 /**

@@ -1,8 +1,9 @@
 import type pg from 'pg';
 import { can } from '../../../shared/auth/policies';
+import { parseProductCatalogue, type TakeoffProduct } from '../../../shared/takeoff/products';
 import { NotFoundError } from '../../lib/errors';
 import type { SessionUser } from '../../types';
-import { takeoffInputsOf, type SettingsForTakeoff, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
+import { takeoffSettingsOf, type SettingsForTakeoff, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
 import { defaultCompanySettings } from '../settings/settings.defaults';
 
 /** A space with its job's facts, its latest revision and its company's takeoff inputs, read in one query. */
@@ -24,7 +25,8 @@ interface Row extends Omit<SpacePlanRow, 'inputs'> {
   jobOrganisationId: string;
   assignedInstallerId: string | null;
   settings: SettingsForTakeoff | null;
-  products: unknown[];
+  /** The catalogue as JSON text (the key of `parsedCatalogues`). */
+  products: string;
   hatchKit: boolean;
 }
 
@@ -44,7 +46,7 @@ const SQL = `
             FROM company_settings c WHERE c.organisation_id = $2) AS settings,
          (SELECT coalesce(json_agg(json_build_object('id', p.id, 'name', p.name, 'thicknessMm', p.thickness_mm, 'rollWidthMm', p.roll_width_mm,
                    'lanes', p.lanes, 'rollLengthMm', p.roll_length_mm, 'coverageM2', p.coverage_m2, 'lambdaWmK', p.lambda_w_mk,
-                   'unitPriceMinor', p.unit_price_minor, 'roles', p.roles) ORDER BY p.name, p.id), '[]')
+                   'unitPriceMinor', p.unit_price_minor, 'roles', p.roles) ORDER BY p.name, p.id), '[]')::text
             FROM products p WHERE p.organisation_id = $2 AND p.active) AS products,
          EXISTS (SELECT 1 FROM extras e WHERE e.organisation_id = $2 AND e.kind = 'hatch_kit' AND e.active) AS "hatchKit"
   FROM spaces s
@@ -66,5 +68,23 @@ export async function readSpacePlan(pool: pg.Pool, actor: SessionUser, spaceId: 
     throw new NotFoundError('space');
   const { jobOrganisationId: _o, assignedInstallerId: _a, settings, products, hatchKit, ...plan } = row;
   // A company that never saved its settings reads the defaults (GETs write nothing).
-  return { ...plan, inputs: takeoffInputsOf(settings ?? defaultCompanySettings(''), products, hatchKit) };
+  const inputs = { products: parsedCatalogue(products), settings: takeoffSettingsOf(settings ?? defaultCompanySettings(''), { hatchKitActive: hatchKit }) };
+  return { ...plan, inputs };
+}
+
+// Catalogues as read, parsed and checked once per distinct content. The key is the catalogue's JSON
+// text from the same query as the plan, so an edit through any instance is a new key at once (no
+// invalidation to get wrong); entries are frozen because every read shares them.
+const parsedCatalogues = new Map<string, readonly TakeoffProduct[]>();
+const CATALOGUES_KEPT = 200;
+
+function parsedCatalogue(json: string): TakeoffProduct[] {
+  let parsed = parsedCatalogues.get(json);
+  if (!parsed) {
+    parsed = Object.freeze(parseProductCatalogue(JSON.parse(json) as unknown[]).map((p) => Object.freeze(p)));
+    // Simplest bound: start afresh when full (a company's catalogue changes rarely).
+    if (parsedCatalogues.size >= CATALOGUES_KEPT) parsedCatalogues.clear();
+    parsedCatalogues.set(json, parsed);
+  }
+  return parsed as TakeoffProduct[];
 }
