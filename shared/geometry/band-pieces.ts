@@ -1,0 +1,323 @@
+import type { Vec2 } from './vector';
+
+/**
+ * The second half of band clipping (see `clipRegionToBands` in bands.ts): a band's trapezoids
+ * joined into pieces and outlined. Trapezoids are kept column by column in typed arrays that are
+ * reused from band to band, and outlines are simplified in scratch buffers before any point is
+ * made: a skewed 600 m² plan cuts some ten thousand trapezoids per layer, and one small array
+ * per corner of each was most of the garbage of a takeoff.
+ */
+
+/** One connected piece of the region inside one band, in frame coordinates. */
+export interface BandPiece {
+  /** Index into the bands array passed in. */
+  bandIndex: number;
+  /** Extent along the band: the piece spans `sMinMm..sMaxMm`. */
+  sMinMm: number;
+  sMaxMm: number;
+  /** Exact area of the piece, mm². */
+  areaMm2: number;
+  /**
+   * The piece as one or more simple polygons in frame coordinates (positive signed area) whose
+   * union is the piece: one for a plain run, more where the piece forks around an obstacle
+   * inside the band (each unbranched run of trapezoids becomes one part).
+   */
+  polygons: Vec2[][];
+  /**
+   * A point inside the piece, frame coordinates: the middle of its largest trapezoid. Unlike the
+   * middle of the extent it never falls in a hole, outside a partly covered band or in a notch.
+   */
+  insideAt: Vec2;
+  /**
+   * The piece cut lengthwise at every sub-slab boundary: one ribbon per sub-slab `t0..t1` with the
+   * mean of its left and right ends (`sLoMm`, `sHiMm`: an end cut on the angle counts at its
+   * middle) and the length actually covered (`coveredMm`, less than `sHiMm − sLoMm` where the
+   * piece forks around an obstacle). Ordered by `t0`.
+   */
+  ribbons: Ribbon[];
+}
+
+/** One sub-slab of a band piece (see `BandPiece.ribbons`), frame coordinates, mm. */
+export interface Ribbon {
+  t0: number;
+  t1: number;
+  sLoMm: number;
+  sHiMm: number;
+  /** The left end at `t0` and `t1`, and the right end at `t0` and `t1`. */
+  lo0: number;
+  lo1: number;
+  hi0: number;
+  hi1: number;
+  coveredMm: number;
+}
+
+const EPS = 1e-7;
+
+/**
+ * A band's trapezoids, one column per field: trapezoid `i` spans `y0[i]..y1[i]` across the band,
+ * its left side runs from `l0[i]` (at y0) to `l1[i]` (at y1), its right side from `r0[i]` to
+ * `r1[i]`. `n` is the count; the arrays grow as needed and are reused for the next band.
+ */
+export interface Trapezoids {
+  n: number;
+  y0: Float64Array;
+  y1: Float64Array;
+  l0: Float64Array;
+  l1: Float64Array;
+  r0: Float64Array;
+  r1: Float64Array;
+}
+
+/** Scratch space for `bandPieces`, reused from band to band (grown as needed). */
+export interface PieceScratch {
+  ints: Int32Array[];
+  xs: Float64Array;
+  ys: Float64Array;
+  keep: Int32Array;
+}
+
+export function newTrapezoids(cap = 256): Trapezoids {
+  const f = () => new Float64Array(cap);
+  return { n: 0, y0: f(), y1: f(), l0: f(), l1: f(), r0: f(), r1: f() };
+}
+
+export function newPieceScratch(): PieceScratch {
+  return { ints: [], xs: new Float64Array(64), ys: new Float64Array(64), keep: new Int32Array(64) };
+}
+
+function grown(a: Float64Array, cap: number): Float64Array {
+  const b = new Float64Array(cap);
+  b.set(a);
+  return b;
+}
+
+export function pushTrapezoid(t: Trapezoids, y0: number, y1: number, l0: number, l1: number, r0: number, r1: number): void {
+  if (t.n === t.y0.length) {
+    const cap = t.n * 2;
+    t.y0 = grown(t.y0, cap);
+    t.y1 = grown(t.y1, cap);
+    t.l0 = grown(t.l0, cap);
+    t.l1 = grown(t.l1, cap);
+    t.r0 = grown(t.r0, cap);
+    t.r1 = grown(t.r1, cap);
+  }
+  const i = t.n++;
+  t.y0[i] = y0;
+  t.y1[i] = y1;
+  t.l0[i] = l0;
+  t.l1[i] = l1;
+  t.r0[i] = r0;
+  t.r1[i] = r1;
+}
+
+/** The `k`-th integer scratch array with room for `n` (contents undefined). */
+function ints(s: PieceScratch, k: number, n: number): Int32Array {
+  let a = s.ints[k];
+  if (!a || a.length < n) a = s.ints[k] = new Int32Array(Math.max(n, 2 * (a?.length ?? 32)));
+  return a;
+}
+
+function findRoot(parent: Int32Array, i: number): number {
+  while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+  return i;
+}
+
+/**
+ * Joins a band's trapezoids into pieces (union-find over overlapping neighbours in consecutive
+ * sub-slabs; `slabStart[s]` is the first trapezoid of sub-slab `s`, `slabStart[slabs]` the count)
+ * and outlines them. Pieces under `minAreaMm2` are dropped; the rest are appended to `out` in
+ * order of `sMinMm` (ties in the order their first trapezoid was cut).
+ */
+export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAreaMm2: number, out: BandPiece[], S: PieceScratch): void {
+  const nt = T.n;
+  const parent = ints(S, 0, nt);
+  const ups = ints(S, 1, nt);
+  const downs = ints(S, 2, nt);
+  const upLink = ints(S, 3, nt);
+  for (let i = 0; i < nt; i++) {
+    parent[i] = i;
+    ups[i] = 0;
+    downs[i] = 0;
+    upLink[i] = -1;
+  }
+  for (let si = 1; si + 1 < slabStart.length; si++) {
+    for (let a = slabStart[si - 1]; a < slabStart[si]; a++) {
+      for (let b = slabStart[si]; b < slabStart[si + 1]; b++) {
+        if (Math.min(T.r1[a], T.r0[b]) - Math.max(T.l1[a], T.l0[b]) > EPS) {
+          parent[findRoot(parent, a)] = findRoot(parent, b);
+          ups[a]++;
+          downs[b]++;
+          upLink[a] = b;
+        }
+      }
+    }
+  }
+  // Unbranched runs: a links to b when each is the other's only neighbour.
+  const runNext = ints(S, 4, nt);
+  const hasPrev = ints(S, 5, nt);
+  for (let i = 0; i < nt; i++) {
+    runNext[i] = -1;
+    hasPrev[i] = 0;
+  }
+  for (let a = 0; a < nt; a++) {
+    const b = upLink[a];
+    if (b >= 0 && ups[a] === 1 && downs[b] === 1) {
+      runNext[a] = b;
+      hasPrev[b] = 1;
+    }
+  }
+  // Pieces numbered in the order of their first trapezoid; each piece's trapezoids in cutting order.
+  const groupOfRoot = ints(S, 6, nt);
+  const groupOf = ints(S, 7, nt);
+  for (let i = 0; i < nt; i++) groupOfRoot[i] = -1;
+  let ng = 0;
+  for (let i = 0; i < nt; i++) {
+    const r = findRoot(parent, i);
+    if (groupOfRoot[r] < 0) groupOfRoot[r] = ng++;
+    groupOf[i] = groupOfRoot[r];
+  }
+  const first = ints(S, 8, ng + 1);
+  for (let g = 0; g <= ng; g++) first[g] = 0;
+  for (let i = 0; i < nt; i++) first[groupOf[i] + 1]++;
+  for (let g = 0; g < ng; g++) first[g + 1] += first[g];
+  const fill = ints(S, 9, ng);
+  for (let g = 0; g < ng; g++) fill[g] = first[g];
+  const members = ints(S, 10, nt);
+  for (let i = 0; i < nt; i++) members[fill[groupOf[i]]++] = i;
+
+  const start = out.length;
+  for (let g = 0; g < ng; g++) {
+    let area = 0;
+    let sMin = Infinity;
+    let sMax = -Infinity;
+    let largest = members[first[g]];
+    let largestArea = -1;
+    const ribbons: Ribbon[] = [];
+    let rib: Ribbon | null = null;
+    for (let m = first[g]; m < first[g + 1]; m++) {
+      const t = members[m];
+      const y0 = T.y0[t];
+      const l0 = T.l0[t];
+      const l1 = T.l1[t];
+      const r0 = T.r0[t];
+      const r1 = T.r1[t];
+      const a = ((r0 - l0 + (r1 - l1)) / 2) * (T.y1[t] - y0);
+      area += a;
+      // Trapezoids come slab by slab, so those of one sub-slab are consecutive.
+      const lm = (l0 + l1) / 2;
+      const rm = (r0 + r1) / 2;
+      if (!rib || rib.t0 !== y0) {
+        rib = { t0: y0, t1: T.y1[t], sLoMm: lm, sHiMm: rm, lo0: l0, lo1: l1, hi0: r0, hi1: r1, coveredMm: rm - lm };
+        ribbons.push(rib);
+      } else {
+        if (lm < rib.sLoMm) {
+          rib.sLoMm = lm;
+          rib.lo0 = l0;
+          rib.lo1 = l1;
+        }
+        if (rm > rib.sHiMm) {
+          rib.sHiMm = rm;
+          rib.hi0 = r0;
+          rib.hi1 = r1;
+        }
+        rib.coveredMm += rm - lm;
+      }
+      if (a > largestArea) {
+        largestArea = a;
+        largest = t;
+      }
+      if (l0 < sMin) sMin = l0;
+      if (l1 < sMin) sMin = l1;
+      if (r0 > sMax) sMax = r0;
+      if (r1 > sMax) sMax = r1;
+    }
+    if (area < minAreaMm2) continue;
+    const polygons: Vec2[][] = [];
+    for (let m = first[g]; m < first[g + 1]; m++) if (!hasPrev[members[m]]) polygons.push(runOutline(T, runNext, members[m], S));
+    const t = largest;
+    const insideAt: Vec2 = [(T.l0[t] + T.l1[t] + T.r0[t] + T.r1[t]) / 4, (T.y0[t] + T.y1[t]) / 2];
+    out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons, insideAt, ribbons });
+  }
+  if (out.length - start > 1) {
+    const mine = out.splice(start).sort(bySMin);
+    for (const p of mine) out.push(p);
+  }
+}
+
+const bySMin = (p: BandPiece, q: BandPiece) => p.sMinMm - q.sMinMm;
+
+/**
+ * Outline of the unbranched run starting at trapezoid `head` (one trapezoid per consecutive
+ * sub-slab, linked by `runNext`): up the left side, down the right. Both ends of every side are
+ * kept: where the region steps at a sub-slab boundary (an inside corner of an L), one
+ * trapezoid's top end differs from the next one's bottom end. Repeated and collinear points
+ * (within 1e-6 mm) are dropped in one pass; winding is made positive.
+ */
+function runOutline(T: Trapezoids, runNext: Int32Array, head: number, S: PieceScratch): Vec2[] {
+  let len = 0;
+  for (let k = head; k >= 0; k = runNext[k]) len++;
+  if (S.xs.length < 4 * len) {
+    S.xs = new Float64Array(8 * len);
+    S.ys = new Float64Array(8 * len);
+    S.keep = new Int32Array(8 * len);
+  }
+  const xs = S.xs;
+  const ys = S.ys;
+  // Corners as they come (up the left, down the right), dropping each that repeats the last kept.
+  let m = 0;
+  const run = ints(S, 11, len);
+  let c = 0;
+  for (let k = head; k >= 0; k = runNext[k]) {
+    run[c++] = k;
+    m = putCorner(xs, ys, m, T.l0[k], T.y0[k]);
+    m = putCorner(xs, ys, m, T.l1[k], T.y1[k]);
+  }
+  for (let i = len - 1; i >= 0; i--) {
+    const k = run[i];
+    m = putCorner(xs, ys, m, T.r1[k], T.y1[k]);
+    m = putCorner(xs, ys, m, T.r0[k], T.y0[k]);
+  }
+  if (m > 1 && Math.abs(xs[0] - xs[m - 1]) <= 1e-6 && Math.abs(ys[0] - ys[m - 1]) <= 1e-6) m--;
+  // Indices of the corners kept: all of them, or those off the line through their neighbours.
+  const keep = S.keep;
+  let nk = 0;
+  if (m > 3) {
+    for (let i = 0; i < m; i++) {
+      const a = nk ? keep[nk - 1] : m - 1;
+      const j = i + 1 < m ? i + 1 : 0;
+      const ux = xs[i] - xs[a];
+      const uy = ys[i] - ys[a];
+      const vx = xs[j] - xs[i];
+      const vy = ys[j] - ys[i];
+      const cross = ux * vy - uy * vx;
+      // |cross| / (|u| + |v|) bounds the distance of b from the line a–c, give or take a factor 2.
+      if (Math.abs(cross) > 1e-6 * (Math.sqrt(ux * ux + uy * uy) + Math.sqrt(vx * vx + vy * vy))) keep[nk++] = i;
+    }
+  }
+  if (nk < 3) {
+    nk = m;
+    for (let i = 0; i < m; i++) keep[i] = i;
+  }
+  let s = 0;
+  for (let i = 0; i < nk; i++) {
+    const a = keep[i];
+    const b = keep[i + 1 < nk ? i + 1 : 0];
+    s += xs[a] * ys[b] - xs[b] * ys[a];
+  }
+  const pts: Vec2[] = new Array(nk);
+  for (let i = 0; i < nk; i++) {
+    const k = keep[s < 0 ? nk - 1 - i : i];
+    pts[i] = [xs[k], ys[k]];
+  }
+  return pts;
+}
+
+/** Appends corner (x, y) after the first `m` unless it repeats the last (within 1e-6 mm); returns the new count. */
+function putCorner(xs: Float64Array, ys: Float64Array, m: number, x: number, y: number): number {
+  if (m === 0 || Math.abs(xs[m - 1] - x) > 1e-6 || Math.abs(ys[m - 1] - y) > 1e-6) {
+    xs[m] = x;
+    ys[m] = y;
+    return m + 1;
+  }
+  return m;
+}
