@@ -71,10 +71,8 @@ describe('actuals recorded offline', () => {
       await route.abort('connectionreset');
     });
     await browser.context.setOffline(false);
-    await page.getByText(/Marked installed by/).waitFor({ timeout: 45_000 });
-    expect(lostAnswer).toBe(200);
-    expect(resends).toEqual(['200 true']);
-    // Nothing left in the phone's outbox, not even a refused copy.
+    // Done when the phone's outbox is empty: nothing left, not even a refused copy. (The sheet may
+    // show the job installed sooner: it is fetched again on reconnecting, once the lost send landed.)
     const left = () =>
       page.evaluate(
         () =>
@@ -87,7 +85,10 @@ describe('actuals recorded offline', () => {
             };
           }),
       );
-    await expect.poll(left).toBe(0);
+    await expect.poll(left, { timeout: 60_000 }).toBe(0);
+    expect(lostAnswer).toBe(200);
+    expect(resends).toEqual(['200 true']);
+    await page.getByText(/Marked installed by/).waitFor();
     await screenshot(page, 'actuals-offline-arrived-360');
 
     const actuals = await JobActual.findAll({ where: { jobId: job.id } });

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../../server/config';
-import { Job, JobActual } from '../../server/db/models';
+import { Job, JobActual, User } from '../../server/db/models';
 import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
 import { screenshot, signInThroughUi, startDemoBrowserSuite } from '../helpers/browser';
 
@@ -66,7 +66,9 @@ describe('estimate against actual report', () => {
   it('lets the office correct what was used on a job card, saying who did, and the report shows the new count', { timeout: 120_000 }, async () => {
     const page = await browser.newPage();
     page.setDefaultTimeout(20_000);
-    const job = (await Job.findOne({ where: { stage: 'installed' }, order: [['reference', 'ASC']] }))!;
+    // The demo company's job: other files' companies may share this database.
+    const office = (await User.findOne({ where: { email: 'office@demo.example.com' } }))!;
+    const job = (await Job.findOne({ where: { organisationId: office.organisationId, stage: 'installed' }, order: [['reference', 'ASC']] }))!;
     const stored = (await JobActual.findByPk(job.id))!;
     const first = stored.rolls[0];
     await page.goto(`${app.url}/jobs/${job.id}`);

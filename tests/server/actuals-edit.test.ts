@@ -82,16 +82,18 @@ describe('PUT /api/jobs/:id/actuals', () => {
     expect((await JobActual.findByPk(job.id))!.hours).toEqual(theirs.hours);
 
     // Both at once from version 2: one wins, the other is refused; one change in the history.
+    const officeBody = { ...theirs, hours: [{ userId: org.installer.id, hours: 8 }] };
     const [a, b] = await Promise.all([
-      put(office, job.id, { actuals: { ...theirs, hours: [{ userId: org.installer.id, hours: 8 }] }, expectedVersion: 2 }),
+      put(office, job.id, { actuals: officeBody, expectedVersion: 2 }),
       put(installer, job.id, { actuals: mine, expectedVersion: 2 }),
     ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
+    expect((a.status === 409 ? a : b).body.error.code).toBe('actuals_changed');
     const row = (await JobActual.findByPk(job.id))!;
     expect(row.version).toBe(3);
-    const winner =
-      a.status === 200 ? { hours: [{ userId: org.installer.id, hours: 8 }], extras: actuals.extras } : { hours: theirs.hours, extras: mine.extras };
-    expect({ hours: row.hours, extras: row.extras }).toEqual(winner);
+    const winner = a.status === 200 ? officeBody : mine;
+    expect({ rolls: row.rolls, hours: row.hours, extras: row.extras }).toEqual(winner);
+    expect(row.editedById).toBe(a.status === 200 ? org.office.id : org.installer.id);
     expect(await JobEvent.count({ where: { jobId: job.id, kind: 'actuals_edited' } })).toBe(2);
   });
 
