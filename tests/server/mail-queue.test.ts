@@ -4,6 +4,7 @@
 // that used up its retries is shown as failed with the server's reason and can be sent again.
 import { afterEach, describe, expect, it } from 'vitest';
 import { JobEvent, MailMessage } from '../../server/db/models';
+import { INTERRUPTED_REASON } from '../../server/modules/mail/mail-queue';
 import { createTestContext, loginAs, type TestContext } from '../helpers/test-app';
 import { quoteCompany, quoteJob } from './quotes-fixtures';
 
@@ -88,6 +89,40 @@ describe('durable e-mail', () => {
     await expect.poll(async () => (await messageTo(email))?.status, { timeout: 10_000 }).toBe('sent');
     expect(ctx.outbox.messages().filter((m) => m.envelopeTo.includes(email))).toHaveLength(1);
     expect((await office.post(`/api/mail/messages/${failed.id}/resend`)).status).toBe(409);
+  }, 60_000);
+
+  it('marks failed a waiting message whose last try was cut off (no job left), and only that one', async () => {
+    // Arrange: two waiting messages with the worker stopped, so their jobs stay queued.
+    const ctx = await context();
+    await ctx.outbox.stop();
+    await ctx.deps.mailQueue.stop();
+    const cut = await sendQuote(ctx);
+    const alive = await sendQuote(ctx);
+    const [cutRow, aliveRow] = [(await messageTo(cut.email))!, (await messageTo(alive.email))!];
+    expect([cutRow.status, aliveRow.status]).toEqual(['waiting', 'waiting']);
+    // What pg-boss does when the instance sending a message's last try dies: the active job
+    // expires with no retry left and ends failed, while the row (its update rolled back) still waits.
+    const jobState = (id: string, state: string) =>
+      ctx.deps.sequelize.query("UPDATE pgboss.job SET state = $1 WHERE name = 'mail-send' AND data->>'messageId' = $2", { bind: [state, id] });
+    await jobState(cutRow.id, 'failed');
+
+    // Act: the sweep (every instance runs it at start and then periodically); two at once as two instances would.
+    const counts = await Promise.all([ctx.deps.mailQueue.failOrphans(), ctx.deps.mailQueue.failOrphans()]);
+
+    // Assert: marked failed with the reason, in the list and the job history; the live one untouched.
+    // (Each row goes to one sweep; a leftover of another test file in this database may count too.)
+    expect(counts[0] + counts[1]).toBeGreaterThanOrEqual(1);
+    const failed = (await messageTo(cut.email))!;
+    expect(failed).toMatchObject({ status: 'failed', lastError: INTERRUPTED_REASON });
+    expect((await eventFor(cut.job.id)).text).toContain(`not sent: ${INTERRUPTED_REASON}`);
+    const listed = (await cut.office.get('/api/mail/messages')).body.messages.find((m: { id: string }) => m.id === failed.id);
+    expect(listed).toMatchObject({ status: 'failed' });
+    expect((await messageTo(alive.email))!.status).toBe('waiting');
+
+    // The office sends it again: its new job is live, so a sweep leaves it waiting.
+    expect((await cut.office.post(`/api/mail/messages/${failed.id}/resend`)).status).toBe(202);
+    await ctx.deps.mailQueue.failOrphans();
+    expect((await messageTo(cut.email))!.status).toBe('waiting');
   }, 60_000);
 
   it('keeps another company out of the list and the resend', async () => {

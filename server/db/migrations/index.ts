@@ -9,6 +9,7 @@ import * as m0501 from './0501-mail-queue';
 import * as m0502 from './0502-login-limits';
 import * as m0503 from './0503-eaves-hatch-settings';
 import * as m0504 from './0504-space-soft-delete';
+import * as m0505 from './0505-mail-waiting-index';
 import * as m0506 from './0506-job-actuals';
 import * as m0507 from './0507-actuals-edits';
 
@@ -30,6 +31,7 @@ export const MIGRATIONS: Migration[] = [
   entry('0502-login-limits', m0502),
   entry('0503-eaves-hatch-settings', m0503),
   entry('0504-space-soft-delete', m0504),
+  entry('0505-mail-waiting-index', m0505),
   entry('0506-job-actuals', m0506),
   entry('0507-actuals-edits', m0507),
 ];

@@ -34,7 +34,25 @@ export interface MailQueue {
   running(): boolean;
   /** Queues a failed message again (409 unless it is `failed`: a waiting or sent one is never sent twice). */
   resend(organisationId: string, id: string): Promise<void>;
+  /** Marks failed every waiting message left without a live job (see failOrphans); answers how many. */
+  failOrphans(): Promise<number>;
 }
+
+/**
+ * Why a waiting message with no job left is failed: its last try was cut off (the instance was
+ * stopped or killed mid-send and pg-boss expired the job with no retry left), so nothing would ever
+ * send it. It may or may not have reached the mail server, so it is not sent again by itself.
+ */
+export const INTERRUPTED_REASON = 'the last try was interrupted (the server stopped while sending); send it again if it did not arrive';
+
+// A waiting message is alive while one of its jobs may still run. enqueue and resend write the row
+// and its job in one transaction and deliver holds the row's lock while its job is active, so the
+// guarded UPDATE (still waiting, still no live job) cannot catch a message that is about to be sent.
+const FAIL_ORPHANS = `
+  UPDATE mail_messages m SET status = 'failed', last_error = $1, updated_at = now()
+  WHERE m.status = 'waiting' AND NOT EXISTS (
+    SELECT 1 FROM pgboss.job j WHERE j.name = $2 AND j.state IN ('created', 'retry', 'active') AND j.data->>'messageId' = m.id::text)
+  RETURNING m.id, m.job_event_id AS "jobEventId", m.recipient, m.subject, m.last_error AS "lastError"`;
 
 /** The history line of an e-mail at each status (the job page shows `text`). */
 function eventText(to: string, subject: string, status: MailStatus, reason?: string | null) {
@@ -83,7 +101,7 @@ export function createMailQueue(opts: MailQueueOptions): MailQueue {
     },
   });
 
-  async function setEventStatus(row: MailMessage, status: MailStatus, transaction?: Transaction) {
+  async function setEventStatus(row: Pick<MailMessage, 'jobEventId' | 'recipient' | 'subject' | 'lastError'>, status: MailStatus, transaction?: Transaction) {
     if (!row.jobEventId) return;
     const patch = { status, reason: row.lastError, text: eventText(row.recipient, row.subject, status, row.lastError) };
     await sequelize.query('UPDATE job_events SET data = data || $1::jsonb WHERE id = $2', { bind: [JSON.stringify(patch), row.jobEventId], transaction });
@@ -169,8 +187,23 @@ export function createMailQueue(opts: MailQueueOptions): MailQueue {
     }
   }
 
+  async function failOrphans(): Promise<number> {
+    return sequelize.transaction(async (transaction) => {
+      const rows = await sequelize.query<{ id: string; jobEventId: string | null; recipient: string; subject: string; lastError: string }>(FAIL_ORPHANS, {
+        bind: [INTERRUPTED_REASON, QUEUE],
+        transaction,
+        type: QueryTypes.SELECT,
+      });
+      for (const row of rows) await setEventStatus(row, 'failed', transaction);
+      if (rows.length) log(`${rows.length} waiting message(s) had no job left after an interrupted last try: marked failed`);
+      return rows.length;
+    });
+  }
+  let sweep: NodeJS.Timeout | null = null;
+
   return {
     mailer: { send: enqueue, close: () => undefined },
+    failOrphans,
     async start() {
       await boss.start();
       await boss.createQueue(QUEUE);
@@ -178,8 +211,15 @@ export function createMailQueue(opts: MailQueueOptions): MailQueue {
         deliver(job.data.messageId, job.retryCount >= job.retryLimit),
       );
       state = 'running';
+      // Every instance sweeps (the guarded UPDATE makes overlapping sweeps harmless), at start and
+      // as often as pg-boss's maintenance expires lost jobs.
+      await failOrphans();
+      sweep = setInterval(() => failOrphans().catch((e: unknown) => log(`orphan sweep: ${reasonOf(e)}`)), maintenanceIntervalSeconds * 1000);
+      sweep.unref();
     },
     async stop() {
+      if (sweep) clearInterval(sweep);
+      sweep = null;
       if (state === 'stopped') return;
       state = 'stopped';
       // graceful: the message being sent finishes (or fails and is retried by another instance);
