@@ -114,7 +114,7 @@ describe('foundation in a real browser', () => {
     await screenshot(page, 'foundation-office-job-1280');
 
     await page.goto(`${app.url}/users`);
-    await page.getByRole('list', { name: 'Users' }).getByText('Ian Calder').waitFor();
+    await page.getByRole('table', { name: 'Users' }).getByText('Ian Calder').waitFor();
     await screenshot(page, 'foundation-office-users-1280');
 
     await page.goto(`${app.url}/outbox`);

@@ -70,7 +70,7 @@ describe('jobs list', () => {
     const calls = jobsApi(JOBS);
     renderPage(<JobsListPage />, { user: demoUser('office'), path: '/jobs' });
     await screen.findByRole('table', { name: 'Jobs' });
-    fireEvent.change(screen.getByLabelText('Search'), { target: { value: 'hartsford' } });
+    fireEvent.change(screen.getByLabelText('Search all jobs'), { target: { value: 'hartsford' } });
     await waitFor(() => expect(within(table()).getAllByRole('row')).toHaveLength(3));
     expect(lastJobsQuery(calls).get('q')).toBe('hartsford');
     expect(within(table()).queryByText('Bram Okafor')).toBeNull();
@@ -85,10 +85,55 @@ describe('jobs list', () => {
     expect(within(table()).getByText('Cleo Haddad')).toBeTruthy();
     expect(lastJobsQuery(calls).get('stage')).toBe('scheduled');
 
-    fireEvent.change(screen.getByLabelText('Sort by'), { target: { value: 'customer' } });
+    fireEvent.change(screen.getByLabelText('Sort all jobs by'), { target: { value: 'customer' } });
     fireEvent.click(screen.getByRole('button', { name: /switch to ascending/ }));
     await waitFor(() => expect(lastJobsQuery(calls).get('dir')).toBe('asc'));
     expect(lastJobsQuery(calls).get('sort')).toBe('customer');
+  });
+
+  it('asks the server for the order a header names, across all jobs, and the header says it', async () => {
+    const calls = jobsApi(JOBS);
+    renderPage(<JobsListPage />, { user: demoUser('office'), path: '/jobs' });
+    await screen.findByRole('table', { name: 'Jobs' });
+    const header = (name: RegExp) => within(table()).getByRole('columnheader', { name });
+    expect(header(/Last changed/).getAttribute('aria-sort')).toBe('descending');
+    expect(header(/Customer/).getAttribute('aria-sort')).toBe('none');
+    // Columns the API cannot order by offer no sort button.
+    expect(within(header(/Installer/)).queryByRole('button')).toBeNull();
+
+    fireEvent.click(within(header(/Customer/)).getByRole('button'));
+    await waitFor(() => expect(lastJobsQuery(calls).get('sort')).toBe('customer'));
+    expect(lastJobsQuery(calls).get('dir')).toBe('asc');
+    await waitFor(() => expect(header(/Customer/).getAttribute('aria-sort')).toBe('ascending'));
+    expect(header(/Last changed/).getAttribute('aria-sort')).toBe('none');
+    expect((screen.getByLabelText('Sort all jobs by') as HTMLSelectElement).value).toBe('customer');
+
+    fireEvent.click(within(header(/Customer/)).getByRole('button'));
+    await waitFor(() => expect(lastJobsQuery(calls).get('dir')).toBe('desc'));
+    await waitFor(() => expect(header(/Customer/).getAttribute('aria-sort')).toBe('descending'));
+  });
+
+  it("pages through the server's pages with its cursor and stops after the last", async () => {
+    const all = [0, 1, 2, 3, 4].map((n) => job(n, `Customer ${n}`, 'Hartsford', 'enquiry'));
+    const calls = fakeApi(({ url }) => {
+      if (url.pathname !== '/api/jobs') return undefined;
+      const from = Number(url.searchParams.get('cursor') ?? 0);
+      const next = from + 2 < all.length ? String(from + 2) : null;
+      return { body: { jobs: all.slice(from, from + 2), nextCursor: next, count: all.length } };
+    });
+    renderPage(<JobsListPage />, { user: demoUser('office'), path: '/jobs' });
+    await screen.findByRole('table', { name: 'Jobs' });
+    const rows = () => within(table()).getAllByRole('row').length - 1;
+    expect(rows()).toBe(2);
+    expect(screen.getByText('Showing 2 of 5 jobs')).toBeTruthy();
+    fireEvent.click(screen.getByRole('button', { name: 'Load more jobs' }));
+    await waitFor(() => expect(rows()).toBe(4));
+    expect(lastJobsQuery(calls).get('cursor')).toBe('2');
+    fireEvent.click(screen.getByRole('button', { name: 'Load more jobs' }));
+    await waitFor(() => expect(rows()).toBe(5));
+    expect(lastJobsQuery(calls).get('cursor')).toBe('4');
+    expect(screen.queryByRole('button', { name: 'Load more jobs' })).toBeNull();
+    expect(within(table()).getByText('Customer 4')).toBeTruthy();
   });
 
   it("narrows the list to one installer's jobs", async () => {
@@ -108,7 +153,7 @@ describe('jobs list', () => {
     expect(await screen.findByText('No jobs match')).toBeTruthy();
     fireEvent.click(screen.getByRole('button', { name: 'Clear search and filters' }));
     await screen.findByRole('table', { name: 'Jobs' });
-    expect((screen.getByLabelText('Search') as HTMLInputElement).value).toBe('');
+    expect((screen.getByLabelText('Search all jobs') as HTMLInputElement).value).toBe('');
   });
 
   it('explains an empty company and offers a first job', async () => {

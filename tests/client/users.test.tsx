@@ -42,7 +42,7 @@ function usersApi() {
   });
 }
 
-const rowOf = (name: string) => screen.getByText(name).closest('li')!;
+const rowOf = (name: string) => screen.getByText(name).closest('tr')!;
 
 describe('users page', () => {
   it('changes a role and deactivates a colleague, but never the signed-in user', async () => {
@@ -56,7 +56,7 @@ describe('users page', () => {
     await waitFor(() => expect(calls.some((c) => c.method === 'PATCH' && c.url.pathname === '/api/users/u-2')).toBe(true));
     expect(calls.find((c) => c.method === 'PATCH')!.body).toEqual({ role: 'installer' });
 
-    fireEvent.click(within(rowOf('Ellis Harper')).getByRole('button', { name: 'Deactivate' }));
+    fireEvent.click(within(rowOf('Ellis Harper')).getByRole('button', { name: /^Deactivate/ }));
     await waitFor(() => expect(calls.filter((c) => c.method === 'PATCH').at(-1)!.body).toEqual({ active: false }));
   });
 
@@ -65,9 +65,37 @@ describe('users page', () => {
     renderPage(<UsersPage />, { user: me });
     await screen.findByText('Nell Ashworth');
     expect(within(rowOf('Ellis Harper')).queryByRole('button', { name: 'Resend invite' })).toBeNull();
-    fireEvent.click(within(rowOf('Nell Ashworth')).getByRole('button', { name: 'Resend invite' }));
+    fireEvent.click(within(rowOf('Nell Ashworth')).getByRole('button', { name: /^Resend invite/ }));
     expect(await screen.findByText(/A new invitation is on its way/)).toBeTruthy();
     expect(calls.some((c) => c.method === 'POST' && c.url.pathname === '/api/users/u-3/resend-invite')).toBe(true);
+  });
+
+  it('sorts by a header and finds people by any word of name, e-mail, role or status', async () => {
+    usersApi();
+    renderPage(<UsersPage />, { user: me });
+    const table = await screen.findByRole('table', { name: 'Users' });
+    const names = () =>
+      within(table)
+        .getAllByRole('row')
+        .slice(1)
+        .map((r) => r.querySelector('td .font-medium')!.textContent!.replace('(you)', '').trim());
+    // Before a header is chosen: by role (office, estimator, installer).
+    expect(names()).toEqual([me.name, 'Ellis Harper', 'Nell Ashworth']);
+    const name = within(table).getByRole('columnheader', { name: /Name/ });
+    fireEvent.click(within(name).getByRole('button'));
+    expect(name.getAttribute('aria-sort')).toBe('ascending');
+    expect(names()).toEqual(['Ellis Harper', 'Nell Ashworth', me.name]);
+    fireEvent.click(within(name).getByRole('button'));
+    expect(name.getAttribute('aria-sort')).toBe('descending');
+    expect(names()).toEqual([me.name, 'Nell Ashworth', 'Ellis Harper']);
+
+    const find = screen.getByLabelText('Find a user');
+    fireEvent.change(find, { target: { value: 'invited' } });
+    expect(names()).toEqual(['Nell Ashworth']);
+    fireEvent.change(find, { target: { value: 'estimator ellis' } });
+    expect(names()).toEqual(['Ellis Harper']);
+    fireEvent.change(find, { target: { value: 'nobody here' } });
+    expect(screen.getByText('No user matches')).toBeTruthy();
   });
 
   it('checks the invitation form and shows a conflict next to the e-mail field', async () => {

@@ -89,22 +89,20 @@ export default function JobsListPage() {
       ) : (
         <div className="relative">
           {jobs.isFetching && !jobs.isFetchingNextPage && <Spinner size="sm" label="Updating" className="absolute -top-7 right-1 text-graphite-light" />}
-          <JobsTable jobs={jobs.jobs} />
-          {jobs.hasNextPage && (
-            <div className="mt-4 flex items-center justify-center gap-3">
-              <span className="text-sm text-graphite-light">
-                Showing {jobs.jobs.length} of {jobs.total}
-              </span>
-              <Button variant="secondary" onClick={() => jobs.loadMore()} busy={jobs.isFetchingNextPage}>
-                {jobs.isFetchingNextPage ? 'Loading…' : 'Load more jobs'}
-              </Button>
-            </div>
-          )}
-          {jobs.isFetchNextPageError && (
-            <p role="alert" className="mt-2 text-center text-sm text-brick-dark">
-              The next jobs could not be loaded; try again.
-            </p>
-          )}
+          <JobsTable
+            jobs={jobs.jobs}
+            sort={{ key: filters.sort, dir: filters.dir }}
+            onSort={(sort, dir) => update({ sort, dir })}
+            pages={{
+              loaded: jobs.jobs.length,
+              total: jobs.total,
+              hasMore: jobs.hasNextPage,
+              loading: jobs.isFetchingNextPage,
+              failed: jobs.isFetchNextPageError,
+              onLoadMore: () => jobs.loadMore(),
+              noun: 'jobs',
+            }}
+          />
         </div>
       )}
     </div>

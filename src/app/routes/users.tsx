@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { can } from '../../../shared/auth/policies';
-import { Alert, Button, EmptyState, ErrorState, LoadingState, PageHeader } from '../../components/ui';
+import { Alert, Button, EmptyState, ErrorState, Field, Input, LoadingState, PageHeader } from '../../components/ui';
 import { useCurrentUser } from '../../features/auth/use-current-user';
 import { useUsers } from '../../features/users/api/get-users';
 import { InviteUserForm } from '../../features/users/components/invite-user-form';
@@ -22,6 +22,8 @@ function Users() {
   const users = useUsers();
   const [inviting, setInviting] = useState(false);
   const [invited, setInvited] = useState<string | null>(null);
+  const [q, setQ] = useState('');
+  // The first order, before a header is chosen: active people first, by role, then name.
   const order = { office: 0, estimator: 1, installer: 2 } as const;
   const sorted = [...(users.data ?? [])].sort((a, b) => Number(b.active) - Number(a.active) || order[a.role] - order[b.role] || a.name.localeCompare(b.name));
 
@@ -75,7 +77,12 @@ function Users() {
       ) : sorted.length === 0 ? (
         <EmptyState title="No users" />
       ) : (
-        <UsersTable users={sorted} currentUserId={me.id} />
+        <>
+          <Field label="Find a user" className="mb-3 max-w-md">
+            <Input type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Name, e-mail, role or status" />
+          </Field>
+          <UsersTable users={sorted} currentUserId={me.id} filter={q} />
+        </>
       )}
     </>
   );

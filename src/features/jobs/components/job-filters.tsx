@@ -35,7 +35,7 @@ export function JobFilters({
       }`}
     >
       <div className="flex items-end gap-2">
-        <Field label="Search" className="min-w-0 flex-1">
+        <Field label="Search all jobs" className="min-w-0 flex-1">
           <Input type="search" placeholder="Name, address, postcode or ref" value={value.q} onChange={(e) => onChange({ q: e.target.value })} />
         </Field>
         <Button
@@ -72,7 +72,7 @@ export function JobFilters({
           </Field>
         )}
         <div className="flex items-end gap-2">
-          <Field label="Sort by" className="flex-1">
+          <Field label="Sort all jobs by" className="flex-1">
             <Select value={value.sort} onChange={(e) => onChange({ sort: e.target.value as JobSort })}>
               {JOB_SORTS.map((s) => (
                 <option key={s} value={s}>

@@ -3,13 +3,13 @@ import { z } from 'zod';
 import { formatMoneyInput } from '../../../../shared/quote/money-input';
 import { Alert, Button, Input } from '../../../components/ui';
 import { booleanText, FormField, FormSelect, moneyText, numberText, percentText, showServerErrors, useZodForm } from '../../../lib/forms';
-import type { ColumnDef } from './catalogue-table';
+import type { CatalogueColumn } from './catalogue-table';
 
 type Row = Record<string, unknown>;
 type RowValues = Record<string, string>;
 
 /** A row's stored value as the text its field shows. */
-function toText(c: ColumnDef, v: unknown, currency: string): string {
+function toText(c: CatalogueColumn, v: unknown, currency: string): string {
   if (v === null || v === undefined) return '';
   if (c.type === 'money') return formatMoneyInput(Number(v), currency);
   if (c.type === 'rate') return String(Number(v) / 100);
@@ -18,7 +18,7 @@ function toText(c: ColumnDef, v: unknown, currency: string): string {
 }
 
 /** How one column's text becomes the API's value, then the API's own rule for that field. */
-function fieldSchema(c: ColumnDef, api: z.ZodType, currency: string): z.ZodType<unknown, string> {
+function fieldSchema(c: CatalogueColumn, api: z.ZodType, currency: string): z.ZodType<unknown, string> {
   switch (c.type) {
     case 'number':
       return numberText(api);
@@ -44,12 +44,12 @@ function fieldSchema(c: ColumnDef, api: z.ZodType, currency: string): z.ZodType<
 }
 
 /** The row form's schema: the resource's API schema, field by field, read from the text typed. */
-export function catalogueRowSchema(schema: z.ZodObject, columns: ColumnDef[], currency: string) {
+export function catalogueRowSchema(schema: z.ZodObject, columns: CatalogueColumn[], currency: string) {
   return z.object(Object.fromEntries(columns.map((c) => [c.key, fieldSchema(c, schema.shape[c.key] as z.ZodType, currency)])));
 }
 
 type Props = {
-  columns: ColumnDef[];
+  columns: CatalogueColumn[];
   schema: z.ZodObject;
   currency: string;
   row: Row;

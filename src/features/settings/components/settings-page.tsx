@@ -4,13 +4,13 @@ import { ButtonLink, ErrorState, LoadingState, PageHeader } from '../../../compo
 import { can } from '../../../../shared/auth/policies';
 import { useCurrentUser } from '../../auth';
 import { useCompanySettings } from '../api/company-settings';
-import { CatalogueTable, type ColumnDef } from './catalogue-table';
+import { CatalogueTable, type CatalogueColumn } from './catalogue-table';
 import { CompanySettingsForm } from './company-settings-form';
 
 const taxOptions = Object.entries(TAX_CLASS_LABELS).map(([value, label]) => ({ value, label }));
 
-const PRODUCT_COLUMNS: ColumnDef[] = [
-  { key: 'name', label: 'Name', type: 'text' },
+const PRODUCT_COLUMNS: CatalogueColumn[] = [
+  { key: 'name', label: 'Name', type: 'text', onPhone: true },
   { key: 'supplierCode', label: 'Code', type: 'text' },
   { key: 'thicknessMm', label: 'Thickness mm', type: 'number' },
   { key: 'rollWidthMm', label: 'Width mm', type: 'number' },
@@ -18,28 +18,28 @@ const PRODUCT_COLUMNS: ColumnDef[] = [
   { key: 'rollLengthMm', label: 'Length mm', type: 'number' },
   { key: 'coverageM2', label: 'm²/roll', type: 'number' },
   { key: 'lambdaWmK', label: 'Conductivity W/mK', type: 'number' },
-  { key: 'unitPriceMinor', label: 'Price', type: 'money' },
+  { key: 'unitPriceMinor', label: 'Price', type: 'money', onPhone: true },
   { key: 'unitCostMinor', label: 'Cost', type: 'money' },
   { key: 'roles', label: 'Roles', type: 'roles', inTable: false },
   { key: 'taxClass', label: 'Tax', type: 'select', options: taxOptions, inTable: false },
-  { key: 'active', label: 'Active', type: 'bool' },
+  { key: 'active', label: 'Active', type: 'bool', onPhone: true },
 ];
 
-const EXTRA_COLUMNS: ColumnDef[] = [
+const EXTRA_COLUMNS: CatalogueColumn[] = [
   { key: 'kind', label: 'Kind', type: 'select', options: EXTRA_KINDS.map((k) => ({ value: k, label: EXTRA_KIND_LABELS[k] })) },
-  { key: 'name', label: 'Name', type: 'text' },
+  { key: 'name', label: 'Name', type: 'text', onPhone: true },
   { key: 'unit', label: 'Unit', type: 'select', options: ['each', 'm', 'job'].map((u) => ({ value: u, label: u })) },
-  { key: 'unitPriceMinor', label: 'Price', type: 'money' },
+  { key: 'unitPriceMinor', label: 'Price', type: 'money', onPhone: true },
   { key: 'unitCostMinor', label: 'Cost', type: 'money' },
   { key: 'minutesPerUnit', label: 'Minutes each', type: 'number' },
   { key: 'taxClass', label: 'Tax', type: 'select', options: taxOptions },
-  { key: 'active', label: 'Active', type: 'bool' },
+  { key: 'active', label: 'Active', type: 'bool', onPhone: true },
 ];
 
-const TAX_COLUMNS: ColumnDef[] = [
-  { key: 'taxClass', label: 'Class', type: 'select', options: taxOptions },
-  { key: 'rateBp', label: 'Rate %', type: 'rate' },
-  { key: 'validFrom', label: 'From', type: 'date' },
+const TAX_COLUMNS: CatalogueColumn[] = [
+  { key: 'taxClass', label: 'Class', type: 'select', options: taxOptions, onPhone: true },
+  { key: 'rateBp', label: 'Rate %', type: 'rate', onPhone: true },
+  { key: 'validFrom', label: 'From', type: 'date', onPhone: true },
   { key: 'label', label: 'Label', type: 'text' },
 ];
 

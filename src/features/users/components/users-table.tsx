@@ -1,90 +1,133 @@
+import { createColumnHelper, type Row } from '@tanstack/react-table';
 import type { User } from '../../../../shared/api/users';
 import { ROLES, ROLE_LABELS, type Role } from '../../../../shared/auth/roles';
-import { Alert, Button, Select } from '../../../components/ui';
+import { DataTable } from '../../../components/data-table/data-table';
+import { Alert, Button, EmptyState, Select } from '../../../components/ui';
 import { formErrorMessage } from '../../../lib/forms/server-errors';
 import { useResendInvite } from '../api/resend-invite';
 import { useUpdateUser } from '../api/update-user';
 
+const STATUS = ['Active', 'Invited', 'Deactivated'] as const;
+const statusOf = (u: User) => (!u.active ? 'Deactivated' : !u.hasPassword ? 'Invited' : 'Active');
+
 function Status({ user }: { user: User }) {
-  if (!user.active) return <span className="rounded-full bg-paper-dark px-2 py-0.5 text-xs text-graphite-light">Deactivated</span>;
-  if (!user.hasPassword) return <span className="rounded-full bg-straw-light px-2 py-0.5 text-xs">Invited</span>;
+  const s = statusOf(user);
+  if (s === 'Deactivated') return <span className="rounded-full bg-paper-dark px-2 py-0.5 text-xs text-graphite-light">Deactivated</span>;
+  if (s === 'Invited') return <span className="rounded-full bg-straw-light px-2 py-0.5 text-xs">Invited</span>;
   return <span className="rounded-full bg-teal-light/60 px-2 py-0.5 text-xs text-teal-dark">Active</span>;
 }
 
-const row = 'flex flex-wrap items-center gap-x-3 gap-y-2 px-4 py-3 sm:grid sm:grid-cols-[minmax(0,1fr)_10rem_6.5rem_13.5rem]';
+const col = createColumnHelper<User>();
+const rank =
+  <T,>(list: readonly T[]) =>
+  (a: Row<User>, b: Row<User>, id: string) =>
+    list.indexOf(a.getValue(id)) - list.indexOf(b.getValue(id));
+
+type Props = { users: User[]; currentUserId: string; filter?: string };
 
 /**
- * The company's users: role changes and deactivation in place (not for your own account).
- * A ruled list rather than a table so that on a phone each person folds onto two lines.
+ * The company's users, sortable by name, role and status and filtered by the page's search: role
+ * changes, resending an invitation and deactivation in place (not for your own account). On a
+ * phone the status folds under the name and the buttons stack under the role.
  */
-export function UsersTable({ users, currentUserId }: { users: User[]; currentUserId: string }) {
+export function UsersTable({ users, currentUserId, filter }: Props) {
   const update = useUpdateUser();
   const resend = useResendInvite();
   const pendingId = update.isPending ? update.variables?.id : undefined;
+  const columns = [
+    col.accessor('name', {
+      header: 'Name',
+      sortingFn: (a, b) => a.original.name.localeCompare(b.original.name),
+      meta: { className: 'max-w-[13rem] sm:max-w-none', searchText: (u) => `${u.name} ${u.email}` },
+      cell: (c) => {
+        const u = c.row.original;
+        return (
+          <>
+            <div className="truncate font-medium">
+              {u.name} {u.id === currentUserId && <span className="text-xs font-normal text-graphite-light">(you)</span>}
+            </div>
+            <div className="truncate text-xs text-graphite-light">{u.email}</div>
+            <div className="mt-1 sm:hidden">
+              <Status user={u} />
+            </div>
+          </>
+        );
+      },
+    }),
+    col.accessor(statusOf, {
+      id: 'status',
+      header: 'Status',
+      sortingFn: rank(STATUS),
+      meta: { className: 'hidden w-32 sm:table-cell' },
+      cell: (c) => <Status user={c.row.original} />,
+    }),
+    // The role and the buttons share a cell so that on a phone they stack beside the name.
+    col.accessor('role', {
+      header: 'Role',
+      sortingFn: rank(ROLES),
+      meta: { className: 'w-px sm:w-auto', searchText: (u) => ROLE_LABELS[u.role] },
+      cell: (c) => {
+        const u = c.row.original;
+        const self = u.id === currentUserId;
+        return (
+          <div className="flex flex-col items-end gap-1 sm:flex-row sm:items-center">
+            <Select
+              aria-label={`Role of ${u.name}`}
+              className="h-9 w-32 sm:w-40"
+              value={u.role}
+              disabled={self || pendingId === u.id}
+              onChange={(e) => update.mutate({ id: u.id, body: { role: e.target.value as Role } })}
+            >
+              {ROLES.map((r) => (
+                <option key={r} value={r}>
+                  {ROLE_LABELS[r]}
+                </option>
+              ))}
+            </Select>
+            {!self && (
+              <div className="flex flex-col items-end gap-1 sm:ml-auto sm:flex-row">
+                {u.active && !u.hasPassword && (
+                  <Button
+                    size="sm"
+                    variant="ghost"
+                    aria-label={`Resend invite to ${u.name}`}
+                    busy={resend.isPending && resend.variables === u.id}
+                    onClick={() => resend.mutate(u.id)}
+                  >
+                    Resend invite
+                  </Button>
+                )}
+                <Button
+                  size="sm"
+                  variant={u.active ? 'danger-ghost' : 'secondary'}
+                  aria-label={`${u.active ? 'Deactivate' : 'Reactivate'} ${u.name}`}
+                  busy={pendingId === u.id}
+                  onClick={() => update.mutate({ id: u.id, body: { active: !u.active } })}
+                >
+                  {u.active ? 'Deactivate' : 'Reactivate'}
+                </Button>
+              </div>
+            )}
+          </div>
+        );
+      },
+    }),
+  ];
   return (
     <div className="flex flex-col gap-3">
       {update.isError && <Alert>{formErrorMessage(update.error)}</Alert>}
       {resend.isError && <Alert>{formErrorMessage(resend.error)}</Alert>}
       {resend.isSuccess && <Alert tone="success">A new invitation is on its way to {resend.data.email}.</Alert>}
-      <div className="overflow-hidden rounded-lg border border-paper-line bg-white/85 shadow-sm">
-        <div aria-hidden className={`${row} !hidden bg-paper-dark/70 py-2 text-xs font-semibold uppercase tracking-wide text-graphite-light sm:!grid`}>
-          <span>Name</span>
-          <span>Role</span>
-          <span>Status</span>
-          <span />
-        </div>
-        <ul aria-label="Users" className="divide-y divide-paper-line">
-          {users.map((u) => {
-            const self = u.id === currentUserId;
-            return (
-              <li key={u.id} className={`${row} ${u.active ? '' : 'bg-paper/60'}`}>
-                <div className="min-w-0 flex-1 sm:col-start-1 sm:row-start-1">
-                  <div className="truncate font-medium">
-                    {u.name} {self && <span className="text-xs font-normal text-graphite-light">(you)</span>}
-                  </div>
-                  <div className="truncate text-xs text-graphite-light">{u.email}</div>
-                </div>
-                <div className="shrink-0 sm:col-start-3 sm:row-start-1">
-                  <Status user={u} />
-                </div>
-                {/* On a phone the role and the buttons share the second line; on a desktop they are columns. */}
-                <div className="flex w-full flex-wrap items-center gap-2 sm:contents">
-                  <Select
-                    aria-label={`Role of ${u.name}`}
-                    className="h-9 min-w-[9rem] flex-1 sm:col-start-2 sm:row-start-1 sm:w-full"
-                    value={u.role}
-                    disabled={self || pendingId === u.id}
-                    onChange={(e) => update.mutate({ id: u.id, body: { role: e.target.value as Role } })}
-                  >
-                    {ROLES.map((r) => (
-                      <option key={r} value={r}>
-                        {ROLE_LABELS[r]}
-                      </option>
-                    ))}
-                  </Select>
-                  <div className="ml-auto flex shrink-0 justify-end gap-1 sm:col-start-4 sm:row-start-1">
-                    {!self && u.active && !u.hasPassword && (
-                      <Button size="sm" variant="ghost" busy={resend.isPending && resend.variables === u.id} onClick={() => resend.mutate(u.id)}>
-                        Resend invite
-                      </Button>
-                    )}
-                    {!self && (
-                      <Button
-                        size="sm"
-                        variant={u.active ? 'danger-ghost' : 'secondary'}
-                        busy={pendingId === u.id}
-                        onClick={() => update.mutate({ id: u.id, body: { active: !u.active } })}
-                      >
-                        {u.active ? 'Deactivate' : 'Reactivate'}
-                      </Button>
-                    )}
-                  </div>
-                </div>
-              </li>
-            );
-          })}
-        </ul>
-      </div>
+      <DataTable
+        label="Users"
+        data={users}
+        columns={columns as never}
+        rowId={(u) => u.id}
+        filter={filter}
+        pageSize={25}
+        rowClassName={(u) => (u.active ? undefined : 'bg-paper/60')}
+        noMatch={<EmptyState title="No user matches">Nothing matches “{filter}”.</EmptyState>}
+      />
     </div>
   );
 }
