@@ -32,6 +32,8 @@ async function main() {
   // Revisions stored without a takeoff of the current format (older data, a format bump) get one.
   const backfill = await backfillStoredTakeoffs((line) => log.warn(line));
   if (backfill.updated || backfill.failed) log.info({ updated: backfill.updated, failed: backfill.failed }, 'takeoffs backfilled');
+  // E-mail whose last try an earlier stop cut off is shown failed now, not after the first interval.
+  await deps.mailQueue.failOrphans().catch((e: unknown) => log.warn(`mail: orphan sweep failed (${(e as Error).message})`));
   const app = createApp(deps);
   const server = app.listen(config.port, config.host, () => {
     log.info(`Quiltline listening on http://${config.host}:${config.port}`);

@@ -211,9 +211,9 @@ export function createMailQueue(opts: MailQueueOptions): MailQueue {
         deliver(job.data.messageId, job.retryCount >= job.retryLimit),
       );
       state = 'running';
-      // Every instance sweeps (the guarded UPDATE makes overlapping sweeps harmless), at start and
-      // as often as pg-boss's maintenance expires lost jobs.
-      await failOrphans();
+      // Every instance sweeps (the guarded UPDATE makes overlapping sweeps harmless) as often as
+      // pg-boss's maintenance expires lost jobs; index.ts sweeps once more after the migrations
+      // (this runs before them, on a database that may not have the table yet).
       sweep = setInterval(() => failOrphans().catch((e: unknown) => log(`orphan sweep: ${reasonOf(e)}`)), maintenanceIntervalSeconds * 1000);
       sweep.unref();
     },
