@@ -1,5 +1,5 @@
 export { useZodForm } from './use-zod-form';
 export { showServerErrors } from './server-errors';
 export { booleanText, moneyText, numberText, percentText, trimmedText } from './text-fields';
-export { FormField, hasFieldErrors } from './form-field';
+export { FormField, hasFieldErrors, useFieldError } from './form-field';
 export { FormSelect } from './form-select';

@@ -1,23 +1,8 @@
-import { get, useFieldArray, useFormContext, useFormState } from 'react-hook-form';
+import { useFieldArray, useFormContext } from 'react-hook-form';
 import { TAX_CLASSES, TAX_CLASS_LABELS } from '../../../../shared/api/settings';
 import { Button, Input } from '../../../components/ui';
-import { FormSelect } from '../../../lib/forms';
+import { FormSelect, useFieldError } from '../../../lib/forms';
 import { emptyLine, type LineValues } from './line-form-schema';
-
-/** The message for one cell, under it, tied to its control by aria-describedby. */
-function useCellError(path: string) {
-  const { errors } = useFormState({ name: path });
-  const message = (get(errors, path) as { message?: string } | undefined)?.message;
-  const id = `${path.replace(/\./g, '-')}-error`;
-  return {
-    props: message ? { 'aria-invalid': true as const, 'aria-describedby': id } : {},
-    node: message ? (
-      <p id={id} className="text-xs font-medium text-brick-dark">
-        {message}
-      </p>
-    ) : null,
-  };
-}
 
 function Cell({
   path,
@@ -26,9 +11,9 @@ function Cell({
 }: {
   path: string;
   className?: string;
-  children: (props: ReturnType<typeof useCellError>['props']) => React.ReactNode;
+  children: (props: ReturnType<typeof useFieldError>['props']) => React.ReactNode;
 }) {
-  const error = useCellError(path);
+  const error = useFieldError(path);
   return (
     <div className={`flex flex-col gap-0.5 ${className ?? ''}`}>
       {children(error.props)}
