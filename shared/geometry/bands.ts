@@ -30,6 +30,8 @@ interface Edge {
   ya: number;
   xb: number;
   yb: number;
+  /** (xb − xa) / (yb − ya), worked out once. */
+  slope: number;
 }
 
 const EPS = 1e-7;
@@ -47,6 +49,10 @@ export const SNAP_MM = 0.01;
 
 // Helpers live at module level: hot loops must not create closures (a bundler's keep-names
 // wrapper makes every closure creation costly, and the engine cannot inline them).
+
+function edge(xa: number, ya: number, xb: number, yb: number): Edge {
+  return { xa, ya, xb, yb, slope: (xb - xa) / (yb - ya) };
+}
 
 /** Sorts the first `n` crossings by `m`, moving `at0`/`at1` along (insertion sort: n is small). */
 function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n: number): void {
@@ -83,7 +89,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
       const a = ring[i];
       const b = ring[(i + 1) % n];
       if (a[1] === b[1]) continue;
-      const e: Edge = a[1] < b[1] ? { xa: a[0], ya: a[1], xb: b[0], yb: b[1] } : { xa: b[0], ya: b[1], xb: a[0], yb: a[1] };
+      const e: Edge = a[1] < b[1] ? edge(a[0], a[1], b[0], b[1]) : edge(b[0], b[1], a[0], a[1]);
       // First band whose top lies above the edge's bottom end.
       let lo = 0;
       let hi = nb;
@@ -107,6 +113,13 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
   let xm = new Float64Array(cap);
   let x0 = new Float64Array(cap);
   let x1 = new Float64Array(cap);
+  // Sub-slab middles and, per sub-slab, the edges crossing it (see below), reused band to band.
+  let mids = new Float64Array(64);
+  let slabEdgeStart = new Int32Array(64);
+  let slabFill = new Int32Array(64);
+  let slabEdges = new Int32Array(256);
+  let edgeFrom = new Int32Array(64);
+  let edgeTo = new Int32Array(64);
   for (let bi = 0; bi < bands.length; bi++) {
     const lo = bands[bi].loMm;
     const hi = bands[bi].hiMm;
@@ -132,27 +145,60 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
     else ys[ys.length - 1] = hi;
     traps.n = 0;
     slabStart.length = 0;
-    for (let si = 0; si + 1 < ys.length; si++) {
+    // Each edge crosses the middles of a run of sub-slabs: list it under each of them (in the
+    // order of `active`, as a scan of every edge per sub-slab would meet them), so a sub-slab
+    // looks only at the edges that cross it.
+    const ns = ys.length - 1;
+    if (mids.length < ns) mids = new Float64Array(2 * ns);
+    for (let si = 0; si < ns; si++) mids[si] = (ys[si] + ys[si + 1]) / 2;
+    if (slabEdgeStart.length < ns + 1) slabEdgeStart = new Int32Array(2 * ns + 2);
+    if (edgeFrom.length < w) {
+      edgeFrom = new Int32Array(2 * w);
+      edgeTo = new Int32Array(2 * w);
+    }
+    for (let si = 0; si <= ns; si++) slabEdgeStart[si] = 0;
+    for (let k = 0; k < w; k++) {
+      const e = active[k];
+      // First sub-slab whose middle lies above the edge's lower end, then those below its upper end.
+      let a = 0;
+      let b = ns;
+      while (a < b) {
+        const mid = (a + b) >> 1;
+        if (mids[mid] > e.ya) b = mid;
+        else a = mid + 1;
+      }
+      let z = a;
+      while (z < ns && mids[z] < e.yb) z++;
+      edgeFrom[k] = a;
+      edgeTo[k] = z;
+      for (let si = a; si < z; si++) slabEdgeStart[si + 1]++;
+    }
+    for (let si = 0; si < ns; si++) slabEdgeStart[si + 1] += slabEdgeStart[si];
+    const total = slabEdgeStart[ns];
+    if (slabEdges.length < total) slabEdges = new Int32Array(2 * total);
+    if (slabFill.length < ns) slabFill = new Int32Array(2 * ns);
+    for (let si = 0; si < ns; si++) slabFill[si] = slabEdgeStart[si];
+    for (let k = 0; k < w; k++) for (let si = edgeFrom[k]; si < edgeTo[k]; si++) slabEdges[slabFill[si]++] = k;
+    for (let si = 0; si < ns; si++) {
       slabStart.push(traps.n);
       const y0 = ys[si];
       const y1 = ys[si + 1];
-      const ym = (y0 + y1) / 2;
-      if (w > cap) {
-        cap = w * 2;
+      const ym = mids[si];
+      const n = slabEdgeStart[si + 1] - slabEdgeStart[si];
+      if (n > cap) {
+        cap = n * 2;
         xm = new Float64Array(cap);
         x0 = new Float64Array(cap);
         x1 = new Float64Array(cap);
       }
       let nx = 0;
-      for (let k = 0; k < w; k++) {
-        const e = active[k];
-        if (e.ya < ym && e.yb > ym) {
-          const slope = (e.xb - e.xa) / (e.yb - e.ya);
-          xm[nx] = e.xa + slope * (ym - e.ya);
-          x0[nx] = e.xa + slope * (Math.max(y0, e.ya) - e.ya);
-          x1[nx] = e.xa + slope * (Math.min(y1, e.yb) - e.ya);
-          nx++;
-        }
+      for (let q = slabEdgeStart[si]; q < slabEdgeStart[si + 1]; q++) {
+        const e = active[slabEdges[q]];
+        const slope = e.slope;
+        xm[nx] = e.xa + slope * (ym - e.ya);
+        x0[nx] = e.xa + slope * (Math.max(y0, e.ya) - e.ya);
+        x1[nx] = e.xa + slope * (Math.min(y1, e.yb) - e.ya);
+        nx++;
       }
       sortCrossings(xm, x0, x1, nx);
       for (let k = 0; k + 1 < nx; k += 2) {

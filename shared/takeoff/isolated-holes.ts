@@ -1,7 +1,7 @@
 import { segmentIntersection } from '../geometry/segment';
 import { polygonBounds, type MultiPolygon, type PolygonWithHoles, type Ring } from '../geometry/polygon';
 import { differencePolygons } from '../geometry/boolean';
-import { indexedContainsPoint, indexRing, type RingIndex } from '../geometry/ring-index';
+import { indexedContainsPoint, indexRing, slabOf, type RingIndex } from '../geometry/ring-index';
 import type { Vec2 } from '../geometry/vector';
 
 type Box = { minX: number; minY: number; maxX: number; maxY: number };
@@ -40,7 +40,7 @@ export function subtractShapes(outline: Vec2[], shapes: PolygonWithHoles[], othe
   for (let i = 0; i < shapes.length; i++) {
     if (!isolated[i]) continue;
     const ring = shapes[i][0];
-    if (!indexedContainsPoint(outlineIndex!, ring[0]) || touchesOutline(ring, boxes[i], outline, edgeBoxes)) isolated[i] = false;
+    if (!indexedContainsPoint(outlineIndex!, ring[0]) || touchesOutline(ring, boxes[i], outline, edgeBoxes, outlineIndex!)) isolated[i] = false;
   }
   const rest = shapes.filter((_, i) => !isolated[i]);
   const holes = shapes.filter((_, i) => isolated[i]).map((s) => s[0]);
@@ -55,9 +55,12 @@ export function subtractShapes(outline: Vec2[], shapes: PolygonWithHoles[], othe
   return region;
 }
 
-function touchesOutline(ring: Ring, box: Box, outline: Vec2[], edgeBoxes: Box[]): boolean {
+function touchesOutline(ring: Ring, box: Box, outline: Vec2[], edgeBoxes: Box[], index: RingIndex): boolean {
   const n = outline.length;
-  for (let e = 0; e < n; e++) {
+  // Only walls whose height range meets the shape's can touch it: those listed in its slabs.
+  const s1 = slabOf(index, box.maxY);
+  for (let i = index.start[slabOf(index, box.minY)]; i < index.start[s1 + 1]; i++) {
+    const e = index.edges[i];
     if (!overlaps(box, edgeBoxes[e])) continue;
     const a = outline[e];
     const b = outline[(e + 1) % n];

@@ -39,9 +39,13 @@ export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segmen
     (r) => r.hi0,
     (r) => r.hi1,
   );
-  const xs: number[] = [];
-  for (let j = 0; j < ribbons.length; j++) xs.push(lo[j], hi[j]);
-  xs.sort((a, b) => a - b);
+  // A typed array sorts numbers natively (no comparator call per comparison).
+  const xs = new Float64Array(2 * ribbons.length);
+  for (let j = 0; j < ribbons.length; j++) {
+    xs[2 * j] = lo[j];
+    xs[2 * j + 1] = hi[j];
+  }
+  xs.sort();
   let segs: StripSegment[] = [];
   for (let k = 0; k + 1 < xs.length; k++) {
     const len = xs[k + 1] - xs[k];
