@@ -1,7 +1,9 @@
 // The quote lines editor in a real browser, as the office: a price the money parser cannot read is
 // named on its row's price field and holds the totals; a date only the server can refuse comes back
-// as a 422 shown on that field; the saved lines are what was typed. At 1280 and 390 px, and an
-// accepted quote shows its lines as text. Screenshots go to test-output/screenshots/.
+// as a 422 shown on that field; the saved lines are what was typed; axe finds nothing serious on
+// the editable lines. At 1280 and 390 px; an accepted quote shows its lines as text. Screenshots go
+// to test-output/screenshots/.
+import { AxeBuilder } from '@axe-core/playwright';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Organisation, Quote, QuoteLine } from '../../server/db/models';
@@ -40,6 +42,13 @@ async function officePage(): Promise<Page> {
   await signInThroughUi(page, suite.app.url, 'office@demo.example.com', DEMO_PASSWORD);
   return page;
 }
+/** Serious and critical WCAG 2.2 A/AA violations axe finds on the editable lines as they stand (with a message showing). */
+async function axeProblems(page: Page): Promise<string[]> {
+  const r = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  return r.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
+}
 const pageOverflow = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
 
 describe('quote lines editor in a real browser', () => {
@@ -60,6 +69,7 @@ describe('quote lines editor in a real browser', () => {
     expect(await page.getByLabel('Line 2 unit price').getAttribute('aria-invalid')).toBeNull();
     await page.getByText('Fix the lines marked in red to see the totals.').waitFor();
     await screenshot(page, 'quote-lines-02-bad-price-1280');
+    expect(await axeProblems(page)).toEqual([]);
     await price1.fill('30.00');
     await expect.poll(() => price1.getAttribute('aria-invalid')).toBeNull();
     await page.getByTestId('total-gross').waitFor();
@@ -104,6 +114,7 @@ describe('quote lines editor in a real browser', () => {
     await page.getByLabel('Line 2 quantity').fill('-1');
     expect(await messageOf(page, page.getByLabel('Line 2 quantity'))).toBe('quantity cannot be negative');
     await screenshot(page, 'quote-lines-05-bad-quantity-390');
+    expect(await axeProblems(page)).toEqual([]);
     await page.close();
   }, 120_000);
 
