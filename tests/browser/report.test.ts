@@ -84,6 +84,19 @@ describe('estimate against actual report', () => {
     await expect.poll(async () => (await JobActual.findByPk(job.id))!.rolls[0].used).toBe(first.used + 3);
     expect((await JobActual.findByPk(job.id))!.version).toBe(stored.version + 1);
 
+    // The correction form on a phone: nothing wider than the screen.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.reload();
+    await card.getByText('What was used, as recorded').click();
+    await card.getByRole('button', { name: 'Correct what was used' }).click();
+    await card.getByRole('button', { name: 'Save correction' }).waitFor();
+    await card.scrollIntoViewIfNeeded();
+    await screenshot(page, 'job-actuals-correct-390');
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    expect(await card.getByRole('list', { name: 'Rolls per product' }).innerText()).toContain(`used ${first.used + 3}`);
+    await card.getByRole('button', { name: 'Cancel' }).click();
+    await page.setViewportSize({ width: 1280, height: 900 });
+
     const report = await page.evaluate(async () => (await fetch('/api/reports/estimate-vs-actual?from=2000-01-01&to=2100-01-01')).json());
     const row = report.rows.find((r: { jobId: string }) => r.jobId === job.id);
     expect(row.usedRolls).toBe(stored.rolls.reduce((a, r) => a + r.used, 0) + 3);

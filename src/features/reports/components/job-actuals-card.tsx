@@ -37,28 +37,41 @@ export function JobActualsCard({ jobId, installer }: { jobId: string; installer?
           : 'Nothing was recorded on finishing: the costs below are the estimate.'}
         {edited && ` Corrected by ${edited.by}, ${formatDateTime(edited.at)}.`}
       </p>
-      <Table>
-        <THead>
-          <Tr>
-            <Th>Product</Th>
-            <Th className="text-right">Packing</Th>
-            <Th className="text-right">Rule of thumb</Th>
-            <Th className="text-right">Used</Th>
-            <Th className="text-right">Back</Th>
-          </Tr>
-        </THead>
-        <TBody>
-          {c.products.map((p) => (
-            <Tr key={p.productId}>
-              <Td>{p.productName}</Td>
-              <Td className="text-right font-mono">{p.byPacking}</Td>
-              <Td className="text-right font-mono">{p.byRuleOfThumb}</Td>
-              <Td className="text-right font-mono">{n(p.used)}</Td>
-              <Td className="text-right font-mono">{n(p.returned)}</Td>
+      {/* On a phone each product is a line of labelled counts: the table's last columns (used, back) scroll off there. */}
+      <ul className="divide-y divide-paper-line text-sm sm:hidden" aria-label="Rolls per product">
+        {c.products.map((p) => (
+          <li key={p.productId} className="py-1.5">
+            <div>{p.productName}</div>
+            <div className="text-graphite-light">
+              packing {p.byPacking} · rule of thumb {p.byRuleOfThumb} · used <span className="text-graphite">{n(p.used)}</span> · back {n(p.returned)}
+            </div>
+          </li>
+        ))}
+      </ul>
+      <div className="hidden sm:block">
+        <Table>
+          <THead>
+            <Tr>
+              <Th>Product</Th>
+              <Th className="text-right">Packing</Th>
+              <Th className="text-right">Rule of thumb</Th>
+              <Th className="text-right">Used</Th>
+              <Th className="text-right">Back</Th>
             </Tr>
-          ))}
-        </TBody>
-      </Table>
+          </THead>
+          <TBody>
+            {c.products.map((p) => (
+              <Tr key={p.productId}>
+                <Td>{p.productName}</Td>
+                <Td className="text-right font-mono">{p.byPacking}</Td>
+                <Td className="text-right font-mono">{p.byRuleOfThumb}</Td>
+                <Td className="text-right font-mono">{n(p.used)}</Td>
+                <Td className="text-right font-mono">{n(p.returned)}</Td>
+              </Tr>
+            ))}
+          </TBody>
+        </Table>
+      </div>
       <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4">
         <dt className="text-graphite-light">Waste / allowed</dt>
         <dd className="font-mono">
