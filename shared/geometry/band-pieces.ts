@@ -51,6 +51,9 @@ export interface Ribbon {
   coveredMm: number;
 }
 
+/** Makes an outline's point from its frame coordinates (`s` along the band, `t` across). */
+export type PointMap = (s: number, t: number) => Vec2;
+
 const EPS = 1e-7;
 
 /**
@@ -125,10 +128,10 @@ function findRoot(parent: Int32Array, i: number): number {
 /**
  * Joins a band's trapezoids into pieces (union-find over overlapping neighbours in consecutive
  * sub-slabs; `slabStart[s]` is the first trapezoid of sub-slab `s`, `slabStart[slabs]` the count)
- * and outlines them. Pieces under `minAreaMm2` are dropped; the rest are appended to `out` in
+ * and outlines them, each outline point made by `toPoint` when given. Pieces under `minAreaMm2` are dropped; the rest are appended to `out` in
  * order of `sMinMm` (ties in the order their first trapezoid was cut).
  */
-export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAreaMm2: number, out: BandPiece[], S: PieceScratch): void {
+export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAreaMm2: number, out: BandPiece[], S: PieceScratch, toPoint?: PointMap): void {
   const nt = T.n;
   const parent = ints(S, 0, nt);
   const ups = ints(S, 1, nt);
@@ -233,7 +236,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     }
     if (area < minAreaMm2) continue;
     const polygons: Vec2[][] = [];
-    for (let m = first[g]; m < first[g + 1]; m++) if (!hasPrev[members[m]]) polygons.push(runOutline(T, runNext, members[m], S));
+    for (let m = first[g]; m < first[g + 1]; m++) if (!hasPrev[members[m]]) polygons.push(runOutline(T, runNext, members[m], S, toPoint));
     const t = largest;
     const insideAt: Vec2 = [(T.l0[t] + T.l1[t] + T.r0[t] + T.r1[t]) / 4, (T.y0[t] + T.y1[t]) / 2];
     out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons, insideAt, ribbons });
@@ -253,7 +256,7 @@ const bySMin = (p: BandPiece, q: BandPiece) => p.sMinMm - q.sMinMm;
  * trapezoid's top end differs from the next one's bottom end. Repeated and collinear points
  * (within 1e-6 mm) are dropped in one pass; winding is made positive.
  */
-function runOutline(T: Trapezoids, runNext: Int32Array, head: number, S: PieceScratch): Vec2[] {
+function runOutline(T: Trapezoids, runNext: Int32Array, head: number, S: PieceScratch, toPoint: PointMap | undefined): Vec2[] {
   let len = 0;
   for (let k = head; k >= 0; k = runNext[k]) len++;
   if (S.xs.length < 4 * len) {
@@ -307,7 +310,7 @@ function runOutline(T: Trapezoids, runNext: Int32Array, head: number, S: PieceSc
   const pts: Vec2[] = new Array(nk);
   for (let i = 0; i < nk; i++) {
     const k = keep[s < 0 ? nk - 1 - i : i];
-    pts[i] = [xs[k], ys[k]];
+    pts[i] = toPoint ? toPoint(xs[k], ys[k]) : [xs[k], ys[k]];
   }
   return pts;
 }

@@ -1,7 +1,7 @@
 import type { Ring } from './polygon';
-import { bandPieces, newPieceScratch, newTrapezoids, pushTrapezoid, type BandPiece } from './band-pieces';
+import { bandPieces, newPieceScratch, newTrapezoids, pushTrapezoid, type BandPiece, type PointMap } from './band-pieces';
 
-export type { BandPiece, Ribbon } from './band-pieces';
+export type { BandPiece, PointMap, Ribbon } from './band-pieces';
 
 /**
  * Band clipping: cut a polygonal area into the pieces that fall inside parallel bands.
@@ -76,9 +76,11 @@ function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n:
 /**
  * Pieces of the region (`rings`, frame coordinates) inside each band. Bands must be sorted by
  * `loMm` and must not overlap. Pieces smaller than `minAreaMm2` (slivers where a band grazes
- * a corner) are dropped. Output is ordered by band, then by `sMinMm`.
+ * a corner) are dropped. Output is ordered by band, then by `sMinMm`. The outlines' points are
+ * `[s, t]`, or `toPoint(s, t)` when given (say, already mapped back to the plan: one array per
+ * point made instead of two).
  */
-export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1): BandPiece[] {
+export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, toPoint?: PointMap): BandPiece[] {
   // Bucket each edge by the first band it can reach (binary search) instead of sorting them all.
   const buckets: Edge[][] = [];
   for (let i = 0; i < bands.length; i++) buckets.push([]);
@@ -206,7 +208,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1):
       }
     }
     slabStart.push(traps.n);
-    if (traps.n) bandPieces(bi, traps, slabStart, minAreaMm2, out, scratch);
+    if (traps.n) bandPieces(bi, traps, slabStart, minAreaMm2, out, scratch, toPoint);
   }
   return out;
 }

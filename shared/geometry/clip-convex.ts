@@ -13,6 +13,8 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
   // The passes pass points along by reference (the outline's own corners among them); only what
   // is left at the end is copied, so clipping a long outline by a small band makes little garbage.
   let out: ReadonlyArray<readonly number[]> = subject;
+  // Two lists used in turn, each pass reading one and filling the other.
+  const lists: (readonly number[])[][] = [[], []];
   const m = clip.length;
   for (let i = 0; i < m && out.length; i++) {
     const a = clip[i];
@@ -23,7 +25,8 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
     const ey = b[1] - ay;
     // Positive signed area: the inside lies to the +90° side of each clip edge.
     const input = out;
-    const next: (readonly number[])[] = [];
+    const next = lists[i % 2];
+    next.length = 0;
     out = next;
     const n = input.length;
     for (let k = 0; k < n; k++) {

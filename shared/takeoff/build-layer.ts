@@ -108,7 +108,7 @@ export function buildLayer(
       extentMm: r1(r.extentMm),
       areaM2: r4(m2(r.areaMm2 - fillArea)),
       cutOutM2: r4(m2(r.cutOuts.reduce((t, c) => t + c.lengthMm * c.acrossMm, 0))),
-      polygons: r.polygons.map((poly) => poly.map(pt)),
+      polygons: r.polygons,
       labelAt: pt(r.insideAt),
       pieces: [],
     };

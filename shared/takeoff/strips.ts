@@ -33,7 +33,7 @@ export interface RawStrip {
   midT: number;
   /** A point inside the strip, plan coordinates (see `BandPiece.insideAt`), mm. */
   insideAt: Vec2;
-  /** The strip as one or more simple polygons in plan coordinates (see `BandPiece.polygons`), mm. */
+  /** The strip as one or more simple polygons in plan coordinates (see `BandPiece.polygons`), rounded to 0.1 mm as the takeoff shows them. */
   polygons: Vec2[][];
 }
 
@@ -83,6 +83,8 @@ export function layerBands(plan: Plan, role: LayerRole, laneWidthMm: number, reg
 }
 
 const EDGE_TOL_MM = 1;
+// `+ 0` turns -0 into 0, which JSON cannot tell apart anyway.
+const r1 = (x: number) => Math.round(x * 10) / 10 + 0;
 
 /**
  * Rounds `x` up to a multiple of `stepMm`, except that a length within `toleranceMm` above a
@@ -106,7 +108,10 @@ export function roundUpToStep(x: number, stepMm: number, toleranceMm = 1): numbe
 export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowanceMm: number, minSegmentMm = 500): RawStrip[] {
   const rings: Vec2[][] = [];
   for (const poly of region) for (const ring of poly) rings.push(ring.map((p) => toFrame(lb.frame, p)));
-  const pieces = clipRegionToBands(rings, lb.bands);
+  // Outline points go straight back to the plan, rounded as shown (no frame copy in between).
+  const { along, across } = lb.frame;
+  const toPlan = (s: number, t: number): Vec2 => [r1(s * along[0] + t * across[0]), r1(s * along[1] + t * across[1])];
+  const pieces = clipRegionToBands(rings, lb.bands, 1, toPlan);
   return pieces.map((pc) => {
     const band = lb.bands[pc.bandIndex];
     const extentMm = pc.sMaxMm - pc.sMinMm;
@@ -135,7 +140,7 @@ export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowance
       areaMm2: pc.areaMm2,
       midS: (pc.sMinMm + pc.sMaxMm) / 2,
       midT: (band.loMm + band.hiMm) / 2,
-      polygons: pc.polygons.map((poly) => poly.map((q) => fromFrame(lb.frame, q))),
+      polygons: pc.polygons,
       insideAt: fromFrame(lb.frame, pc.insideAt),
     };
   });
