@@ -25,15 +25,6 @@ export interface Band {
   hiMm: number;
 }
 
-interface Edge {
-  xa: number;
-  ya: number;
-  xb: number;
-  yb: number;
-  /** (xb − xa) / (yb − ya), worked out once. */
-  slope: number;
-}
-
 const EPS = 1e-7;
 /**
  * Float dust, mm: two lengths (or band coordinates) closer than this are the same one. Booleans
@@ -49,10 +40,6 @@ export const SNAP_MM = 0.01;
 
 // Helpers live at module level: hot loops must not create closures (a bundler's keep-names
 // wrapper makes every closure creation costly, and the engine cannot inline them).
-
-function edge(xa: number, ya: number, xb: number, yb: number): Edge {
-  return { xa, ya, xb, yb, slope: (xb - xa) / (yb - ya) };
-}
 
 /** Sorts the first `n` crossings by `m`, moving `at0`/`at1` along (insertion sort: n is small). */
 function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n: number): void {
@@ -81,30 +68,54 @@ function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n:
  * point made instead of two).
  */
 export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, toPoint?: PointMap): BandPiece[] {
-  // Bucket each edge by the first band it can reach (binary search) instead of sorting them all.
-  const buckets: Edge[][] = [];
-  for (let i = 0; i < bands.length; i++) buckets.push([]);
+  // Edges one column per field (objects with number fields box each number), bucketed by the
+  // first band each can reach (binary search) instead of sorting them all.
+  let cap0 = 0;
+  for (const ring of rings) cap0 += ring.length;
+  const XA = new Float64Array(cap0);
+  const YA = new Float64Array(cap0);
+  const XB = new Float64Array(cap0);
+  const YB = new Float64Array(cap0);
+  const SL = new Float64Array(cap0);
+  const bucketOf = new Int32Array(cap0);
+  let ne = 0;
   const nb = bands.length;
   for (const ring of rings) {
     const n = ring.length;
     for (let i = 0; i < n; i++) {
-      const a = ring[i];
-      const b = ring[(i + 1) % n];
-      if (a[1] === b[1]) continue;
-      const e: Edge = a[1] < b[1] ? edge(a[0], a[1], b[0], b[1]) : edge(b[0], b[1], a[0], a[1]);
+      const p = ring[i];
+      const q = ring[(i + 1) % n];
+      if (p[1] === q[1]) continue;
+      const up = p[1] < q[1];
+      const a = up ? p : q;
+      const b = up ? q : p;
       // First band whose top lies above the edge's bottom end.
       let lo = 0;
       let hi = nb;
       while (lo < hi) {
         const mid = (lo + hi) >> 1;
-        if (bands[mid].hiMm <= e.ya) lo = mid + 1;
+        if (bands[mid].hiMm <= a[1]) lo = mid + 1;
         else hi = mid;
       }
-      if (lo < nb && bands[lo].loMm < e.yb) buckets[lo].push(e);
+      if (!(lo < nb && bands[lo].loMm < b[1])) continue;
+      XA[ne] = a[0];
+      YA[ne] = a[1];
+      XB[ne] = b[0];
+      YB[ne] = b[1];
+      SL[ne] = (b[0] - a[0]) / (b[1] - a[1]);
+      bucketOf[ne++] = lo;
     }
   }
+  // Each band's new edges in the order they were met (a counting sort keeps that order).
+  const bucketStart = new Int32Array(nb + 1);
+  for (let e = 0; e < ne; e++) bucketStart[bucketOf[e] + 1]++;
+  for (let i = 0; i < nb; i++) bucketStart[i + 1] += bucketStart[i];
+  const bucketFill = bucketStart.slice(0, nb);
+  const bucketEdges = new Int32Array(ne);
+  for (let e = 0; e < ne; e++) bucketEdges[bucketFill[bucketOf[e]]++] = e;
+  const active = new Int32Array(ne);
+  let na = 0;
   const out: BandPiece[] = [];
-  const active: Edge[] = [];
   let cuts = new Float64Array(64);
   const ys: number[] = [];
   const slabStart: number[] = [];
@@ -125,19 +136,19 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
   for (let bi = 0; bi < bands.length; bi++) {
     const lo = bands[bi].loMm;
     const hi = bands[bi].hiMm;
-    const bucket = buckets[bi];
-    for (let k = 0; k < bucket.length; k++) active.push(bucket[k]);
+    for (let k = bucketStart[bi]; k < bucketStart[bi + 1]; k++) active[na++] = bucketEdges[k];
     if (!(hi - lo > EPS)) continue;
     let w = 0;
-    for (let k = 0; k < active.length; k++) if (active[k].yb > lo) active[w++] = active[k];
-    active.length = w;
+    for (let k = 0; k < na; k++) if (YB[active[k]] > lo) active[w++] = active[k];
+    na = w;
     if (w === 0) continue;
     if (cuts.length < 2 * w) cuts = new Float64Array(4 * w);
     let nc = 0;
     for (let k = 0; k < w; k++) {
-      const e = active[k];
-      if (e.ya > lo + SNAP_MM && e.ya < hi - SNAP_MM) cuts[nc++] = e.ya;
-      if (e.yb > lo + SNAP_MM && e.yb < hi - SNAP_MM) cuts[nc++] = e.yb;
+      const ya = YA[active[k]];
+      const yb = YB[active[k]];
+      if (ya > lo + SNAP_MM && ya < hi - SNAP_MM) cuts[nc++] = ya;
+      if (yb > lo + SNAP_MM && yb < hi - SNAP_MM) cuts[nc++] = yb;
     }
     const sorted = cuts.subarray(0, nc).sort();
     ys.length = 0;
@@ -160,17 +171,18 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
     }
     for (let si = 0; si <= ns; si++) slabEdgeStart[si] = 0;
     for (let k = 0; k < w; k++) {
-      const e = active[k];
+      const ya = YA[active[k]];
+      const yb = YB[active[k]];
       // First sub-slab whose middle lies above the edge's lower end, then those below its upper end.
       let a = 0;
       let b = ns;
       while (a < b) {
         const mid = (a + b) >> 1;
-        if (mids[mid] > e.ya) b = mid;
+        if (mids[mid] > ya) b = mid;
         else a = mid + 1;
       }
       let z = a;
-      while (z < ns && mids[z] < e.yb) z++;
+      while (z < ns && mids[z] < yb) z++;
       edgeFrom[k] = a;
       edgeTo[k] = z;
       for (let si = a; si < z; si++) slabEdgeStart[si + 1]++;
@@ -196,10 +208,12 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
       let nx = 0;
       for (let q = slabEdgeStart[si]; q < slabEdgeStart[si + 1]; q++) {
         const e = active[slabEdges[q]];
-        const slope = e.slope;
-        xm[nx] = e.xa + slope * (ym - e.ya);
-        x0[nx] = e.xa + slope * (Math.max(y0, e.ya) - e.ya);
-        x1[nx] = e.xa + slope * (Math.min(y1, e.yb) - e.ya);
+        const slope = SL[e];
+        const xa = XA[e];
+        const ya = YA[e];
+        xm[nx] = xa + slope * (ym - ya);
+        x0[nx] = xa + slope * (Math.max(y0, ya) - ya);
+        x1[nx] = xa + slope * (Math.min(y1, YB[e]) - ya);
         nx++;
       }
       sortCrossings(xm, x0, x1, nx);
