@@ -78,7 +78,9 @@ describe('role-aware navigation', () => {
     fakeApi(({ url }) =>
       url.pathname === '/api/jobs'
         ? { status: 401, body: { error: { code: 'unauthenticated', message: 'sign in first' } } }
-        : { body: { enabled: true, messages: [] } },
+        : url.pathname === '/api/jobs/installers'
+          ? { body: { installers: [] } }
+          : { body: { enabled: true, messages: [] } },
     );
     const routes = [
       { path: '/sign-in', element: <p>sign-in page</p> },
