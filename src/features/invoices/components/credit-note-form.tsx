@@ -5,11 +5,11 @@ import { creditNoteCreateSchema, type Invoice, type InvoiceLine } from '../../..
 import type { TaxClass } from '../../../../shared/api/settings';
 import { formatMoneyInput } from '../../../../shared/quote/money-input';
 import { Alert, Button, Field, Input, Select } from '../../../components/ui';
-import { FormField, showServerErrors, useZodForm } from '../../../lib/forms';
+import { FormField, setErrorOnSentRows, showServerErrors, useZodForm } from '../../../lib/forms';
 import { asSentence } from '../../../lib/form-errors';
 import { useCreateCreditNote } from '../api/update-invoice';
 import { LineEditor } from './line-editor';
-import { emptyLine, isBlankLine, linesFormSchema, type LineValues } from './line-form-schema';
+import { emptyLine, isBlankLine, keptRows, linesFormSchema, type LineValues } from './line-form-schema';
 
 /** A credit line copied from an invoice line, with that line's tax class (a zero-rated line is credited at zero). */
 export function creditLineFrom(line: InvoiceLine, currency: string): LineValues {
@@ -42,7 +42,7 @@ export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
     try {
       id = (await create.mutateAsync({ ...body, refund: invoice.status === 'paid' && body.refund })).id;
     } catch (err) {
-      showServerErrors(err, form.setError);
+      showServerErrors(err, setErrorOnSentRows(form.setError, 'lines', keptRows(form.getValues('lines'))));
       return;
     }
     navigate(`/invoices/${id}`);

@@ -4,11 +4,11 @@ import { invoicePatchSchema, type Invoice } from '../../../../shared/api/invoice
 import type { TaxClass } from '../../../../shared/api/settings';
 import { formatMoneyInput } from '../../../../shared/quote/money-input';
 import { Alert, Button, Card, CardTitle, Input, Textarea } from '../../../components/ui';
-import { FormField, showServerErrors, useZodForm } from '../../../lib/forms';
+import { FormField, setErrorOnSentRows, showServerErrors, useZodForm } from '../../../lib/forms';
 import { asSentence } from '../../../lib/form-errors';
 import { useUpdateInvoice } from '../api/update-invoice';
 import { LineEditor } from './line-editor';
-import { linesFormSchema } from './line-form-schema';
+import { keptRows, linesFormSchema } from './line-form-schema';
 
 /** The API's invoice patch with the variations typed; a due date left blank is not sent. */
 const invoiceEditSchema = (currency: string) =>
@@ -42,7 +42,7 @@ export function InvoiceEditForm({ invoice }: { invoice: Invoice }) {
     try {
       await update.mutateAsync(body);
     } catch (err) {
-      showServerErrors(err, form.setError);
+      showServerErrors(err, setErrorOnSentRows(form.setError, 'variations', keptRows(form.getValues('variations'))));
     }
   });
   const problem = form.formState.errors.root?.server?.message;

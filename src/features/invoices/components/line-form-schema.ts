@@ -16,6 +16,9 @@ export const emptyLine = (): LineValues => ({ description: '', quantity: '1', un
 /** True for a row with neither a description nor a price: it is left out, as if never added. */
 export const isBlankLine = (l: LineValues) => !l.description.trim() && !l.unitPriceMinor.trim();
 
+/** The index of each row that is sent, in order: the server's `variations.N` is row `keptRows(…)[N]`. */
+export const keptRows = (lines: readonly LineValues[]) => lines.flatMap((l, i) => (isBlankLine(l) ? [] : [i]));
+
 /**
  * Typed lines → the API's lines (invoiceLineInputSchema, prices in minor units through readMoney).
  * Blank rows are dropped after the check, so each message keeps the path of its own row

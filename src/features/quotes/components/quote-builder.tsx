@@ -7,7 +7,7 @@ import { computeQuoteTotals } from '../../../../shared/quote/totals';
 import { Alert, Button, Card, CardTitle, Input, PageHeader, Textarea, formatDate, formatDateTime } from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { asSentence } from '../../../lib/form-errors';
-import { FormField, hasFieldErrors, showServerErrors, useZodForm } from '../../../lib/forms';
+import { FormField, hasFieldErrors, setErrorOnSentRows, showServerErrors, useZodForm } from '../../../lib/forms';
 import { useCurrentUser } from '../../auth';
 import { DepositStatus } from '../../invoices';
 import { useSendQuote } from '../api/send-quote';
@@ -57,9 +57,7 @@ export function QuoteBuilder({ quote: q, jobId, message, onMessage, onSaved }: P
   const save = form.handleSubmit(async (body) => {
     onMessage(null);
     // The server numbers the lines it was sent; blank rows were left out, so its "lines.N" is the Nth kept row.
-    const sent = keptRows(form.getValues('lines'), q.currency, q.locale);
-    const onRow: typeof form.setError = (name, error, options) =>
-      form.setError(name.replace(/^lines\.(\d+)/, (_, n: string) => `lines.${sent[Number(n)] ?? n}`) as typeof name, error, options);
+    const onRow = setErrorOnSentRows(form.setError, 'lines', keptRows(form.getValues('lines'), q.currency, q.locale));
     try {
       onSaved(await update.mutateAsync(body));
     } catch (err) {

@@ -22,7 +22,7 @@ export function QuoteTotalsPanel({ totals, currency, locale, saving, siteHours, 
   if (!totals) return <Card>Fix the lines marked in red to see the totals.</Card>;
   const payback = saving ? paybackYears(totals.grossMinor, saving.minorPerYear) : null;
   const row = (label: string, value: string, strong = false, testId?: string) => (
-    <div className={`flex justify-between gap-4 py-1 ${strong ? 'border-t border-graphite/30 pt-2 font-semibold' : ''}`}>
+    <div key={label} className={`flex justify-between gap-4 py-1 ${strong ? 'border-t border-graphite/30 pt-2 font-semibold' : ''}`}>
       <dt>{label}</dt>
       <dd className="font-mono" data-testid={testId}>
         {value}
