@@ -11,7 +11,8 @@ import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
 import { endOfDayEpochSec, signQuoteLink } from '../../server/modules/quotes/quote-link';
 import { launchBrowser, signInThroughUi, startAppServer } from '../helpers/browser';
 
-type Visit = { path: string; role: Role | null; ready?: (page: Page) => Promise<unknown> };
+/** `tabs`: the page's tabs, each chosen in turn and checked as well (their panels are separate screens). */
+type Visit = { path: string; role: Role | null; ready?: (page: Page) => Promise<unknown>; tabs?: string[] };
 
 let app: Awaited<ReturnType<typeof startAppServer>>;
 let desktop: Awaited<ReturnType<typeof launchBrowser>>;
@@ -57,9 +58,9 @@ beforeAll(async () => {
     { path: '/users', role: 'office' },
     { path: '/outbox', role: 'office' },
     { path: '/schedule', role: 'office' },
-    { path: '/settings', role: 'office' },
+    { path: '/settings', role: 'office', tabs: ['Labour, waste, eaves, savings', 'Products', 'Extras', 'Tax rates'] },
     { path: '/settings/payments', role: 'office' },
-    { path: '/invoices', role: 'office' },
+    { path: '/invoices', role: 'office', tabs: ['To pay', 'Overdue', 'Paid'] },
     { path: `/invoices/${invoice.id}`, role: 'office', ready: (p) => p.getByText(invoice.number).first().waitFor() },
     { path: `/spaces/${space.id}/edit`, role: 'estimator', ready: (p) => p.getByTestId('plan-canvas').waitFor() },
     { path: '/my-jobs', role: 'installer' },
@@ -115,8 +116,39 @@ describe.each([
       await page.goto(`${app.url}${visit.path}`);
       await settled(page, visit);
       for (const v of await violations(page)) found.push(`${visit.path} — ${v}`);
+      for (const tab of visit.tabs ?? []) {
+        await page.getByRole('tab', { name: tab }).click();
+        await expect.poll(() => page.getByRole('tab', { name: tab }).getAttribute('aria-selected')).toBe('true');
+        await page.getByRole('tabpanel', { name: tab }).waitFor();
+        await settled(page, { ...visit, ready: undefined });
+        for (const v of await violations(page)) found.push(`${visit.path} (${tab}) — ${v}`);
+      }
     }
     await page.close();
     expect(found, found.join('\n')).toEqual([]);
+  });
+});
+
+describe('tabs by keyboard', () => {
+  it('moves between the settings tabs with the arrow keys and opens one with Enter, its panel labelled by it', { timeout: 90_000 }, async () => {
+    const page = await desktop.newPage();
+    // The pages above share this browser's cookies: start signed out.
+    await page.context().clearCookies();
+    await signInThroughUi(page, app.url, 'office@demo.example.com', DEMO_PASSWORD);
+    await page.goto(`${app.url}/settings`);
+    const first = page.getByRole('tab', { name: 'Company and quotes' });
+    await first.focus();
+    await page.keyboard.press('ArrowRight');
+    const pricing = page.getByRole('tab', { name: 'Labour, waste, eaves, savings' });
+    await expect.poll(() => pricing.evaluate((el) => el === document.activeElement)).toBe(true);
+    // Manual activation: focus alone does not swap the panel (a half-typed form stays).
+    await expect(first.getAttribute('aria-selected')).resolves.toBe('true');
+    await page.keyboard.press('Enter');
+    await page.getByRole('tabpanel', { name: 'Labour, waste, eaves, savings' }).waitFor();
+    await page.keyboard.press('End');
+    await expect.poll(() => page.getByRole('tab', { name: 'Tax rates' }).evaluate((el) => el === document.activeElement)).toBe(true);
+    // Only the chosen tab is in the Tab order.
+    expect(await page.locator('[role="tab"][tabindex="0"]').count()).toBe(1);
+    await page.close();
   });
 });

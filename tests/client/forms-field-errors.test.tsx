@@ -22,6 +22,9 @@ function errorFor(label: string, root: HTMLElement = document.body): string | nu
   return id ? (document.getElementById(id)?.textContent ?? null) : null;
 }
 
+// A tab is chosen on the pointer going down (the WAI-ARIA tabs pattern as Radix implements it).
+const chooseTab = (tab: HTMLElement) => fireEvent.mouseDown(tab, { button: 0 });
+
 function fill(label: string, value: string, root: HTMLElement = document.body) {
   fireEvent.change(within(root).getByLabelText(label, { exact: false }), { target: { value } });
 }
@@ -72,7 +75,7 @@ function settingsApi(opts: { putStatus?: number; putBody?: unknown } = {}) {
 
 async function openPricing() {
   renderPage(<SettingsPage />, { user: demoUser('office') });
-  fireEvent.click(await screen.findByRole('tab', { name: 'Labour, waste, eaves, savings' }));
+  chooseTab(await screen.findByRole('tab', { name: 'Labour, waste, eaves, savings' }));
   await screen.findByLabelText('Charge per person-hour');
 }
 
@@ -156,7 +159,7 @@ describe('catalogue row form', () => {
   it('checks a product with the API schema and reads its price as pence', async () => {
     const calls = settingsApi();
     renderPage(<SettingsPage />, { user: demoUser('office') });
-    fireEvent.click(await screen.findByRole('tab', { name: 'Products' }));
+    chooseTab(await screen.findByRole('tab', { name: 'Products' }));
     fireEvent.click(await screen.findByRole('button', { name: 'Add' }));
     await screen.findByLabelText('Price');
     const form = document.querySelector('form')!;

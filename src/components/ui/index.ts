@@ -9,3 +9,4 @@ export { PageHeader } from './page-header';
 export { StageBadge, STAGE_LABELS } from './stage-badge';
 export { Table, THead, TBody, Tr, Th, Td } from './table';
 export { formatAddress, formatDate, formatDateTime } from './format';
+export { Tabs } from './tabs';

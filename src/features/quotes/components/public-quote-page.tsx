@@ -4,7 +4,24 @@ import type { PublicQuote } from '../../../../shared/api/quotes';
 import { depositSentence } from '../../../../shared/quote/deposit';
 import { formatMoney } from '../../../../shared/quote/money';
 import { formatRateBp } from '../../../../shared/quote/tax';
-import { Alert, Button, Card, CardTitle, Field, Input, LoadingState, Table, TBody, Td, Th, THead, Tr, Textarea, formatDate } from '../../../components/ui';
+import {
+  Alert,
+  Button,
+  Card,
+  CardTitle,
+  Field,
+  Input,
+  LoadingState,
+  Table,
+  Tabs,
+  TBody,
+  Td,
+  Th,
+  THead,
+  Tr,
+  Textarea,
+  formatDate,
+} from '../../../components/ui';
 import { isApiError } from '../../../lib/api-client';
 import { publicQuotePdfUrl, useAnswerQuote, usePublicQuote } from '../api/public-quote';
 import { DepositAfterAccept } from '../../invoices';
@@ -182,61 +199,64 @@ function Answer({ quote: q, token }: { quote: PublicQuote; token: string }) {
   };
   return (
     <Card>
-      <div className="mb-3 flex gap-2" role="tablist">
-        <Button variant={mode === 'accept' ? 'primary' : 'ghost'} size="sm" role="tab" aria-selected={mode === 'accept'} onClick={() => setMode('accept')}>
-          Accept
-        </Button>
-        <Button variant={mode === 'decline' ? 'primary' : 'ghost'} size="sm" role="tab" aria-selected={mode === 'decline'} onClick={() => setMode('decline')}>
-          Decline
-        </Button>
-      </div>
-      {(problem || error) && <Alert>{problem ?? error}</Alert>}
-      {mode === 'accept' ? (
-        <form
-          className="mt-2 flex flex-col gap-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            accept();
-          }}
-        >
-          <Field label="Your full name" required>
-            <Input value={name} onChange={(e) => setName(e.target.value)} autoComplete="name" />
-          </Field>
-          <label className="flex items-start gap-2 text-sm">
-            <input type="checkbox" className="mt-1" checked={agree} onChange={(e) => setAgree(e.target.checked)} />
-            <span>I have read the quote and its terms and I accept them.</span>
-          </label>
-          {q.deposit && (
-            <p className="text-sm font-medium" data-testid="deposit-before-accept">
-              {depositSentence(q.deposit, (m) => formatMoney(m, q.currency, q.locale))} You go on to the card payment after accepting.
-            </p>
-          )}
-          <div>
-            <Button type="submit" busy={answer.isPending}>
-              {q.deposit
-                ? `Accept and pay the ${formatMoney(q.deposit.amountMinor, q.currency, q.locale)} deposit`
-                : `Accept the quote (${formatMoney(q.totals.grossMinor, q.currency, q.locale)})`}
-            </Button>
-          </div>
-        </form>
-      ) : (
-        <form
-          className="mt-2 flex flex-col gap-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            answer.mutate({ decline: { reason: reason.trim() } });
-          }}
-        >
-          <Field label="Reason (optional)" hint="It helps us, but you do not have to say.">
-            <Textarea rows={3} value={reason} onChange={(e) => setReason(e.target.value)} />
-          </Field>
-          <div>
-            <Button type="submit" variant="danger" busy={answer.isPending}>
-              Decline the quote
-            </Button>
-          </div>
-        </form>
-      )}
+      <Tabs
+        label="Your answer"
+        look="pill"
+        value={mode}
+        onValueChange={setMode}
+        tabs={[
+          { value: 'accept', label: 'Accept' },
+          { value: 'decline', label: 'Decline' },
+        ]}
+      >
+        {(problem || error) && <Alert>{problem ?? error}</Alert>}
+        {mode === 'accept' ? (
+          <form
+            className="mt-2 flex flex-col gap-3"
+            onSubmit={(e) => {
+              e.preventDefault();
+              accept();
+            }}
+          >
+            <Field label="Your full name" required>
+              <Input value={name} onChange={(e) => setName(e.target.value)} autoComplete="name" />
+            </Field>
+            <label className="flex items-start gap-2 text-sm">
+              <input type="checkbox" className="mt-1" checked={agree} onChange={(e) => setAgree(e.target.checked)} />
+              <span>I have read the quote and its terms and I accept them.</span>
+            </label>
+            {q.deposit && (
+              <p className="text-sm font-medium" data-testid="deposit-before-accept">
+                {depositSentence(q.deposit, (m) => formatMoney(m, q.currency, q.locale))} You go on to the card payment after accepting.
+              </p>
+            )}
+            <div>
+              <Button type="submit" busy={answer.isPending}>
+                {q.deposit
+                  ? `Accept and pay the ${formatMoney(q.deposit.amountMinor, q.currency, q.locale)} deposit`
+                  : `Accept the quote (${formatMoney(q.totals.grossMinor, q.currency, q.locale)})`}
+              </Button>
+            </div>
+          </form>
+        ) : (
+          <form
+            className="mt-2 flex flex-col gap-3"
+            onSubmit={(e) => {
+              e.preventDefault();
+              answer.mutate({ decline: { reason: reason.trim() } });
+            }}
+          >
+            <Field label="Reason (optional)" hint="It helps us, but you do not have to say.">
+              <Textarea rows={3} value={reason} onChange={(e) => setReason(e.target.value)} />
+            </Field>
+            <div>
+              <Button type="submit" variant="danger" busy={answer.isPending}>
+                Decline the quote
+              </Button>
+            </div>
+          </form>
+        )}
+      </Tabs>
     </Card>
   );
 }

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { EXTRA_KINDS, EXTRA_KIND_LABELS, TAX_CLASS_LABELS, extraBodySchema, productBodySchema, taxRateBodySchema } from '../../../../shared/api/settings';
-import { ButtonLink, ErrorState, LoadingState, PageHeader } from '../../../components/ui';
+import { ButtonLink, ErrorState, LoadingState, PageHeader, Tabs } from '../../../components/ui';
 import { can } from '../../../../shared/auth/policies';
 import { useCurrentUser } from '../../auth';
 import { useCompanySettings } from '../api/company-settings';
@@ -44,13 +44,13 @@ const TAX_COLUMNS: CatalogueColumn[] = [
 ];
 
 const TABS = [
-  ['company', 'Company and quotes'],
-  ['pricing', 'Labour, waste, eaves, savings'],
-  ['products', 'Products'],
-  ['extras', 'Extras'],
-  ['tax', 'Tax rates'],
+  { value: 'company', label: 'Company and quotes' },
+  { value: 'pricing', label: 'Labour, waste, eaves, savings' },
+  { value: 'products', label: 'Products' },
+  { value: 'extras', label: 'Extras' },
+  { value: 'tax', label: 'Tax rates' },
 ] as const;
-type Tab = (typeof TABS)[number][0];
+type Tab = (typeof TABS)[number]['value'];
 
 /** /settings (office): company details, quote terms, labour and savings inputs, catalogue and dated tax rates. */
 export default function SettingsPage() {
@@ -70,71 +70,60 @@ export default function SettingsPage() {
         subtitle="What quotes are built from and what they print."
         actions={<ButtonLink to="/settings/payments">Deposits and payment terms</ButtonLink>}
       />
-      <div role="tablist" className="flex flex-wrap gap-1 border-b border-paper-line">
-        {TABS.map(([key, label]) => (
-          <button
-            key={key}
-            role="tab"
-            type="button"
-            aria-selected={tab === key}
-            onClick={() => setTab(key)}
-            className={`rounded-t-md px-3 py-2 text-sm ${tab === key ? 'border border-b-0 border-paper-line bg-white font-semibold' : 'text-graphite-light hover:text-graphite'}`}
-          >
-            {label}
-          </button>
-        ))}
-      </div>
-      {(tab === 'company' || tab === 'pricing') && <CompanySettingsForm settings={s} section={tab} />}
-      {tab === 'products' && (
-        <CatalogueTable
-          resource="products"
-          title="Roll products"
-          columns={PRODUCT_COLUMNS}
-          schema={productBodySchema}
-          currency={s.currency}
-          blank={{
-            name: '',
-            supplierCode: '',
-            thicknessMm: 100,
-            rollWidthMm: 1140,
-            lanes: 1,
-            rollLengthMm: 8000,
-            coverageM2: 9.12,
-            lambdaWmK: 0.044,
-            unitPriceMinor: 0,
-            unitCostMinor: 0,
-            roles: ['base', 'cross'],
-            taxClass: 'energy_saving',
-            active: true,
-          }}
-        />
-      )}
-      {tab === 'extras' && (
-        <CatalogueTable
-          resource="extras"
-          title="Extras"
-          columns={EXTRA_COLUMNS}
-          schema={extraBodySchema}
-          currency={s.currency}
-          blank={{ kind: 'other', name: '', unit: 'each', unitPriceMinor: 0, unitCostMinor: 0, minutesPerUnit: 0, taxClass: 'standard', active: true }}
-        />
-      )}
-      {tab === 'tax' && (
-        <>
+      <Tabs label="Settings sections" value={tab} onValueChange={setTab} tabs={TABS} panelClassName="mt-2 flex flex-col gap-4">
+        {(tab === 'company' || tab === 'pricing') && <CompanySettingsForm settings={s} section={tab} />}
+        {tab === 'products' && (
           <CatalogueTable
-            resource="tax-rates"
-            title="Tax rates by date"
-            columns={TAX_COLUMNS}
-            schema={taxRateBodySchema}
+            resource="products"
+            title="Roll products"
+            columns={PRODUCT_COLUMNS}
+            schema={productBodySchema}
             currency={s.currency}
-            blank={{ taxClass: 'standard', rateBp: 2000, validFrom: new Date().toISOString().slice(0, 10), label: '' }}
+            blank={{
+              name: '',
+              supplierCode: '',
+              thicknessMm: 100,
+              rollWidthMm: 1140,
+              lanes: 1,
+              rollLengthMm: 8000,
+              coverageM2: 9.12,
+              lambdaWmK: 0.044,
+              unitPriceMinor: 0,
+              unitCostMinor: 0,
+              roles: ['base', 'cross'],
+              taxClass: 'energy_saving',
+              active: true,
+            }}
           />
-          <p className="text-sm text-graphite-light">
-            A quote uses, for each line's class, the rate with the latest start date on or before its issue date. The UK defaults follow HMRC VAT Notice 708/6:
-            installed energy-saving materials zero-rated from 1 May 2023 to 31 March 2027, then 5%; other items 20%. Check the current rules for your country.
-          </p>
-        </>
-      )}
+        )}
+        {tab === 'extras' && (
+          <CatalogueTable
+            resource="extras"
+            title="Extras"
+            columns={EXTRA_COLUMNS}
+            schema={extraBodySchema}
+            currency={s.currency}
+            blank={{ kind: 'other', name: '', unit: 'each', unitPriceMinor: 0, unitCostMinor: 0, minutesPerUnit: 0, taxClass: 'standard', active: true }}
+          />
+        )}
+        {tab === 'tax' && (
+          <>
+            <CatalogueTable
+              resource="tax-rates"
+              title="Tax rates by date"
+              columns={TAX_COLUMNS}
+              schema={taxRateBodySchema}
+              currency={s.currency}
+              blank={{ taxClass: 'standard', rateBp: 2000, validFrom: new Date().toISOString().slice(0, 10), label: '' }}
+            />
+            <p className="text-sm text-graphite-light">
+              A quote uses, for each line's class, the rate with the latest start date on or before its issue date. The UK defaults follow HMRC VAT Notice
+              708/6: installed energy-saving materials zero-rated from 1 May 2023 to 31 March 2027, then 5%; other items 20%. Check the current rules for your
+              country.
+            </p>
+          </>
+        )}
+      </Tabs>
     </div>
   );
 }
