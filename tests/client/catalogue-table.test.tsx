@@ -40,12 +40,12 @@ function catalogueApi() {
   });
 }
 
-function renderTable() {
+function renderTable(columns = COLUMNS) {
   renderPage(
     <CatalogueTable
       resource="extras"
       title="Extras"
-      columns={COLUMNS}
+      columns={columns}
       schema={extraBodySchema}
       currency="GBP"
       blank={{ name: '', unit: 'each', unitPriceMinor: 0 }}
@@ -76,6 +76,14 @@ describe('catalogue table', () => {
     expect(price.getAttribute('aria-sort')).toBe('descending');
     expect(names()).toEqual(['Boarding offcut removal', 'Pipe lagging', 'Loft hatch cover']);
     expect(within(table).getByRole('columnheader', { name: /Name/ }).getAttribute('aria-sort')).toBe('none');
+  });
+
+  it('starts by the first column a phone shows, not by one it hides', async () => {
+    catalogueApi();
+    const kind: CatalogueColumn = { key: 'kind', label: 'Kind', type: 'select', options: [{ value: 'other', label: 'Other' }] };
+    const table = await renderTable([kind, ...COLUMNS]);
+    expect(within(table).getByRole('columnheader', { name: /Name/ }).getAttribute('aria-sort')).toBe('ascending');
+    expect(within(table).getByRole('columnheader', { name: /Kind/ }).getAttribute('aria-sort')).toBe('none');
   });
 
   it('filters by every word of what the rows show, prices and choices included', async () => {

@@ -132,7 +132,8 @@ export function CatalogueTable({ resource, title, columns, schema, currency, bla
             columns={tableColumns(columns, currency, open, del) as never}
             rowId={(r) => r.id}
             filter={filter}
-            initialSort={[{ id: columns[0].key, desc: false }]}
+            // By the first column a phone shows too, so the order is one the reader can see.
+            initialSort={[{ id: (columns.find((c) => c.onPhone && c.inTable !== false) ?? columns[0]).key, desc: false }]}
             pageSize={25}
             noMatch={<EmptyState title="Nothing matches the filter">Nothing here matches “{filter}”.</EmptyState>}
           />
