@@ -1,4 +1,5 @@
 import type { Vec2 } from './vector';
+import { RIBBON_COVERED, RIBBON_FIELDS, RIBBON_HI0, RIBBON_HI1, RIBBON_LO0, RIBBON_LO1, RIBBON_S_HI, RIBBON_S_LO, RIBBON_T0, RIBBON_T1 } from './ribbons';
 
 /**
  * The second half of band clipping (see `clipRegionToBands` in bands.ts): a band's trapezoids
@@ -28,27 +29,8 @@ export interface BandPiece {
    * middle of the extent it never falls in a hole, outside a partly covered band or in a notch.
    */
   insideAt: Vec2;
-  /**
-   * The piece cut lengthwise at every sub-slab boundary: one ribbon per sub-slab `t0..t1` with the
-   * mean of its left and right ends (`sLoMm`, `sHiMm`: an end cut on the angle counts at its
-   * middle) and the length actually covered (`coveredMm`, less than `sHiMm − sLoMm` where the
-   * piece forks around an obstacle). Ordered by `t0`.
-   */
-  ribbons: Ribbon[];
-}
-
-/** One sub-slab of a band piece (see `BandPiece.ribbons`), frame coordinates, mm. */
-export interface Ribbon {
-  t0: number;
-  t1: number;
-  sLoMm: number;
-  sHiMm: number;
-  /** The left end at `t0` and `t1`, and the right end at `t0` and `t1`. */
-  lo0: number;
-  lo1: number;
-  hi0: number;
-  hi1: number;
-  coveredMm: number;
+  /** The piece cut lengthwise at every sub-slab boundary: its ribbons (see ribbons.ts), ordered by `t0`. */
+  ribbons: Float64Array;
 }
 
 /** Makes an outline's point from its frame coordinates (`s` along the band, `t` across). */
@@ -74,6 +56,7 @@ export interface Trapezoids {
 /** Scratch space for `bandPieces`, reused from band to band (grown as needed). */
 export interface PieceScratch {
   ints: Int32Array[];
+  floats: Float64Array[];
   xs: Float64Array;
   ys: Float64Array;
   keep: Int32Array;
@@ -85,7 +68,7 @@ export function newTrapezoids(cap = 256): Trapezoids {
 }
 
 export function newPieceScratch(): PieceScratch {
-  return { ints: [], xs: new Float64Array(64), ys: new Float64Array(64), keep: new Int32Array(64) };
+  return { ints: [], floats: [], xs: new Float64Array(64), ys: new Float64Array(64), keep: new Int32Array(64) };
 }
 
 function grown(a: Float64Array, cap: number): Float64Array {
@@ -120,6 +103,13 @@ function ints(s: PieceScratch, k: number, n: number): Int32Array {
   return a;
 }
 
+/** The `k`-th float scratch array with room for `n` (contents undefined). */
+function floats(s: PieceScratch, k: number, n: number): Float64Array {
+  let a = s.floats[k];
+  if (!a || a.length < n) a = s.floats[k] = new Float64Array(Math.max(n, 2 * (a?.length ?? 32)));
+  return a;
+}
+
 function findRoot(parent: Int32Array, i: number): number {
   while (parent[i] !== i) i = parent[i] = parent[parent[i]];
   return i;
@@ -143,9 +133,55 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     downs[i] = 0;
     upLink[i] = -1;
   }
+  // Bounds on the lower sides of a sub-slab's trapezoids (running maximum of the right ends,
+  // running minimum from the end of the left ends): a top side meets only the lower sides between
+  // the first whose running maximum passes its left end and the last whose running minimum is
+  // short of its right end, so a sub-slab crossed by many holes is not tested pair by pair.
+  // Which pairs join, and in which order, is as a test of every pair would find.
+  const maxR = floats(S, 0, nt);
+  const minL = floats(S, 1, nt);
   for (let si = 1; si + 1 < slabStart.length; si++) {
+    const b0 = slabStart[si];
+    const b1 = slabStart[si + 1];
+    const wide = (slabStart[si] - slabStart[si - 1]) * (b1 - b0) > 16;
+    if (wide) {
+      let hiR = -Infinity;
+      for (let b = b0; b < b1; b++) {
+        if (T.r0[b] > hiR) hiR = T.r0[b];
+        maxR[b] = hiR;
+      }
+      let loL = Infinity;
+      for (let b = b1 - 1; b >= b0; b--) {
+        if (T.l0[b] < loL) loL = T.l0[b];
+        minL[b] = loL;
+      }
+    }
     for (let a = slabStart[si - 1]; a < slabStart[si]; a++) {
-      for (let b = slabStart[si]; b < slabStart[si + 1]; b++) {
+      let from = b0;
+      let to = b1;
+      if (wide) {
+        // First lower side whose running maximum of right ends exceeds a's left end.
+        const la = T.l1[a];
+        let x = b0;
+        let y = b1;
+        while (x < y) {
+          const mid = (x + y) >> 1;
+          if (maxR[mid] > la) y = mid;
+          else x = mid + 1;
+        }
+        from = x;
+        // Past the last lower side whose running minimum of left ends is short of a's right end.
+        const ra = T.r1[a];
+        x = from;
+        y = b1;
+        while (x < y) {
+          const mid = (x + y) >> 1;
+          if (minL[mid] < ra) x = mid + 1;
+          else y = mid;
+        }
+        to = x;
+      }
+      for (let b = from; b < to; b++) {
         if (Math.min(T.r1[a], T.r0[b]) - Math.max(T.l1[a], T.l0[b]) > EPS) {
           parent[findRoot(parent, a)] = findRoot(parent, b);
           ups[a]++;
@@ -195,8 +231,18 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     let sMax = -Infinity;
     let largest = members[first[g]];
     let largestArea = -1;
-    const ribbons: Ribbon[] = [];
-    let rib: Ribbon | null = null;
+    // Ribbons: trapezoids come slab by slab, so those of one sub-slab are consecutive.
+    let nr = 0;
+    let lastY0 = 0;
+    for (let m = first[g]; m < first[g + 1]; m++) {
+      const y0 = T.y0[members[m]];
+      if (nr === 0 || lastY0 !== y0) {
+        nr++;
+        lastY0 = y0;
+      }
+    }
+    const ribbons = new Float64Array(nr * RIBBON_FIELDS);
+    let o = -RIBBON_FIELDS;
     for (let m = first[g]; m < first[g + 1]; m++) {
       const t = members[m];
       const y0 = T.y0[t];
@@ -206,24 +252,31 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
       const r1 = T.r1[t];
       const a = ((r0 - l0 + (r1 - l1)) / 2) * (T.y1[t] - y0);
       area += a;
-      // Trapezoids come slab by slab, so those of one sub-slab are consecutive.
       const lm = (l0 + l1) / 2;
       const rm = (r0 + r1) / 2;
-      if (!rib || rib.t0 !== y0) {
-        rib = { t0: y0, t1: T.y1[t], sLoMm: lm, sHiMm: rm, lo0: l0, lo1: l1, hi0: r0, hi1: r1, coveredMm: rm - lm };
-        ribbons.push(rib);
+      if (o < 0 || ribbons[o + RIBBON_T0] !== y0) {
+        o += RIBBON_FIELDS;
+        ribbons[o + RIBBON_T0] = y0;
+        ribbons[o + RIBBON_T1] = T.y1[t];
+        ribbons[o + RIBBON_S_LO] = lm;
+        ribbons[o + RIBBON_S_HI] = rm;
+        ribbons[o + RIBBON_LO0] = l0;
+        ribbons[o + RIBBON_LO1] = l1;
+        ribbons[o + RIBBON_HI0] = r0;
+        ribbons[o + RIBBON_HI1] = r1;
+        ribbons[o + RIBBON_COVERED] = rm - lm;
       } else {
-        if (lm < rib.sLoMm) {
-          rib.sLoMm = lm;
-          rib.lo0 = l0;
-          rib.lo1 = l1;
+        if (lm < ribbons[o + RIBBON_S_LO]) {
+          ribbons[o + RIBBON_S_LO] = lm;
+          ribbons[o + RIBBON_LO0] = l0;
+          ribbons[o + RIBBON_LO1] = l1;
         }
-        if (rm > rib.sHiMm) {
-          rib.sHiMm = rm;
-          rib.hi0 = r0;
-          rib.hi1 = r1;
+        if (rm > ribbons[o + RIBBON_S_HI]) {
+          ribbons[o + RIBBON_S_HI] = rm;
+          ribbons[o + RIBBON_HI0] = r0;
+          ribbons[o + RIBBON_HI1] = r1;
         }
-        rib.coveredMm += rm - lm;
+        ribbons[o + RIBBON_COVERED] += rm - lm;
       }
       if (a > largestArea) {
         largestArea = a;

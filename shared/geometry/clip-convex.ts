@@ -1,6 +1,11 @@
 import type { Vec2 } from './vector';
 import { ringWithPositiveArea, type Ring } from './polygon';
 
+// Two coordinate lists used in turn, each pass reading one and filling the other; kept between
+// calls (grown as needed), so clipping a long outline by many small eaves bands makes no garbage
+// beyond the points it returns.
+const scratch = { x: [new Float64Array(256), new Float64Array(256)], y: [new Float64Array(256), new Float64Array(256)] };
+
 /**
  * Sutherland–Hodgman clipping of any simple ring by a convex ring (Sutherland and Hodgman,
  * "Reentrant polygon clipping", CACM 1974). O(n·m), no allocation beyond the output. The area of
@@ -10,13 +15,20 @@ import { ringWithPositiveArea, type Ring } from './polygon';
  */
 export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
   const clip = ringWithPositiveArea(convexClip);
-  // The passes pass points along by reference (the outline's own corners among them); only what
-  // is left at the end is copied, so clipping a long outline by a small band makes little garbage.
-  let out: ReadonlyArray<readonly number[]> = subject;
-  // Two lists used in turn, each pass reading one and filling the other.
-  const lists: (readonly number[])[][] = [[], []];
   const m = clip.length;
-  for (let i = 0; i < m && out.length; i++) {
+  const { x: X, y: Y } = scratch;
+  if (X[1].length < subject.length) {
+    X[1] = new Float64Array(2 * subject.length);
+    Y[1] = new Float64Array(2 * subject.length);
+  }
+  let xs = X[1];
+  let ys = Y[1];
+  let n = subject.length;
+  for (let k = 0; k < n; k++) {
+    xs[k] = subject[k][0];
+    ys[k] = subject[k][1];
+  }
+  for (let i = 0; i < m && n; i++) {
     const a = clip[i];
     const b = clip[(i + 1) % m];
     const ax = a[0];
@@ -24,22 +36,38 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
     const ex = b[0] - ax;
     const ey = b[1] - ay;
     // Positive signed area: the inside lies to the +90° side of each clip edge.
-    const input = out;
-    const next = lists[i % 2];
-    next.length = 0;
-    out = next;
-    const n = input.length;
+    // Each edge gives at most two points (its start and a crossing).
+    if (X[i % 2].length < 2 * n) {
+      X[i % 2] = new Float64Array(4 * n);
+      Y[i % 2] = new Float64Array(4 * n);
+    }
+    const nx = X[i % 2];
+    const ny = Y[i % 2];
+    let c = 0;
     for (let k = 0; k < n; k++) {
-      const p = input[k];
-      const q = input[k + 1 < n ? k + 1 : 0];
-      const sp = ex * (p[1] - ay) - ey * (p[0] - ax);
-      const sq = ex * (q[1] - ay) - ey * (q[0] - ax);
-      if (sp >= 0) next.push(p);
+      const px = xs[k];
+      const py = ys[k];
+      const j = k + 1 < n ? k + 1 : 0;
+      const qx = xs[j];
+      const qy = ys[j];
+      const sp = ex * (py - ay) - ey * (px - ax);
+      const sq = ex * (qy - ay) - ey * (qx - ax);
+      if (sp >= 0) {
+        nx[c] = px;
+        ny[c++] = py;
+      }
       if (sp >= 0 !== sq >= 0) {
         const t = sp / (sp - sq);
-        next.push([p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1])]);
+        nx[c] = px + t * (qx - px);
+        ny[c++] = py + t * (qy - py);
       }
     }
+    xs = nx;
+    ys = ny;
+    n = c;
   }
-  return out.length >= 3 ? out.map((p) => [p[0], p[1]] as Vec2) : [];
+  if (n < 3) return [];
+  const out: Vec2[] = new Array(n);
+  for (let k = 0; k < n; k++) out[k] = [xs[k], ys[k]];
+  return out;
 }

@@ -1,4 +1,17 @@
-import { SNAP_MM, type Ribbon } from '../geometry/bands';
+import { SNAP_MM } from '../geometry/bands';
+import {
+  ribbonCount,
+  RIBBON_COVERED,
+  RIBBON_FIELDS,
+  RIBBON_HI0,
+  RIBBON_HI1,
+  RIBBON_LO0,
+  RIBBON_LO1,
+  RIBBON_S_HI,
+  RIBBON_S_LO,
+  RIBBON_T0,
+  RIBBON_T1,
+} from '../geometry/ribbons';
 
 /** A length of a strip with one width: the whole band width, or the part of it covered. */
 export interface StripSegment {
@@ -17,31 +30,22 @@ export interface StripSegment {
  * Also returns the gaps where the piece forks around an obstacle inside the band (cut out of
  * the strip and kept as offcuts: length × width across, mm).
  */
-export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segments: StripSegment[]; gaps: { lengthMm: number; acrossMm: number }[] } {
+export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { segments: StripSegment[]; gaps: { lengthMm: number; acrossMm: number }[] } {
+  const R = ribbons;
+  const n = ribbonCount(R);
   const gaps: { lengthMm: number; acrossMm: number }[] = [];
-  for (const r of ribbons) {
-    const gap = r.sHiMm - r.sLoMm - r.coveredMm;
-    if (gap > 1 + SNAP_MM) gaps.push({ lengthMm: gap, acrossMm: r.t1 - r.t0 });
+  for (let o = 0; o < R.length; o += RIBBON_FIELDS) {
+    const gap = R[o + RIBBON_S_HI] - R[o + RIBBON_S_LO] - R[o + RIBBON_COVERED];
+    if (gap > 1 + SNAP_MM) gaps.push({ lengthMm: gap, acrossMm: R[o + RIBBON_T1] - R[o + RIBBON_T0] });
   }
-  if (ribbons.length === 1) {
-    const r = ribbons[0];
-    return { segments: [{ lengthMm: r.sHiMm - r.sLoMm, coveredWidthMm: r.t1 - r.t0 }], gaps };
-  }
+  if (n === 1) return { segments: [{ lengthMm: R[RIBBON_S_HI] - R[RIBBON_S_LO], coveredWidthMm: R[RIBBON_T1] - R[RIBBON_T0] }], gaps };
   // Each end as runs of ribbons where it is continuous (an end cut on the angle, however many
   // ribbons it crosses), placed at the run's mean: a step is where the end jumps.
-  const lo = endRuns(
-    ribbons,
-    (r) => r.lo0,
-    (r) => r.lo1,
-  );
-  const hi = endRuns(
-    ribbons,
-    (r) => r.hi0,
-    (r) => r.hi1,
-  );
+  const lo = endRuns(R, n, RIBBON_LO0, RIBBON_LO1);
+  const hi = endRuns(R, n, RIBBON_HI0, RIBBON_HI1);
   // A typed array sorts numbers natively (no comparator call per comparison).
-  const xs = new Float64Array(2 * ribbons.length);
-  for (let j = 0; j < ribbons.length; j++) {
+  const xs = new Float64Array(2 * n);
+  for (let j = 0; j < n; j++) {
     xs[2 * j] = lo[j];
     xs[2 * j + 1] = hi[j];
   }
@@ -53,10 +57,11 @@ export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segmen
     const mid = (xs[k] + xs[k + 1]) / 2;
     let t0 = Infinity;
     let t1 = -Infinity;
-    for (let j = 0; j < ribbons.length; j++) {
+    for (let j = 0; j < n; j++) {
       if (lo[j] <= mid && hi[j] >= mid) {
-        if (ribbons[j].t0 < t0) t0 = ribbons[j].t0;
-        if (ribbons[j].t1 > t1) t1 = ribbons[j].t1;
+        const o = j * RIBBON_FIELDS;
+        if (R[o + RIBBON_T0] < t0) t0 = R[o + RIBBON_T0];
+        if (R[o + RIBBON_T1] > t1) t1 = R[o + RIBBON_T1];
       }
     }
     const w = t1 > t0 ? t1 - t0 : 0;
@@ -87,22 +92,29 @@ export function stripSegments(ribbons: Ribbon[], minSegmentMm: number): { segmen
   return { segments: segs, gaps };
 }
 
-/** Per ribbon, the position of its end: the height-weighted mean over the run of ribbons through which that end continues. */
-function endRuns(ribbons: Ribbon[], at0: (r: Ribbon) => number, at1: (r: Ribbon) => number): number[] {
-  const out = new Array<number>(ribbons.length);
+/**
+ * Per ribbon, the position of one end (fields `f0` at t0 and `f1` at t1): the height-weighted
+ * mean over the run of ribbons through which that end continues.
+ */
+function endRuns(R: Float64Array, n: number, f0: number, f1: number): Float64Array {
+  const out = new Float64Array(n);
   let start = 0;
-  for (let j = 0; j <= ribbons.length; j++) {
+  for (let j = 0; j <= n; j++) {
+    const o = j * RIBBON_FIELDS;
     const breaks =
-      j === ribbons.length || (j > start && (Math.abs(at0(ribbons[j]) - at1(ribbons[j - 1])) > 1 + SNAP_MM || ribbons[j].t0 - ribbons[j - 1].t1 > 1e-6));
+      j === n || (j > start && (Math.abs(R[o + f0] - R[o - RIBBON_FIELDS + f1]) > 1 + SNAP_MM || R[o + RIBBON_T0] - R[o - RIBBON_FIELDS + RIBBON_T1] > 1e-6));
     if (!breaks) continue;
     let sum = 0;
     let h = 0;
     for (let k = start; k < j; k++) {
-      const r = ribbons[k];
-      sum += ((at0(r) + at1(r)) / 2) * (r.t1 - r.t0);
-      h += r.t1 - r.t0;
+      const q = k * RIBBON_FIELDS;
+      sum += ((R[q + f0] + R[q + f1]) / 2) * (R[q + RIBBON_T1] - R[q + RIBBON_T0]);
+      h += R[q + RIBBON_T1] - R[q + RIBBON_T0];
     }
-    for (let k = start; k < j; k++) out[k] = h > 0 ? sum / h : (at0(ribbons[k]) + at1(ribbons[k])) / 2;
+    for (let k = start; k < j; k++) {
+      const q = k * RIBBON_FIELDS;
+      out[k] = h > 0 ? sum / h : (R[q + f0] + R[q + f1]) / 2;
+    }
     start = j;
   }
   return out;
