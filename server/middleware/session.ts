@@ -4,6 +4,7 @@ import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { AppDeps } from '../deps';
 import type { AuthService } from '../modules/auth/auth.service';
+import type { SessionUser } from '../types';
 import { createSessionStore } from './session-store';
 
 export const SESSION_COOKIE = 'quiltline.sid';
@@ -28,8 +29,9 @@ export function refreshSession(req: Request, _res: Response, next: NextFunction)
 }
 
 /**
- * Sessions in PostgreSQL (connect-pg-simple) and a passport instance of this app's own
- * (not the global one, so several apps in one test process never share strategies).
+ * Sessions in PostgreSQL (connect-pg-simple), the signed-in user on req.user, and a passport
+ * instance of this app's own for signing in and out (not the global one, so several apps in one test
+ * process never share strategies).
  */
 export function createSessionStack(deps: AppDeps, auth: AuthService) {
   const store = createSessionStore(deps.pool, { prune: deps.config.pruneSessions });
@@ -58,14 +60,28 @@ export function createSessionStack(deps: AppDeps, auth: AuthService) {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  // The store read the user with the session row (checked afresh on every request: a deactivated
-  // user or one whose sessions were ended is signed out at once); a session it did not load asks again.
-  passport.deserializeUser((req: Request, id: string, done: (err: unknown, user?: Express.User | false) => void) => {
-    const loaded = req.session?.loadedUser;
-    if (loaded !== undefined && (loaded === null || loaded.id === id)) return done(null, loaded ?? false);
-    auth.loadSessionUser(id).then((user) => done(null, user ?? false), done);
-  });
 
-  const handlers: RequestHandler[] = [sessionMiddleware, refreshSession, passport.initialize(), passport.session()];
+  /**
+   * req.user from the session, as passport's session strategy would set it, without its per-request
+   * set-up (a strategy object and half a dozen closures for every request). The store read the user
+   * with the session row, checked afresh on every request: a deactivated user, or one whose sessions
+   * were ended, is signed out at once (the user id is dropped from the session, as passport does).
+   * A session the store did not load (regenerated during this request) asks the database.
+   */
+  function sessionUser(req: Request, _res: Response, next: NextFunction) {
+    const s = req.session as (typeof req.session & { passport?: { user?: string } }) | undefined;
+    const id = s?.passport?.user;
+    if (!s || !id) return next();
+    const loaded = s.loadedUser;
+    const found = (user: SessionUser | null) => {
+      if (user) req.user = user;
+      else delete s.passport!.user;
+      next();
+    };
+    if (loaded !== undefined && (loaded === null || loaded.id === id)) return found(loaded);
+    auth.loadSessionUser(id).then(found, next);
+  }
+
+  const handlers: RequestHandler[] = [sessionMiddleware, refreshSession, sessionUser];
   return { handlers, passport, store };
 }

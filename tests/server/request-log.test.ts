@@ -1,4 +1,4 @@
-// Structured request logs (pino-http): one JSON line per request with its id, the user and the
+// Structured request logs: one JSON line per request with its id, the user and the
 // company, and nothing private (no cookie, no password, no customer's private quote token).
 import { Writable } from 'node:stream';
 import request from 'supertest';

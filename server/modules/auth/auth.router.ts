@@ -53,7 +53,8 @@ export function authRouter(deps: AppDeps, auth: AuthService, passport: AppPasspo
 
   const r = Router();
   r.post('/login', validate({ body: loginBodySchema }), loginThrottle);
-  r.post('/logout', c.logout);
+  // req.logout comes from passport's initialize (sign-in gets it from passport.authenticate).
+  r.post('/logout', passport.initialize(), c.logout);
   r.get('/me', requireAuth, c.me);
   r.post('/request-reset', mailLimiter, validate({ body: requestResetBodySchema }), c.requestReset);
   r.post('/set-password', mailLimiter, validate({ body: setPasswordBodySchema }), c.setPassword);
