@@ -1,4 +1,3 @@
-import { Op, type Order, type Sequelize } from 'sequelize';
 import { JOB_STAGES, type JobListQuery } from '../../../shared/api/jobs';
 import { fieldError } from '../../lib/errors';
 
@@ -52,26 +51,20 @@ function decodeCursor(cursor: string, sort: Sort, dir: Dir): Cursor {
 /**
  * Keyset paging of the jobs list: ordered by the sort's key then the id (a total order), each page
  * starting strictly after the previous page's last row, so jobs added or changed meanwhile never
- * make a page repeat or skip another job. Returns the order, the extra attribute carrying the key,
- * and (with a cursor) the condition for the rows after it.
+ * make a page repeat or skip another job. Returns the key's SQL (over "Job" and "customer"), the
+ * direction, and (with a cursor) the comparison and values for the rows after it.
  */
-export function keysetFor(sequelize: Sequelize, query: { sort?: Sort; dir?: Dir; cursor?: string }) {
+export function keysetFor(query: { sort?: Sort; dir?: Dir; cursor?: string }) {
   const sort = query.sort ?? 'updated';
   const dir = query.dir ?? 'desc';
   const key = keyOf(sort, dir);
   const DIR = dir.toUpperCase() as 'ASC' | 'DESC';
-  const order: Order = [
-    [sequelize.literal(key.sql), DIR],
-    ['id', DIR],
-  ];
-  const attribute: [ReturnType<Sequelize['literal']>, string] = [sequelize.literal(key.sql), 'listKey'];
-  let after: Record<symbol, unknown> | null = null;
+  let after: { cmp: '<' | '>'; cast: string; key: string; id: string } | null = null;
   if (query.cursor) {
     const c = decodeCursor(query.cursor, sort, dir);
-    const cmp = dir === 'desc' ? '<' : '>';
-    after = {
-      [Op.and]: [sequelize.literal(`(${key.sql}, "Job"."id") ${cmp} (${sequelize.escape(String(c.k))}::${key.cast}, ${sequelize.escape(c.id)}::uuid)`)],
-    };
+    after = { cmp: dir === 'desc' ? '<' : '>', cast: key.cast, key: String(c.k), id: c.id };
   }
-  return { sort, dir, order, attribute, after };
+  // The cursor carries the key as the list read it: dates as text, times as instants, stages as numbers.
+  const keyValue = key.cast === 'date' ? `(${key.sql})::text` : key.sql;
+  return { sort, dir, DIR, keySql: key.sql, keyValue, after };
 }

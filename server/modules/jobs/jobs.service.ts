@@ -1,6 +1,5 @@
-import { Op, type Includeable, type WhereOptions } from 'sequelize';
+import { type Includeable, type WhereOptions } from 'sequelize';
 import type { Job as JobDto, JobBody, JobEvent as JobEventDto, JobListPage, JobListQuery, JobPatch, InstallerOption, JobStage } from '../../../shared/api/jobs';
-import { JOB_PAGE_DEFAULT } from '../../../shared/api/jobs';
 import { allowedStageMoves, canMoveStage } from '../../../shared/api/job-stages';
 import { can } from '../../../shared/auth/policies';
 import type { AppDeps } from '../../deps';
@@ -8,10 +7,9 @@ import { Customer, Job, JobEvent, Space, User } from '../../db/models';
 import { ConflictError, ForbiddenError, NotFoundError, fieldError } from '../../lib/errors';
 import { redactPrices } from '../../lib/redact';
 import type { SessionUser } from '../../types';
-import { likePattern } from '../customers/customers.service';
 import { latestRevisions } from '../plan-revisions/revisions.repository';
 import { findJobFor, jobScope } from './job-access';
-import { encodeCursor, keysetFor } from './job-list-page';
+import { readJobListPage } from './job-list-query';
 import { nextJobReference } from './job-reference';
 
 const INCLUDE: Includeable[] = [
@@ -91,35 +89,9 @@ export function createJobsService(deps: AppDeps) {
   }
 
   return {
-    /** One page of the company's jobs (installers: their own), searched, filtered and sorted; see keysetFor. */
+    /** One page of the company's jobs (installers: their own), searched, filtered and sorted; see readJobListPage. */
     async list(actor: SessionUser, query: JobListQuery): Promise<JobListPage> {
-      const where: Record<string | symbol, unknown> = { ...(jobScope(actor) as object) };
-      if (query.stage) where.stage = query.stage;
-      if (query.installerId && can(actor, 'jobs:read-all')) where.assignedInstallerId = query.installerId;
-      if (query.q?.trim()) {
-        const p = likePattern(query.q.trim());
-        where[Op.or] = [
-          { reference: { [Op.iLike]: p } },
-          { addressLine1: { [Op.iLike]: p } },
-          { town: { [Op.iLike]: p } },
-          { postcode: { [Op.iLike]: p } },
-          { '$customer.name$': { [Op.iLike]: p } },
-        ];
-      }
-      const limit = Number(query.limit ?? JOB_PAGE_DEFAULT);
-      const keyset = keysetFor(sequelize, query);
-      const count = await Job.count({ where: where as WhereOptions<Job>, include: [{ model: Customer, as: 'customer', attributes: [] }] });
-      const rows = await Job.findAll({
-        where: (keyset.after ? { [Op.and]: [where, keyset.after] } : where) as WhereOptions<Job>,
-        attributes: { include: [keyset.attribute] },
-        include: INCLUDE,
-        order: keyset.order,
-        limit: limit + 1,
-      });
-      const page = rows.slice(0, limit);
-      const last = page[page.length - 1];
-      const nextCursor = rows.length > limit ? encodeCursor(keyset.sort, keyset.dir, last.get('listKey'), last.id) : null;
-      return { jobs: await toDtos(page, actor), nextCursor, count };
+      return readJobListPage(deps.pool, actor, query);
     },
 
     async get(actor: SessionUser, id: string): Promise<JobDto> {
