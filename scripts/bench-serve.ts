@@ -1,7 +1,7 @@
 /**
  * Serving speed of the compiled server (a script that prints numbers, not a test):
  *   npm run bench:serve [-- --seconds 8 --rates 50,100,200 --connections 10 --instances 1,2 --profile
- *                          --only bare,jobs,plan --base <another build's dist-server/index.js>]
+ *                          --only bare,jobs,plan --base <another build's dist-server/index.js> --repeat 3]
  * Builds dist-server/ if stale, makes a database of its own on the project cluster (quiltline_bench)
  * with the demo data, starts the server as plain `node` processes (one, then two on the same
  * database, connections spread round-robin by autocannon) and, beside them, a bare Express handler
@@ -10,8 +10,8 @@
  * their ratio to the bare handler in the same run. --profile writes a V8 CPU profile of each server
  * process into test-output/cpu-profiles/ (open in Chrome DevTools). --base runs a second build (copy
  * an older dist-server/ under the repository, e.g. test-output/, so it finds node_modules) beside
- * this one, checks both answer every demo plan read byte for byte as each role, and measures both
- * in the same run. Run on an otherwise idle machine.
+ * this one, checks both answer every demo plan read and a range of job-list pages byte for byte as
+ * each role, and measures both in the same run. Run on an otherwise idle machine.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -33,6 +33,8 @@ const rates = arg('rates', '50,100,200').split(',').map(Number);
 const connections = Number(arg('connections', '10'));
 const instanceCounts = arg('instances', '1,2').split(',').map(Number);
 const profile = process.argv.includes('--profile');
+// --repeat n: rounds per rate, targets interleaved; the table shows medians.
+const repeat = Number(arg('repeat', '1'));
 // --base <dist-server/index.js of another build>: its servers run beside this build's on the same
 // database and are measured in the same run, so a change is judged old against new, not run against run.
 const baseMain = arg('base', '');
@@ -160,33 +162,89 @@ async function findPlanSpace(base: string, cookie: string): Promise<string> {
   throw new Error('no demo space has a saved plan');
 }
 
+/** Both builds' answer to one GET as `status body`; a difference is written out and stops the run. */
+async function sameAnswer(base: string, other: string, url: string, cookie: string, role: string): Promise<string> {
+  const [a, b] = await Promise.all(
+    [base, other].map(async (server) => {
+      const res = await fetch(`${server}${url}`, { headers: { cookie } });
+      return `${res.status} ${await res.text()}`;
+    }),
+  );
+  if (a !== b) {
+    fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'bench-answer-this.txt'), a);
+    fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'bench-answer-base.txt'), b);
+    throw new Error(`GET ${url} as ${role}: this build and --base answer differently (test-output/bench-answer-*.txt)`);
+  }
+  return a;
+}
+
+// Job-list queries whose answers must match: every sort both ways, searches (a reference, a
+// customer, a town, LIKE's own characters), a stage and an installer filter, each followed page by
+// page through its cursors.
+function jobListQueries(installerId: string): string[] {
+  const sorts = ['updated', 'created', 'stage', 'customer', 'installDate'].flatMap((sort) => ['asc', 'desc'].map((dir) => `sort=${sort}&dir=${dir}`));
+  const searches = [
+    'q=JOB',
+    'q=demo',
+    'q=e',
+    'q=%25',
+    'q=_',
+    'q=nothing-matches-this',
+    'stage=surveyed',
+    'stage=quoted&sort=customer&dir=asc',
+    `installerId=${installerId}`,
+  ];
+  return [...sorts, ...searches].map((q) => `${q}&limit=2`);
+}
+
 /**
  * The comparison with --base means something only when both builds answer the same: every demo
  * space's plan read, as each demo role (prices stripped for the installer, 404 where not assigned),
- * byte for byte with the same status.
+ * and the jobs list for a range of sorts, searches, filters and cursors, byte for byte with the
+ * same status.
  */
 async function sameAnswers(base: string, other: string, officeCookie: string) {
-  const { body } = await getJson<{ jobs: Array<{ spaces: Array<{ id: string }> }> }>(`${base}/api/jobs?limit=100`, officeCookie);
+  const { body } = await getJson<{ jobs: Array<{ spaces: Array<{ id: string }>; assignedInstaller: { id: string } | null }> }>(
+    `${base}/api/jobs?limit=100`,
+    officeCookie,
+  );
   const spaceIds = body.jobs.flatMap((j) => j.spaces.map((s) => s.id));
-  let compared = 0;
+  const installerId = body.jobs.find((j) => j.assignedInstaller)?.assignedInstaller?.id ?? '00000000-0000-4000-8000-000000000000';
+  let plans = 0;
+  let lists = 0;
   for (const role of ['office', 'estimator', 'installer']) {
     const cookie = await signIn(base, `${role}@demo.example.com`);
     for (const id of spaceIds) {
-      const [a, b] = await Promise.all(
-        [base, other].map(async (server) => {
-          const res = await fetch(`${server}/api/spaces/${id}/plan`, { headers: { cookie } });
-          return `${res.status} ${await res.text()}`;
-        }),
-      );
-      if (a !== b) {
-        fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'bench-answer-this.txt'), a);
-        fs.writeFileSync(path.join(REPO_ROOT, 'test-output', 'bench-answer-base.txt'), b);
-        throw new Error(`GET /api/spaces/${id}/plan as ${role}: this build and --base answer differently (test-output/bench-answer-*.txt)`);
-      }
-      compared++;
+      await sameAnswer(base, other, `/api/spaces/${id}/plan`, cookie, role);
+      plans++;
+    }
+    for (const q of jobListQueries(installerId)) {
+      let cursor: string | null = null;
+      do {
+        const answer = await sameAnswer(base, other, `/api/jobs?${q}${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`, cookie, role);
+        lists++;
+        const page = answer.startsWith('200 ') ? (JSON.parse(answer.slice(4)) as { nextCursor: string | null }) : null;
+        cursor = page?.nextCursor ?? null;
+      } while (cursor);
     }
   }
-  console.log(`same answers from both builds: ${compared} plan reads (${spaceIds.length} spaces × 3 roles)`);
+  console.log(`same answers from both builds: ${plans} plan reads (${spaceIds.length} spaces × 3 roles), ${lists} job-list pages`);
+}
+
+const median = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+};
+/** Each figure the median of the rounds' (failures: their sum). */
+function medianOf(runs: Array<Omit<Row, 'instances' | 'target'>>): Omit<Row, 'instances' | 'target'> {
+  return {
+    rate: runs[0].rate,
+    rps: median(runs.map((r) => r.rps)),
+    p50: median(runs.map((r) => r.p50)),
+    p99: median(runs.map((r) => r.p99)),
+    bad: runs.reduce((n, r) => n + r.bad, 0),
+    load: median(runs.map((r) => r.load)),
+  };
 }
 
 interface Row {
@@ -197,6 +255,8 @@ interface Row {
   p50: number;
   p99: number;
   bad: number;
+  /** The 1-minute load average as the run started. */
+  load: number;
 }
 
 // autocannon spreads connections round-robin over several URLs (connection i → urls[i % n]); its
@@ -204,6 +264,7 @@ interface Row {
 const over = (urls: string[]) => urls as unknown as string;
 
 async function measure(urls: string[], cookie: string, rate: number | null): Promise<Omit<Row, 'instances' | 'target'>> {
+  const load = loadavg()[0];
   const r = await autocannon({
     url: over(urls),
     connections,
@@ -211,7 +272,7 @@ async function measure(urls: string[], cookie: string, rate: number | null): Pro
     headers: cookie ? { cookie } : {},
     ...(rate ? { overallRate: rate } : {}),
   });
-  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts };
+  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, load };
 }
 
 async function main() {
@@ -256,13 +317,20 @@ async function main() {
           : []),
       ].map(([t, u, c]) => [t, [...u], c] as [string, string[], string]);
       if (baseMain) await sameAnswers(servers[0].base, baseServers[0].base, cookie);
-      for (const [target, urls, c] of targets) {
-        await autocannon({ url: over(urls), connections, duration: 2, headers: c ? { cookie: c } : {} }); // warm up
-        for (const rate of [...rates, null]) {
-          const row = { instances: count, target, ...(await measure(urls, c, rate)) };
-          rows.push(row);
-          console.log(`${count} instance(s) ${target} at ${rate ?? 'max'}: ${row.rps.toFixed(0)} req/s, p99 ${row.p99} ms`);
+      for (const [, urls, c] of targets) await autocannon({ url: over(urls), connections, duration: 2, headers: c ? { cookie: c } : {} }); // warm up
+      // Rounds interleave the targets (each round starting one further along), so a change in the
+      // machine's load during the run falls on all of them alike; each row is the median of its rounds.
+      for (const rate of [...rates, null]) {
+        const runs = new Map<string, Array<Omit<Row, 'instances' | 'target'>>>();
+        for (let round = 0; round < repeat; round++) {
+          for (let i = 0; i < targets.length; i++) {
+            const [target, urls, c] = targets[(i + round) % targets.length];
+            const run = await measure(urls, c, rate);
+            runs.set(target, [...(runs.get(target) ?? []), run]);
+            console.log(`${count} instance(s) ${target} at ${rate ?? 'max'} (round ${round + 1}): ${run.rps.toFixed(0)} req/s, p99 ${run.p99} ms`);
+          }
         }
+        for (const [target] of targets) rows.push({ instances: count, target, ...medianOf(runs.get(target)!) });
       }
     }
   } finally {
@@ -271,7 +339,7 @@ async function main() {
   const loadAfter = loadavg();
   printTable(rows);
   console.log(
-    `\nanswers: plan ${(planBytes / 1024).toFixed(1)} kB, jobs list ${(jobsBytes / 1024).toFixed(1)} kB; ${connections} connections, ${seconds} s per row`,
+    `\nanswers: plan ${(planBytes / 1024).toFixed(1)} kB, jobs list ${(jobsBytes / 1024).toFixed(1)} kB; ${connections} connections, ${seconds} s per run, median of ${repeat} interleaved round(s)`,
   );
   console.log(`load average before ${loadBefore.map((l) => l.toFixed(2)).join(' ')}, after ${loadAfter.map((l) => l.toFixed(2)).join(' ')}`);
   if (profile) console.log(`CPU profiles in ${path.relative(REPO_ROOT, PROFILE_DIR)}/`);
@@ -282,13 +350,13 @@ async function main() {
 function printTable(rows: Row[]) {
   const bare = (r: Row) => rows.find((b) => b.target === 'bare handler' && b.instances === r.instances && b.rate === r.rate)!;
   const lines = [
-    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare |',
-    '|---|---|---|---|---|---|---|---|---|',
+    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare | load |',
+    '|---|---|---|---|---|---|---|---|---|---|',
     ...rows.map((r) => {
       const b = bare(r);
       const ratio = (b.rps ? r.rps / b.rps : 0).toFixed(2);
       const p99 = (b.p99 ? r.p99 / b.p99 : 0).toFixed(1);
-      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} |`;
+      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} | ${r.load.toFixed(1)} |`;
     }),
   ];
   console.log(`\n${lines.join('\n')}`);
