@@ -244,6 +244,7 @@ function medianOf(runs: Array<Omit<Row, 'instances' | 'target'>>): Omit<Row, 'in
     p99: median(runs.map((r) => r.p99)),
     bad: runs.reduce((n, r) => n + r.bad, 0),
     load: median(runs.map((r) => r.load)),
+    cpuUs: median(runs.map((r) => r.cpuUs)),
   };
 }
 
@@ -257,22 +258,43 @@ interface Row {
   bad: number;
   /** The 1-minute load average as the run started. */
   load: number;
+  /** CPU time of the answering Node processes per request (user + system; PostgreSQL's not counted). */
+  cpuUs: number;
 }
 
 // autocannon spreads connections round-robin over several URLs (connection i → urls[i % n]); its
 // types only declare one.
 const over = (urls: string[]) => urls as unknown as string;
 
-async function measure(urls: string[], cookie: string, rate: number | null): Promise<Omit<Row, 'instances' | 'target'>> {
+interface Target {
+  name: string;
+  urls: string[];
+  cookie: string;
+  /** The processes answering (their CPU time is read around each run). */
+  pids: number[];
+}
+
+// utime + stime of a process in clock ticks (fields 14 and 15 of /proc/<pid>/stat; Linux counts 100 a second).
+const TICKS_PER_SECOND = 100;
+function cpuTicks(pid: number): number {
+  const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+  const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+  return Number(fields[11]) + Number(fields[12]);
+}
+
+async function measure(t: Target, rate: number | null): Promise<Omit<Row, 'instances' | 'target'>> {
   const load = loadavg()[0];
+  const ticksBefore = t.pids.reduce((n, pid) => n + cpuTicks(pid), 0);
   const r = await autocannon({
-    url: over(urls),
+    url: over(t.urls),
     connections,
     duration: seconds,
-    headers: cookie ? { cookie } : {},
+    headers: t.cookie ? { cookie: t.cookie } : {},
     ...(rate ? { overallRate: rate } : {}),
   });
-  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, load };
+  const ticks = t.pids.reduce((n, pid) => n + cpuTicks(pid), 0) - ticksBefore;
+  const cpuUs = r.requests.total ? (ticks / TICKS_PER_SECOND / r.requests.total) * 1e6 : 0;
+  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, load, cpuUs };
 }
 
 async function main() {
@@ -303,34 +325,37 @@ async function main() {
       while (bares.length < count) bares.push(await startBare(bares.length + 1, bodyFile));
       if (baseMain)
         while (baseServers.length < count) baseServers.push(await startServer(`base-${baseServers.length + 1}`, { seed: false, serverMain: baseMain, db }));
-      const targets: Array<[string, string[], string]> = [
-        ['bare handler', bares.slice(0, count).map((b) => `${b.base}/bare`), ''],
-        ...(only.includes('jobs') ? ([['GET /api/jobs', servers.slice(0, count).map((s) => `${s.base}/api/jobs`), cookie]] as const) : []),
-        ...(only.includes('jobs') && baseMain
-          ? ([['GET /api/jobs (base)', baseServers.slice(0, count).map((s) => `${s.base}/api/jobs`), cookie]] as const)
-          : []),
-        ...(only.includes('plan')
-          ? ([['GET /api/spaces/:id/plan', servers.slice(0, count).map((s) => `${s.base}/api/spaces/${spaceId}/plan`), cookie]] as const)
-          : []),
-        ...(only.includes('plan') && baseMain
-          ? ([['GET /api/spaces/:id/plan (base)', baseServers.slice(0, count).map((s) => `${s.base}/api/spaces/${spaceId}/plan`), cookie]] as const)
-          : []),
-      ].map(([t, u, c]) => [t, [...u], c] as [string, string[], string]);
+      const target = (name: string, procs: Array<{ base: string; child: ChildProcess }>, route: string, c: string): Target => ({
+        name,
+        urls: procs.slice(0, count).map((p) => `${p.base}${route}`),
+        cookie: c,
+        pids: procs.slice(0, count).map((p) => p.child.pid!),
+      });
+      const planRoute = `/api/spaces/${spaceId}/plan`;
+      const targets: Target[] = [
+        target('bare handler', bares, '/bare', ''),
+        ...(only.includes('jobs') ? [target('GET /api/jobs', servers, '/api/jobs', cookie)] : []),
+        ...(only.includes('jobs') && baseMain ? [target('GET /api/jobs (base)', baseServers, '/api/jobs', cookie)] : []),
+        ...(only.includes('plan') ? [target('GET /api/spaces/:id/plan', servers, planRoute, cookie)] : []),
+        ...(only.includes('plan') && baseMain ? [target('GET /api/spaces/:id/plan (base)', baseServers, planRoute, cookie)] : []),
+      ];
       if (baseMain) await sameAnswers(servers[0].base, baseServers[0].base, cookie);
-      for (const [, urls, c] of targets) await autocannon({ url: over(urls), connections, duration: 2, headers: c ? { cookie: c } : {} }); // warm up
+      for (const t of targets) await autocannon({ url: over(t.urls), connections, duration: 2, headers: t.cookie ? { cookie: t.cookie } : {} }); // warm up
       // Rounds interleave the targets (each round starting one further along), so a change in the
       // machine's load during the run falls on all of them alike; each row is the median of its rounds.
       for (const rate of [...rates, null]) {
         const runs = new Map<string, Array<Omit<Row, 'instances' | 'target'>>>();
         for (let round = 0; round < repeat; round++) {
           for (let i = 0; i < targets.length; i++) {
-            const [target, urls, c] = targets[(i + round) % targets.length];
-            const run = await measure(urls, c, rate);
-            runs.set(target, [...(runs.get(target) ?? []), run]);
-            console.log(`${count} instance(s) ${target} at ${rate ?? 'max'} (round ${round + 1}): ${run.rps.toFixed(0)} req/s, p99 ${run.p99} ms`);
+            const t = targets[(i + round) % targets.length];
+            const run = await measure(t, rate);
+            runs.set(t.name, [...(runs.get(t.name) ?? []), run]);
+            console.log(
+              `${count} instance(s) ${t.name} at ${rate ?? 'max'} (round ${round + 1}): ${run.rps.toFixed(0)} req/s, p99 ${run.p99} ms, ${run.cpuUs.toFixed(0)} µs CPU/request`,
+            );
           }
         }
-        for (const [target] of targets) rows.push({ instances: count, target, ...medianOf(runs.get(target)!) });
+        for (const t of targets) rows.push({ instances: count, target: t.name, ...medianOf(runs.get(t.name)!) });
       }
     }
   } finally {
@@ -350,13 +375,13 @@ async function main() {
 function printTable(rows: Row[]) {
   const bare = (r: Row) => rows.find((b) => b.target === 'bare handler' && b.instances === r.instances && b.rate === r.rate)!;
   const lines = [
-    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare | load |',
-    '|---|---|---|---|---|---|---|---|---|---|',
+    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare | node CPU µs/req | load |',
+    '|---|---|---|---|---|---|---|---|---|---|---|',
     ...rows.map((r) => {
       const b = bare(r);
       const ratio = (b.rps ? r.rps / b.rps : 0).toFixed(2);
       const p99 = (b.p99 ? r.p99 / b.p99 : 0).toFixed(1);
-      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} | ${r.load.toFixed(1)} |`;
+      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} | ${r.cpuUs.toFixed(0)} | ${r.load.toFixed(1)} |`;
     }),
   ];
   console.log(`\n${lines.join('\n')}`);
