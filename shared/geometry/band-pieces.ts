@@ -30,7 +30,7 @@ export interface BandPiece {
    */
   insideAt: Vec2;
   /** The piece cut lengthwise at every sub-slab boundary: its ribbons (see ribbons.ts), ordered by `t0`. */
-  ribbons: Float64Array;
+  ribbons: number[];
 }
 
 /** Makes an outline's point from its frame coordinates (`s` along the band, `t` across). */
@@ -241,7 +241,8 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
         lastY0 = y0;
       }
     }
-    const ribbons = new Float64Array(nr * RIBBON_FIELDS);
+    // A plain array of doubles: kept with the piece, and small typed arrays are costly to make.
+    const ribbons: number[] = new Array<number>(nr * RIBBON_FIELDS).fill(0);
     let o = -RIBBON_FIELDS;
     for (let m = first[g]; m < first[g + 1]; m++) {
       const t = members[m];
@@ -345,9 +346,18 @@ function runOutline(T: Trapezoids, runNext: Int32Array, head: number, S: PieceSc
       const uy = ys[i] - ys[a];
       const vx = xs[j] - xs[i];
       const vy = ys[j] - ys[i];
-      const cross = ux * vy - uy * vx;
+      const cross = Math.abs(ux * vy - uy * vx);
       // |cross| / (|u| + |v|) bounds the distance of b from the line a–c, give or take a factor 2.
-      if (Math.abs(cross) > 1e-6 * (Math.sqrt(ux * ux + uy * uy) + Math.sqrt(vx * vx + vy * vy))) keep[nk++] = i;
+      // A length lies between its largest coordinate and their sum: the square roots are taken
+      // only when |cross| falls between the bounds these give (with room for rounding), so the
+      // answer is the one the exact test gives.
+      const au = Math.abs(ux);
+      const bu = Math.abs(uy);
+      const av = Math.abs(vx);
+      const bv = Math.abs(vy);
+      if (cross > 1e-6 * (au + bu + av + bv) * (1 + 1e-9)) keep[nk++] = i;
+      else if (cross <= 1e-6 * ((au > bu ? au : bu) + (av > bv ? av : bv)) * (1 - 1e-9)) continue;
+      else if (cross > 1e-6 * (Math.sqrt(ux * ux + uy * uy) + Math.sqrt(vx * vx + vy * vy))) keep[nk++] = i;
     }
   }
   if (nk < 3) {

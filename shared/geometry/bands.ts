@@ -1,4 +1,5 @@
 import type { Ring } from './polygon';
+import { sortNumbersAscending } from './sort-numbers';
 import { bandPieces, newPieceScratch, newTrapezoids, pushTrapezoid, type BandPiece, type PointMap } from './band-pieces';
 
 export type { BandPiece, PointMap } from './band-pieces';
@@ -38,6 +39,34 @@ const EPS = 1e-7;
  */
 export const SNAP_MM = 0.01;
 
+// Scratch columns kept from call to call, grown as needed: a typed array over 64 bytes lives
+// outside the heap and costs far more to make and to collect than its size suggests, so a call
+// makes none of its own (JavaScript runs one call at a time; each worker has its own module).
+const W = {
+  XA: new Float64Array(0),
+  YA: new Float64Array(0),
+  XB: new Float64Array(0),
+  YB: new Float64Array(0),
+  SL: new Float64Array(0),
+  bucketOf: new Int32Array(0),
+  bucketEdges: new Int32Array(0),
+  active: new Int32Array(0),
+  bucketStart: new Int32Array(0),
+  bucketFill: new Int32Array(0),
+  cuts: new Float64Array(64),
+  xm: new Float64Array(64),
+  x0: new Float64Array(64),
+  x1: new Float64Array(64),
+  mids: new Float64Array(64),
+  slabEdgeStart: new Int32Array(64),
+  slabFill: new Int32Array(64),
+  slabEdges: new Int32Array(256),
+  edgeFrom: new Int32Array(64),
+  edgeTo: new Int32Array(64),
+  traps: newTrapezoids(),
+  pieces: newPieceScratch(),
+};
+
 // Helpers live at module level: hot loops must not create closures (a bundler's keep-names
 // wrapper makes every closure creation costly, and the engine cannot inline them).
 
@@ -61,26 +90,6 @@ function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n:
 }
 
 /**
- * Sorts the first `n` values ascending, −0 before 0 as a typed array's sort puts them. A band
- * usually holds a few dozen edge ends, for which insertion sort beats a native sort's set-up.
- */
-function sortCuts(a: Float64Array, n: number): void {
-  if (n > 64) {
-    a.subarray(0, n).sort();
-    return;
-  }
-  for (let i = 1; i < n; i++) {
-    const v = a[i];
-    let j = i - 1;
-    while (j >= 0 && (a[j] > v || (a[j] === 0 && v === 0 && 1 / a[j] > 1 / v))) {
-      a[j + 1] = a[j];
-      j--;
-    }
-    a[j + 1] = v;
-  }
-}
-
-/**
  * Pieces of the region (`rings`, frame coordinates) inside each band. Bands must be sorted by
  * `loMm` and must not overlap. Pieces smaller than `minAreaMm2` (slivers where a band grazes
  * a corner) are dropped. Output is ordered by band, then by `sMinMm`. The outlines' points are
@@ -92,14 +101,18 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
   // first band each can reach (binary search) instead of sorting them all.
   let cap0 = 0;
   for (const ring of rings) cap0 += ring.length;
-  const XA = new Float64Array(cap0);
-  const YA = new Float64Array(cap0);
-  const XB = new Float64Array(cap0);
-  const YB = new Float64Array(cap0);
-  const SL = new Float64Array(cap0);
-  const bucketOf = new Int32Array(cap0);
-  let ne = 0;
   const nb = bands.length;
+  if (W.XA.length < cap0) {
+    const f = () => new Float64Array(2 * cap0);
+    const g = () => new Int32Array(2 * cap0);
+    Object.assign(W, { XA: f(), YA: f(), XB: f(), YB: f(), SL: f(), bucketOf: g(), bucketEdges: g(), active: g() });
+  }
+  if (W.bucketStart.length < nb + 1) {
+    W.bucketStart = new Int32Array(2 * nb + 2);
+    W.bucketFill = new Int32Array(2 * nb + 2);
+  }
+  const { XA, YA, XB, YB, SL, bucketOf, bucketStart, bucketFill, bucketEdges, active } = W;
+  let ne = 0;
   for (const ring of rings) {
     const n = ring.length;
     for (let i = 0; i < n; i++) {
@@ -127,32 +140,29 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
     }
   }
   // Each band's new edges in the order they were met (a counting sort keeps that order).
-  const bucketStart = new Int32Array(nb + 1);
+  bucketStart.fill(0, 0, nb + 1);
   for (let e = 0; e < ne; e++) bucketStart[bucketOf[e] + 1]++;
   for (let i = 0; i < nb; i++) bucketStart[i + 1] += bucketStart[i];
-  const bucketFill = bucketStart.slice(0, nb);
-  const bucketEdges = new Int32Array(ne);
+  bucketFill.set(bucketStart.subarray(0, nb));
   for (let e = 0; e < ne; e++) bucketEdges[bucketFill[bucketOf[e]]++] = e;
-  const active = new Int32Array(ne);
   let na = 0;
   const out: BandPiece[] = [];
-  let cuts = new Float64Array(64);
+  let cuts = W.cuts;
   const ys: number[] = [];
   const slabStart: number[] = [];
-  const traps = newTrapezoids();
-  const scratch = newPieceScratch();
+  const traps = W.traps;
+  const scratch = W.pieces;
   // Crossings of the current sub-slab in parallel typed arrays: no object per crossing.
-  let cap = 64;
-  let xm = new Float64Array(cap);
-  let x0 = new Float64Array(cap);
-  let x1 = new Float64Array(cap);
+  let xm = W.xm;
+  let x0 = W.x0;
+  let x1 = W.x1;
   // Sub-slab middles and, per sub-slab, the edges crossing it (see below), reused band to band.
-  let mids = new Float64Array(64);
-  let slabEdgeStart = new Int32Array(64);
-  let slabFill = new Int32Array(64);
-  let slabEdges = new Int32Array(256);
-  let edgeFrom = new Int32Array(64);
-  let edgeTo = new Int32Array(64);
+  let mids = W.mids;
+  let slabEdgeStart = W.slabEdgeStart;
+  let slabFill = W.slabFill;
+  let slabEdges = W.slabEdges;
+  let edgeFrom = W.edgeFrom;
+  let edgeTo = W.edgeTo;
   for (let bi = 0; bi < bands.length; bi++) {
     const lo = bands[bi].loMm;
     const hi = bands[bi].hiMm;
@@ -162,7 +172,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
     for (let k = 0; k < na; k++) if (YB[active[k]] > lo) active[w++] = active[k];
     na = w;
     if (w === 0) continue;
-    if (cuts.length < 2 * w) cuts = new Float64Array(4 * w);
+    if (cuts.length < 2 * w) cuts = W.cuts = new Float64Array(4 * w);
     let nc = 0;
     for (let k = 0; k < w; k++) {
       const ya = YA[active[k]];
@@ -170,7 +180,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
       if (ya > lo + SNAP_MM && ya < hi - SNAP_MM) cuts[nc++] = ya;
       if (yb > lo + SNAP_MM && yb < hi - SNAP_MM) cuts[nc++] = yb;
     }
-    sortCuts(cuts, nc);
+    sortNumbersAscending(cuts, 0, nc);
     ys.length = 0;
     ys.push(lo);
     for (let k = 0; k < nc; k++) if (cuts[k] - ys[ys.length - 1] > SNAP_MM) ys.push(cuts[k]);
@@ -182,12 +192,12 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
     // order of `active`, as a scan of every edge per sub-slab would meet them), so a sub-slab
     // looks only at the edges that cross it.
     const ns = ys.length - 1;
-    if (mids.length < ns) mids = new Float64Array(2 * ns);
+    if (mids.length < ns) mids = W.mids = new Float64Array(2 * ns);
     for (let si = 0; si < ns; si++) mids[si] = (ys[si] + ys[si + 1]) / 2;
-    if (slabEdgeStart.length < ns + 1) slabEdgeStart = new Int32Array(2 * ns + 2);
+    if (slabEdgeStart.length < ns + 1) slabEdgeStart = W.slabEdgeStart = new Int32Array(2 * ns + 2);
     if (edgeFrom.length < w) {
-      edgeFrom = new Int32Array(2 * w);
-      edgeTo = new Int32Array(2 * w);
+      edgeFrom = W.edgeFrom = new Int32Array(2 * w);
+      edgeTo = W.edgeTo = new Int32Array(2 * w);
     }
     for (let si = 0; si <= ns; si++) slabEdgeStart[si] = 0;
     for (let k = 0; k < w; k++) {
@@ -209,8 +219,8 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
     }
     for (let si = 0; si < ns; si++) slabEdgeStart[si + 1] += slabEdgeStart[si];
     const total = slabEdgeStart[ns];
-    if (slabEdges.length < total) slabEdges = new Int32Array(2 * total);
-    if (slabFill.length < ns) slabFill = new Int32Array(2 * ns);
+    if (slabEdges.length < total) slabEdges = W.slabEdges = new Int32Array(2 * total);
+    if (slabFill.length < ns) slabFill = W.slabFill = new Int32Array(2 * ns);
     for (let si = 0; si < ns; si++) slabFill[si] = slabEdgeStart[si];
     for (let k = 0; k < w; k++) for (let si = edgeFrom[k]; si < edgeTo[k]; si++) slabEdges[slabFill[si]++] = k;
     for (let si = 0; si < ns; si++) {
@@ -219,11 +229,10 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
       const y1 = ys[si + 1];
       const ym = mids[si];
       const n = slabEdgeStart[si + 1] - slabEdgeStart[si];
-      if (n > cap) {
-        cap = n * 2;
-        xm = new Float64Array(cap);
-        x0 = new Float64Array(cap);
-        x1 = new Float64Array(cap);
+      if (n > xm.length) {
+        xm = W.xm = new Float64Array(2 * n);
+        x0 = W.x0 = new Float64Array(2 * n);
+        x1 = W.x1 = new Float64Array(2 * n);
       }
       let nx = 0;
       for (let q = slabEdgeStart[si]; q < slabEdgeStart[si + 1]; q++) {

@@ -11,12 +11,27 @@ export const CIRCLE_SEGMENTS = 16;
  */
 export function circlePolygon(centre: readonly number[], radiusMm: number, segments = CIRCLE_SEGMENTS): Vec2[] {
   const r = radiusMm / Math.cos(Math.PI / segments);
+  const { cos, sin } = unitCircle(segments);
   const out: Vec2[] = [];
-  for (let i = 0; i < segments; i++) {
-    const a = (2 * Math.PI * (i + 0.5)) / segments;
-    out.push([centre[0] + r * Math.cos(a), centre[1] + r * Math.sin(a)]);
-  }
+  for (let i = 0; i < cos.length; i++) out.push([centre[0] + r * cos[i], centre[1] + r * sin[i]]);
   return out;
+}
+
+// The corners' directions per segment count, worked out once (the same Math.cos and Math.sin of
+// the same angles, so the same points): every downlight and every corner of a grown exclusion asks.
+const unitCircles = new Map<number, { cos: number[]; sin: number[] }>();
+function unitCircle(segments: number): { cos: number[]; sin: number[] } {
+  let u = unitCircles.get(segments);
+  if (!u) {
+    u = { cos: [], sin: [] };
+    for (let i = 0; i < segments; i++) {
+      const a = (2 * Math.PI * (i + 0.5)) / segments;
+      u.cos.push(Math.cos(a));
+      u.sin.push(Math.sin(a));
+    }
+    if (unitCircles.size < 8) unitCircles.set(segments, u);
+  }
+  return u;
 }
 
 /**

@@ -1,3 +1,5 @@
+import { sortNumbersAscending } from '../geometry/sort-numbers';
+
 /**
  * Offcuts of one product while its roll plan is made: rectangles of insulation (length along
  * the roll × width) with where they came from. Guillotine cuts: taking a piece from an offcut
@@ -135,14 +137,15 @@ export function takeFills(items: Offcut[], areaMm2: number): number {
 
 /**
  * Sorts offcuts by area, smallest first, ties in the order given (a stable sort). The areas are
- * worked out once and sorted natively, then each offcut is placed at the first slot of its area
+ * worked out once and sorted as numbers, then each offcut is placed at the first slot of its area
  * still free: a skewed plan leaves thousands of cut-outs here.
  */
 function sortByArea(items: Offcut[]): void {
   const n = items.length;
   const area = new Float64Array(n);
   for (let i = 0; i < n; i++) area[i] = items[i].lengthMm * items[i].widthMm;
-  const sorted = area.slice().sort();
+  const sorted = area.slice();
+  sortNumbersAscending(sorted, 0, n);
   // Slots taken so far in each run of equal areas, counted at the run's first index.
   const taken = new Int32Array(n);
   const was = items.slice();

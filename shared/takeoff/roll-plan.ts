@@ -162,7 +162,7 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
 
   // Full-width strips first, in laying order; the longest later one that fits takes a short end.
   const wide = pieces.filter((p) => p.kind === 'strip' && p.widthMm >= W - 0.5);
-  const narrow = pieces.filter((p) => p.kind === 'strip' && p.widthMm < W - 0.5).sort((a, b) => b.lengthMm * b.widthMm - a.lengthMm * a.widthMm);
+  const narrow = byAreaDescending(pieces.filter((p) => p.kind === 'strip' && p.widthMm < W - 0.5));
   const byLength = wide.map((_, i) => i).sort((a, b) => wide[a].lengthMm - wide[b].lengthMm || a - b);
   const done = new Uint8Array(wide.length);
   for (const p of pieces) if (p.widthMm > W + 0.5) throw new Error(`${p.key}: ${p.widthMm} mm is wider than the ${W} mm lane of ${stock.productId}`);
@@ -299,6 +299,15 @@ function planProduct(stock: RollStock, pieces: PieceDemand[], st: RollPlanSettin
     boughtMm2,
     wastePct: boughtMm2 > 0 ? (leftMm2 / boughtMm2) * 100 : 0,
   };
+}
+
+/** The pieces by area (length × width), largest first, ties in the order given (a stable sort on areas worked out once). */
+function byAreaDescending(pieces: PieceDemand[]): PieceDemand[] {
+  const area = pieces.map((p) => p.lengthMm * p.widthMm);
+  return pieces
+    .map((_, i) => i)
+    .sort((i, j) => area[j] - area[i] || i - j)
+    .map((i) => pieces[i]);
 }
 
 /** Index into `pieces` of the longest not yet `done` with length ≤ `maxMm`, or −1 (`order` sorts by length). */

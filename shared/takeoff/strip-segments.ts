@@ -12,6 +12,11 @@ import {
   RIBBON_T0,
   RIBBON_T1,
 } from '../geometry/ribbons';
+import { sortNumbersAscending } from '../geometry/sort-numbers';
+
+// Per-ribbon ends and their sorted list, kept from call to call (grown as needed): typed arrays
+// over 64 bytes live outside the heap and cost far more to make than to fill.
+let scratch = { lo: new Float64Array(64), hi: new Float64Array(64), xs: new Float64Array(128) };
 
 /** A length of a strip with one width: the whole band width, or the part of it covered. */
 export interface StripSegment {
@@ -30,7 +35,7 @@ export interface StripSegment {
  * Also returns the gaps where the piece forks around an obstacle inside the band (cut out of
  * the strip and kept as offcuts: length × width across, mm).
  */
-export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { segments: StripSegment[]; gaps: { lengthMm: number; acrossMm: number }[] } {
+export function stripSegments(ribbons: readonly number[], minSegmentMm: number): { segments: StripSegment[]; gaps: { lengthMm: number; acrossMm: number }[] } {
   const R = ribbons;
   const n = ribbonCount(R);
   const gaps: { lengthMm: number; acrossMm: number }[] = [];
@@ -41,17 +46,18 @@ export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { se
   if (n === 1) return { segments: [{ lengthMm: R[RIBBON_S_HI] - R[RIBBON_S_LO], coveredWidthMm: R[RIBBON_T1] - R[RIBBON_T0] }], gaps };
   // Each end as runs of ribbons where it is continuous (an end cut on the angle, however many
   // ribbons it crosses), placed at the run's mean: a step is where the end jumps.
-  const lo = endRuns(R, n, RIBBON_LO0, RIBBON_LO1);
-  const hi = endRuns(R, n, RIBBON_HI0, RIBBON_HI1);
-  // A typed array sorts numbers natively (no comparator call per comparison).
-  const xs = new Float64Array(2 * n);
+  if (scratch.lo.length < n) scratch = { lo: new Float64Array(2 * n), hi: new Float64Array(2 * n), xs: new Float64Array(4 * n) };
+  const { lo, hi, xs } = scratch;
+  endRuns(R, n, RIBBON_LO0, RIBBON_LO1, lo);
+  endRuns(R, n, RIBBON_HI0, RIBBON_HI1, hi);
   for (let j = 0; j < n; j++) {
     xs[2 * j] = lo[j];
     xs[2 * j + 1] = hi[j];
   }
-  xs.sort();
+  const nx = 2 * n;
+  sortNumbersAscending(xs, 0, nx);
   let segs: StripSegment[] = [];
-  for (let k = 0; k + 1 < xs.length; k++) {
+  for (let k = 0; k + 1 < nx; k++) {
     const len = xs[k + 1] - xs[k];
     if (len <= 1e-6) continue;
     const mid = (xs[k] + xs[k + 1]) / 2;
@@ -93,11 +99,10 @@ export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { se
 }
 
 /**
- * Per ribbon, the position of one end (fields `f0` at t0 and `f1` at t1): the height-weighted
- * mean over the run of ribbons through which that end continues.
+ * Per ribbon, the position of one end (fields `f0` at t0 and `f1` at t1) into `out`: the
+ * height-weighted mean over the run of ribbons through which that end continues.
  */
-function endRuns(R: Float64Array, n: number, f0: number, f1: number): Float64Array {
-  const out = new Float64Array(n);
+function endRuns(R: readonly number[], n: number, f0: number, f1: number, out: Float64Array): void {
   let start = 0;
   for (let j = 0; j <= n; j++) {
     const o = j * RIBBON_FIELDS;
@@ -117,5 +122,4 @@ function endRuns(R: Float64Array, n: number, f0: number, f1: number): Float64Arr
     }
     start = j;
   }
-  return out;
 }
