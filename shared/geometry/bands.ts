@@ -177,8 +177,10 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
     for (let k = 0; k < w; k++) {
       const ya = YA[active[k]];
       const yb = YB[active[k]];
-      if (ya > lo + SNAP_MM && ya < hi - SNAP_MM) cuts[nc++] = ya;
-      if (yb > lo + SNAP_MM && yb < hi - SNAP_MM) cuts[nc++] = yb;
+      // Neighbouring edges share a corner: a value just listed is not listed again, as the
+      // boundaries depend only on which values there are (zeros always are: −0 sorts first).
+      if (ya > lo + SNAP_MM && ya < hi - SNAP_MM && (nc === 0 || cuts[nc - 1] !== ya || ya === 0)) cuts[nc++] = ya;
+      if (yb > lo + SNAP_MM && yb < hi - SNAP_MM && (nc === 0 || cuts[nc - 1] !== yb || yb === 0)) cuts[nc++] = yb;
     }
     sortNumbersAscending(cuts, 0, nc);
     ys.length = 0;

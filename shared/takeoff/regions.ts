@@ -126,10 +126,16 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   if (rects.length) {
     const bandsInLoft = intersectPolygons(outlinePoly, rects);
     const boxes = rects.map((r) => polygonBounds(r));
-    const near = allShapes.filter((sh) => {
+    const near: PolygonWithHoles[] = [];
+    for (const sh of allShapes) {
       const b = polygonBounds([sh[0]]);
-      return boxes.some((r) => b.minX <= r.maxX && b.maxX >= r.minX && b.minY <= r.maxY && b.maxY >= r.minY);
-    });
+      for (const r of boxes) {
+        if (b.minX <= r.maxX && b.maxX >= r.minX && b.minY <= r.maxY && b.maxY >= r.minY) {
+          near.push(sh);
+          break;
+        }
+      }
+    }
     netAreaMm2 += multiPolygonArea(near.length ? differencePolygons(bandsInLoft, near) : bandsInLoft);
   }
   const excludedAreaMm2 = grossAreaMm2 - netAreaMm2;

@@ -50,27 +50,29 @@ export function stripSegments(ribbons: readonly number[], minSegmentMm: number):
   const { lo, hi, xs } = scratch;
   endRuns(R, n, RIBBON_LO0, RIBBON_LO1, lo);
   endRuns(R, n, RIBBON_HI0, RIBBON_HI1, hi);
-  for (let j = 0; j < n; j++) {
-    xs[2 * j] = lo[j];
-    xs[2 * j + 1] = hi[j];
-  }
-  const nx = 2 * n;
+  // The ends, sorted, bound the lengths. A run of ribbons shares one end value: listed once (a
+  // repeated value only adds lengths of zero, which are skipped), so few values are sorted.
+  let nx = 0;
+  for (let j = 0; j < n; j++) if (j === 0 || lo[j] !== lo[j - 1]) xs[nx++] = lo[j];
+  for (let j = 0; j < n; j++) if (j === 0 || hi[j] !== hi[j - 1]) xs[nx++] = hi[j];
   sortNumbersAscending(xs, 0, nx);
   let segs: StripSegment[] = [];
   for (let k = 0; k + 1 < nx; k++) {
     const len = xs[k + 1] - xs[k];
     if (len <= 1e-6) continue;
     const mid = (xs[k] + xs[k + 1]) / 2;
-    let t0 = Infinity;
-    let t1 = -Infinity;
-    for (let j = 0; j < n; j++) {
-      if (lo[j] <= mid && hi[j] >= mid) {
-        const o = j * RIBBON_FIELDS;
-        if (R[o + RIBBON_T0] < t0) t0 = R[o + RIBBON_T0];
-        if (R[o + RIBBON_T1] > t1) t1 = R[o + RIBBON_T1];
-      }
+    // Ribbons are sub-slabs in order across the band, so of those reaching `mid` the first has
+    // the least t0 and the last the greatest t1: look for them from either end.
+    let first = 0;
+    while (first < n && !(lo[first] <= mid && hi[first] >= mid)) first++;
+    let w = 0;
+    if (first < n) {
+      let last = n - 1;
+      while (!(lo[last] <= mid && hi[last] >= mid)) last--;
+      const t0 = R[first * RIBBON_FIELDS + RIBBON_T0];
+      const t1 = R[last * RIBBON_FIELDS + RIBBON_T1];
+      w = t1 > t0 ? t1 - t0 : 0;
     }
-    const w = t1 > t0 ? t1 - t0 : 0;
     const last = segs[segs.length - 1];
     if (last && Math.abs(last.coveredWidthMm - w) < 1 + SNAP_MM) last.lengthMm += len;
     else segs.push({ lengthMm: len, coveredWidthMm: w });
