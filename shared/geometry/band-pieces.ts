@@ -1,4 +1,5 @@
 import type { Vec2 } from './vector';
+import { floats, ints, RIBBON_CHUNK, type PieceScratch, type Trapezoids } from './band-scratch';
 import { RIBBON_COVERED, RIBBON_FIELDS, RIBBON_HI0, RIBBON_HI1, RIBBON_LO0, RIBBON_LO1, RIBBON_S_HI, RIBBON_S_LO, RIBBON_T0, RIBBON_T1 } from './ribbons';
 
 /**
@@ -30,85 +31,13 @@ export interface BandPiece {
    */
   insideAt: Vec2;
   /** The piece cut lengthwise at every sub-slab boundary: its ribbons (see ribbons.ts), ordered by `t0`. */
-  ribbons: number[];
+  ribbons: Float64Array;
 }
 
 /** Makes an outline's point from its frame coordinates (`s` along the band, `t` across). */
 export type PointMap = (s: number, t: number) => Vec2;
 
 const EPS = 1e-7;
-
-/**
- * A band's trapezoids, one column per field: trapezoid `i` spans `y0[i]..y1[i]` across the band,
- * its left side runs from `l0[i]` (at y0) to `l1[i]` (at y1), its right side from `r0[i]` to
- * `r1[i]`. `n` is the count; the arrays grow as needed and are reused for the next band.
- */
-export interface Trapezoids {
-  n: number;
-  y0: Float64Array;
-  y1: Float64Array;
-  l0: Float64Array;
-  l1: Float64Array;
-  r0: Float64Array;
-  r1: Float64Array;
-}
-
-/** Scratch space for `bandPieces`, reused from band to band (grown as needed). */
-export interface PieceScratch {
-  ints: Int32Array[];
-  floats: Float64Array[];
-  xs: Float64Array;
-  ys: Float64Array;
-  keep: Int32Array;
-}
-
-export function newTrapezoids(cap = 256): Trapezoids {
-  const f = () => new Float64Array(cap);
-  return { n: 0, y0: f(), y1: f(), l0: f(), l1: f(), r0: f(), r1: f() };
-}
-
-export function newPieceScratch(): PieceScratch {
-  return { ints: [], floats: [], xs: new Float64Array(64), ys: new Float64Array(64), keep: new Int32Array(64) };
-}
-
-function grown(a: Float64Array, cap: number): Float64Array {
-  const b = new Float64Array(cap);
-  b.set(a);
-  return b;
-}
-
-export function pushTrapezoid(t: Trapezoids, y0: number, y1: number, l0: number, l1: number, r0: number, r1: number): void {
-  if (t.n === t.y0.length) {
-    const cap = t.n * 2;
-    t.y0 = grown(t.y0, cap);
-    t.y1 = grown(t.y1, cap);
-    t.l0 = grown(t.l0, cap);
-    t.l1 = grown(t.l1, cap);
-    t.r0 = grown(t.r0, cap);
-    t.r1 = grown(t.r1, cap);
-  }
-  const i = t.n++;
-  t.y0[i] = y0;
-  t.y1[i] = y1;
-  t.l0[i] = l0;
-  t.l1[i] = l1;
-  t.r0[i] = r0;
-  t.r1[i] = r1;
-}
-
-/** The `k`-th integer scratch array with room for `n` (contents undefined). */
-function ints(s: PieceScratch, k: number, n: number): Int32Array {
-  let a = s.ints[k];
-  if (!a || a.length < n) a = s.ints[k] = new Int32Array(Math.max(n, 2 * (a?.length ?? 32)));
-  return a;
-}
-
-/** The `k`-th float scratch array with room for `n` (contents undefined). */
-function floats(s: PieceScratch, k: number, n: number): Float64Array {
-  let a = s.floats[k];
-  if (!a || a.length < n) a = s.floats[k] = new Float64Array(Math.max(n, 2 * (a?.length ?? 32)));
-  return a;
-}
 
 function findRoot(parent: Int32Array, i: number): number {
   while (parent[i] !== i) i = parent[i] = parent[parent[i]];
@@ -241,8 +170,14 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
         lastY0 = y0;
       }
     }
-    // A plain array of doubles: kept with the piece, and small typed arrays are costly to make.
-    const ribbons: number[] = new Array<number>(nr * RIBBON_FIELDS).fill(0);
+    // A view into a chunk shared by the pieces of one call (see `PieceScratch.ribbons`).
+    const need = nr * RIBBON_FIELDS;
+    if (S.ribbonsUsed + need > S.ribbons.length) {
+      S.ribbons = new Float64Array(Math.max(need, RIBBON_CHUNK));
+      S.ribbonsUsed = 0;
+    }
+    const ribbons = S.ribbons.subarray(S.ribbonsUsed, S.ribbonsUsed + need);
+    S.ribbonsUsed += need;
     let o = -RIBBON_FIELDS;
     for (let m = first[g]; m < first[g + 1]; m++) {
       const t = members[m];

@@ -1,6 +1,7 @@
 import type { Ring } from './polygon';
 import { sortNumbersAscending } from './sort-numbers';
-import { bandPieces, newPieceScratch, newTrapezoids, pushTrapezoid, type BandPiece, type PointMap } from './band-pieces';
+import { bandPieces, type BandPiece, type PointMap } from './band-pieces';
+import { newPieceScratch, newTrapezoids, pushTrapezoid, startRibbons } from './band-scratch';
 
 export type { BandPiece, PointMap } from './band-pieces';
 
@@ -152,6 +153,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
   const slabStart: number[] = [];
   const traps = W.traps;
   const scratch = W.pieces;
+  startRibbons(scratch);
   // Crossings of the current sub-slab in parallel typed arrays: no object per crossing.
   let xm = W.xm;
   let x0 = W.x0;

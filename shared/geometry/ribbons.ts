@@ -1,7 +1,7 @@
 /**
  * A band piece cut lengthwise at every sub-slab boundary (see `BandPiece.ribbons`): one ribbon
- * per sub-slab, ordered by `t0`, stored `RIBBON_FIELDS` numbers apart in one array of numbers
- * per piece (a skewed plan cuts thousands of ribbons per layer; an object each was garbage). Frame
+ * per sub-slab, ordered by `t0`, stored `RIBBON_FIELDS` numbers apart in one Float64Array (a view) per
+ * piece (a skewed plan cuts thousands of ribbons per layer; an object each was garbage). Frame
  * coordinates, mm. Ribbon `j`'s fields start at `j * RIBBON_FIELDS`:
  * - `RIBBON_T0`, `RIBBON_T1`: the sub-slab `t0..t1`;
  * - `RIBBON_S_LO`, `RIBBON_S_HI`: the mean of its left and right ends (an end cut on the angle
@@ -22,6 +22,6 @@ export const RIBBON_HI1 = 7;
 export const RIBBON_COVERED = 8;
 
 /** Number of ribbons in a piece's ribbon array. */
-export function ribbonCount(ribbons: readonly number[]): number {
+export function ribbonCount(ribbons: Float64Array): number {
   return ribbons.length / RIBBON_FIELDS;
 }

@@ -46,7 +46,13 @@ const m = (mm: number) => `${(mm / 1000).toFixed(1)} m`;
  */
 export function siteChecksFor(plan: Plan, ctx: SiteCheckContext): SiteCheck[] {
   const out: SiteCheck[] = [];
-  const idx = (k: ExclusionKind) => plan.exclusions.flatMap((e, i) => (e.kind === k && !ctx.ignored?.has(i) ? [i] : []));
+  const idx = (k: ExclusionKind) => {
+    const out: number[] = [];
+    plan.exclusions.forEach((e, i) => {
+      if (e.kind === k && !ctx.ignored?.has(i)) out.push(i);
+    });
+    return out;
+  };
   const c = ctx.countsByKind;
   const site = plan.site ?? {};
   const old = [c.flue ? plural(c.flue, 'flue') : '', c.tank ? plural(c.tank, 'tank') : ''].filter(Boolean).join(' and ');

@@ -35,7 +35,7 @@ export interface StripSegment {
  * Also returns the gaps where the piece forks around an obstacle inside the band (cut out of
  * the strip and kept as offcuts: length × width across, mm).
  */
-export function stripSegments(ribbons: readonly number[], minSegmentMm: number): { segments: StripSegment[]; gaps: { lengthMm: number; acrossMm: number }[] } {
+export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { segments: StripSegment[]; gaps: { lengthMm: number; acrossMm: number }[] } {
   const R = ribbons;
   const n = ribbonCount(R);
   const gaps: { lengthMm: number; acrossMm: number }[] = [];
@@ -104,7 +104,7 @@ export function stripSegments(ribbons: readonly number[], minSegmentMm: number):
  * Per ribbon, the position of one end (fields `f0` at t0 and `f1` at t1) into `out`: the
  * height-weighted mean over the run of ribbons through which that end continues.
  */
-function endRuns(R: readonly number[], n: number, f0: number, f1: number, out: Float64Array): void {
+function endRuns(R: Float64Array, n: number, f0: number, f1: number, out: Float64Array): void {
   let start = 0;
   for (let j = 0; j <= n; j++) {
     const o = j * RIBBON_FIELDS;
