@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { clipRegionToBands, type Band, type Vec2 } from '../../shared/geometry';
 import GeoJSONReader from 'jsts/org/locationtech/jts/io/GeoJSONReader.js';
-import { jstsPolygon } from './helpers/jsts-oracle';
+import { jstsPolygon, jstsUnionAll } from './helpers/jsts-oracle';
 import { arbStarPolygon } from './helpers/arbitraries';
 
 /** Bands of a given width covering the y-range of the rings. */
@@ -86,5 +86,62 @@ describe('band piece outlines', () => {
     const [piece] = clipRegionToBands([outer, hole], [{ loMm: 0, hiMm: 1000 }]);
     const [s, t] = piece.insideAt;
     expect(s >= 500 && s <= 1500 && t > 200 && t < 800).toBe(false);
+  });
+});
+
+describe('band pieces around many obstacles in one band', () => {
+  it('join into as many pieces as jsts finds, each with its area, when walls cross the band and holes fork it', () => {
+    // A 30 m × 1 m band; walls (slanted quadrilaterals taller than the band) cut it into parts,
+    // small holes between them fork a part without cutting it. Holes sit in cells of their own,
+    // so nothing overlaps and the rings describe the region by the even-odd rule.
+    const arbCell = fc.record({
+      kind: fc.constantFrom('wall', 'hole', 'none'),
+      w: fc.integer({ min: 40, max: 300 }),
+      x: fc.integer({ min: 0, max: 150 }),
+      skew: fc.integer({ min: -120, max: 120 }),
+      lo: fc.integer({ min: 50, max: 450 }),
+      hi: fc.integer({ min: 550, max: 950 }),
+    });
+    fc.assert(
+      fc.property(fc.array(arbCell, { minLength: 1, maxLength: 40 }), (cells) => {
+        const outer: Vec2[] = [
+          [0, 0],
+          [30_000, 0],
+          [30_000, 1000],
+          [0, 1000],
+        ];
+        const holes: Vec2[][] = [];
+        cells.forEach((c, i) => {
+          const s = 500 + i * 700 + c.x;
+          if (c.kind === 'wall')
+            holes.push([
+              [s, -1],
+              [s + c.w, -1],
+              [s + c.w + c.skew, 1001],
+              [s + c.skew, 1001],
+            ]);
+          else if (c.kind === 'hole')
+            holes.push([
+              [s, c.lo],
+              [s + c.w, c.lo],
+              [s + c.w + c.skew / 4, c.hi],
+              [s + c.skew / 4, c.hi],
+            ]);
+        });
+        // jsts: the band minus the walls and holes (one piece per polygon of the result).
+        const band = jstsPolygon([outer]);
+        const region = holes.length ? band.difference(jstsUnionAll(holes.map((h) => jstsPolygon([h])))) : band;
+        const expected = region as unknown as { getNumGeometries(): number; getGeometryN(i: number): { getArea(): number } };
+        // Even-odd rings: where a wall pokes out of the band it is outside the band's slab anyway.
+        const pieces = clipRegionToBands([outer, ...holes], [{ loMm: 0, hiMm: 1000 }]);
+        const areas = Array.from({ length: expected.getNumGeometries() }, (_, i) => expected.getGeometryN(i).getArea()).sort((a, b) => a - b);
+        expect(pieces).toHaveLength(areas.length);
+        pieces
+          .map((p) => p.areaMm2)
+          .sort((a, b) => a - b)
+          .forEach((a, i) => expect(a).toBeCloseTo(areas[i], 3));
+      }),
+      { numRuns: 150 },
+    );
   });
 });
