@@ -1,4 +1,4 @@
-import { sortNumbersAscending } from '../geometry/sort-numbers';
+import { orderByPositiveKeys, sortNumbersAscending } from '../geometry/sort-numbers';
 
 /**
  * Offcuts of one product while its roll plan is made: rectangles of insulation (length along
@@ -137,18 +137,24 @@ export function takeFills(items: Offcut[], areaMm2: number): number {
 
 /**
  * Sorts offcuts by area, smallest first, ties in the order given (a stable sort). The areas are
- * worked out once and sorted as numbers, then each offcut is placed at the first slot of its area
- * still free: a skewed plan leaves thousands of cut-outs here.
+ * worked out once and radix-sorted (`orderByPositiveKeys`); should one not be positive, they are
+ * sorted as numbers and each offcut is placed at the first slot of its area still free. A skewed
+ * plan leaves thousands of cut-outs here.
  */
 function sortByArea(items: Offcut[]): void {
   const n = items.length;
   const area = new Float64Array(n);
   for (let i = 0; i < n; i++) area[i] = items[i].lengthMm * items[i].widthMm;
+  const was = items.slice();
+  const order = orderByPositiveKeys(area);
+  if (order) {
+    for (let k = 0; k < n; k++) items[k] = was[order[k]];
+    return;
+  }
   const sorted = area.slice();
   sortNumbersAscending(sorted, 0, n);
   // Slots taken so far in each run of equal areas, counted at the run's first index.
   const taken = new Int32Array(n);
-  const was = items.slice();
   for (let i = 0; i < n; i++) {
     const a = area[i];
     let lo = 0;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { sortNumbersAscending } from '../../shared/geometry/sort-numbers';
+import { orderByPositiveKeys, sortNumbersAscending } from '../../shared/geometry/sort-numbers';
 
 // The oracle is the engine's own TypedArray.prototype.sort (ECMAScript: numeric order, −0 before +0).
 const value = fc.oneof(
@@ -26,5 +26,25 @@ describe('sortNumbersAscending', () => {
     const a = Float64Array.from([9, 5, 3, 1, 0]);
     sortNumbersAscending(a, 1, 4);
     expect(Array.from(a)).toEqual([9, 1, 3, 5, 0]);
+  });
+});
+
+describe('orderByPositiveKeys', () => {
+  // The oracle is Array.prototype.sort, stable since ECMAScript 2019, on the keys' values.
+  const positive = fc.oneof(fc.double({ min: 1e-300, max: 1e12, noNaN: true }), fc.constantFrom(1, 2, 2.5, 1e-9, 5e-324, 1e6));
+
+  it('orders indices by key as a stable sort does, ties in index order', () => {
+    fc.assert(
+      fc.property(fc.array(positive, { maxLength: 500 }), (xs) => {
+        const keys = Float64Array.from(xs);
+        const expected = xs.map((_, i) => i).sort((i, j) => (xs[i] < xs[j] ? -1 : xs[i] > xs[j] ? 1 : 0));
+        expect(Array.from(orderByPositiveKeys(keys)!)).toEqual(expected);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('declines keys that are not positive', () => {
+    for (const bad of [0, -0, -1, Number.NaN]) expect(orderByPositiveKeys(Float64Array.from([3, bad, 1]))).toBeNull();
   });
 });
