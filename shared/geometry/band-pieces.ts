@@ -173,7 +173,8 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     // A view into a chunk shared by the pieces of one call (see `PieceScratch.ribbons`).
     const need = nr * RIBBON_FIELDS;
     if (S.ribbonsUsed + need > S.ribbons.length) {
-      S.ribbons = new Float64Array(Math.max(need, RIBBON_CHUNK));
+      // Chunks double from small (a small plan makes little) up to a cap.
+      S.ribbons = new Float64Array(Math.max(need, Math.min(RIBBON_CHUNK, 2 * S.ribbons.length || 64 * RIBBON_FIELDS)));
       S.ribbonsUsed = 0;
     }
     const ribbons = S.ribbons.subarray(S.ribbonsUsed, S.ribbonsUsed + need);
