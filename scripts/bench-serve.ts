@@ -22,7 +22,7 @@ import path from 'node:path';
 import autocannon from 'autocannon';
 import { DEMO_PASSWORD } from '../server/db/seeders/demo';
 import { buildServer } from './server-build.mjs';
-import { REPO_ROOT, databaseUrl, dropDatabase, ensureDatabase, ensurePgRunning, stopPg } from './pg.mjs';
+import { REPO_ROOT, databaseUrl, dropDatabase, ensureDatabase, ensurePgRunning, pgConfig, stopPg } from './pg.mjs';
 
 const arg = (name: string, fallback: string) => {
   const i = process.argv.indexOf(`--${name}`);
@@ -245,6 +245,7 @@ function medianOf(runs: Array<Omit<Row, 'instances' | 'target'>>): Omit<Row, 'in
     bad: runs.reduce((n, r) => n + r.bad, 0),
     load: median(runs.map((r) => r.load)),
     cpuUs: median(runs.map((r) => r.cpuUs)),
+    dbCpuUs: median(runs.map((r) => r.dbCpuUs)),
   };
 }
 
@@ -260,6 +261,8 @@ interface Row {
   load: number;
   /** CPU time of the answering Node processes per request (user + system; PostgreSQL's not counted). */
   cpuUs: number;
+  /** CPU time of the PostgreSQL cluster per request (every process of it, so also other instances' polling). */
+  dbCpuUs: number;
 }
 
 // autocannon spreads connections round-robin over several URLs (connection i → urls[i % n]); its
@@ -274,17 +277,42 @@ interface Target {
   pids: number[];
 }
 
-// utime + stime of a process in clock ticks (fields 14 and 15 of /proc/<pid>/stat; Linux counts 100 a second).
+// utime + stime of a process in clock ticks (fields 14 and 15 of /proc/<pid>/stat, 16 and 17 for its
+// reaped children; Linux counts 100 a second).
 const TICKS_PER_SECOND = 100;
-function cpuTicks(pid: number): number {
+function statFields(pid: number | string): string[] {
   const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
-  const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+  return stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+}
+function cpuTicks(pid: number): number {
+  const fields = statFields(pid);
   return Number(fields[11]) + Number(fields[12]);
+}
+
+/**
+ * CPU ticks of the project cluster: its postmaster, every process it runs now (backends, background
+ * workers) and those that ended (their time is added to the postmaster's children's time when it reaps them).
+ */
+function clusterTicks(): number {
+  const postmaster = Number(fs.readFileSync(path.join(pgConfig().dataDir, 'postmaster.pid'), 'utf8').split('\n')[0]);
+  const own = statFields(postmaster);
+  let ticks = Number(own[11]) + Number(own[12]) + Number(own[13]) + Number(own[14]);
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const fields = statFields(entry);
+      if (Number(fields[1]) === postmaster) ticks += Number(fields[11]) + Number(fields[12]);
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return ticks;
 }
 
 async function measure(t: Target, rate: number | null): Promise<Omit<Row, 'instances' | 'target'>> {
   const load = loadavg()[0];
   const ticksBefore = t.pids.reduce((n, pid) => n + cpuTicks(pid), 0);
+  const dbTicksBefore = clusterTicks();
   const r = await autocannon({
     url: over(t.urls),
     connections,
@@ -293,8 +321,10 @@ async function measure(t: Target, rate: number | null): Promise<Omit<Row, 'insta
     ...(rate ? { overallRate: rate } : {}),
   });
   const ticks = t.pids.reduce((n, pid) => n + cpuTicks(pid), 0) - ticksBefore;
-  const cpuUs = r.requests.total ? (ticks / TICKS_PER_SECOND / r.requests.total) * 1e6 : 0;
-  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, load, cpuUs };
+  const perRequest = (n: number) => (r.requests.total ? (n / TICKS_PER_SECOND / r.requests.total) * 1e6 : 0);
+  const cpuUs = perRequest(ticks);
+  const dbCpuUs = perRequest(clusterTicks() - dbTicksBefore);
+  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, load, cpuUs, dbCpuUs };
 }
 
 async function main() {
@@ -351,7 +381,7 @@ async function main() {
             const run = await measure(t, rate);
             runs.set(t.name, [...(runs.get(t.name) ?? []), run]);
             console.log(
-              `${count} instance(s) ${t.name} at ${rate ?? 'max'} (round ${round + 1}): ${run.rps.toFixed(0)} req/s, p99 ${run.p99} ms, ${run.cpuUs.toFixed(0)} µs CPU/request`,
+              `${count} instance(s) ${t.name} at ${rate ?? 'max'} (round ${round + 1}): ${run.rps.toFixed(0)} req/s, p99 ${run.p99} ms, ${run.cpuUs.toFixed(0)} µs node + ${run.dbCpuUs.toFixed(0)} µs PostgreSQL CPU/request`,
             );
           }
         }
@@ -375,13 +405,13 @@ async function main() {
 function printTable(rows: Row[]) {
   const bare = (r: Row) => rows.find((b) => b.target === 'bare handler' && b.instances === r.instances && b.rate === r.rate)!;
   const lines = [
-    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare | node CPU µs/req | load |',
-    '|---|---|---|---|---|---|---|---|---|---|---|',
+    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare | node CPU µs/req | PostgreSQL CPU µs/req | load |',
+    '|---|---|---|---|---|---|---|---|---|---|---|---|',
     ...rows.map((r) => {
       const b = bare(r);
       const ratio = (b.rps ? r.rps / b.rps : 0).toFixed(2);
       const p99 = (b.p99 ? r.p99 / b.p99 : 0).toFixed(1);
-      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} | ${r.cpuUs.toFixed(0)} | ${r.load.toFixed(1)} |`;
+      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} | ${r.cpuUs.toFixed(0)} | ${r.dbCpuUs.toFixed(0)} | ${r.load.toFixed(1)} |`;
     }),
   ];
   console.log(`\n${lines.join('\n')}`);
