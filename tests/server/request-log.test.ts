@@ -1,4 +1,4 @@
-// Structured request logs: one JSON line per request with its id, the user and the
+// Structured request logs (pino-http): one JSON line per request with its id, the user and the
 // company, and nothing private (no cookie, no password, no customer's private quote token).
 import { Writable } from 'node:stream';
 import request from 'supertest';
@@ -37,7 +37,8 @@ describe('request logs', () => {
     await request(app).get('/api/public/quotes/some-private-token-abc');
     await expect.poll(() => entries().filter((e) => e.req).length).toBeGreaterThanOrEqual(3);
     const meLine = entries().find((e) => e.req?.id === 'probe-123')!;
-    expect(meLine).toMatchObject({ userId: org.office.id, organisationId: org.id, res: { statusCode: 200 } });
+    // The whole path as it arrived, not the part left after the routers it passed through.
+    expect(meLine).toMatchObject({ req: { url: '/api/auth/me' }, userId: org.office.id, organisationId: org.id, res: { statusCode: 200 } });
     const all = lines.join('\n');
     expect(all).not.toContain(org.office.password);
     expect(all).not.toMatch(/connect\.sid|quiltline\.sid|cookie/i);
