@@ -20,6 +20,14 @@ async function main() {
   }
   const deps = await createDeps(config);
   const log = deps.logger;
+  // A stop asked for while starting (migrations, demo data, backfill) ends the process through
+  // process.exit, so the batched log is written out; the shutdown below takes over once listening.
+  const stopWhileStarting = (signal: NodeJS.Signals) => {
+    log.info(`${signal} while starting: stopped`);
+    process.exit(signal === 'SIGINT' ? 130 : 143);
+  };
+  process.once('SIGINT', stopWhileStarting);
+  process.once('SIGTERM', stopWhileStarting);
   if (config.migrateOnStart) {
     const applied = await runMigrations(deps.sequelize, config.databaseUrl);
     if (applied.length) log.info({ migrations: applied }, 'migrations applied');
@@ -51,6 +59,8 @@ async function main() {
     timeoutMs: config.shutdownTimeoutMs,
     exit: (code) => process.exit(code),
   });
+  process.off('SIGINT', stopWhileStarting);
+  process.off('SIGTERM', stopWhileStarting);
   process.on('SIGINT', () => void shutdown.stop('SIGINT'));
   process.on('SIGTERM', () => void shutdown.stop('SIGTERM'));
 }
