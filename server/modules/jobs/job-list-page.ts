@@ -58,7 +58,8 @@ export function keysetFor(query: { sort?: Sort; dir?: Dir; cursor?: string }) {
   const sort = query.sort ?? 'updated';
   const dir = query.dir ?? 'desc';
   const key = keyOf(sort, dir);
-  const DIR = dir.toUpperCase() as 'ASC' | 'DESC';
+  // Spelled out, never copied from the query: this goes into the SQL text.
+  const DIR = dir === 'asc' ? 'ASC' : 'DESC';
   let after: { cmp: '<' | '>'; cast: string; key: string; id: string } | null = null;
   if (query.cursor) {
     const c = decodeCursor(query.cursor, sort, dir);

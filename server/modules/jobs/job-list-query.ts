@@ -65,7 +65,7 @@ export async function readJobListPage(pool: pg.Pool, actor: SessionUser, query: 
   const text = `
     WITH matching AS (
       SELECT "Job".id, ${keyset.keySql} AS sort_key, ${keyset.keyValue} AS list_key
-      FROM jobs "Job" LEFT JOIN customers "customer" ON "customer".id = "Job".customer_id
+      FROM jobs "Job" LEFT JOIN customers "customer" ON "customer".id = "Job".customer_id AND "customer".organisation_id = "Job".organisation_id
       WHERE ${where.join(' AND ')}
     ), page AS (
       SELECT m.id, m.sort_key, m.list_key FROM matching m ${after} ORDER BY m.sort_key ${keyset.DIR}, m.id ${keyset.DIR} LIMIT ${param(limit + 1)}
@@ -80,12 +80,13 @@ export async function readJobListPage(pool: pg.Pool, actor: SessionUser, query: 
              (SELECT coalesce(json_agg(json_build_object('id', s.id, 'name', s.name, 'latestRevision', r.revision,
                        'latestRevisionAt', r.created_at::text, 'updatedAt', s.updated_at::text) ORDER BY s.position, s.created_at, s.id), '[]'::json)
                 FROM spaces s
-                LEFT JOIN LATERAL (SELECT revision, created_at FROM plan_revisions WHERE space_id = s.id ORDER BY revision DESC LIMIT 1) r ON true
-               WHERE s.job_id = j.id AND s.deleted_at IS NULL) AS spaces
+                LEFT JOIN LATERAL (SELECT revision, created_at FROM plan_revisions WHERE space_id = s.id AND organisation_id = s.organisation_id ORDER BY revision DESC LIMIT 1) r ON true
+               WHERE s.job_id = j.id AND s.organisation_id = j.organisation_id AND s.deleted_at IS NULL) AS spaces
       FROM page p
       JOIN jobs j ON j.id = p.id
-      JOIN customers c ON c.id = j.customer_id
-      LEFT JOIN users u ON u.id = j.assigned_installer_id
+      -- Every join also keeps to the job's company: rows of another company never join, whatever the ids say.
+      JOIN customers c ON c.id = j.customer_id AND c.organisation_id = j.organisation_id
+      LEFT JOIN users u ON u.id = j.assigned_installer_id AND u.organisation_id = j.organisation_id
     ) x ON true
     ORDER BY x.sort_key ${keyset.DIR}, x.id ${keyset.DIR}`;
   const { rows } = await pool.query<Row>({ name: statementName(text), text, values });
