@@ -38,11 +38,13 @@ export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
   const { errors } = form.formState;
 
   const onSubmit = form.handleSubmit(async (body) => {
+    // The rows as sent: one added or emptied while the request is out must not shift its messages.
+    const onRow = setErrorOnSentRows(form.setError, 'lines', keptRows(form.getValues('lines')));
     let id: string;
     try {
       id = (await create.mutateAsync({ ...body, refund: invoice.status === 'paid' && body.refund })).id;
     } catch (err) {
-      showServerErrors(err, setErrorOnSentRows(form.setError, 'lines', keptRows(form.getValues('lines'))));
+      showServerErrors(err, onRow);
       return;
     }
     navigate(`/invoices/${id}`);

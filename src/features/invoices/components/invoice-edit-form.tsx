@@ -39,10 +39,12 @@ export function InvoiceEditForm({ invoice }: { invoice: Invoice }) {
   });
 
   const onSubmit = form.handleSubmit(async (body) => {
+    // The rows as sent: one added or emptied while the request is out must not shift its messages.
+    const onRow = setErrorOnSentRows(form.setError, 'variations', keptRows(form.getValues('variations')));
     try {
       await update.mutateAsync(body);
     } catch (err) {
-      showServerErrors(err, setErrorOnSentRows(form.setError, 'variations', keptRows(form.getValues('variations'))));
+      showServerErrors(err, onRow);
     }
   });
   const problem = form.formState.errors.root?.server?.message;
