@@ -21,8 +21,9 @@ import { loadavg } from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { DEMO_PASSWORD } from '../server/db/seeders/demo';
+import { clusterTicks, cpuTicks, TICKS_PER_SECOND } from './proc-cpu';
 import { buildServer } from './server-build.mjs';
-import { REPO_ROOT, databaseUrl, dropDatabase, ensureDatabase, ensurePgRunning, pgConfig, stopPg } from './pg.mjs';
+import { REPO_ROOT, databaseUrl, dropDatabase, ensureDatabase, ensurePgRunning, stopPg } from './pg.mjs';
 
 const arg = (name: string, fallback: string) => {
   const i = process.argv.indexOf(`--${name}`);
@@ -275,38 +276,6 @@ interface Target {
   cookie: string;
   /** The processes answering (their CPU time is read around each run). */
   pids: number[];
-}
-
-// utime + stime of a process in clock ticks (fields 14 and 15 of /proc/<pid>/stat, 16 and 17 for its
-// reaped children; Linux counts 100 a second).
-const TICKS_PER_SECOND = 100;
-function statFields(pid: number | string): string[] {
-  const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
-  return stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-}
-function cpuTicks(pid: number): number {
-  const fields = statFields(pid);
-  return Number(fields[11]) + Number(fields[12]);
-}
-
-/**
- * CPU ticks of the project cluster: its postmaster, every process it runs now (backends, background
- * workers) and those that ended (their time is added to the postmaster's children's time when it reaps them).
- */
-function clusterTicks(): number {
-  const postmaster = Number(fs.readFileSync(path.join(pgConfig().dataDir, 'postmaster.pid'), 'utf8').split('\n')[0]);
-  const own = statFields(postmaster);
-  let ticks = Number(own[11]) + Number(own[12]) + Number(own[13]) + Number(own[14]);
-  for (const entry of fs.readdirSync('/proc')) {
-    if (!/^\d+$/.test(entry)) continue;
-    try {
-      const fields = statFields(entry);
-      if (Number(fields[1]) === postmaster) ticks += Number(fields[11]) + Number(fields[12]);
-    } catch {
-      // the process ended meanwhile
-    }
-  }
-  return ticks;
 }
 
 async function measure(t: Target, rate: number | null): Promise<Omit<Row, 'instances' | 'target'>> {
