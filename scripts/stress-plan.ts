@@ -1,4 +1,5 @@
 import type { PlanInput } from '../shared/plan/plan-schema';
+import { mulberry32 } from './mulberry32';
 
 /**
  * A generated stress plan for the takeoff benchmark: a wavy 400-point outline of about 600 m²,
@@ -6,14 +7,7 @@ import type { PlanInput } from '../shared/plan/plan-schema';
  * Deterministic (mulberry32 seeded PRNG) so runs compare; `angleDeg` turns the joists (skewed plans).
  */
 export function stressPlan(seed = 7, points = 400, exclusions = 100, angleDeg = 13): PlanInput {
-  let a = seed >>> 0;
-  const rand = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const rand = mulberry32(seed);
   const R = 13_700;
   const outline: [number, number][] = [];
   for (let i = 0; i < points; i++) {

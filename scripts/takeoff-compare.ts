@@ -16,6 +16,7 @@ import { parseProductCatalogue } from '../shared/takeoff/products';
 import { validatePlan } from '../shared/plan/validate-plan';
 import type { Plan, PlanInput } from '../shared/plan/plan-schema';
 import type { TakeoffSettings } from '../shared/takeoff/settings';
+import { mulberry32 } from './mulberry32';
 import { stressPlan } from './stress-plan';
 
 type Compute = typeof computeTakeoff;
@@ -32,15 +33,8 @@ const sides: [Compute, ReturnType<typeof parseProductCatalogue>][] = [
   [base.computeTakeoff, baseProductsModule.parseProductCatalogue(catalogue)],
 ];
 
-// mulberry32: the same plans on every run.
-let seed = 12345;
-const rand = () => {
-  seed = (seed + 0x6d2b79f5) >>> 0;
-  let t = seed;
-  t = Math.imul(t ^ (t >>> 15), t | 1);
-  t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-};
+// The same plans on every run.
+const rand = mulberry32(12345);
 const int = (lo: number, hi: number) => lo + Math.floor(rand() * (hi - lo + 1));
 const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rand() * xs.length)];
 type Pt = [number, number];
