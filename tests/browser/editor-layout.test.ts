@@ -1,5 +1,5 @@
 // The editor's screen in headless chromium at 1440, 1024 and 390 px: the canvas fills the space
-// beside the panel, the toolbar stays one row whatever the save status says (the canvas must not
+// beside the panel, the toolbar stays one row from 1024 px whatever the save status says (the canvas must not
 // move under the pointer), a blank plan opens at a sensible zoom, and the scale bar and cursor
 // read-out are there. Screenshots in test-output/screenshots/editor-layout-*.png.
 import fs from 'node:fs';
@@ -163,6 +163,27 @@ describe('editor layout', () => {
       await expect.poll(read).toMatch(/^x \d+′ \d+.*″ {2}y \d+′ \d+.*″$/);
       await expect.poll(() => bar.textContent()).toMatch(/^\d+ ft$/);
     });
+  });
+
+  it('keeps the save status and Save on the screen at 1024, 820 (an upright tablet) and 390 px', { timeout: 150_000 }, async () => {
+    const { space } = await createJob(org, { plan: example('l-shape.json'), spaceName: 'Narrow loft' });
+    for (const [w, h] of [
+      [1024, 768],
+      [820, 1180],
+      [390, 844],
+    ]) {
+      await withPage({ width: w, height: h }, async (page) => {
+        await open(page, space.id);
+        const why = `at ${w} px`;
+        expect(await page.evaluate(() => document.documentElement.scrollWidth), why).toBeLessThanOrEqual(w);
+        for (const id of ['save-status', 'save', 'undo', 'fit']) {
+          const b = await box(page, id);
+          expect(b.x, `${id} ${why}`).toBeGreaterThanOrEqual(0);
+          expect(b.x + b.width, `${id} ${why}`).toBeLessThanOrEqual(w);
+        }
+        await screenshot(page, `editor-layout-${w}-toolbar`);
+      });
+    }
   });
 
   it('screenshots at 1440, 1024 and 390 px', { timeout: 150_000 }, async () => {

@@ -11,9 +11,10 @@ type Props = {
 };
 
 /**
- * Undo/redo, zoom and fit, units, help, then the page's controls. One row that never wraps on a
- * tablet or wider: the title block shrinks (and truncates) instead, so nothing below it moves
- * when a label changes. Phones get a wrapping toolbar.
+ * Undo/redo, zoom and fit, units, help, then the page's controls. One row that never wraps from
+ * 1024 px up: the title block shrinks (and truncates) instead, so nothing below it moves when a
+ * label changes. Narrower screens (an upright tablet, a phone) get a wrapping toolbar: in one row
+ * the save status and Save ran off an 820 px screen.
  */
 export function EditorToolbar({ crumb, children }: Props) {
   const editor = useEditor();
@@ -23,10 +24,10 @@ export function EditorToolbar({ crumb, children }: Props) {
   const name = useEditorSelect((s) => s.plan.name);
   return (
     <div
-      className="flex h-12 shrink-0 flex-nowrap items-center gap-2 border-b border-graphite/15 bg-paper-dark/60 px-3 max-md:h-auto max-md:flex-wrap max-md:py-1.5"
+      className="flex h-12 shrink-0 flex-nowrap items-center gap-2 border-b border-graphite/15 bg-paper-dark/60 px-3 max-lg:h-auto max-lg:flex-wrap max-lg:py-1.5"
       data-testid="editor-toolbar"
     >
-      <div className="mr-1 min-w-0 flex-1 leading-tight max-md:basis-full">
+      <div className="mr-1 min-w-0 flex-1 leading-tight max-lg:basis-full">
         {crumb && <div className="truncate text-xs text-graphite-light">{crumb}</div>}
         <h1 className="truncate text-sm font-semibold" data-testid="plan-name" title={name}>
           {name}
@@ -78,7 +79,10 @@ export function EditorToolbar({ crumb, children }: Props) {
       >
         ?
       </button>
-      <div className="ml-auto flex shrink-0 flex-nowrap items-center gap-2 max-md:flex-wrap">{children}</div>
+      {/* When wrapping, the page's controls take a line of their own and wrap there too. */}
+      <div className="ml-auto flex shrink-0 flex-nowrap items-center gap-2 max-lg:ml-0 max-lg:min-w-0 max-lg:shrink max-lg:basis-full max-lg:flex-wrap">
+        {children}
+      </div>
     </div>
   );
 }
