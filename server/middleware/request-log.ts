@@ -22,12 +22,11 @@ export function requestLog(logger: Logger) {
       res.setHeader('X-Request-Id', id);
       return id;
     },
-    // Called as the request starts (no user yet: undefined, so no child logger is made for nothing)
-    // and again when it ends.
-    customProps(req: IncomingMessage) {
-      const user = (req as Request).user;
-      return (user ? { userId: user.id, organisationId: user.organisationId } : undefined) as object;
-    },
+    // Who asked goes into the line itself. customProps would do it through a child logger made as the
+    // request ends (its bindings stringified first), on every request: about as much time again as the
+    // rest of the line costs.
+    customSuccessObject: (req: IncomingMessage, _res: ServerResponse, line: object) => withUser(req, line),
+    customErrorObject: (req: IncomingMessage, _res: ServerResponse, _err: Error, line: object) => withUser(req, line),
     // Ours pick three fields from the request and one from the response: given the raw objects,
     // not pino's full copies of them first (every header, on every request).
     wrapSerializers: false,
@@ -42,4 +41,10 @@ export function requestLog(logger: Logger) {
       err: stdSerializers.err,
     },
   });
+}
+
+/** The line with the signed-in user's and company's ids (nothing else about them), when someone is signed in. */
+function withUser(req: IncomingMessage, line: object): object {
+  const user = (req as Request).user;
+  return user ? { ...line, userId: user.id, organisationId: user.organisationId } : line;
 }
