@@ -121,5 +121,12 @@ describe('whether the plan read reports a stored takeoff', () => {
     await PlanRevision.update({ takeoff: { ...(row.takeoff as object), format: 'quiltline-takeoff/1' } as never }, { where: { id: row.id } });
     expect((await read(office)).takeoffStored).toBe(false);
     expect(await read(installer)).toMatchObject({ takeoffStored: false, takeoff: null });
+
+    // Writers' answer comes from the stored format column (migration 0508), which PostgreSQL keeps in
+    // step with every write of the takeoff: back to the current format, then none at all.
+    await PlanRevision.update({ takeoff: row.takeoff as never }, { where: { id: row.id } });
+    expect((await read(office)).takeoffStored).toBe(true);
+    await PlanRevision.update({ takeoff: null as never }, { where: { id: row.id } });
+    expect((await read(office)).takeoffStored).toBe(false);
   });
 });

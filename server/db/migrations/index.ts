@@ -12,6 +12,7 @@ import * as m0504 from './0504-space-soft-delete';
 import * as m0505 from './0505-mail-waiting-index';
 import * as m0506 from './0506-job-actuals';
 import * as m0507 from './0507-actuals-edits';
+import * as m0508 from './0508-takeoff-format-column';
 
 type Migration = RunnableMigration<QueryInterface>;
 const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'] }): Migration => ({ name, up: mod.up, down: mod.down });
@@ -34,4 +35,5 @@ export const MIGRATIONS: Migration[] = [
   entry('0505-mail-waiting-index', m0505),
   entry('0506-job-actuals', m0506),
   entry('0507-actuals-edits', m0507),
+  entry('0508-takeoff-format-column', m0508),
 ];

@@ -34,11 +34,12 @@ interface Row extends Omit<SpacePlanRow, 'inputs'> {
 // decides access, the newest revision (the (space_id, revision) index serves the LIMIT 1) and the
 // company's takeoff inputs (settings, active products in name order, whether a hatch kit is
 // offered), read afresh every time so a change made through any instance shows on the next read.
-// The takeoff body is sent only to viewers who cannot write ($3): writers compute it live. A named
+// The takeoff body is sent only to viewers who cannot write ($3): writers compute it live, and for them
+// the stored format column (migration 0508) answers whether one is stored without unpacking it. A named
 // statement: each connection parses and plans it once, not on every read.
 const SQL = `
   SELECT s.id, s.name, s.job_id AS "jobId", j.reference AS "jobReference", j.organisation_id AS "jobOrganisationId",
-         j.assigned_installer_id AS "assignedInstallerId", r.revision, r.plan, r.takeoff->>'format' AS "takeoffFormat",
+         j.assigned_installer_id AS "assignedInstallerId", r.revision, r.plan, r.takeoff_format AS "takeoffFormat",
          CASE WHEN $3::boolean THEN r.takeoff END AS takeoff, r.created_at AS "createdAt",
          (SELECT json_build_object('wasteAllowance', c.waste_allowance, 'minOffcutMm', c.min_offcut_mm, 'degreeDays', c.degree_days,
                    'fuelPriceMinorPerKwh', c.fuel_price_minor_per_kwh, 'heatingEfficiency', c.heating_efficiency,
@@ -52,7 +53,7 @@ const SQL = `
   FROM spaces s
   JOIN jobs j ON j.id = s.job_id
   LEFT JOIN LATERAL (
-    SELECT revision, plan, takeoff, created_at FROM plan_revisions WHERE space_id = s.id ORDER BY revision DESC LIMIT 1
+    SELECT revision, plan, takeoff_format, takeoff, created_at FROM plan_revisions WHERE space_id = s.id ORDER BY revision DESC LIMIT 1
   ) r ON true
   WHERE s.id = $1 AND s.organisation_id = $2 AND s.deleted_at IS NULL`;
 
