@@ -6,8 +6,9 @@
  * with the demo data, starts the server as plain `node` processes (one, then two on the same
  * database, connections spread round-robin by autocannon) and, beside them, a bare Express handler
  * that answers the same bytes as the plan read. Drives GET /api/jobs and GET /api/spaces/:id/plan
- * signed in as the demo office user at fixed rates and flat out, and prints requests/s and p99 with
- * their ratio to the bare handler in the same run. --profile writes a V8 CPU profile of each server
+ * signed in as the demo office user at fixed rates (paced evenly, open loop: scripts/paced-load.ts)
+ * and flat out (autocannon), and prints requests/s and p99 with their ratio to the bare handler in
+ * the same run. --profile writes a V8 CPU profile of each server
  * process into test-output/cpu-profiles/ (open in Chrome DevTools). --base runs a second build (copy
  * an older dist-server/ under the repository, e.g. test-output/, so it finds node_modules) beside
  * this one, checks both answer every demo plan read and a range of job-list pages byte for byte as
@@ -21,6 +22,8 @@ import { loadavg } from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { DEMO_PASSWORD } from '../server/db/seeders/demo';
+import { medianOf, printTable, type Row } from './bench-serve-table';
+import { pacedLoad } from './paced-load';
 import { clusterTicks, cpuTicks, TICKS_PER_SECOND } from './proc-cpu';
 import { buildServer } from './server-build.mjs';
 import { REPO_ROOT, databaseUrl, dropDatabase, ensureDatabase, ensurePgRunning, stopPg } from './pg.mjs';
@@ -232,40 +235,6 @@ async function sameAnswers(base: string, other: string, officeCookie: string) {
   console.log(`same answers from both builds: ${plans} plan reads (${spaceIds.length} spaces × 3 roles), ${lists} job-list pages`);
 }
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
-};
-/** Each figure the median of the rounds' (failures: their sum). */
-function medianOf(runs: Array<Omit<Row, 'instances' | 'target'>>): Omit<Row, 'instances' | 'target'> {
-  return {
-    rate: runs[0].rate,
-    rps: median(runs.map((r) => r.rps)),
-    p50: median(runs.map((r) => r.p50)),
-    p99: median(runs.map((r) => r.p99)),
-    bad: runs.reduce((n, r) => n + r.bad, 0),
-    load: median(runs.map((r) => r.load)),
-    cpuUs: median(runs.map((r) => r.cpuUs)),
-    dbCpuUs: median(runs.map((r) => r.dbCpuUs)),
-  };
-}
-
-interface Row {
-  instances: number;
-  target: string;
-  rate: number | null;
-  rps: number;
-  p50: number;
-  p99: number;
-  bad: number;
-  /** The 1-minute load average as the run started. */
-  load: number;
-  /** CPU time of the answering Node processes per request (user + system; PostgreSQL's not counted). */
-  cpuUs: number;
-  /** CPU time of the PostgreSQL cluster per request (every process of it, so also other instances' polling). */
-  dbCpuUs: number;
-}
-
 // autocannon spreads connections round-robin over several URLs (connection i → urls[i % n]); its
 // types only declare one.
 const over = (urls: string[]) => urls as unknown as string;
@@ -282,18 +251,22 @@ async function measure(t: Target, rate: number | null): Promise<Omit<Row, 'insta
   const load = loadavg()[0];
   const ticksBefore = t.pids.reduce((n, pid) => n + cpuTicks(pid), 0);
   const dbTicksBefore = clusterTicks();
-  const r = await autocannon({
-    url: over(t.urls),
-    connections,
-    duration: seconds,
-    headers: t.cookie ? { cookie: t.cookie } : {},
-    ...(rate ? { overallRate: rate } : {}),
-  });
+  const headers: Record<string, string> = t.cookie ? { cookie: t.cookie } : {};
+  // A fixed rate is paced evenly (scripts/paced-load.ts says why not autocannon's); flat out is autocannon's closed loop.
+  const r = rate
+    ? await pacedLoad({ urls: t.urls, headers, rate, seconds, connections })
+    : await autocannon({ url: over(t.urls), connections, duration: seconds, headers }).then((a) => ({
+        rps: a.requests.average,
+        p50: a.latency.p50,
+        p99: a.latency.p99,
+        bad: a.non2xx + a.errors + a.timeouts,
+        total: a.requests.total,
+      }));
   const ticks = t.pids.reduce((n, pid) => n + cpuTicks(pid), 0) - ticksBefore;
-  const perRequest = (n: number) => (r.requests.total ? (n / TICKS_PER_SECOND / r.requests.total) * 1e6 : 0);
+  const perRequest = (n: number) => (r.total ? (n / TICKS_PER_SECOND / r.total) * 1e6 : 0);
   const cpuUs = perRequest(ticks);
   const dbCpuUs = perRequest(clusterTicks() - dbTicksBefore);
-  return { rate, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, bad: r.non2xx + r.errors + r.timeouts, load, cpuUs, dbCpuUs };
+  return { rate, rps: r.rps, p50: r.p50, p99: r.p99, bad: r.bad, load, cpuUs, dbCpuUs };
 }
 
 async function main() {
@@ -369,21 +342,6 @@ async function main() {
   if (profile) console.log(`CPU profiles in ${path.relative(REPO_ROOT, PROFILE_DIR)}/`);
   dropDatabase(DB);
   if (pg.startedHere) stopPg();
-}
-
-function printTable(rows: Row[]) {
-  const bare = (r: Row) => rows.find((b) => b.target === 'bare handler' && b.instances === r.instances && b.rate === r.rate)!;
-  const lines = [
-    '| instances | target | rate | req/s | p50 ms | p99 ms | failed | req/s ÷ bare | p99 ÷ bare | node CPU µs/req | PostgreSQL CPU µs/req | load |',
-    '|---|---|---|---|---|---|---|---|---|---|---|---|',
-    ...rows.map((r) => {
-      const b = bare(r);
-      const ratio = (b.rps ? r.rps / b.rps : 0).toFixed(2);
-      const p99 = (b.p99 ? r.p99 / b.p99 : 0).toFixed(1);
-      return `| ${r.instances} | ${r.target} | ${r.rate ?? 'max'} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.bad} | ${ratio} | ${p99} | ${r.cpuUs.toFixed(0)} | ${r.dbCpuUs.toFixed(0)} | ${r.load.toFixed(1)} |`;
-    }),
-  ];
-  console.log(`\n${lines.join('\n')}`);
 }
 
 main().catch(async (e) => {
