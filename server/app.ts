@@ -33,6 +33,7 @@ import { paymentsRouter, paymentsWebhookRouter } from './modules/payments/paymen
 import { createPaymentsService } from './modules/payments/payments.service';
 import { photosRouters } from './modules/photos/photos.router';
 import { createPhotosService } from './modules/photos/photos.service';
+import { planReadWithSession } from './modules/plans/plan-read-session';
 import { plansRouter } from './modules/plans/plans.router';
 import { publicQuoteRouter } from './modules/public-quote/public-quote.router';
 import { createPublicQuoteService } from './modules/public-quote/public-quote.service';
@@ -87,6 +88,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/health', healthRouter(deps));
   app.use('/api/ready', readyRouter(deps)); // database, mail queue, not shutting down
   app.use('/api', sameOrigin(config.appUrl, ['/api/payments/webhook']));
+  // The editor's plan read brings its session along in one statement; what it does not answer goes on.
+  app.get('/api/spaces/:id/plan', planReadWithSession(deps.pool, config.sessionSecret));
   app.use('/api', ...sessionHandlers);
   app.use('/api/auth', authRouter(deps, auth, passport));
   app.use('/api/users', usersRouter(deps, auth));

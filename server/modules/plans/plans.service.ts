@@ -14,7 +14,7 @@ import type { SessionUser } from '../../types';
 import { companyTakeoffInputs, storePlanRevision, type TakeoffInputs } from '../plan-revisions/plan-takeoff';
 import { getRevision, listRevisions } from '../plan-revisions/revisions.repository';
 import { findSpaceForUser } from '../spaces/spaces.service';
-import { readSpacePlan } from './plan-read';
+import { readSpacePlan, type SpacePlanRow } from './plan-read';
 
 export const BACKGROUND_MAX_BYTES = 8 * 1024 * 1024;
 const IMAGE_TYPES: Record<string, string> = { 'image/png': 'png', 'image/jpeg': 'jpg', 'image/webp': 'webp', 'image/gif': 'gif' };
@@ -55,29 +55,7 @@ export function createPlansService(deps: AppDeps) {
 
   return {
     async get(actor: SessionUser, spaceId: string) {
-      const canWrite = can(actor, 'plans:write');
-      const space = await readSpacePlan(pool, actor, spaceId, { withTakeoff: !canWrite });
-      const { inputs } = space;
-      const withPrices = can(actor, 'prices:read');
-      // Writers are sent no takeoff, only whether one is stored: the server alone writes that column,
-      // from computeTakeoff, whose output parses to itself under the schema of its format (a changed
-      // shape bumps the format; tests/shared/takeoff-schema.test.ts), so the format string answers it.
-      // Viewers are sent the body through the schema, which also puts its keys in the schema's order.
-      const stored = canWrite ? null : readStoredTakeoff(space.takeoff);
-      const takeoffStored = canWrite ? space.takeoffFormat === TAKEOFF_FORMAT : stored !== null;
-      return {
-        plan: (space.plan as Plan | null) ?? starterPlan(space.name),
-        revision: space.revision ?? 0,
-        savedAt: space.createdAt?.toISOString() ?? null,
-        space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.jobReference },
-        canWrite,
-        /** Whether this revision has its takeoff stored (the editor offers Save when it has not). */
-        takeoffStored,
-        // Read-only viewers are shown the stored artefact as it is (no recomputing, no pinning);
-        // writers compute it live from the same inputs, so they are not sent a second copy.
-        takeoff: canWrite || !stored ? null : withPrices ? stored : takeoffWithoutPrices(stored),
-        takeoffInputs: withPrices ? inputs : withoutPrices(inputs),
-      };
+      return planAnswer(actor, await readSpacePlan(pool, actor, spaceId, { withTakeoff: !can(actor, 'plans:write') }));
     },
 
     async save(actor: SessionUser, spaceId: string, body: { plan: unknown; baseRevision: number; note?: string }) {
@@ -146,6 +124,35 @@ export function createPlansService(deps: AppDeps) {
 }
 
 export type PlansService = ReturnType<typeof createPlansService>;
+
+/**
+ * The answer to GET /:id/plan from the read (readSpacePlan, or the read that brings its session
+ * along), read with its takeoff body exactly when the actor cannot write plans.
+ */
+export function planAnswer(actor: SessionUser, space: SpacePlanRow) {
+  const canWrite = can(actor, 'plans:write');
+  const { inputs } = space;
+  const withPrices = can(actor, 'prices:read');
+  // Writers are sent no takeoff, only whether one is stored: the server alone writes that column,
+  // from computeTakeoff, whose output parses to itself under the schema of its format (a changed
+  // shape bumps the format; tests/shared/takeoff-schema.test.ts), so the format string answers it.
+  // Viewers are sent the body through the schema, which also puts its keys in the schema's order.
+  const stored = canWrite ? null : readStoredTakeoff(space.takeoff);
+  const takeoffStored = canWrite ? space.takeoffFormat === TAKEOFF_FORMAT : stored !== null;
+  return {
+    plan: (space.plan as Plan | null) ?? starterPlan(space.name),
+    revision: space.revision ?? 0,
+    savedAt: space.createdAt?.toISOString() ?? null,
+    space: { id: space.id, name: space.name, jobId: space.jobId, jobReference: space.jobReference },
+    canWrite,
+    /** Whether this revision has its takeoff stored (the editor offers Save when it has not). */
+    takeoffStored,
+    // Read-only viewers are shown the stored artefact as it is (no recomputing, no pinning);
+    // writers compute it live from the same inputs, so they are not sent a second copy.
+    takeoff: canWrite || !stored ? null : withPrices ? stored : takeoffWithoutPrices(stored),
+    takeoffInputs: withPrices ? inputs : withoutPrices(inputs),
+  };
+}
 
 /** Inputs with every price zeroed, the fuel price included (installers never see prices). */
 function withoutPrices(inputs: TakeoffInputs): TakeoffInputs {
