@@ -38,13 +38,17 @@ export function planReadWithSession(pool: pg.Pool, sessionSecret: string): Reque
     const sid = sessionIdFromCookie(req.headers.cookie, SESSION_COOKIE, sessionSecret);
     const spaceId = idSchema.safeParse(req.params.id);
     if (!sid || !spaceId.success) return next();
-    pool.query<Row>({ name: 'plan-read-session', text: SQL, values: [sid, spaceId.data, WRITER_ROLES] }).then(({ rows: [row] }) => {
-      const user = row && ordinaryUser(row);
-      const space = user && row.id ? visibleSpacePlan(user, row as Row & PlanReadRow) : null;
-      if (!user || !space) return next();
-      req.user = user;
-      res.json(planAnswer(user, space));
-    }, next);
+    pool
+      .query<Row>({ name: 'plan-read-session', text: SQL, values: [sid, spaceId.data, WRITER_ROLES] })
+      .then(({ rows: [row] }) => {
+        const user = row && ordinaryUser(row);
+        const space = user && row.id ? visibleSpacePlan(user, row as Row & PlanReadRow) : null;
+        if (!user || !space) return next();
+        req.user = user;
+        res.json(planAnswer(user, space));
+      })
+      // A failure while answering goes to the error handler, as it would from the plans router.
+      .catch(next);
   };
 }
 
