@@ -33,6 +33,8 @@ export function plansRouter(deps: AppDeps) {
   const c = createPlansController(createPlansService(deps));
   const r = Router();
   const write = requireCan('plans:write');
+  // The ordinary signed-in read is answered before this, with its session (plan-read-session.ts, mounted
+  // in app.ts); this route answers the rest. A check added here belongs there too.
   r.get('/:id/plan', requireAuth, validate({ params }), c.get);
   r.put('/:id/plan', requireAuth, write, validate({ params, body: savePlanBodySchema }), c.save);
   r.get('/:id/revisions', requireAuth, validate({ params }), c.revisions);
