@@ -1,5 +1,5 @@
 import type { Vec2 } from './vector';
-import { floats, ints, RIBBON_CHUNK, type PieceScratch, type Trapezoids } from './band-scratch';
+import { floats, ints, reserveRibbons, type PieceScratch, type Trapezoids } from './band-scratch';
 import { RIBBON_COVERED, RIBBON_FIELDS, RIBBON_HI0, RIBBON_HI1, RIBBON_LO0, RIBBON_LO1, RIBBON_S_HI, RIBBON_S_LO, RIBBON_T0, RIBBON_T1 } from './ribbons';
 
 /**
@@ -112,7 +112,10 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
       }
       for (let b = from; b < to; b++) {
         if (Math.min(T.r1[a], T.r0[b]) - Math.max(T.l1[a], T.l0[b]) > EPS) {
-          parent[findRoot(parent, a)] = findRoot(parent, b);
+          // The newer trapezoid joins the older one's set: trees stay flat up a run (linking the
+          // other way makes a chain as long as the run). Pieces are numbered by their first
+          // trapezoid, whichever is the root.
+          parent[findRoot(parent, b)] = findRoot(parent, a);
           ups[a]++;
           downs[b]++;
           upLink[a] = b;
@@ -172,11 +175,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     }
     // A view into a chunk shared by the pieces of one call (see `PieceScratch.ribbons`).
     const need = nr * RIBBON_FIELDS;
-    if (S.ribbonsUsed + need > S.ribbons.length) {
-      // Chunks double from small (a small plan makes little) up to a cap.
-      S.ribbons = new Float64Array(Math.max(need, Math.min(RIBBON_CHUNK, 2 * S.ribbons.length || 64 * RIBBON_FIELDS)));
-      S.ribbonsUsed = 0;
-    }
+    reserveRibbons(S, need);
     const ribbons = S.ribbons.subarray(S.ribbonsUsed, S.ribbonsUsed + need);
     S.ribbonsUsed += need;
     let o = -RIBBON_FIELDS;

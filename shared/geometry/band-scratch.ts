@@ -31,6 +31,9 @@ export interface PieceScratch {
    */
   ribbons: Float64Array;
   ribbonsUsed: number;
+  /** Ribbon numbers the current call has taken so far, and a size for its first chunk: the larger of the last calls' (a takeoff clips a plan's layers one after another, each about the same). */
+  ribbonsTaken: number;
+  ribbonsHint: number;
   xs: Float64Array;
   ys: Float64Array;
   keep: Int32Array;
@@ -42,15 +45,37 @@ export function newTrapezoids(cap = 256): Trapezoids {
 }
 
 export function newPieceScratch(): PieceScratch {
-  return { ints: [], floats: [], ribbons: new Float64Array(0), ribbonsUsed: 0, xs: new Float64Array(64), ys: new Float64Array(64), keep: new Int32Array(64) };
+  return {
+    ints: [],
+    floats: [],
+    ribbons: new Float64Array(0),
+    ribbonsUsed: 0,
+    ribbonsTaken: 0,
+    ribbonsHint: 0,
+    xs: new Float64Array(64),
+    ys: new Float64Array(64),
+    keep: new Int32Array(64),
+  };
 }
 
-/** Ribbon numbers per chunk (see `PieceScratch.ribbons`). */
-export const RIBBON_CHUNK = RIBBON_FIELDS * 4096;
+/** Ribbon numbers per chunk at most (see `PieceScratch.ribbons`). */
+const RIBBON_CHUNK = RIBBON_FIELDS * 4096;
 
 /** Starts a new call's ribbons: pieces of earlier calls keep the chunks they point into. */
 export function startRibbons(S: PieceScratch): void {
+  S.ribbonsHint = Math.max(S.ribbonsTaken, S.ribbonsHint / 2);
+  S.ribbonsTaken = 0;
   S.ribbons = new Float64Array(0);
+  S.ribbonsUsed = 0;
+}
+
+/** Room for `need` more ribbon numbers in the current chunk, starting a new one when full. */
+export function reserveRibbons(S: PieceScratch, need: number): void {
+  S.ribbonsTaken += need;
+  if (S.ribbonsUsed + need <= S.ribbons.length) return;
+  // The first chunk of a call as large as the last calls needed; then chunks double, up to a cap.
+  const want = S.ribbons.length ? 2 * S.ribbons.length : Math.max(S.ribbonsHint, 64 * RIBBON_FIELDS);
+  S.ribbons = new Float64Array(Math.max(need, Math.min(RIBBON_CHUNK, want)));
   S.ribbonsUsed = 0;
 }
 
