@@ -52,6 +52,8 @@ function findRoot(parent: Int32Array, i: number): number {
  */
 export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAreaMm2: number, out: BandPiece[], S: PieceScratch, toPoint?: PointMap): void {
   const nt = T.n;
+  // The columns as locals: loads of an object's fields are not hoisted out of loops that store to typed arrays.
+  const { y0: Y0, y1: Y1, l0: L0, l1: L1, r0: R0, r1: R1 } = T;
   const parent = ints(S, 0, nt);
   const ups = ints(S, 1, nt);
   const downs = ints(S, 2, nt);
@@ -76,12 +78,12 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     if (wide) {
       let hiR = -Infinity;
       for (let b = b0; b < b1; b++) {
-        if (T.r0[b] > hiR) hiR = T.r0[b];
+        if (R0[b] > hiR) hiR = R0[b];
         maxR[b] = hiR;
       }
       let loL = Infinity;
       for (let b = b1 - 1; b >= b0; b--) {
-        if (T.l0[b] < loL) loL = T.l0[b];
+        if (L0[b] < loL) loL = L0[b];
         minL[b] = loL;
       }
     }
@@ -90,7 +92,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
       let to = b1;
       if (wide) {
         // First lower side whose running maximum of right ends exceeds a's left end.
-        const la = T.l1[a];
+        const la = L1[a];
         let x = b0;
         let y = b1;
         while (x < y) {
@@ -100,7 +102,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
         }
         from = x;
         // Past the last lower side whose running minimum of left ends is short of a's right end.
-        const ra = T.r1[a];
+        const ra = R1[a];
         x = from;
         y = b1;
         while (x < y) {
@@ -111,7 +113,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
         to = x;
       }
       for (let b = from; b < to; b++) {
-        if (Math.min(T.r1[a], T.r0[b]) - Math.max(T.l1[a], T.l0[b]) > EPS) {
+        if (Math.min(R1[a], R0[b]) - Math.max(L1[a], L0[b]) > EPS) {
           // The newer trapezoid joins the older one's set: trees stay flat up a run (linking the
           // other way makes a chain as long as the run). Pieces are numbered by their first
           // trapezoid, whichever is the root.
@@ -167,7 +169,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     let nr = 0;
     let lastY0 = 0;
     for (let m = first[g]; m < first[g + 1]; m++) {
-      const y0 = T.y0[members[m]];
+      const y0 = Y0[members[m]];
       if (nr === 0 || lastY0 !== y0) {
         nr++;
         lastY0 = y0;
@@ -181,19 +183,19 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     let o = -RIBBON_FIELDS;
     for (let m = first[g]; m < first[g + 1]; m++) {
       const t = members[m];
-      const y0 = T.y0[t];
-      const l0 = T.l0[t];
-      const l1 = T.l1[t];
-      const r0 = T.r0[t];
-      const r1 = T.r1[t];
-      const a = ((r0 - l0 + (r1 - l1)) / 2) * (T.y1[t] - y0);
+      const y0 = Y0[t];
+      const l0 = L0[t];
+      const l1 = L1[t];
+      const r0 = R0[t];
+      const r1 = R1[t];
+      const a = ((r0 - l0 + (r1 - l1)) / 2) * (Y1[t] - y0);
       area += a;
       const lm = (l0 + l1) / 2;
       const rm = (r0 + r1) / 2;
       if (o < 0 || ribbons[o + RIBBON_T0] !== y0) {
         o += RIBBON_FIELDS;
         ribbons[o + RIBBON_T0] = y0;
-        ribbons[o + RIBBON_T1] = T.y1[t];
+        ribbons[o + RIBBON_T1] = Y1[t];
         ribbons[o + RIBBON_S_LO] = lm;
         ribbons[o + RIBBON_S_HI] = rm;
         ribbons[o + RIBBON_LO0] = l0;
@@ -227,7 +229,7 @@ export function bandPieces(bi: number, T: Trapezoids, slabStart: number[], minAr
     const polygons: Vec2[][] = [];
     for (let m = first[g]; m < first[g + 1]; m++) if (!hasPrev[members[m]]) polygons.push(runOutline(T, runNext, members[m], S, toPoint));
     const t = largest;
-    const insideAt: Vec2 = [(T.l0[t] + T.l1[t] + T.r0[t] + T.r1[t]) / 4, (T.y0[t] + T.y1[t]) / 2];
+    const insideAt: Vec2 = [(L0[t] + L1[t] + R0[t] + R1[t]) / 4, (Y0[t] + Y1[t]) / 2];
     out.push({ bandIndex: bi, sMinMm: sMin, sMaxMm: sMax, areaMm2: area, polygons, insideAt, ribbons });
   }
   if (out.length - start > 1) {
@@ -255,19 +257,20 @@ function runOutline(T: Trapezoids, runNext: Int32Array, head: number, S: PieceSc
   }
   const xs = S.xs;
   const ys = S.ys;
+  const { y0: Y0, y1: Y1, l0: L0, l1: L1, r0: R0, r1: R1 } = T;
   // Corners as they come (up the left, down the right), dropping each that repeats the last kept.
   let m = 0;
   const run = ints(S, 11, len);
   let c = 0;
   for (let k = head; k >= 0; k = runNext[k]) {
     run[c++] = k;
-    m = putCorner(xs, ys, m, T.l0[k], T.y0[k]);
-    m = putCorner(xs, ys, m, T.l1[k], T.y1[k]);
+    m = putCorner(xs, ys, m, L0[k], Y0[k]);
+    m = putCorner(xs, ys, m, L1[k], Y1[k]);
   }
   for (let i = len - 1; i >= 0; i--) {
     const k = run[i];
-    m = putCorner(xs, ys, m, T.r1[k], T.y1[k]);
-    m = putCorner(xs, ys, m, T.r0[k], T.y0[k]);
+    m = putCorner(xs, ys, m, R1[k], Y1[k]);
+    m = putCorner(xs, ys, m, R0[k], Y0[k]);
   }
   if (m > 1 && Math.abs(xs[0] - xs[m - 1]) <= 1e-6 && Math.abs(ys[0] - ys[m - 1]) <= 1e-6) m--;
   // Indices of the corners kept: all of them, or those off the line through their neighbours.

@@ -1,4 +1,5 @@
 import type { Ring } from './polygon';
+import type { StripFrame } from './transform';
 import { sortNumbersAscending } from './sort-numbers';
 import { bandPieces, type BandPiece, type PointMap } from './band-pieces';
 import { newPieceScratch, newTrapezoids, pushTrapezoid, startRibbons } from './band-scratch';
@@ -44,6 +45,8 @@ export const SNAP_MM = 0.01;
 // outside the heap and costs far more to make and to collect than its size suggests, so a call
 // makes none of its own (JavaScript runs one call at a time; each worker has its own module).
 const W = {
+  RX: new Float64Array(64),
+  RY: new Float64Array(64),
   XA: new Float64Array(0),
   YA: new Float64Array(0),
   XB: new Float64Array(0),
@@ -95,9 +98,10 @@ function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n:
  * `loMm` and must not overlap. Pieces smaller than `minAreaMm2` (slivers where a band grazes
  * a corner) are dropped. Output is ordered by band, then by `sMinMm`. The outlines' points are
  * `[s, t]`, or `toPoint(s, t)` when given (say, already mapped back to the plan: one array per
- * point made instead of two).
+ * point made instead of two). With `frame`, the rings are in plan coordinates and are read in
+ * that frame (`toFrame`'s arithmetic, without a copy of every point).
  */
-export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, toPoint?: PointMap): BandPiece[] {
+export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, toPoint?: PointMap, frame?: StripFrame): BandPiece[] {
   // Edges one column per field (objects with number fields box each number), bucketed by the
   // first band each can reach (binary search) instead of sorting them all.
   let cap0 = 0;
@@ -114,29 +118,51 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
   }
   const { XA, YA, XB, YB, SL, bucketOf, bucketStart, bucketFill, bucketEdges, active } = W;
   let ne = 0;
+  let RX = W.RX;
+  let RY = W.RY;
   for (const ring of rings) {
     const n = ring.length;
+    if (RX.length < n) {
+      RX = W.RX = new Float64Array(2 * n);
+      RY = W.RY = new Float64Array(2 * n);
+    }
+    // The ring's points in frame coordinates (as `toFrame` gives them), one column each.
+    if (frame) {
+      const [a0, a1] = frame.along;
+      const [c0, c1] = frame.across;
+      for (let i = 0; i < n; i++) {
+        const p = ring[i];
+        RX[i] = p[0] * a0 + p[1] * a1;
+        RY[i] = p[0] * c0 + p[1] * c1;
+      }
+    } else {
+      for (let i = 0; i < n; i++) {
+        RX[i] = ring[i][0];
+        RY[i] = ring[i][1];
+      }
+    }
     for (let i = 0; i < n; i++) {
-      const p = ring[i];
-      const q = ring[(i + 1) % n];
-      if (p[1] === q[1]) continue;
-      const up = p[1] < q[1];
-      const a = up ? p : q;
-      const b = up ? q : p;
+      const j = i + 1 < n ? i + 1 : 0;
+      if (RY[i] === RY[j]) continue;
+      const up = RY[i] < RY[j];
+      const ai = up ? i : j;
+      const bi = up ? j : i;
+      const ay = RY[ai];
+      const by = RY[bi];
       // First band whose top lies above the edge's bottom end.
       let lo = 0;
       let hi = nb;
       while (lo < hi) {
         const mid = (lo + hi) >> 1;
-        if (bands[mid].hiMm <= a[1]) lo = mid + 1;
+        if (bands[mid].hiMm <= ay) lo = mid + 1;
         else hi = mid;
       }
-      if (!(lo < nb && bands[lo].loMm < b[1])) continue;
-      XA[ne] = a[0];
-      YA[ne] = a[1];
-      XB[ne] = b[0];
-      YB[ne] = b[1];
-      SL[ne] = (b[0] - a[0]) / (b[1] - a[1]);
+      if (!(lo < nb && bands[lo].loMm < by)) continue;
+      XA[ne] = RX[ai];
+      YA[ne] = ay;
+      XB[ne] = RX[bi];
+      YB[ne] = by;
+      SL[ne] = (RX[bi] - RX[ai]) / (by - ay);
       bucketOf[ne++] = lo;
     }
   }

@@ -106,12 +106,11 @@ export function roundUpToStep(x: number, stepMm: number, toleranceMm = 1): numbe
  * Slivers under 1 mm² (a band grazing a corner) are dropped.
  */
 export function cutStrips(region: MultiPolygon, lb: LayerBands, cuttingAllowanceMm: number, minSegmentMm = 500): RawStrip[] {
-  const rings: Vec2[][] = [];
-  for (const poly of region) for (const ring of poly) rings.push(ring.map((p) => toFrame(lb.frame, p)));
-  // Outline points go straight back to the plan, rounded as shown (no frame copy in between).
+  // The rings are read in the frame as they are; outline points go straight back to the plan,
+  // rounded as shown (no frame copy in between either way).
   const { along, across } = lb.frame;
   const toPlan = (s: number, t: number): Vec2 => [r1(s * along[0] + t * across[0]), r1(s * along[1] + t * across[1])];
-  const pieces = clipRegionToBands(rings, lb.bands, 1, toPlan);
+  const pieces = clipRegionToBands(region.flat(), lb.bands, 1, toPlan, lb.frame);
   return pieces.map((pc) => {
     const band = lb.bands[pc.bandIndex];
     const extentMm = pc.sMaxMm - pc.sMinMm;
