@@ -44,14 +44,16 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
     const nx = X[i % 2];
     const ny = Y[i % 2];
     let c = 0;
+    // Each point's side is worked out once and carried to the next edge (the same arithmetic).
+    const s0 = ex * (ys[0] - ay) - ey * (xs[0] - ax);
+    let sp = s0;
     for (let k = 0; k < n; k++) {
       const px = xs[k];
       const py = ys[k];
       const j = k + 1 < n ? k + 1 : 0;
       const qx = xs[j];
       const qy = ys[j];
-      const sp = ex * (py - ay) - ey * (px - ax);
-      const sq = ex * (qy - ay) - ey * (qx - ax);
+      const sq = j ? ex * (qy - ay) - ey * (qx - ax) : s0;
       if (sp >= 0) {
         nx[c] = px;
         ny[c++] = py;
@@ -61,6 +63,7 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
         nx[c] = px + t * (qx - px);
         ny[c++] = py + t * (qy - py);
       }
+      sp = sq;
     }
     xs = nx;
     ys = ny;
