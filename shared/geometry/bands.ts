@@ -65,6 +65,7 @@ const W = {
   slabEdgeStart: new Int32Array(64),
   slabFill: new Int32Array(64),
   slabEdges: new Int32Array(256),
+  order: new Int32Array(64),
   edgeFrom: new Int32Array(64),
   edgeTo: new Int32Array(64),
   traps: newTrapezoids(),
@@ -74,22 +75,29 @@ const W = {
 // Helpers live at module level: hot loops must not create closures (a bundler's keep-names
 // wrapper makes every closure creation costly, and the engine cannot inline them).
 
-/** Sorts the first `n` crossings by `m`, moving `at0`/`at1` along (insertion sort: n is small). */
-function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, n: number): void {
+/**
+ * Sorts the first `n` crossings by `m`, then by edge (`ord`), moving `at0`/`at1` along: the order
+ * a stable sort of the crossings listed by edge gives (insertion sort: n is small and the list
+ * comes nearly sorted).
+ */
+function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, ord: Int32Array, n: number): void {
   for (let i = 1; i < n; i++) {
     const vm = m[i];
     const v0 = at0[i];
     const v1 = at1[i];
+    const vo = ord[i];
     let j = i - 1;
-    while (j >= 0 && m[j] > vm) {
+    while (j >= 0 && (m[j] > vm || (m[j] === vm && ord[j] > vo))) {
       m[j + 1] = m[j];
       at0[j + 1] = at0[j];
       at1[j + 1] = at1[j];
+      ord[j + 1] = ord[j];
       j--;
     }
     m[j + 1] = vm;
     at0[j + 1] = v0;
     at1[j + 1] = v1;
+    ord[j + 1] = vo;
   }
 }
 
@@ -191,6 +199,7 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
   let slabEdges = W.slabEdges;
   let edgeFrom = W.edgeFrom;
   let edgeTo = W.edgeTo;
+  let order = W.order;
   for (let bi = 0; bi < bands.length; bi++) {
     const lo = bands[bi].loMm;
     const hi = bands[bi].hiMm;
@@ -229,6 +238,8 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
       edgeFrom = W.edgeFrom = new Int32Array(2 * w);
       edgeTo = W.edgeTo = new Int32Array(2 * w);
     }
+    // Edges by the sub-slab they enter (in the order of `active` within each): an edge then stays
+    // in the list of those crossing until its last sub-slab.
     for (let si = 0; si <= ns; si++) slabEdgeStart[si] = 0;
     for (let k = 0; k < w; k++) {
       const ya = YA[active[k]];
@@ -245,38 +256,42 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
       while (z < ns && mids[z] < yb) z++;
       edgeFrom[k] = a;
       edgeTo[k] = z;
-      for (let si = a; si < z; si++) slabEdgeStart[si + 1]++;
+      if (a < z) slabEdgeStart[a + 1]++;
     }
     for (let si = 0; si < ns; si++) slabEdgeStart[si + 1] += slabEdgeStart[si];
-    const total = slabEdgeStart[ns];
-    if (slabEdges.length < total) slabEdges = W.slabEdges = new Int32Array(2 * total);
+    if (slabEdges.length < w) slabEdges = W.slabEdges = new Int32Array(2 * w);
     if (slabFill.length < ns) slabFill = W.slabFill = new Int32Array(2 * ns);
+    if (order.length < w) order = W.order = new Int32Array(2 * w);
     for (let si = 0; si < ns; si++) slabFill[si] = slabEdgeStart[si];
-    for (let k = 0; k < w; k++) for (let si = edgeFrom[k]; si < edgeTo[k]; si++) slabEdges[slabFill[si]++] = k;
+    for (let k = 0; k < w; k++) if (edgeFrom[k] < edgeTo[k]) slabEdges[slabFill[edgeFrom[k]]++] = k;
+    let no = 0;
     for (let si = 0; si < ns; si++) {
       slabStart.push(traps.n);
       const y0 = ys[si];
       const y1 = ys[si + 1];
       const ym = mids[si];
-      const n = slabEdgeStart[si + 1] - slabEdgeStart[si];
-      if (n > xm.length) {
-        xm = W.xm = new Float64Array(2 * n);
-        x0 = W.x0 = new Float64Array(2 * n);
-        x1 = W.x1 = new Float64Array(2 * n);
+      // The last sub-slab's edges in their order across it, less those that end, then those
+      // that begin here: edges do not cross inside a sub-slab, so the list is nearly sorted.
+      let kept = 0;
+      for (let q = 0; q < no; q++) if (edgeTo[order[q]] > si) order[kept++] = order[q];
+      no = kept;
+      for (let q = slabEdgeStart[si]; q < slabEdgeStart[si + 1]; q++) order[no++] = slabEdges[q];
+      if (no > xm.length) {
+        xm = W.xm = new Float64Array(2 * no);
+        x0 = W.x0 = new Float64Array(2 * no);
+        x1 = W.x1 = new Float64Array(2 * no);
       }
-      let nx = 0;
-      for (let q = slabEdgeStart[si]; q < slabEdgeStart[si + 1]; q++) {
-        const e = active[slabEdges[q]];
+      for (let q = 0; q < no; q++) {
+        const e = active[order[q]];
         const slope = SL[e];
         const xa = XA[e];
         const ya = YA[e];
-        xm[nx] = xa + slope * (ym - ya);
-        x0[nx] = xa + slope * (Math.max(y0, ya) - ya);
-        x1[nx] = xa + slope * (Math.min(y1, YB[e]) - ya);
-        nx++;
+        xm[q] = xa + slope * (ym - ya);
+        x0[q] = xa + slope * (Math.max(y0, ya) - ya);
+        x1[q] = xa + slope * (Math.min(y1, YB[e]) - ya);
       }
-      sortCrossings(xm, x0, x1, nx);
-      for (let k = 0; k + 1 < nx; k += 2) {
+      sortCrossings(xm, x0, x1, order, no);
+      for (let k = 0; k + 1 < no; k += 2) {
         pushTrapezoid(traps, y0, y1, x0[k], x1[k], x0[k + 1], x1[k + 1]);
       }
     }
