@@ -1,6 +1,6 @@
 /**
  * Takeoff benchmark (a script that prints numbers, not a test):
- *   npm run bench [-- --runs N]
+ *   npm run bench [-- --runs N] [--base DIR]
  * Median and 90th-percentile wall time of a full `computeTakeoff` (geometry checks included)
  * for every valid example plan and for a generated stress plan (400-point outline, 100
  * exclusions, about 600 m², 400 mm centres), plus `validatePlan` on the stress plan. CPU time per
@@ -8,11 +8,14 @@
  * stretches wall time. The stress plan is also run with joists at 0°, 17°, 33° and 45° (skewed
  * joists cut more sub-slabs and more slivers). Goals: under 1 ms for a typical plan, under 10 ms
  * for the stress plan, and a skewed stress plan no more than 1.5× the same plan at 0°.
+ * With `--base DIR` (an older tree whose packages resolve, as for takeoff-compare.ts) every plan
+ * is also run with DIR's computeTakeoff, turn about with this tree's in the same process, and
+ * the ratio of the medians is printed: a busy machine slows both alike.
  */
 import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
-import { dirname, join, relative } from 'node:path';
+import { dirname, join, relative, resolve } from 'node:path';
 import { validatePlan } from '../shared/plan/validate-plan';
 import { computeTakeoff } from '../shared/takeoff/compute-takeoff';
 import { parseProductCatalogue } from '../shared/takeoff/products';
@@ -21,8 +24,18 @@ import { stressPlan } from './stress-plan';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const examples = join(root, 'examples');
-const runsArg = process.argv.indexOf('--runs');
-const RUNS = runsArg > 0 ? Number(process.argv[runsArg + 1]) : 200;
+const arg = (name: string) => (process.argv.includes(name) ? process.argv[process.argv.indexOf(name) + 1] : undefined);
+const RUNS = Number(arg('--runs') ?? 200);
+const baseDir = arg('--base');
+const catalogue: unknown = JSON.parse(readFileSync(join(examples, 'products.json'), 'utf8'));
+const base = baseDir
+  ? {
+      computeTakeoff: ((await import(resolve(baseDir, 'shared/takeoff/compute-takeoff.ts'))) as { computeTakeoff: typeof computeTakeoff }).computeTakeoff,
+      products: (
+        (await import(resolve(baseDir, 'shared/takeoff/products.ts'))) as { parseProductCatalogue: typeof parseProductCatalogue }
+      ).parseProductCatalogue(catalogue),
+    }
+  : undefined;
 
 function listJson(dir: string): string[] {
   return readdirSync(dir).flatMap((name) => {
@@ -35,22 +48,40 @@ function quantile(sorted: number[], q: number): number {
   return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
 }
 
-function measure(fn: () => unknown, runs: number, warmup: number): { median: number; p90: number; cpu: number } {
-  for (let i = 0; i < warmup; i++) fn();
-  const times: number[] = [];
-  const c0 = process.cpuUsage();
+type Timing = { median: number; p90: number; cpu: number };
+
+/** Times `fns` turn about (the order swapped every run, so neither always goes first): wall time per run and CPU time per run. */
+function measureAll(fns: (() => unknown)[], runs: number, warmup: number): Timing[] {
+  for (let i = 0; i < warmup; i++) for (const fn of fns) fn();
+  const times = fns.map(() => [] as number[]);
+  const cpu = fns.map(() => 0);
   for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    times.push(performance.now() - t0);
+    for (let j = 0; j < fns.length; j++) {
+      const k = i % 2 ? fns.length - 1 - j : j;
+      const c0 = process.cpuUsage();
+      const t0 = performance.now();
+      fns[k]();
+      times[k].push(performance.now() - t0);
+      const c = process.cpuUsage(c0);
+      cpu[k] += c.user + c.system;
+    }
   }
-  const c = process.cpuUsage(c0);
-  times.sort((a, b) => a - b);
-  return { median: quantile(times, 0.5), p90: quantile(times, 0.9), cpu: (c.user + c.system) / 1000 / runs };
+  return times.map((t, k) => {
+    t.sort((a, b) => a - b);
+    return { median: quantile(t, 0.5), p90: quantile(t, 0.9), cpu: cpu[k] / 1000 / runs };
+  });
 }
 
-const products = parseProductCatalogue(JSON.parse(readFileSync(join(examples, 'products.json'), 'utf8')));
-const rows: { name: string; detail: string; r: ReturnType<typeof measure> }[] = [];
+/** This tree's takeoff of `plan` (and the base tree's, with `--base`), timed. */
+function measureTakeoff(plan: Plan, runs: number, warmup: number): { r: Timing; base?: Timing } {
+  const fns = [() => computeTakeoff(plan, { products })];
+  if (base) fns.push(() => base.computeTakeoff(plan, { products: base.products }));
+  const [r, b] = measureAll(fns, runs, warmup);
+  return { r, base: b };
+}
+
+const products = parseProductCatalogue(catalogue);
+const rows: { name: string; detail: string; r: Timing; base?: Timing }[] = [];
 for (const file of listJson(examples).sort()) {
   if (file.endsWith('products.json')) continue;
   const v = validatePlan(JSON.parse(readFileSync(file, 'utf8')));
@@ -61,7 +92,7 @@ for (const file of listJson(examples).sort()) {
   rows.push({
     name: relative(examples, file),
     detail: `${plan.outline.length} pts, ${plan.exclusions.length} excl, ${t.grossAreaM2.toFixed(0)} m², ${strips} strips`,
-    r: measure(() => computeTakeoff(plan, { products }), RUNS, 50),
+    ...measureTakeoff(plan, RUNS, 50),
   });
 }
 const stressInput = stressPlan();
@@ -72,16 +103,16 @@ const stressRuns = Math.max(10, Math.round(RUNS / 5));
 rows.push({
   name: 'stress (generated)',
   detail: `${sv.plan.outline.length} pts, ${sv.plan.exclusions.length} excl, ${st.grossAreaM2.toFixed(0)} m², ${st.layers.reduce((n, l) => n + l.strips.length, 0)} strips`,
-  r: measure(() => computeTakeoff(sv.plan, { products }), stressRuns, 10),
+  ...measureTakeoff(sv.plan, stressRuns, 10),
 });
 // The same stress plan with square and skewed joists: skew costs the band clipping more sub-slabs.
 const SKEWS = [17, 33, 45];
 for (const deg of [0, ...SKEWS]) {
   const v = validatePlan(stressPlan(7, 400, 100, deg));
   if (!v.ok) throw new Error(`stress plan at ${deg}° invalid: ${v.errors[0].message}`);
-  rows.push({ name: `stress joists ${deg}°`, detail: 'same plan, joists turned', r: measure(() => computeTakeoff(v.plan, { products }), stressRuns, 10) });
+  rows.push({ name: `stress joists ${deg}°`, detail: 'same plan, joists turned', ...measureTakeoff(v.plan, stressRuns, 10) });
 }
-rows.push({ name: 'stress validatePlan', detail: 'zod parse + geometry checks', r: measure(() => validatePlan(stressInput), stressRuns, 10) });
+rows.push({ name: 'stress validatePlan', detail: 'zod parse + geometry checks', r: measureAll([() => validatePlan(stressInput)], stressRuns, 10)[0] });
 
 const typical = rows
   .filter((x) => !x.name.startsWith('stress'))
@@ -92,10 +123,13 @@ console.log(
     .map((x) => x.toFixed(1))
     .join(' ')}, ${RUNS} runs per example, ${stressRuns} for the stress plan`,
 );
-console.log(`${'plan'.padEnd(34)}${'median ms'.padStart(10)}${'p90 ms'.padStart(9)}${'cpu ms'.padStart(9)}  detail`);
-for (const { name, detail, r } of rows) {
-  console.log(`${name.padEnd(34)}${r.median.toFixed(3).padStart(10)}${r.p90.toFixed(3).padStart(9)}${r.cpu.toFixed(3).padStart(9)}  ${detail}`);
+const baseHead = base ? `${'base ms'.padStart(9)}${'/base'.padStart(7)}` : '';
+console.log(`${'plan'.padEnd(34)}${'median ms'.padStart(10)}${'p90 ms'.padStart(9)}${'cpu ms'.padStart(9)}${baseHead}  detail`);
+for (const { name, detail, r, base: b } of rows) {
+  const vsBase = base ? (b ? `${b.median.toFixed(3).padStart(9)}${(r.median / b.median).toFixed(2).padStart(7)}` : ' '.repeat(16)) : '';
+  console.log(`${name.padEnd(34)}${r.median.toFixed(3).padStart(10)}${r.p90.toFixed(3).padStart(9)}${r.cpu.toFixed(3).padStart(9)}${vsBase}  ${detail}`);
 }
+if (base) console.log(`base: ${baseDir} (medians of the two trees' takeoffs run turn about)`);
 const stress = rows.find((x) => x.name === 'stress (generated)')!.r;
 const at0 = rows.find((x) => x.name === 'stress joists 0°')!.r.median;
 for (const deg of SKEWS) {
