@@ -56,7 +56,7 @@ export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { se
   for (let j = 0; j < n; j++) if (j === 0 || lo[j] !== lo[j - 1]) xs[nx++] = lo[j];
   for (let j = 0; j < n; j++) if (j === 0 || hi[j] !== hi[j - 1]) xs[nx++] = hi[j];
   sortNumbersAscending(xs, 0, nx);
-  let segs: StripSegment[] = [];
+  const segs: StripSegment[] = [];
   for (let k = 0; k + 1 < nx; k++) {
     const len = xs[k + 1] - xs[k];
     if (len <= 1e-6) continue;
@@ -85,17 +85,19 @@ export function stripSegments(ribbons: Float64Array, minSegmentMm: number): { se
     const a = segs[k - 1];
     const b = segs[k + 1];
     const into = !b || (a && a.coveredWidthMm >= b.coveredWidthMm) ? k - 1 : k + 1;
+    // In place: the lengths are this call's own objects.
     const n = segs[into];
-    segs[into] = { lengthMm: n.lengthMm + segs[k].lengthMm, coveredWidthMm: Math.max(n.coveredWidthMm, segs[k].coveredWidthMm) };
-    segs = segs.filter((_, i) => i !== k);
+    n.lengthMm = n.lengthMm + segs[k].lengthMm;
+    n.coveredWidthMm = Math.max(n.coveredWidthMm, segs[k].coveredWidthMm);
+    segs.splice(k, 1);
     // Neighbours left with the same width become one length.
-    const merged: StripSegment[] = [];
-    for (const s of segs) {
-      const m = merged[merged.length - 1];
-      if (m && Math.abs(m.coveredWidthMm - s.coveredWidthMm) < 1 + SNAP_MM) m.lengthMm += s.lengthMm;
-      else merged.push({ ...s });
+    let kept = 0;
+    for (let i = 0; i < segs.length; i++) {
+      const m = kept > 0 ? segs[kept - 1] : undefined;
+      if (m && Math.abs(m.coveredWidthMm - segs[i].coveredWidthMm) < 1 + SNAP_MM) m.lengthMm += segs[i].lengthMm;
+      else segs[kept++] = segs[i];
     }
-    segs = merged;
+    segs.length = kept;
   }
   return { segments: segs, gaps };
 }
