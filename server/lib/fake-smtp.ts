@@ -1,5 +1,4 @@
 import type { AddressInfo } from 'node:net';
-import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import { ORGANISATION_HEADER } from './mailer';
 
@@ -58,7 +57,9 @@ export class FakeSmtp implements Outbox {
         stream.on('error', callback);
         stream.on('end', () => {
           const raw = Buffer.concat(chunks);
-          simpleParser(raw)
+          // mailparser (~5 MB of heap) is loaded by the first message, not by every server that never runs this fake.
+          import('mailparser')
+            .then(({ simpleParser }) => simpleParser(raw))
             .then((parsed) => {
               const text = parsed.text ?? '';
               const html = typeof parsed.html === 'string' ? parsed.html : '';

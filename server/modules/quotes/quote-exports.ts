@@ -1,4 +1,3 @@
-import ExcelJS from 'exceljs';
 import type { Quote as QuoteDto } from '../../../shared/api/quotes';
 import { formatDate } from '../../../shared/dates';
 import { currencyDigits, minorToDecimalString } from '../../../shared/quote/money';
@@ -111,6 +110,8 @@ export function quoteCsv({ quote: q, jobReference, customerName, spaces }: Quote
  * currency's format, "Takeoff" per space and layer. Numbers are written as numbers, not text.
  */
 export async function quoteXlsx({ quote: q, jobReference, customerName, spaces }: QuoteExportInput): Promise<Buffer> {
+  // Loaded on the first export, not at start: exceljs is ~8 MB of heap every instance would carry.
+  const { default: ExcelJS } = await import('exceljs');
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Quiltline';
   wb.created = new Date(`${q.issueDate}T12:00:00Z`);
