@@ -1,9 +1,6 @@
 // The serving bench's rows: medians of rounds and the table printed at the end.
+import { median } from '../shared/reports/suggestions';
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
-};
 /** Each figure the median of the rounds' (failures: their sum). */
 export function medianOf(runs: Array<Omit<Row, 'instances' | 'target'>>): Omit<Row, 'instances' | 'target'> {
   return {

@@ -44,13 +44,20 @@ export async function pacedLoad(opts: {
     };
     const send = (i: number) => {
       const due = start + i * interval;
+      // A request that fails mid-answer can report on both the response and the request: count it once.
+      let counted = false;
+      const once = (ok: boolean) => {
+        if (counted) return;
+        counted = true;
+        finish(due, ok);
+      };
       const req = http.get(opts.urls[i % opts.urls.length], { agent, headers: opts.headers, timeout: 10_000 }, (res) => {
         res.on('data', () => {});
-        res.on('end', () => finish(due, res.statusCode! >= 200 && res.statusCode! < 300));
-        res.on('error', () => finish(due, false));
+        res.on('end', () => once(res.statusCode! >= 200 && res.statusCode! < 300));
+        res.on('error', () => once(false));
       });
       req.on('timeout', () => req.destroy(new Error('timeout')));
-      req.on('error', () => finish(due, false));
+      req.on('error', () => once(false));
     };
     let sent = 0;
     const tick = () => {
