@@ -4,6 +4,7 @@ import { circlePolygon, polygonBuffer } from '../geometry/offset';
 import { differencePolygons, intersectPolygons } from '../geometry/boolean';
 import { clipRingByConvex } from '../geometry/clip-convex';
 import { subtractShapes } from './isolated-holes';
+import { ringNearBoxes } from '../geometry/ring-near-boxes';
 import {
   multiPolygonArea,
   polygonArea,
@@ -71,7 +72,6 @@ export function exclusionShape(e: Plan['exclusions'][number], settings: TakeoffS
 export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanRegions {
   const outline = ringWithPositiveArea(plan.outline);
   const grossAreaMm2 = polygonArea(outline);
-  const outlinePoly: PolygonWithHoles[] = [[outline]];
   const exclusionClearancesMm = plan.exclusions.map((e) => exclusionClearanceMm(e, settings));
   const exclusionShapes = plan.exclusions.map((e) => exclusionShape(e, settings));
   // Raised boards are insulated under: they keep their shape (for drawing and legs) but are not cut out.
@@ -124,8 +124,9 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   const layerAreaMm2 = allShapes.length || rects.length ? multiPolygonArea(layerRegion) : grossAreaMm2;
   let netAreaMm2 = layerAreaMm2;
   if (rects.length) {
-    const bandsInLoft = intersectPolygons(outlinePoly, rects);
     const boxes = rects.map((r) => polygonBounds(r));
+    // Only the outline near the bands can meet them: the sweep gets the rest as a few chords.
+    const bandsInLoft = intersectPolygons([[ringNearBoxes(outline, boxes)]], rects);
     const near: PolygonWithHoles[] = [];
     for (const sh of allShapes) {
       const b = polygonBounds([sh[0]]);
