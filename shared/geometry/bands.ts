@@ -76,27 +76,22 @@ const W = {
 // wrapper makes every closure creation costly, and the engine cannot inline them).
 
 /**
- * Sorts the first `n` crossings by `m`, then by edge (`ord`), moving `at0`/`at1` along: the order
- * a stable sort of the crossings listed by edge gives (insertion sort: n is small and the list
- * comes nearly sorted).
+ * Sorts the first `n` crossings by `m`, then by edge (`ord`), moving `ord` along: the order a
+ * stable sort of the crossings listed by edge gives (insertion sort: n is small and the list
+ * comes nearly sorted from the last sub-slab). Only the middles move; the ends are worked out
+ * afterwards in the sorted order.
  */
-function sortCrossings(m: Float64Array, at0: Float64Array, at1: Float64Array, ord: Int32Array, n: number): void {
+function sortCrossings(m: Float64Array, ord: Int32Array, n: number): void {
   for (let i = 1; i < n; i++) {
     const vm = m[i];
-    const v0 = at0[i];
-    const v1 = at1[i];
     const vo = ord[i];
     let j = i - 1;
     while (j >= 0 && (m[j] > vm || (m[j] === vm && ord[j] > vo))) {
       m[j + 1] = m[j];
-      at0[j + 1] = at0[j];
-      at1[j + 1] = at1[j];
       ord[j + 1] = ord[j];
       j--;
     }
     m[j + 1] = vm;
-    at0[j + 1] = v0;
-    at1[j + 1] = v1;
     ord[j + 1] = vo;
   }
 }
@@ -283,14 +278,17 @@ export function clipRegionToBands(rings: Ring[], bands: Band[], minAreaMm2 = 1, 
       }
       for (let q = 0; q < no; q++) {
         const e = active[order[q]];
+        xm[q] = XA[e] + SL[e] * (ym - YA[e]);
+      }
+      sortCrossings(xm, order, no);
+      for (let q = 0; q < no; q++) {
+        const e = active[order[q]];
         const slope = SL[e];
         const xa = XA[e];
         const ya = YA[e];
-        xm[q] = xa + slope * (ym - ya);
         x0[q] = xa + slope * (Math.max(y0, ya) - ya);
         x1[q] = xa + slope * (Math.min(y1, YB[e]) - ya);
       }
-      sortCrossings(xm, x0, x1, order, no);
       for (let k = 0; k + 1 < no; k += 2) {
         pushTrapezoid(traps, y0, y1, x0[k], x1[k], x0[k + 1], x1[k + 1]);
       }

@@ -75,15 +75,29 @@ export function findRingSelfIntersections(ring: Ring, limit = 20, epsMm = 1e-6):
   // Neighbours in ring order, skipping zero-length edges (they are reported on their own).
   const nextOf = new Map<number, number>();
   for (let k = 0; k < order.length; k++) nextOf.set(order[k], order[(k + 1) % order.length]);
-  const minX = (i: number) => Math.min(ring[i][0], ring[(i + 1) % n][0]);
-  const maxX = (i: number) => Math.max(ring[i][0], ring[(i + 1) % n][0]);
-  const sorted = order.slice().sort((a, b) => minX(a) - minX(b));
+  // Each edge's bounds worked out once (the sort and the sweep read them many times).
+  const minX = new Float64Array(n);
+  const maxX = new Float64Array(n);
+  const minY = new Float64Array(n);
+  const maxY = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const p = ring[i];
+    const q = ring[(i + 1) % n];
+    minX[i] = Math.min(p[0], q[0]);
+    maxX[i] = Math.max(p[0], q[0]);
+    minY[i] = Math.min(p[1], q[1]);
+    maxY[i] = Math.max(p[1], q[1]);
+  }
+  const sorted = order.slice().sort((a, b) => minX[a] - minX[b]);
   for (let oi = 0; oi < sorted.length; oi++) {
     const i = sorted[oi];
-    const hi = maxX(i) + epsMm;
+    const hi = maxX[i] + epsMm;
     for (let oj = oi + 1; oj < sorted.length; oj++) {
       const j = sorted[oj];
-      if (minX(j) > hi) break;
+      if (minX[j] > hi) break;
+      // Edges whose heights lie apart cannot touch: a point within the tolerance of both lies
+      // within it of either's heights, so a gap of over twice it (with room for rounding) rules them out.
+      if (minY[j] > maxY[i] + 3 * epsMm || minY[i] > maxY[j] + 3 * epsMm) continue;
       const p = segmentIntersection(ring[i], ring[(i + 1) % n], ring[j], ring[(j + 1) % n], epsMm);
       if (!p) continue;
       const first = nextOf.get(i) === j ? i : nextOf.get(j) === i ? j : -1;
