@@ -1,6 +1,7 @@
 import { segmentIntersection } from '../geometry/segment';
 import { polygonBounds, type MultiPolygon, type PolygonWithHoles, type Ring } from '../geometry/polygon';
 import { differencePolygons } from '../geometry/boolean';
+import { differenceOfRing } from '../geometry/ring-difference';
 import { indexedContainsPoint, indexRing, slabOf, type RingIndex } from '../geometry/ring-index';
 import type { Vec2 } from '../geometry/vector';
 
@@ -45,7 +46,7 @@ export function subtractShapes(outline: Vec2[], shapes: PolygonWithHoles[], othe
   const rest = shapes.filter((_, i) => !isolated[i]);
   const holes = shapes.filter((_, i) => isolated[i]).map((s) => s[0]);
   const clips = [...rest, ...others.map((r) => [r])];
-  const region: MultiPolygon = clips.length ? differencePolygons([[outline]], clips) : [[outline]];
+  const region: MultiPolygon = clips.length ? differenceOfRing(outline, clips) : [[outline]];
   const homes: (RingIndex | undefined)[] = [];
   for (const hole of holes) {
     const home = region.find((poly, k) => indexedContainsPoint((homes[k] ??= indexRing(poly[0])), hole[0]));
