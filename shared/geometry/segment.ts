@@ -71,7 +71,12 @@ export function findRingSelfIntersections(ring: Ring, limit = 20, epsMm = 1e-6):
   const out: RingCrossing[] = [];
   if (n < 3) return out;
   const order: number[] = [];
-  for (let i = 0; i < n; i++) if (ringEdgeLength(ring, i) > 0) order.push(i);
+  // Zero length exactly when both ends coincide (as `ringEdgeLength(ring, i) > 0` says, without Math.hypot's allocation).
+  for (let i = 0; i < n; i++) {
+    const p = ring[i];
+    const q = ring[(i + 1) % n];
+    if (p[0] !== q[0] || p[1] !== q[1]) order.push(i);
+  }
   // Neighbours in ring order, skipping zero-length edges (they are reported on their own).
   const nextOf = new Map<number, number>();
   for (let k = 0; k < order.length; k++) nextOf.set(order[k], order[(k + 1) % order.length]);

@@ -118,7 +118,8 @@ function writeLayer(b: LayerWithDemand, plan: ProductRollPlan, price: number): v
         from: c.from,
       });
   }
-  for (const st of l.strips) st.pieces.sort((a, c) => a.pieceIndex - c.pieceIndex);
+  // Most strips are one piece: sorting those would only make the sort's scratch.
+  for (const st of l.strips) if (st.pieces.length > 1) st.pieces.sort((a, c) => a.pieceIndex - c.pieceIndex);
   const layerCut = l.strips.reduce((t, st) => t + st.lengthMm * st.widthMm, 0);
   l.rollsByPacking = plan.rollsByGroup[b.group] ?? 0;
   l.wastePct = r1(plan.wastePct);
