@@ -1,6 +1,6 @@
 import { differencePolygons, snapToBooleanGrid } from './boolean';
 import { polygonBounds, type MultiPolygon, type PolygonWithHoles } from './polygon';
-import { ringPointsFarFromBoxes } from './ring-near-boxes';
+import { MIN_TRIMMED_RING_POINTS, ringPointsFarFromBoxes } from './ring-near-boxes';
 import type { Vec2 } from './vector';
 
 /**
@@ -16,12 +16,13 @@ import type { Vec2 } from './vector';
  * start there).
  */
 export function differenceOfRing(ring: Vec2[], clips: PolygonWithHoles[]): MultiPolygon {
-  const drop = clips.length
-    ? ringPointsFarFromBoxes(
-        ring,
-        clips.map((c) => polygonBounds([c[0]])),
-      )
-    : null;
+  const drop =
+    clips.length && ring.length >= MIN_TRIMMED_RING_POINTS
+      ? ringPointsFarFromBoxes(
+          ring,
+          clips.map((c) => polygonBounds([c[0]])),
+        )
+      : null;
   if (!drop) return differencePolygons([[ring]], clips);
   const kept = ring.filter((_, k) => !drop[k]);
   const out = differencePolygons([[kept]], clips);

@@ -19,6 +19,11 @@ export interface Box {
  */
 const EDGE_CLEARANCE_MM = 1000;
 const CHORD_CLEARANCE_MM = 100;
+/**
+ * Rings shorter than this are swept whole: their sweep is cheap already, and the checks would
+ * cost more than the points they could save (a drawn loft has a handful of corners).
+ */
+export const MIN_TRIMMED_RING_POINTS = 32;
 /** Edges a chord stands for at most where one chord for a whole run is refused. */
 const CHORD_EDGES = 16;
 
@@ -62,6 +67,7 @@ export function ringNearBoxes(ring: Ring, boxes: Box[]): Vec2[] {
  */
 export function ringPointsFarFromBoxes(ring: Ring, boxes: Box[]): Uint8Array | null {
   const n = ring.length;
+  if (n < MIN_TRIMMED_RING_POINTS) return null;
   const near = boxes.map((b) => grown(b, EDGE_CLEARANCE_MM));
   const clear = boxes.map((b) => grown(b, CHORD_CLEARANCE_MM));
   // A box that an edge reaches within the chord clearance cannot lie between a run and its
