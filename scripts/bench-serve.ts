@@ -1,7 +1,8 @@
 /**
  * Serving speed of the compiled server (a script that prints numbers, not a test):
  *   npm run bench:serve [-- --seconds 8 --rates 50,100,200 --connections 10 --instances 1,2 --profile
- *                          --only bare,jobs,plan --base <another build's dist-server/index.js> --repeat 3]
+ *                          --only bare,jobs,plan --base <another build's dist-server/index.js> --repeat 3
+ *                          --node-args "--trace-gc"]
  * Builds dist-server/ if stale, makes a database of its own on the project cluster (quiltline_bench)
  * with the demo data, starts the server as plain `node` processes (one, then two on the same
  * database, connections spread round-robin by autocannon) and, beside them, a bare Express handler
@@ -37,6 +38,8 @@ const rates = arg('rates', '50,100,200').split(',').map(Number);
 const connections = Number(arg('connections', '10'));
 const instanceCounts = arg('instances', '1,2').split(',').map(Number);
 const profile = process.argv.includes('--profile');
+// --node-args "--trace-gc --max-semi-space-size=32": extra flags for the servers' node (NODE_OPTIONS refuses some, --trace-gc among them).
+const nodeArgs = arg('node-args', '').split(' ').filter(Boolean);
 // --repeat n: rounds per rate, targets interleaved; the table shows medians.
 const repeat = Number(arg('repeat', '1'));
 // --base <dist-server/index.js of another build>: its servers run beside this build's on the same
@@ -95,6 +98,7 @@ async function startServer(n: number | string, opts: { seed: boolean; serverMain
   const port = await freePort();
   const args = ['--enable-source-maps'];
   if (profile) args.push('--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`);
+  args.push(...nodeArgs);
   const child = startProcess(
     [...args, opts.serverMain],
     {
