@@ -1,5 +1,6 @@
 // Jobs: references, search, stage filter, sort, timeline, assignment rules.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { JobEvent } from '../../server/db/models';
 import { createOrgWithUsers, createTestContext, loginAs, type TestContext, type TestOrg } from '../helpers/test-app';
 
 let ctx: TestContext;
@@ -114,6 +115,17 @@ describe('changing a job', () => {
     expect(events.status).toBe(200);
     expect(events.body.events.map((e: { kind: string }) => e.kind)).toEqual(['created', 'stage_changed', 'updated', 'assigned', 'scheduled']);
     expect(events.body.events[1]).toMatchObject({ data: { from: 'enquiry', to: 'surveyed' }, user: { id: org.estimator.id } });
+  });
+
+  it('keeps events written in the same instant in the order they were written', async () => {
+    const created = await estimator.post('/api/jobs').send({ customerId: customers['Zeno Quill'], propertyAddress: address('7 Tie Lane', 'FW7 7TL') });
+    const id = created.body.job.id;
+    // One save that assigns and schedules writes both events within a millisecond; here the tie is certain.
+    const at = new Date('2027-01-05T09:00:00.000Z');
+    const kinds = ['scheduled', 'assigned', 'updated', 'stage_changed', 'assigned', 'scheduled'];
+    for (const kind of kinds) await JobEvent.create({ organisationId: org.id, jobId: id, userId: org.office.id, kind, createdAt: at });
+    const events = await estimator.get(`/api/jobs/${id}/events`);
+    expect(events.body.events.map((e: { kind: string }) => e.kind)).toEqual(['created', ...kinds]);
   });
 
   it('lists the company’s active installers for assignment', async () => {

@@ -13,6 +13,7 @@ import * as m0505 from './0505-mail-waiting-index';
 import * as m0506 from './0506-job-actuals';
 import * as m0507 from './0507-actuals-edits';
 import * as m0508 from './0508-takeoff-format-column';
+import * as m0509 from './0509-job-event-order';
 
 type Migration = RunnableMigration<QueryInterface>;
 const entry = (name: string, mod: { up: Migration['up']; down?: Migration['down'] }): Migration => ({ name, up: mod.up, down: mod.down });
@@ -36,4 +37,5 @@ export const MIGRATIONS: Migration[] = [
   entry('0506-job-actuals', m0506),
   entry('0507-actuals-edits', m0507),
   entry('0508-takeoff-format-column', m0508),
+  entry('0509-job-event-order', m0509),
 ];

@@ -22,6 +22,8 @@ export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttr
   declare kind: string;
   declare data: CreationOptional<Record<string, unknown>>;
   declare createdAt: CreationOptional<Date>;
+  /** Insertion order, numbered by the database: events written in the same millisecond keep their order. */
+  declare seq: CreationOptional<string>;
   declare user?: NonAttribute<User | null>;
 
   static initModel(sequelize: Sequelize) {
@@ -31,6 +33,7 @@ export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttr
         kind: { type: DataTypes.STRING(40), allowNull: false },
         data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         createdAt: DataTypes.DATE,
+        seq: { type: DataTypes.BIGINT, autoIncrement: true },
       },
       { sequelize, tableName: 'job_events', updatedAt: false },
     );

@@ -183,7 +183,10 @@ export function createJobsService(deps: AppDeps) {
       const rows = await JobEvent.findAll({
         where: { jobId: job.id },
         include: [{ model: User, as: 'user', attributes: ['id', 'name'] }],
-        order: [['createdAt', 'ASC']],
+        order: [
+          ['createdAt', 'ASC'],
+          ['seq', 'ASC'],
+        ],
       });
       const dtos = rows.map((e) => ({
         id: e.id,

@@ -225,7 +225,10 @@ export function createPaymentsService(deps: AppDeps) {
       if (!(await Job.findOne({ where: { id: jobId, organisationId }, attributes: ['id'] }))) throw new NotFoundError('job');
       const events = await JobEvent.findAll({
         where: { organisationId, jobId, kind: { [Op.in]: ['deposit_paid', 'invoice_issued', 'invoice_paid', 'credit_note_issued', 'payment_refunded'] } },
-        order: [['createdAt', 'ASC']],
+        order: [
+          ['createdAt', 'ASC'],
+          ['seq', 'ASC'],
+        ],
       });
       const kindMap: Record<string, PaymentTimelineEntry['kind']> = {
         deposit_paid: 'deposit-paid',
