@@ -19,10 +19,11 @@ export const BOOLEAN_GRID_MM = 1e-3;
 // those near-coincidences and changes no area a takeoff can show.
 /** `x` on the booleans' input grid (`BOOLEAN_GRID_MM`), as the sweep sees it, mm. */
 export const snapToBooleanGrid = (x: number) => Math.round(x / BOOLEAN_GRID_MM) * BOOLEAN_GRID_MM;
-const snap = snapToBooleanGrid;
 
 function toPc(polys: PolygonWithHoles[]): PcMultiPolygon {
-  return polys.filter((p) => p.length > 0 && p[0].length >= 3).map((p) => p.map((r) => r.map((q) => [snap(q[0]), snap(q[1])] as Pair)));
+  return polys
+    .filter((p) => p.length > 0 && p[0].length >= 3)
+    .map((p) => p.map((r) => r.map((q) => [snapToBooleanGrid(q[0]), snapToBooleanGrid(q[1])] as Pair)));
 }
 
 function fromPc(mp: PcMultiPolygon): MultiPolygon {

@@ -99,8 +99,16 @@ export function polygonContainsPoint(ring: Ring, p: readonly number[]): boolean 
   return inside;
 }
 
-/** Axis-aligned bounds `{ minX, minY, maxX, maxY }` of some rings, mm. Empty input gives Infinity bounds. */
-export function polygonBounds(rings: Ring[]): { minX: number; minY: number; maxX: number; maxY: number } {
+/** Axis-aligned bounds, mm. */
+export interface Box {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+}
+
+/** Axis-aligned bounds of some rings, mm. Empty input gives Infinity bounds. */
+export function polygonBounds(rings: Ring[]): Box {
   let minX = Infinity;
   let minY = Infinity;
   let maxX = -Infinity;

@@ -1,14 +1,6 @@
-import type { Ring } from './polygon';
+import type { Box, Ring } from './polygon';
 import { segmentIntersection } from './segment';
 import type { Vec2 } from './vector';
-
-/** Axis-aligned bounds, mm. */
-export interface Box {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-}
 
 /**
  * Clearances, mm: an edge whose bounds come within `EDGE_CLEARANCE_MM` of a box is kept as it

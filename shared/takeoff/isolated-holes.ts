@@ -1,11 +1,9 @@
 import { segmentIntersection } from '../geometry/segment';
-import { polygonBounds, type MultiPolygon, type PolygonWithHoles, type Ring } from '../geometry/polygon';
+import { polygonBounds, type Box, type MultiPolygon, type PolygonWithHoles, type Ring } from '../geometry/polygon';
 import { differencePolygons } from '../geometry/boolean';
 import { differenceOfRing } from '../geometry/ring-difference';
 import { indexedContainsPoint, indexRing, slabOf, type RingIndex } from '../geometry/ring-index';
 import type { Vec2 } from '../geometry/vector';
-
-type Box = { minX: number; minY: number; maxX: number; maxY: number };
 
 const overlaps = (a: Box, b: Box) => a.minX <= b.maxX && a.maxX >= b.minX && a.minY <= b.maxY && a.maxY >= b.minY;
 
