@@ -1,6 +1,7 @@
 import { readStoredTakeoff } from '../../../shared/takeoff/takeoff-schema';
 import { latestRevisionsOfJobs } from '../../modules/plan-revisions/revisions.repository';
 import { Job, JobActual, JobCompletion, Organisation, QuoteLine, Quote, User } from '../models';
+import type { DemoTimes } from './demo-history';
 
 /**
  * Invented site records for the demo's finished jobs, in order of reference: rolls more or fewer
@@ -15,8 +16,11 @@ const VARIATIONS = [
   { rolls: 1, returned: 2, hours: 1.05, hatch: 1 },
 ];
 
-/** Marks the company's installed and closed jobs finished with invented actuals; jobs already finished are left alone. */
-export async function seedDemoActuals(companyName: string): Promise<void> {
+/**
+ * Marks the company's installed and closed jobs finished with invented actuals, at the moment of
+ * their history (`times`) that they were installed; jobs already finished are left alone.
+ */
+export async function seedDemoActuals(companyName: string, times: Map<string, DemoTimes>): Promise<void> {
   const org = await Organisation.findOne({ where: { name: companyName } });
   if (!org) return;
   const installers = await User.findAll({ where: { organisationId: org.id, role: 'installer' }, order: [['email', 'ASC']] });
@@ -32,7 +36,7 @@ export async function seedDemoActuals(companyName: string): Promise<void> {
     const hours = Math.round(quoted * v.hours * 4) / 4;
     const lead = installers.find((u) => u.id === job.assignedInstallerId) ?? installers[0];
     const mate = installers.find((u) => u.id !== lead?.id);
-    const at = new Date(`${job.installDate ?? '2026-11-01'}T15:30:00Z`);
+    const at = times.get(job.id)?.installed ?? new Date();
     await JobCompletion.create({ jobId: job.id, organisationId: org.id, userId: lead?.id ?? null, completedAt: at, handoverKey: null });
     await JobActual.create({
       jobId: job.id,

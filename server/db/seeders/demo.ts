@@ -7,11 +7,13 @@ import { planSchema, type Plan } from '../../../shared/plan/plan-schema';
 import { validatePlan } from '../../../shared/plan/validate-plan';
 import { REPO_ROOT } from '../../config';
 import type { AppDeps } from '../../deps';
-import { Customer, Job, JobEvent, Organisation, Space, User } from '../models';
+import { addDaysIso, todayIso } from '../../../shared/dates';
+import { Customer, Job, Organisation, Space, User } from '../models';
 import { nextJobReference } from '../../modules/jobs/job-reference';
 import { companyTakeoffInputs, storePlanRevision } from '../../modules/plan-revisions/plan-takeoff';
 import { createCompanyDefaults, seedDemoCatalogue } from '../../modules/settings/settings.service';
 import { seedDemoActuals } from './actuals-demo';
+import { demoStagePath, demoTimes, seedDemoHistory, type DemoTimes } from './demo-history';
 import { seedDemoDocuments } from './documents-demo';
 
 /** Demo-only password, shown in the README. */
@@ -42,7 +44,8 @@ type DemoJob = {
   postcode: string;
   stage: JobStage;
   installer?: 'installer' | 'installer2';
-  installDate?: string;
+  /** Days from the seeding day to the install (negative: done already), so the history always fits before now. */
+  installInDays?: number;
   estimator: 'estimator' | 'estimator2';
   spaces: string[];
   accessNotes?: string;
@@ -117,7 +120,7 @@ const DEMO_JOBS: DemoJob[] = [
     postcode: 'KW3 6NP',
     stage: 'scheduled',
     installer: 'installer',
-    installDate: '2027-01-18',
+    installInDays: 45,
     estimator: 'estimator',
     spaces: ['Main loft'],
     accessNotes: 'Key with the neighbour at no. 4. Dog on site.',
@@ -131,7 +134,7 @@ const DEMO_JOBS: DemoJob[] = [
     postcode: 'AB1 7QR',
     stage: 'scheduled',
     installer: 'installer2',
-    installDate: '2027-01-20',
+    installInDays: 47,
     estimator: 'estimator2',
     spaces: ['Main loft'],
   },
@@ -144,7 +147,7 @@ const DEMO_JOBS: DemoJob[] = [
     postcode: 'KW3 2ST',
     stage: 'installed',
     installer: 'installer',
-    installDate: '2026-11-24',
+    installInDays: -10,
     estimator: 'estimator',
     spaces: ['Main loft'],
   },
@@ -157,7 +160,7 @@ const DEMO_JOBS: DemoJob[] = [
     postcode: 'BC2 8UV',
     stage: 'closed',
     installer: 'installer2',
-    installDate: '2026-10-30',
+    installInDays: -35,
     estimator: 'estimator2',
     spaces: ['Main loft'],
   },
@@ -172,14 +175,14 @@ const DEMO_JOBS: DemoJob[] = [
     estimator: 'estimator',
     spaces: ['Main loft', 'Garage loft'],
   },
-  // Finished earlier in the year: with the two above they give the estimate-against-actual report its history.
+  // Finished in the months before: with the two above they give the estimate-against-actual report its history.
   ...(
     [
-      ['Gwen Ashdown', 'gwen.ashdown@example.com', '2 Tanner Close', '2026-09-15', 'installer', 'estimator'],
-      ['Rupert Iles', 'rupert.iles@example.com', '41 Orchard Lane', '2026-10-06', 'installer2', 'estimator2'],
-      ['Mei Lin Oduya', 'meilin.oduya@example.com', '9 Cobble Yard', '2026-11-10', 'installer', 'estimator'],
+      ['Gwen Ashdown', 'gwen.ashdown@example.com', '2 Tanner Close', -80, 'installer', 'estimator'],
+      ['Rupert Iles', 'rupert.iles@example.com', '41 Orchard Lane', -59, 'installer2', 'estimator2'],
+      ['Mei Lin Oduya', 'meilin.oduya@example.com', '9 Cobble Yard', -24, 'installer', 'estimator'],
     ] as const
-  ).map(([customer, email, line1, installDate, installer, estimator], i) => ({
+  ).map(([customer, email, line1, installInDays, installer, estimator], i) => ({
     customer,
     email,
     phone: `01632 96012${i}`,
@@ -188,7 +191,7 @@ const DEMO_JOBS: DemoJob[] = [
     postcode: `KW3 ${i + 4}AA`,
     stage: 'closed' as const,
     installer,
-    installDate,
+    installInDays,
     estimator,
     spaces: ['Main loft'],
   })),
@@ -215,7 +218,7 @@ const OTHER_JOBS: DemoJob[] = [
     postcode: 'NG9 2BB',
     stage: 'scheduled',
     installer: 'installer',
-    installDate: '2027-01-22',
+    installInDays: 49,
     estimator: 'estimator',
     spaces: ['Main loft'],
   },
@@ -268,9 +271,29 @@ export function loadExamplePlans(dir = path.join(REPO_ROOT, 'examples')): Array<
   return out;
 }
 
-async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS, jobs: DemoJob[], plans: Plan[], passwordHash: string) {
+/** The install day `days` from `today`, moved on past a weekend (the demo's installers work weekdays; at most two days, so a past install stays past). */
+function installDay(today: string, days: number): string {
+  const day = addDaysIso(today, days);
+  const weekday = new Date(`${day}T00:00:00Z`).getUTCDay();
+  return weekday === 6 ? addDaysIso(day, 2) : weekday === 0 ? addDaysIso(day, 1) : day;
+}
+
+/** Creates one company, its users and jobs; returns when each job's history happened, by job id. */
+async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS, jobs: DemoJob[], plans: Plan[], passwordHash: string, now: Date) {
   const { sequelize } = deps;
   const firstPlans: { spaceId: string; authorId: string | null; plan: Plan }[] = [];
+  const times = new Map<string, DemoTimes>();
+  // Created in the order they came in, so references follow their enquiries as the app numbers them;
+  // each keeps the plans of its place in the list.
+  let planIndex = 0;
+  const dated = jobs
+    .map((j, i) => {
+      const installDate = j.installInDays === undefined ? null : installDay(todayIso(now), j.installInDays);
+      const firstPlan = planIndex;
+      planIndex += j.spaces.length;
+      return { j, installDate, firstPlan, at: demoTimes(demoStagePath(j.stage), installDate, i, now) };
+    })
+    .sort((a, b) => a.at.created!.getTime() - b.at.created!.getTime());
   const orgId = await sequelize.transaction(async (transaction) => {
     const org = await Organisation.create({ name }, { transaction });
     await createCompanyDefaults(org.id, name, transaction);
@@ -278,8 +301,7 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
     for (const u of users) {
       byKey.set(u.key, await User.create({ organisationId: org.id, email: u.email, name: u.name, role: u.role, passwordHash }, { transaction }));
     }
-    let planIndex = 0;
-    for (const j of jobs) {
+    for (const { j, installDate, firstPlan, at } of dated) {
       const customer = await Customer.create(
         {
           organisationId: org.id,
@@ -305,32 +327,18 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
           postcode: j.postcode,
           stage: j.stage,
           assignedInstallerId: j.installer ? byKey.get(j.installer)!.id : null,
-          installDate: j.installDate ?? null,
+          installDate,
           accessNotes: j.accessNotes ?? '',
           notes: j.notes ?? '',
           createdById: author?.id ?? null,
+          createdAt: at.created,
         },
         { transaction },
       );
-      await JobEvent.create(
-        {
-          organisationId: org.id,
-          jobId: job.id,
-          userId: author?.id ?? null,
-          kind: 'created',
-          data: { reference: job.reference, stage: 'enquiry', demo: true },
-        },
-        { transaction },
-      );
-      if (j.stage !== 'enquiry') {
-        await JobEvent.create(
-          { organisationId: org.id, jobId: job.id, userId: author?.id ?? null, kind: 'stage_changed', data: { from: 'enquiry', to: j.stage } },
-          { transaction },
-        );
-      }
+      times.set(job.id, at);
       for (const [position, spaceName] of j.spaces.entries()) {
         const space = await Space.create({ organisationId: org.id, jobId: job.id, name: spaceName, position }, { transaction });
-        const plan = plans[planIndex++ % plans.length];
+        const plan = plans[(firstPlan + position) % plans.length];
         firstPlans.push({ spaceId: space.id, authorId: author?.id ?? null, plan: { ...plan, name: spaceName } });
       }
     }
@@ -341,6 +349,7 @@ async function seedCompany(deps: AppDeps, name: string, users: typeof DEMO_USERS
   await seedDemoCatalogue(orgId, { hatchKitInsulationMm: 100 });
   const inputs = await companyTakeoffInputs(orgId);
   for (const p of firstPlans) await storePlanRevision(sequelize, { organisationId: orgId, ...p, note: 'demo plan' }, { inputs });
+  return times;
 }
 
 /**
@@ -352,9 +361,14 @@ export async function seedDemo(deps: AppDeps): Promise<boolean> {
   const examples = loadExamplePlans();
   const plans = examples.length ? examples.map((e) => e.plan) : [planSchema.parse(FALLBACK_PLAN)];
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, deps.config.bcryptRounds);
-  await seedCompany(deps, DEMO_COMPANY, DEMO_USERS, DEMO_JOBS, plans, passwordHash);
-  await seedCompany(deps, OTHER_COMPANY, OTHER_USERS, OTHER_JOBS, plans, passwordHash);
-  await seedDemoDocuments(deps, [DEMO_COMPANY, OTHER_COMPANY]);
-  await seedDemoActuals(DEMO_COMPANY);
+  // One clock for the whole seed: every date of the demo is placed relative to it.
+  const now = new Date();
+  const times = new Map([
+    ...(await seedCompany(deps, DEMO_COMPANY, DEMO_USERS, DEMO_JOBS, plans, passwordHash, now)),
+    ...(await seedCompany(deps, OTHER_COMPANY, OTHER_USERS, OTHER_JOBS, plans, passwordHash, now)),
+  ]);
+  await seedDemoDocuments(deps, [DEMO_COMPANY, OTHER_COMPANY], times);
+  await seedDemoActuals(DEMO_COMPANY, times);
+  await seedDemoHistory(times);
   return true;
 }
