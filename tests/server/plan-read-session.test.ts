@@ -7,6 +7,7 @@ import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { User } from '../../server/db/models';
 import { SESSION_MAX_AGE_MS } from '../../server/middleware/session';
+import { planReadWithSession } from '../../server/modules/plans/plan-read-session';
 import { createPlansService } from '../../server/modules/plans/plans.service';
 import type { SessionUser } from '../../server/types';
 import { planSchema } from '../../shared/plan/plan-schema';
@@ -71,13 +72,50 @@ describe('GET /api/spaces/:id/plan for an ordinary signed-in read', () => {
         expect(res.headers['set-cookie']).toBeUndefined();
         text = res.text;
       });
-      expect(names).toEqual(['plan-read-session']);
+      expect(names).toEqual(['plan-read-session-1']);
       expect(text).toBe(JSON.stringify(await service.get(sessionUser(user), assigned)));
     }
     // The viewer is sent the stored takeoff, the writer none.
     const viewer = JSON.parse(JSON.stringify(await service.get(sessionUser(org.installer), assigned)));
     expect(viewer.takeoff?.format).toMatch(/^quiltline-takeoff\//);
     expect((await service.get(sessionUser(org.office), assigned)).takeoff).toBeNull();
+  });
+});
+
+describe('plan reads that arrive together', () => {
+  it('share one statement, and each is answered for its own user or handed on', async () => {
+    const handler = planReadWithSession(ctx.deps.pool, ctx.config.sessionSecret);
+    const other = await createOrgWithUsers(ctx);
+    const theirs = (await createJob(other, { plan })).space.id;
+    const [office, installer] = [await cookieOf(org.office), await cookieOf(org.installer)];
+    // Who asks for which space, and whether this read answers it (else the usual stack decides).
+    const asks = [
+      { cookie: office, space: assigned, user: org.office, answered: true },
+      { cookie: installer, space: assigned, user: org.installer, answered: true },
+      { cookie: installer, space: unassigned, user: org.installer, answered: false }, // not assigned to them
+      { cookie: office, space: theirs, user: org.office, answered: false }, // another company's
+      { cookie: office, space: unassigned, user: org.office, answered: true },
+    ];
+    let outcomes: { body?: unknown; handedOn?: boolean }[] = [];
+    const names = await statementsDuring(async () => {
+      // Called in one turn of the event loop, as requests read from several sockets at once are.
+      outcomes = await Promise.all(
+        asks.map(
+          (a) =>
+            new Promise<{ body?: unknown; handedOn?: boolean }>((resolve, reject) => {
+              const req = { headers: { cookie: a.cookie }, params: { id: a.space } };
+              const res = { json: (body: unknown) => resolve({ body }) };
+              handler(req as never, res as never, (err?: unknown) => (err ? reject(err) : resolve({ handedOn: true })));
+            }),
+        ),
+      );
+    });
+    expect(names).toEqual([`plan-read-session-${asks.length}`]);
+    const service = createPlansService(ctx.deps);
+    for (const [k, a] of asks.entries()) {
+      if (!a.answered) expect(outcomes[k], `read ${k}`).toEqual({ handedOn: true });
+      else expect(JSON.stringify(outcomes[k].body), `read ${k}`).toBe(JSON.stringify(await service.get(sessionUser(a.user), a.space)));
+    }
   });
 });
 

@@ -1,3 +1,4 @@
+import DataLoader from 'dataloader';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type pg from 'pg';
 import { idSchema } from '../../../shared/api/common';
@@ -15,25 +16,61 @@ import { planAnswer } from './plans.service';
 const WRITER_ROLES = ROLES.filter((role) => can({ role }, 'plans:write'));
 
 // The session with its user, then that user's company's plan read: one statement and one round trip
-// for what would otherwise be the session read and then the plan read. Each side comes back as one
-// JSON column (the types as the pg driver would parse them: json as objects, text, numbers, booleans)
-// and the revision's time as its own, a Date as ever: node-postgres describes and parses every column
-// of every row afresh, and 3 columns instead of 22 is about a tenth less of its time on this read.
-const SQL = `
-  WITH who AS (${sessionWithUserSql('$1')})
-  SELECT to_json(who) AS who, to_json(plan_read) AS plan_read, plan_read."createdAt"
-  FROM who LEFT JOIN LATERAL (${planReadSql({ spaceId: '$2', organisationId: 'who.organisation_id', withTakeoff: 'NOT (who.role = ANY($3::text[]))' })}) plan_read ON true`;
+// for what would otherwise be the session read and then the plan read, and one statement for all
+// the plan reads that arrive together (VALUES numbers them, so each row says whose it is): each
+// statement costs PostgreSQL and node a fixed price (a socket write and read, a wake-up, a portal)
+// that is most of a single read's. VALUES rather than unnest of arrays: its row count is known to
+// the generic plan, which PostgreSQL then keeps (for unnest it guesses ten rows and plans afresh on
+// every call). OFFSET 0 keeps each side a lookup per row, never a join over every session or
+// every space of the company. Each side comes back as one JSON column (the types as the pg driver
+// would parse them: json as objects, text, numbers, booleans) and the revision's time as its own,
+// a Date as ever: node-postgres describes and parses every column of every row afresh.
+const sqlFor = (reads: number) => `
+  SELECT req.i, to_json(who) AS who, to_json(plan_read) AS plan_read, plan_read."createdAt"
+  FROM (VALUES ${Array.from({ length: reads }, (_, k) => `(${k}, $${2 * k + 2}::text, $${2 * k + 3}::uuid)`).join(', ')}) AS req(i, sid, space_id)
+  CROSS JOIN LATERAL (${sessionWithUserSql('req.sid')} OFFSET 0) who
+  LEFT JOIN LATERAL (${planReadSql({ spaceId: 'req.space_id', organisationId: 'who.organisation_id', withTakeoff: 'NOT (who.role = ANY($1::text[]))' })}
+    OFFSET 0) plan_read ON true`;
 
 interface Row {
+  /** the read's place in the statement, from 0 */
+  i: number;
   who: SessionUserRow;
   /** null when there is no such space in the user's company */
   plan_read: (Omit<PlanReadRow, 'createdAt'> & { createdAt: unknown }) | null;
   createdAt: Date | null;
 }
 
+interface Ask {
+  sid: string;
+  spaceId: string;
+}
+
+/** Plan reads waiting for the same statement: at most this many share one. */
+const READS_PER_STATEMENT = 32;
+
+/**
+ * The reads asked for while the event loop polls sockets go out as one statement once it has
+ * polled (setImmediate: the requests that arrived together, without waiting on any clock). Nothing
+ * is cached: every read asks the database afresh.
+ */
+function planReadLoader(pool: pg.Pool): DataLoader<Ask, Row | undefined> {
+  // One named statement per number of reads: each connection prepares a size on its first use.
+  const statements = Array.from({ length: READS_PER_STATEMENT + 1 }, (_, n) => ({ name: `plan-read-session-${n}`, text: sqlFor(n) }));
+  return new DataLoader<Ask, Row | undefined>(
+    async (asks) => {
+      const { rows } = await pool.query<Row>({ ...statements[asks.length], values: [WRITER_ROLES, ...asks.flatMap((a) => [a.sid, a.spaceId])] });
+      const answers: (Row | undefined)[] = new Array(asks.length);
+      for (const row of rows) answers[row.i] = row;
+      return answers;
+    },
+    { cache: false, batchScheduleFn: (dispatch) => setImmediate(dispatch), maxBatchSize: READS_PER_STATEMENT },
+  );
+}
+
 /**
  * GET /api/spaces/:id/plan, the editor's read and the busiest authenticated GET, answered in one
- * round trip to the database, ahead of express-session. It answers only the ordinary case: a
+ * round trip to the database (shared with the plan reads that arrive with it), ahead of express-session. It answers only the ordinary case: a
  * signed session cookie whose session names an active user, with no sliding-expiry refresh due,
  * and a space that user may see. Anything else (no or bad cookie, a refresh to store, a user to
  * sign out, a 404, a malformed id) is left to the usual stack, which reads again and decides,
@@ -42,13 +79,14 @@ interface Row {
  * nothing is written, as there for an unchanged session.
  */
 export function planReadWithSession(pool: pg.Pool, sessionSecret: string): RequestHandler {
+  const loader = planReadLoader(pool);
   return (req: Request, res: Response, next: NextFunction) => {
     const sid = sessionIdFromCookie(req.headers.cookie, SESSION_COOKIE, sessionSecret);
     const spaceId = idSchema.safeParse(req.params.id);
     if (!sid || !spaceId.success) return next();
-    pool
-      .query<Row>({ name: 'plan-read-session', text: SQL, values: [sid, spaceId.data, WRITER_ROLES] })
-      .then(({ rows: [row] }) => {
+    loader
+      .load({ sid, spaceId: spaceId.data })
+      .then((row) => {
         const user = row && ordinaryUser(row.who);
         const space = user && row.plan_read ? visibleSpacePlan(user, { ...row.plan_read, createdAt: row.createdAt }) : null;
         if (!user || !space) return next();
