@@ -1,10 +1,11 @@
 import type { Vec2 } from './vector';
 import { ringWithPositiveArea, type Ring } from './polygon';
+import { chunkFates, RING_CHUNK, type RingChunks } from './ring-chunks';
 
 // Two coordinate lists used in turn, each pass reading one and filling the other; kept between
 // calls (grown as needed), so clipping a long outline by many small eaves bands makes no garbage
 // beyond the points it returns.
-const scratch = { x: [new Float64Array(256), new Float64Array(256)], y: [new Float64Array(256), new Float64Array(256)] };
+const scratch = { x: [new Float64Array(256), new Float64Array(256)], y: [new Float64Array(256), new Float64Array(256)], fates: new Int32Array(64) };
 
 /**
  * Sutherland–Hodgman clipping of any simple ring by a convex ring (Sutherland and Hodgman,
@@ -12,8 +13,16 @@ const scratch = { x: [new Float64Array(256), new Float64Array(256)], y: [new Flo
  * the result is exact; where the subject is concave the result may contain zero-width bridges
  * along the clip's edges (harmless for areas and drawing, not for further booleans).
  * Returns an empty array when nothing is left.
+ *
+ * With `chunks` (`ringChunks(subject)`, made once for a subject clipped many times) the points
+ * that cannot change the result are left out before the first pass: a point whose neighbours
+ * and itself all lie inside the clip's first k half-planes and outside the next one (as their
+ * chunks' bounds show) is copied by the k passes before, makes no crossing with either
+ * neighbour and is dropped by the next pass, as are they: without it the neighbours meet, and
+ * make no crossing either. Points 0 and n−1 are always kept (the result starts where the
+ * subject does). The result is the same, point for point.
  */
-export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
+export function clipRingByConvex(subject: Ring, convexClip: Ring, chunks?: RingChunks): Vec2[] {
   const clip = ringWithPositiveArea(convexClip);
   const m = clip.length;
   const { x: X, y: Y } = scratch;
@@ -23,10 +32,33 @@ export function clipRingByConvex(subject: Ring, convexClip: Ring): Vec2[] {
   }
   let xs = X[1];
   let ys = Y[1];
-  let n = subject.length;
-  for (let k = 0; k < n; k++) {
-    xs[k] = subject[k][0];
-    ys[k] = subject[k][1];
+  let n = 0;
+  if (chunks && chunks.pointCount === subject.length) {
+    if (scratch.fates.length < chunks.minX.length) scratch.fates = new Int32Array(2 * chunks.minX.length);
+    const fates = scratch.fates;
+    chunkFates(chunks, clip, fates);
+    const last = subject.length - 1;
+    const nc = chunks.minX.length;
+    for (let c = 0; c < nc; c++) {
+      const f = fates[c];
+      const k0 = c * RING_CHUNK;
+      const k1 = Math.min(last, k0 + RING_CHUNK - 1);
+      const sameBefore = f >= 0 && c > 0 && fates[c - 1] === f;
+      const sameAfter = f >= 0 && c + 1 < nc && fates[c + 1] === f;
+      // A chunk whose neighbours share its fate gives nothing (its ends are interior to the run).
+      if (sameBefore && sameAfter) continue;
+      for (let k = k0; k <= k1; k++) {
+        if (f >= 0 && k > 0 && k < last && (k > k0 || sameBefore) && (k < k1 || sameAfter)) continue;
+        xs[n] = subject[k][0];
+        ys[n++] = subject[k][1];
+      }
+    }
+  } else {
+    n = subject.length;
+    for (let k = 0; k < n; k++) {
+      xs[k] = subject[k][0];
+      ys[k] = subject[k][1];
+    }
   }
   for (let i = 0; i < m && n; i++) {
     const a = clip[i];

@@ -3,6 +3,7 @@ import { EXCLUSION_KINDS } from '../plan/plan-schema';
 import { circlePolygon, polygonBuffer } from '../geometry/offset';
 import { differencePolygons, intersectPolygons } from '../geometry/boolean';
 import { clipRingByConvex } from '../geometry/clip-convex';
+import { ringChunks, type RingChunks } from '../geometry/ring-chunks';
 import { subtractShapes } from './isolated-holes';
 import { ringNearBoxes } from '../geometry/ring-near-boxes';
 import {
@@ -82,6 +83,8 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
   // With eaves ventilators the insulation runs over the wall plate: no band is kept back.
   const gap = eavesModeOf(plan, settings) === 'ventilators' ? 0 : plan.eavesGapMm;
   const seen = new Set<number>();
+  // One outline clipped by every band: its chunks are worked out once (see clipRingByConvex).
+  let chunks: RingChunks | undefined;
   for (const edgeIndex of plan.eavesEdges) {
     if (edgeIndex >= plan.outline.length || seen.has(edgeIndex)) continue;
     seen.add(edgeIndex);
@@ -105,7 +108,7 @@ export function computePlanRegions(plan: Plan, settings: TakeoffSettings): PlanR
       [b[0] + nx, b[1] + ny],
       [a[0] + nx, a[1] + ny],
     ];
-    const band = clipRingByConvex(outline, rect);
+    const band = clipRingByConvex(outline, rect, (chunks ??= ringChunks(outline)));
     eavesBands.push({ edgeIndex, polygon: band, areaMm2: polygonArea(band), edgeLengthMm: len, rect });
   }
   const rects = eavesBands.filter((b) => b.rect.length).map((b) => [b.rect]);
