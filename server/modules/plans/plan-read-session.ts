@@ -56,10 +56,10 @@ const READS_PER_STATEMENT = 32;
  */
 function planReadLoader(pool: pg.Pool): DataLoader<Ask, Row | undefined> {
   // One named statement per number of reads: each connection prepares a size on its first use.
-  const statements = Array.from({ length: READS_PER_STATEMENT + 1 }, (_, n) => ({ name: `plan-read-session-${n}`, text: sqlFor(n) }));
+  const statements = Array.from({ length: READS_PER_STATEMENT }, (_, k) => ({ name: `plan-read-session-${k + 1}`, text: sqlFor(k + 1) }));
   return new DataLoader<Ask, Row | undefined>(
     async (asks) => {
-      const { rows } = await pool.query<Row>({ ...statements[asks.length], values: [WRITER_ROLES, ...asks.flatMap((a) => [a.sid, a.spaceId])] });
+      const { rows } = await pool.query<Row>({ ...statements[asks.length - 1], values: [WRITER_ROLES, ...asks.flatMap((a) => [a.sid, a.spaceId])] });
       const answers: (Row | undefined)[] = new Array(asks.length);
       for (const row of rows) answers[row.i] = row;
       return answers;
